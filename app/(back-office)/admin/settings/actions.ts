@@ -1,0 +1,11 @@
+'use server';
+import { revalidatePath } from 'next/cache';
+import { guardedAction } from '@/lib/http/action';
+import { settingsInput } from '@/lib/schemas/settings';
+import { updateSettings } from '@/lib/data/settings';
+
+export const saveSettingsAction = guardedAction('settings.manage', settingsInput, async (user, data) => {
+  await updateSettings(user.id, data);
+  revalidatePath('/', 'layout');
+  return { ok: true };
+});

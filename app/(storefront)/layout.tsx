@@ -1,0 +1,15 @@
+import { ShopHeader } from '@/components/layout/shop-header';
+import { SiteFooter } from '@/components/layout/site-footer';
+import { currentUser } from '@/lib/auth/session';
+import { getSettings } from '@/lib/data/settings';
+
+export default async function StorefrontLayout({ children }: { children: React.ReactNode }) {
+  const [settings, user] = await Promise.all([getSettings(), currentUser()]);
+  return (
+    <>
+      <ShopHeader businessName={settings.businessName} user={user} />
+      <main id="main" className="mx-auto max-w-6xl px-4 py-8">{children}</main>
+      <SiteFooter businessName={settings.businessName} address={settings.address} />
+    </>
+  );
+}

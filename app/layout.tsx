@@ -1,0 +1,27 @@
+import '@fontsource/lora/400.css';
+import '@fontsource/lora/600.css';
+import '@fontsource/lora/700.css';
+import '@fontsource/inter/400.css';
+import '@fontsource/inter/600.css';
+import './globals.css';
+import type { Metadata, Viewport } from 'next';
+
+export const metadata: Metadata = {
+  title: { default: 'Combtrace', template: '%s · Combtrace' },
+  description: 'Honey from the colony to the customer.',
+};
+
+export const viewport: Viewport = { width: 'device-width', initialScale: 1, themeColor: '#1b3a2a' };
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en">
+      <body className="min-h-screen bg-paper text-ink">
+        <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2">
+          Skip to content
+        </a>
+        {children}
+      </body>
+    </html>
+  );
+}

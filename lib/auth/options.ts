@@ -1,0 +1,74 @@
+import type { NextAuthOptions } from 'next-auth';
+import CredentialsProvider from 'next-auth/providers/credentials';
+import { z } from 'zod';
+import { authenticate } from '@/lib/data/sign-in';
+import { bumpSessionVersion } from '@/lib/data/users';
+import { isRole, type Role } from './roles';
+
+declare module 'next-auth' {
+  interface Session {
+    user: { id: number; name: string; email: string; role: Role; sv: number };
+  }
+  interface User {
+    role: Role;
+    sessionVersion: number;
+  }
+}
+declare module 'next-auth/jwt' {
+  interface JWT {
+    uid?: number;
+    role?: Role;
+    sv?: number;
+  }
+}
+
+const credentials = z.object({ email: z.string().trim().toLowerCase().email().max(254), password: z.string().min(1).max(1024) });
+
+function clientIp(headers: Record<string, unknown> | undefined): string {
+  const fwd = headers?.['x-forwarded-for'];
+  const first = typeof fwd === 'string' ? fwd.split(',')[0].trim() : '';
+  return first || 'local';
+}
+
+export const authOptions: NextAuthOptions = {
+  secret: process.env.NEXTAUTH_SECRET,
+  session: { strategy: 'jwt', maxAge: 8 * 60 * 60 },
+  pages: { signIn: '/sign-in', error: '/sign-in' },
+  providers: [
+    CredentialsProvider({
+      name: 'E-mail and password',
+      credentials: { email: { label: 'E-mail', type: 'email' }, password: { label: 'Password', type: 'password' } },
+      async authorize(raw, req) {
+        const parsed = credentials.safeParse(raw);
+        if (!parsed.success) return null;
+        const result = await authenticate(parsed.data.email, parsed.data.password, clientIp(req?.headers));
+        if (result.status === 'throttled') throw new Error('Throttled');
+        if (result.status !== 'ok') return null;
+        const u = result.user;
+        return { id: String(u.id), name: u.name, email: u.email, role: u.role, sessionVersion: u.sessionVersion };
+      },
+    }),
+  ],
+  callbacks: {
+    async jwt({ token, user }) {
+      if (user) {
+        token.uid = Number(user.id);
+        token.role = user.role;
+        token.sv = user.sessionVersion;
+      }
+      return token;
+    },
+    async session({ session, token }) {
+      if (token.uid && isRole(token.role)) {
+        session.user = { id: token.uid, name: token.name ?? '', email: token.email ?? '', role: token.role, sv: token.sv ?? 0 };
+      }
+      return session;
+    },
+  },
+  events: {
+    // Signing out ends every session of that user, including a copied cookie (ASVS 7.4.1).
+    async signOut({ token }) {
+      if (token?.uid) await bumpSessionVersion(token.uid);
+    },
+  },
+};

@@ -1,0 +1,56 @@
+import { randomBytes, scrypt as scryptCb, timingSafeEqual, createHash, type ScryptOptions } from 'node:crypto';
+import { COMMON_PASSWORDS } from './common-passwords';
+
+function scrypt(password: string, salt: Buffer, keylen: number, opts: ScryptOptions): Promise<Buffer> {
+  return new Promise((resolve, reject) =>
+    scryptCb(password, salt, keylen, opts, (err, key) => (err ? reject(err) : resolve(key))),
+  );
+}
+
+// scrypt, memory-hard: OWASP Password Storage Cheat Sheet minimum N=2^17, r=8, p=1.
+// Tests may lower the cost with SCRYPT_LOG_N; the parameters travel inside each hash.
+const LOG_N = Number(process.env.SCRYPT_LOG_N ?? 17);
+const R = 8;
+const P = 1;
+const KEYLEN = 32;
+
+export async function hashPassword(password: string): Promise<string> {
+  const salt = randomBytes(16);
+  const N = 2 ** LOG_N;
+  const key = await scrypt(password.normalize('NFC'), salt, KEYLEN, { N, r: R, p: P, maxmem: 256 * N * R });
+  return `scrypt$${LOG_N}$${R}$${P}$${salt.toString('base64')}$${key.toString('base64')}`;
+}
+
+export async function verifyPassword(password: string, stored: string | null): Promise<boolean> {
+  // An unknown account still pays for one hash, so timing does not tell accounts apart.
+  const parts = (stored ?? DUMMY).split('$');
+  if (parts.length !== 6 || parts[0] !== 'scrypt') return false;
+  const [, logN, r, p, saltB64, keyB64] = parts;
+  const N = 2 ** Number(logN);
+  const expected = Buffer.from(keyB64, 'base64');
+  const key = await scrypt(password.normalize('NFC'), Buffer.from(saltB64, 'base64'), expected.length, {
+    N, r: Number(r), p: Number(p), maxmem: 256 * N * Number(r),
+  });
+  return stored !== null && timingSafeEqual(key, expected);
+}
+
+const DUMMY = `scrypt$${LOG_N}$8$1$${Buffer.alloc(16).toString('base64')}$${Buffer.alloc(32).toString('base64')}`;
+
+const COMMON = new Set(COMMON_PASSWORDS.map((p) => p.toLowerCase()));
+
+/** ASVS 6.2: at least 8 characters, no composition rules, common passwords refused. */
+export function passwordProblem(password: string): string | null {
+  if ([...password].length < 8) return 'Use at least 8 characters.';
+  if ([...password].length > 128) return 'Use at most 128 characters.';
+  if (COMMON.has(password.toLowerCase())) return 'That password is too common. Pick something less guessable.';
+  return null;
+}
+
+export function newToken(): { token: string; tokenHash: string } {
+  const token = randomBytes(32).toString('base64url');
+  return { token, tokenHash: sha256(token) };
+}
+
+export function sha256(value: string): string {
+  return createHash('sha256').update(value).digest('hex');
+}

@@ -1,0 +1,88 @@
+/**
+ * Super conflicts: a honey super that was on a colony while sugar was fed, or while
+ * a treatment whose product label does not allow honey supers was on (its window
+ * runs from application to removal plus the label's waiting period). The label
+ * governs (US EPA advisory under FIFRA; REFERENCES.md, Food safety).
+ * Dates are 'YYYY-MM-DD' calendar days compared as UTC day numbers; all ranges
+ * include both ends. An open end (null) means still ongoing: it runs through the
+ * super's pull date.
+ */
+
+export type FeedingKind = 'sugar_syrup' | 'fondant' | 'pollen_substitute' | 'other';
+export type FeedingRecord = { kind: FeedingKind; startedOn: string; endedOn: string | null };
+export type TreatmentRecord = {
+  kindName: string;
+  productName?: string | null;
+  supersAllowed: boolean;
+  waitingDays: number;
+  appliedOn: string;
+  removedOn: string | null;
+};
+export type SuperConflicts = { flagged: boolean; reasons: string[] };
+
+const DAY_MS = 86_400_000;
+const SUGAR_NAMES: Partial<Record<FeedingKind, string>> = { sugar_syrup: 'Sugar syrup', fondant: 'Fondant' };
+
+/** UTC day number of a calendar date; throws on anything but a real YYYY-MM-DD. */
+function dayNumber(date: string): number {
+  const match = /^(\d{4})-(\d{2})-(\d{2})$/.exec(date);
+  if (!match) throw new RangeError(`Not a YYYY-MM-DD date: ${date}`);
+  const [y, m, d] = [Number(match[1]), Number(match[2]), Number(match[3])];
+  const ms = Date.UTC(y, m - 1, d);
+  const back = new Date(ms);
+  if (back.getUTCFullYear() !== y || back.getUTCMonth() !== m - 1 || back.getUTCDate() !== d) {
+    throw new RangeError(`Not a calendar date: ${date}`);
+  }
+  return ms / DAY_MS;
+}
+
+function isoDate(day: number): string {
+  return new Date(day * DAY_MS).toISOString().slice(0, 10);
+}
+
+function overlaps(aStart: number, aEnd: number, bStart: number, bEnd: number): boolean {
+  return aStart <= bEnd && bStart <= aEnd;
+}
+
+function treatmentName(t: TreatmentRecord): string {
+  const product = t.productName?.trim();
+  return product ? `${t.kindName} (${product})` : t.kindName;
+}
+
+/** Whether a super's days on the colony clash with its colony's feedings or treatments. */
+export function superConflicts(
+  superOnColony: { putOn: string; pulled: string },
+  records: { feedings: FeedingRecord[]; treatments: TreatmentRecord[] },
+): SuperConflicts {
+  const on = dayNumber(superOnColony.putOn);
+  const off = dayNumber(superOnColony.pulled);
+  if (off < on) throw new RangeError(`Super pulled (${superOnColony.pulled}) before it was put on (${superOnColony.putOn})`);
+  const reasons: string[] = [];
+
+  for (const f of records.feedings) {
+    const name = SUGAR_NAMES[f.kind];
+    if (!name) continue;
+    const start = dayNumber(f.startedOn);
+    const end = f.endedOn === null ? off : dayNumber(f.endedOn);
+    if (!overlaps(on, off, start, end)) continue;
+    const span = f.endedOn === null ? `from ${f.startedOn} (still ongoing)` : `${f.startedOn} to ${f.endedOn}`;
+    reasons.push(`${name} fed ${span} while this super was on`);
+  }
+
+  for (const t of records.treatments) {
+    if (t.supersAllowed) continue;
+    if (!Number.isInteger(t.waitingDays) || t.waitingDays < 0) {
+      throw new RangeError(`Waiting days must be a whole number ≥ 0 (${treatmentName(t)})`);
+    }
+    const start = dayNumber(t.appliedOn);
+    const end = t.removedOn === null ? off : dayNumber(t.removedOn) + t.waitingDays;
+    if (!overlaps(on, off, start, end)) continue;
+    const span = t.removedOn === null
+      ? `applied ${t.appliedOn} (still on)`
+      : `applied ${t.appliedOn}, removed ${t.removedOn}` +
+        (t.waitingDays > 0 ? `, waiting period to ${isoDate(end)}` : '');
+    reasons.push(`${treatmentName(t)} ${span} while this super was on; its label does not allow honey supers`);
+  }
+
+  return { flagged: reasons.length > 0, reasons };
+}

@@ -1,0 +1,37 @@
+import { ZodError } from 'zod';
+import { AuthError } from '@/lib/auth/session';
+import { OriginError } from './origin';
+import { toFieldErrors } from '@/lib/schemas/result';
+
+/** A JSON answer with a message a person understands. */
+export function jsonError(status: 400 | 401 | 403 | 404 | 409 | 413 | 415 | 422 | 429, message: string, extra?: Record<string, unknown>): Response {
+  return Response.json({ error: message, ...extra }, { status, headers: { 'Cache-Control': 'no-store' } });
+}
+
+export class HttpError extends Error {
+  constructor(public status: 400 | 404 | 409 | 413 | 415 | 422, message: string) {
+    super(message);
+  }
+}
+
+/** Maps the errors our handlers throw to 4xx answers; anything else is logged and becomes a plain 500 with a reference. */
+export function handleRouteError(err: unknown): Response {
+  if (err instanceof AuthError) return jsonError(err.status, err.message);
+  if (err instanceof OriginError) return jsonError(403, err.message);
+  if (err instanceof HttpError) return jsonError(err.status, err.message);
+  if (err instanceof ZodError) return jsonError(400, 'Some fields are not valid.', { fieldErrors: toFieldErrors(err) });
+  const ref = crypto.randomUUID().slice(0, 8);
+  console.error(`[error ${ref}]`, err);
+  return Response.json({ error: `Something went wrong on our side. Reference ${ref}.` }, { status: 500 });
+}
+
+/** Reads a JSON body without trusting it: bad JSON is a 400, not a crash. */
+export async function readJson(req: Request, maxBytes = 1_000_000): Promise<unknown> {
+  const text = await req.text();
+  if (text.length > maxBytes) throw new HttpError(413, 'The request is too large.');
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw new HttpError(400, 'The request body is not valid JSON.');
+  }
+}

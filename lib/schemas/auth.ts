@@ -1,0 +1,30 @@
+import { z } from 'zod';
+import { passwordProblem } from '@/lib/auth/password';
+
+export const email = z.string().trim().toLowerCase().max(254, 'That e-mail address is too long.').email('Enter a valid e-mail address.');
+export const personName = z.string().trim().min(1, 'Enter a name.').max(120, 'Keep the name under 120 characters.');
+
+export const password = z.string().superRefine((value, ctx) => {
+  const problem = passwordProblem(value);
+  if (problem) ctx.addIssue({ code: 'custom', message: problem });
+});
+
+// .strict() is not used: extra fields such as `role` are dropped by zod, never trusted.
+export const signUpInput = z.object({ name: personName, email, password });
+export type SignUpInput = z.input<typeof signUpInput>;
+
+export const forgotPasswordInput = z.object({ email });
+export type ForgotPasswordInput = z.input<typeof forgotPasswordInput>;
+
+export const resetPasswordInput = z.object({ token: z.string().min(20).max(200), password });
+export type ResetPasswordInput = z.input<typeof resetPasswordInput>;
+
+export const staffInput = z.object({ name: personName, email, role: z.enum(['owner', 'keeper', 'crew'], 'Pick a role.') });
+export type StaffInput = z.input<typeof staffInput>;
+
+export const staffUpdateInput = z.object({
+  userId: z.coerce.number().int().positive(),
+  role: z.enum(['owner', 'keeper', 'crew']).optional(),
+  disabled: z.boolean().optional(),
+});
+export type StaffUpdateInput = z.input<typeof staffUpdateInput>;

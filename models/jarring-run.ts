@@ -1,0 +1,58 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { FillAssessment, assessFillUs } from '@/lib/domain/fill-check';
+import type { Lot } from './lot';
+import type { Product } from './product';
+
+export const FILL_RULE_SETS = ['oiml', 'nist'] as const;
+export type FillRuleSet = (typeof FILL_RULE_SETS)[number];
+/** The fill check's result as computed for ruleSet (oiml: assessFill, nist: assessFillUs). */
+export type FillReport = FillAssessment | ReturnType<typeof assessFillUs>;
+
+/** Jars filled from one lot into one product, with sample fill weights. */
+export class JarringRun extends Model<InferAttributes<JarringRun>, InferCreationAttributes<JarringRun>> {
+  declare id: CreationOptional<number>;
+  declare lotId: number;
+  declare productId: number;
+  declare jarCount: number;
+  declare runOn: string;
+  /** Net fill weights of the sampled jars, grams. */
+  declare sampleGrams: CreationOptional<number[]>;
+  declare ruleSet: FillRuleSet;
+  declare fillPass: boolean;
+  /** Required although the column defaults to {}: every run is checked, and `{}` is no FillReport. */
+  declare fillReport: FillReport;
+  declare honeyUsedGrams: number;
+  /** A failing run's jars are not stock until the owner overrides with a reason. */
+  declare overrideReason: CreationOptional<string | null>;
+  declare overrideBy: CreationOptional<number | null>;
+  declare createdBy: number | null;
+  declare idempotencyKey: CreationOptional<string | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+  declare lot?: NonAttribute<Lot>;
+  declare product?: NonAttribute<Product>;
+}
+
+export function initJarringRun(sequelize: Sequelize) {
+  return JarringRun.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      lotId: { type: DataTypes.INTEGER, allowNull: false },
+      productId: { type: DataTypes.INTEGER, allowNull: false },
+      jarCount: { type: DataTypes.INTEGER, allowNull: false },
+      runOn: { type: DataTypes.DATEONLY, allowNull: false },
+      sampleGrams: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+      ruleSet: { type: DataTypes.STRING(8), allowNull: false, validate: { isIn: [FILL_RULE_SETS] } },
+      fillPass: { type: DataTypes.BOOLEAN, allowNull: false },
+      fillReport: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+      honeyUsedGrams: { type: DataTypes.INTEGER, allowNull: false },
+      overrideReason: { type: DataTypes.TEXT, allowNull: true },
+      overrideBy: { type: DataTypes.INTEGER, allowNull: true },
+      createdBy: { type: DataTypes.INTEGER, allowNull: true },
+      idempotencyKey: { type: DataTypes.STRING(80), allowNull: true, unique: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'jarring_runs', underscored: true },
+  );
+}

@@ -1,0 +1,25 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import type { LabelLayout } from '@/lib/domain/label-layout';
+
+/** A saved label sheet layout (named LabelLayoutRecord: LabelLayout is the domain type it stores). */
+export class LabelLayoutRecord extends Model<InferAttributes<LabelLayoutRecord>, InferCreationAttributes<LabelLayoutRecord>> {
+  declare id: CreationOptional<number>;
+  declare name: string;
+  /** In millimetres. */
+  declare layout: LabelLayout;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+export function initLabelLayoutRecord(sequelize: Sequelize) {
+  return LabelLayoutRecord.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      name: { type: DataTypes.STRING(60), allowNull: false, unique: true },
+      layout: { type: DataTypes.JSONB, allowNull: false },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'label_layouts', underscored: true },
+  );
+}

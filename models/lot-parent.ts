@@ -1,0 +1,28 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { Lot } from './lot';
+
+/** Blends: grams of a parent lot that went into a child lot. */
+export class LotParent extends Model<InferAttributes<LotParent>, InferCreationAttributes<LotParent>> {
+  declare id: CreationOptional<number>;
+  declare childLotId: number;
+  declare parentLotId: number;
+  declare grams: number;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+  declare parent?: NonAttribute<Lot>;
+  declare child?: NonAttribute<Lot>;
+}
+
+export function initLotParent(sequelize: Sequelize) {
+  return LotParent.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      childLotId: { type: DataTypes.INTEGER, allowNull: false },
+      parentLotId: { type: DataTypes.INTEGER, allowNull: false },
+      grams: { type: DataTypes.INTEGER, allowNull: false },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'lot_parents', underscored: true },
+  );
+}

@@ -1,0 +1,35 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { Order } from './order';
+import type { Product } from './product';
+import type { OrderAllocation } from './order-allocation';
+
+export class OrderLine extends Model<InferAttributes<OrderLine>, InferCreationAttributes<OrderLine>> {
+  declare id: CreationOptional<number>;
+  declare orderId: number;
+  declare productId: number;
+  /** What the customer saw when ordering; prices are always ours, never the browser's. */
+  declare productName: string;
+  declare quantity: number;
+  declare unitPriceCents: number;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+  declare order?: NonAttribute<Order>;
+  declare product?: NonAttribute<Product>;
+  declare allocations?: NonAttribute<OrderAllocation[]>;
+}
+
+export function initOrderLine(sequelize: Sequelize) {
+  return OrderLine.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      orderId: { type: DataTypes.INTEGER, allowNull: false },
+      productId: { type: DataTypes.INTEGER, allowNull: false },
+      productName: { type: DataTypes.STRING(120), allowNull: false },
+      quantity: { type: DataTypes.INTEGER, allowNull: false },
+      unitPriceCents: { type: DataTypes.INTEGER, allowNull: false },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'order_lines', underscored: true },
+  );
+}

@@ -1,0 +1,32 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { Order } from './order';
+
+export class Refund extends Model<InferAttributes<Refund>, InferCreationAttributes<Refund>> {
+  declare id: CreationOptional<number>;
+  declare orderId: number;
+  declare stripeRefundId: CreationOptional<string | null>;
+  declare amountCents: number;
+  declare restock: boolean;
+  declare reason: CreationOptional<string>;
+  declare createdBy: number | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+  declare order?: NonAttribute<Order>;
+}
+
+export function initRefund(sequelize: Sequelize) {
+  return Refund.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      orderId: { type: DataTypes.INTEGER, allowNull: false },
+      stripeRefundId: { type: DataTypes.STRING(120), allowNull: true, unique: true },
+      amountCents: { type: DataTypes.INTEGER, allowNull: false },
+      restock: { type: DataTypes.BOOLEAN, allowNull: false },
+      reason: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+      createdBy: { type: DataTypes.INTEGER, allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'refunds', underscored: true },
+  );
+}

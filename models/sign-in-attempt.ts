@@ -1,0 +1,22 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+
+export class SignInAttempt extends Model<InferAttributes<SignInAttempt>, InferCreationAttributes<SignInAttempt>> {
+  declare id: CreationOptional<number>;
+  declare email: string;
+  declare ip: string;
+  declare succeeded: boolean;
+  declare createdAt: CreationOptional<Date>;
+}
+
+export function initSignInAttempt(sequelize: Sequelize) {
+  return SignInAttempt.init(
+    {
+      id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
+      email: { type: DataTypes.STRING(254), allowNull: false },
+      ip: { type: DataTypes.STRING(64), allowNull: false },
+      succeeded: { type: DataTypes.BOOLEAN, allowNull: false },
+      createdAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'sign_in_attempts', underscored: true, updatedAt: false },
+  );
+}

@@ -1,0 +1,30 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+
+export const SUPER_DEPTHS = ['deep', 'medium', 'shallow'] as const;
+export type SuperDepth = (typeof SUPER_DEPTHS)[number];
+
+/** A physical super box with its printed tag. */
+export class SuperTag extends Model<InferAttributes<SuperTag>, InferCreationAttributes<SuperTag>> {
+  declare id: CreationOptional<number>;
+  declare code: string;
+  declare depth: SuperDepth;
+  declare frameCount: CreationOptional<number>;
+  declare retiredAt: CreationOptional<Date | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+export function initSuperTag(sequelize: Sequelize) {
+  return SuperTag.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      code: { type: DataTypes.STRING(30), allowNull: false, unique: true },
+      depth: { type: DataTypes.STRING(10), allowNull: false, validate: { isIn: [SUPER_DEPTHS] } },
+      frameCount: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 10 },
+      retiredAt: { type: DataTypes.DATE, allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'super_tags', underscored: true },
+  );
+}
