@@ -1,0 +1,104 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext } from 'playwright-core';
+import { BASE, DEMO_LOGINS, openBrowser, signIn, waitForMail } from './support';
+
+let browser: BrowserContext;
+beforeAll(async () => { browser = await openBrowser(); });
+afterAll(async () => { await browser?.close(); });
+
+async function freshPage() {
+  for (const p of browser.pages()) await p.close();
+  await browser.clearCookies();
+  return browser.newPage();
+}
+
+describe('each role signs in and sees its own area', () => {
+  it('owner sees the whole menu, settings included', async () => {
+    const page = await freshPage();
+    await signIn(page, DEMO_LOGINS.owner.email, DEMO_LOGINS.owner.password);
+    expect(new URL(page.url()).pathname).toBe('/admin');
+    const nav = page.getByRole('navigation', { name: 'Back office' });
+    await expect(nav.getByRole('link', { name: 'Settings' }).isVisible()).resolves.toBe(true);
+    await expect(nav.getByRole('link', { name: 'Staff' }).isVisible()).resolves.toBe(true);
+  });
+
+  it('keeper sees yards but not settings, and is refused settings in the page and the route handler', async () => {
+    const page = await freshPage();
+    await signIn(page, DEMO_LOGINS.keeper.email, DEMO_LOGINS.keeper.password);
+    const nav = page.getByRole('navigation', { name: 'Back office' });
+    expect(await nav.getByRole('link', { name: 'Yards' }).count()).toBe(1);
+    expect(await nav.getByRole('link', { name: 'Settings' }).count()).toBe(0);
+    await page.goto(`${BASE()}/admin/settings`);
+    expect(new URL(page.url()).pathname).toBe('/forbidden');
+    const res = await page.request.put(`${BASE()}/api/settings`, { data: { businessName: 'Hijacked' } });
+    expect(res.status()).toBe(403);
+    expect((await res.json()).error).toMatch(/not allowed/);
+  });
+
+  it('crew sees lots and not staff', async () => {
+    const page = await freshPage();
+    await signIn(page, DEMO_LOGINS.crew.email, DEMO_LOGINS.crew.password);
+    const nav = page.getByRole('navigation', { name: 'Back office' });
+    expect(await nav.getByRole('link', { name: 'Lots' }).count()).toBe(1);
+    expect(await nav.getByRole('link', { name: 'Staff' }).count()).toBe(0);
+  });
+
+  it('customer lands on the account page and is kept out of the back office', async () => {
+    const page = await freshPage();
+    await signIn(page, DEMO_LOGINS.customer.email, DEMO_LOGINS.customer.password);
+    expect(new URL(page.url()).pathname).toBe('/account');
+    await page.goto(`${BASE()}/admin`);
+    expect(new URL(page.url()).pathname).not.toBe('/admin');
+    const res = await page.request.get(`${BASE()}/api/settings`);
+    expect(res.status()).toBe(403);
+  });
+
+  it('anonymous visitors are sent to sign in', async () => {
+    const page = await freshPage();
+    await page.goto(`${BASE()}/admin/lots`);
+    expect(new URL(page.url()).pathname).toBe('/sign-in');
+    const res = await page.request.get(`${BASE()}/api/settings`);
+    expect(res.status()).toBe(401);
+  });
+
+  it('a wrong password gets a plain message', async () => {
+    const page = await freshPage();
+    await page.goto(`${BASE()}/sign-in`);
+    await page.getByLabel('E-mail').fill(DEMO_LOGINS.crew.email);
+    await page.getByLabel('Password').fill('not the password');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    const alert = page.locator('form [role=alert]');
+    await alert.waitFor();
+    expect(await alert.textContent()).toMatch(/do not match/);
+  });
+});
+
+describe('accounts', () => {
+  it('a new customer signs up and lands on their account', async () => {
+    const page = await freshPage();
+    await page.goto(`${BASE()}/sign-up`);
+    await page.getByLabel('Your name').fill('Rowan Tilby');
+    await page.getByLabel('E-mail').fill('rowan@example.test');
+    await page.getByLabel('Password').fill('bramble and thyme');
+    await page.getByRole('button', { name: 'Create account' }).click();
+    await page.waitForURL('**/account');
+    expect(await page.getByRole('heading', { level: 1 }).textContent()).toContain('Rowan Tilby');
+  });
+
+  it('a password reset mail arrives and its link sets a new password', async () => {
+    const page = await freshPage();
+    await page.goto(`${BASE()}/forgot-password`);
+    await page.getByLabel('E-mail').fill('corin@hollowmere.test');
+    await page.getByRole('button', { name: 'Send reset link' }).click();
+    await page.getByRole('status').waitFor();
+    const mail = await waitForMail('corin@hollowmere.test', /Reset your password/);
+    const link = mail.text.match(/https?:\/\/\S+reset-password\?token=\S+/)?.[0];
+    expect(link).toBeTruthy();
+    await page.goto(link!);
+    await page.getByLabel('New password').fill('a fresh long phrase');
+    await page.getByRole('button', { name: 'Save password' }).click();
+    await page.getByRole('status').waitFor();
+    await signIn(page, 'corin@hollowmere.test', 'a fresh long phrase');
+    expect(new URL(page.url()).pathname).toBe('/account');
+  });
+});
