@@ -26,6 +26,7 @@ export const PERMISSIONS = {
   'lots.read': [O, K, C],
   'lots.write': [O, C],
   'lots.override': [O],
+  'containerTypes.manage': [O],
   'products.manage': [O],
   'products.read': [O, K, C],
   'jarring.read': [O, K, C],

@@ -1,0 +1,39 @@
+import { z } from 'zod';
+import { authorize } from '@/lib/auth/session';
+import { addLabFile } from '@/lib/data/lot-records';
+import { LAB_FILE_MAX_BYTES } from '@/lib/domain/file-type';
+import { labResultsFields } from '@/lib/schemas/lots';
+import { handleRouteError, HttpError } from '@/lib/http/json';
+import { assertSameOrigin } from '@/lib/http/origin';
+
+export const dynamic = 'force-dynamic';
+
+const lotId = z.coerce.number().int().positive();
+
+/**
+ * Uploads a lab report (multipart: file, optional hmfMgKg, diastaseSchade, insolubleG100g).
+ * The type is read from the file's bytes; SVG, HTML and anything not PDF/PNG/JPEG/WebP is refused (415).
+ */
+export async function POST(req: Request, ctx: { params: Promise<{ id: string }> }) {
+  try {
+    await assertSameOrigin(req.headers);
+    const user = await authorize('lots.write');
+    const id = lotId.parse((await ctx.params).id);
+    const declared = Number(req.headers.get('content-length') ?? 0);
+    if (declared > LAB_FILE_MAX_BYTES + 64 * 1024) throw new HttpError(413, 'The file is larger than 10 MB.');
+    let form: FormData;
+    try {
+      form = await req.formData();
+    } catch {
+      throw new HttpError(400, 'Send the file as a multipart form.');
+    }
+    const file = form.get('file');
+    if (!(file instanceof File)) throw new HttpError(400, 'Choose a file to upload.');
+    if (file.size > LAB_FILE_MAX_BYTES) throw new HttpError(413, 'The file is larger than 10 MB.');
+    const results = labResultsFields.parse({ hmfMgKg: form.get('hmfMgKg') ?? undefined, diastaseSchade: form.get('diastaseSchade') ?? undefined, insolubleG100g: form.get('insolubleG100g') ?? undefined });
+    const saved = await addLabFile(user, id, { filename: file.name, bytes: new Uint8Array(await file.arrayBuffer()), ...results });
+    return Response.json(saved, { status: 201 });
+  } catch (err) {
+    return handleRouteError(err);
+  }
+}

@@ -1,0 +1,100 @@
+import { z } from 'zod';
+
+const id = z.coerce.number().int().positive();
+const reason = (what: string) => z.string().trim().min(5, `Write a reason for ${what} (at least 5 characters).`).max(1000);
+const weight = (label: string) => z.coerce.number({ error: `${label}: enter a number.` }).nonnegative(`${label} cannot be negative.`).max(100_000, `${label} looks too large.`);
+const optionalNumber = z.preprocess((v) => (v === '' || v === null || v === undefined || (typeof v === 'number' && Number.isNaN(v)) ? undefined : v), z.coerce.number().optional());
+const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Pick a date.');
+
+export const weightUnit = z.enum(['kg', 'lb']);
+
+export const lotInput = z.object({
+  floralSource: z.string().trim().max(80, 'At most 80 characters.'),
+  heather: z.boolean().default(false),
+  extractedOn: z.union([z.literal(''), day]).optional(),
+  notes: z.string().trim().max(2000).default(''),
+});
+export type LotInput = z.input<typeof lotInput>;
+
+export const lotDetailsInput = lotInput.extend({ lotId: id });
+export type LotDetailsInput = z.input<typeof lotDetailsInput>;
+
+export const scanSuperInput = z.object({
+  lotId: id,
+  tagCode: z.string().trim().min(1, 'Scan or type a tag code.').max(30),
+  overrideReason: z.string().trim().max(1000).optional(),
+});
+export type ScanSuperInput = z.input<typeof scanSuperInput>;
+
+export const pickSupersInput = z.object({ lotId: id, superPullIds: z.array(id).min(1, 'Tick at least one super.').max(200) });
+export type PickSupersInput = z.input<typeof pickSupersInput>;
+
+export const removeSuperInput = z.object({ lotId: id, superPullId: id, reason: reason('taking the super out') });
+export type RemoveSuperInput = z.input<typeof removeSuperInput>;
+
+export const emptyWeightInput = z.object({ lotId: id, superPullId: id, empty: weight('Empty weight').positive('Empty weight must be above 0.'), unit: weightUnit });
+export type EmptyWeightInput = z.input<typeof emptyWeightInput>;
+
+export const containerInput = z.object({
+  lotId: id,
+  containerTypeId: z.preprocess((v) => (v === '' || v === null ? undefined : v), id.optional()),
+  label: z.string().trim().max(40).default(''),
+  gross: weight('Gross weight').positive('Gross weight must be above 0.'),
+  tare: weight('Tare'),
+  unit: weightUnit,
+}).refine((v) => v.gross > v.tare, { path: ['gross'], message: 'Gross weight must be more than the tare.' });
+export type ContainerInput = z.input<typeof containerInput>;
+
+export const waxInput = z.object({ lotId: id, wax: weight('Cappings wax'), unit: weightUnit });
+export type WaxInput = z.input<typeof waxInput>;
+
+export const readingInput = z.discriminatedUnion('method', [
+  z.object({ lotId: id, method: z.literal('ri'), refractiveIndex: z.coerce.number({ error: 'Enter the refractive index, e.g. 1.4900.' }).min(1.3).max(1.6), temperatureC: z.coerce.number({ error: 'Enter the sample temperature.' }).min(-10).max(60), takenOn: day }),
+  z.object({ lotId: id, method: z.literal('scale'), scaleWaterPct: z.coerce.number({ error: 'Enter the % water read on the scale.' }).min(5).max(40), temperatureC: optionalNumber, takenOn: day }),
+]);
+export type ReadingInput = z.input<typeof readingInput>;
+
+export const voidInput = z.object({ lotId: id, kind: z.enum(['container', 'reading', 'labFile']), recordId: id, reason: reason('the correction') });
+export type VoidInput = z.input<typeof voidInput>;
+
+export const stageInput = z.object({ lotId: id, target: z.enum(['extracted', 'released', 'held']), reason: z.string().trim().max(1000).optional() });
+export type StageInput = z.input<typeof stageInput>;
+
+export const blendInput = z.object({
+  floralSource: z.string().trim().max(80),
+  notes: z.string().trim().max(2000).default(''),
+  parts: z.array(z.object({ lotId: id, grams: z.coerce.number().int().positive('Take more than 0 g.') })).min(1, 'Add at least one parent lot.').max(20),
+}).refine((v) => new Set(v.parts.map((p) => p.lotId)).size === v.parts.length, { path: ['parts'], message: 'Each parent lot once only.' });
+export type BlendInput = z.input<typeof blendInput>;
+
+export const blendFormInput = z.object({
+  floralSource: z.string().trim().max(80),
+  notes: z.string().trim().max(2000).default(''),
+  unit: weightUnit,
+  parts: z.array(z.object({ lotId: id, amount: z.coerce.number().positive('Take more than 0.') })).min(1, 'Add at least one parent lot.').max(20),
+});
+export type BlendFormInput = z.input<typeof blendFormInput>;
+
+export const containerTypeInput = z.object({
+  id: z.preprocess((v) => (v === '' || v === null ? undefined : v), id.optional()),
+  name: z.string().trim().min(1, 'Name the container type.').max(60),
+  usualTare: weight('Usual tare'),
+  unit: weightUnit,
+  active: z.boolean().default(true),
+});
+export type ContainerTypeInput = z.input<typeof containerTypeInput>;
+
+export const labResultsFields = z.object({
+  hmfMgKg: optionalNumber.pipe(z.number().min(0).max(2000).optional()),
+  diastaseSchade: optionalNumber.pipe(z.number().min(0).max(100).optional()),
+  insolubleG100g: optionalNumber.pipe(z.number().min(0).max(100).optional()),
+});
+
+export const lotListQuery = z.object({
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(100).default(20),
+  stage: z.enum(['gathering', 'extracted', 'released', 'packed_out', 'held']).optional().catch(undefined),
+  year: z.coerce.number().int().min(2000).max(2100).optional().catch(undefined),
+  floral: z.string().trim().max(80).optional(),
+});
+export type LotListQuery = z.output<typeof lotListQuery>;

@@ -1,0 +1,107 @@
+import { afterAll, describe, expect, it } from 'vitest';
+import { closeDb, getDb } from '@/lib/db';
+import { parseLotCode } from '@/lib/domain/lot-code';
+import { createLotAction, scanSuperAction, pickSupersAction } from '@/app/(back-office)/admin/lots/actions';
+import { GET as listLotsRoute } from '@/app/api/lots/route';
+import { DEMO, signInAs } from '../support/session';
+import { makePulledSupers } from '../support/lot-fixtures';
+
+afterAll(closeDb);
+
+describe('lot codes', () => {
+  it('20 lots created at once get 20 consecutive codes: no duplicate, no gap', async () => {
+    await signInAs(DEMO.crew);
+    const results = await Promise.all(Array.from({ length: 20 }, (_, i) => createLotAction({ floralSource: `Parallel ${i}`, heather: false, notes: '' })));
+    expect(results.every((r) => r.ok)).toBe(true);
+    const codes = results.map((r) => (r.ok ? r.data.code : ''));
+    expect(new Set(codes).size).toBe(20);
+    const seqs = codes.map((c) => parseLotCode(c)!.sequence).sort((a, b) => a - b);
+    for (let i = 1; i < seqs.length; i++) expect(seqs[i]).toBe(seqs[i - 1] + 1);
+    // and the sequence row agrees with the highest code handed out
+    const { prefix, year2 } = parseLotCode(codes[0])!;
+    const [row] = await getDb().sequelize.query(`SELECT last_value FROM lot_sequences WHERE prefix = :prefix AND year % 100 = :y`, { replacements: { prefix, y: year2 }, plain: false });
+    expect(Math.max(...(row as { last_value: number }[]).map((r) => r.last_value))).toBe(seqs[seqs.length - 1]);
+    const audits = await getDb().models.AuditEntry.count({ where: { action: 'lot.create', entityId: results.map((r) => String(r.ok ? r.data.id : 0)) } });
+    expect(audits).toBe(20);
+  });
+
+  it('a failed lot gives its number back (the sequence is taken in the lot’s transaction)', async () => {
+    await signInAs(DEMO.crew);
+    const a = await createLotAction({ floralSource: 'Before', heather: false, notes: '' });
+    const bad = await createLotAction({ floralSource: 'x'.repeat(200), heather: false, notes: '' });
+    expect(bad.ok).toBe(false);
+    const b = await createLotAction({ floralSource: 'After', heather: false, notes: '' });
+    expect(a.ok && b.ok).toBe(true);
+    if (a.ok && b.ok) expect(parseLotCode(b.data.code)!.sequence).toBe(parseLotCode(a.data.code)!.sequence + 1);
+  });
+
+  it('keepers and customers cannot create lots', async () => {
+    await signInAs(DEMO.keeper);
+    expect(await createLotAction({ floralSource: 'No', heather: false, notes: '' })).toMatchObject({ ok: false, message: /not allowed/ });
+    await signInAs(DEMO.customer);
+    expect(await createLotAction({ floralSource: 'No', heather: false, notes: '' })).toMatchObject({ ok: false });
+  });
+});
+
+describe('supers into a lot', () => {
+  it('a scanned tag goes in once; a second lot is told where it is', async () => {
+    await signInAs(DEMO.crew);
+    const { tags } = await makePulledSupers(2);
+    const lot1 = await createLotAction({ floralSource: 'Linden', heather: false, notes: '' });
+    const lot2 = await createLotAction({ floralSource: 'Linden', heather: false, notes: '' });
+    if (!lot1.ok || !lot2.ok) throw new Error('lot not made');
+    expect(await scanSuperAction({ lotId: lot1.data.id, tagCode: ` ${tags[0].toLowerCase()} ` })).toMatchObject({ ok: true, data: { tagCode: tags[0] } });
+    expect(await scanSuperAction({ lotId: lot2.data.id, tagCode: tags[0] })).toMatchObject({ ok: false, message: new RegExp(`already in lot ${lot1.data.code}`) });
+    expect(await scanSuperAction({ lotId: lot1.data.id, tagCode: 'NO-SUCH-TAG' })).toMatchObject({ ok: false, message: /No super with tag/ });
+  });
+
+  it('a flagged super is refused without an owner override, and recorded when the owner overrides', async () => {
+    const { tags, supers } = await makePulledSupers(2, { flagged: [true, false] });
+    await signInAs(DEMO.crew);
+    const lot = await createLotAction({ floralSource: 'Wildflower', heather: false, notes: '' });
+    if (!lot.ok) throw new Error('lot not made');
+    const crewTry = await scanSuperAction({ lotId: lot.data.id, tagCode: tags[0], overrideReason: 'crew says it is fine' });
+    expect(crewTry).toMatchObject({ ok: false, message: /flagged.*Only the owner/ });
+    expect(await pickSupersAction({ lotId: lot.data.id, superPullIds: [supers[1].id, supers[0].id] })).toMatchObject({ ok: false, message: /flagged/ });
+    // all or nothing: the unflagged one did not go in either
+    expect((await getDb().models.SuperPull.findByPk(supers[1].id))!.lotId).toBeNull();
+
+    await signInAs(DEMO.owner);
+    expect(await scanSuperAction({ lotId: lot.data.id, tagCode: tags[0] })).toMatchObject({ ok: false, message: /Write an override reason/ });
+    const ok = await scanSuperAction({ lotId: lot.data.id, tagCode: tags[0], overrideReason: 'Syrup ended 6 weeks before the super went on; checked the log' });
+    expect(ok).toMatchObject({ ok: true, data: { overridden: true } });
+    const sp = await getDb().models.SuperPull.findByPk(supers[0].id);
+    expect(sp!.lotId).toBe(lot.data.id);
+    expect(sp!.overrideReason).toMatch(/Syrup ended/);
+    const owner = await getDb().models.User.findOne({ where: { email: DEMO.owner } });
+    expect(sp!.overrideBy).toBe(owner!.id);
+    const audit = await getDb().models.AuditEntry.findOne({ where: { action: 'super.override', entityId: String(sp!.id) } });
+    expect(audit?.reason).toMatch(/Syrup ended/);
+    expect(audit?.actorUserId).toBe(owner!.id);
+  });
+});
+
+describe('lot list (JSON route)', () => {
+  it('pages and filters; a keeper sees only lots with their colonies’ supers; a customer is refused', async () => {
+    await signInAs(DEMO.crew);
+    const res = await listLotsRoute(new Request('http://t/api/lots?pageSize=5&floral=Parallel'));
+    expect(res.status).toBe(200);
+    const body = await res.json();
+    expect(body.rows).toHaveLength(5);
+    expect(body.total).toBeGreaterThanOrEqual(20);
+    expect(body.rows.every((r: { floralSource: string }) => r.floralSource.startsWith('Parallel'))).toBe(true);
+
+    const { tags } = await makePulledSupers(1, { keeperEmail: DEMO.keeper2 });
+    const lot = await createLotAction({ floralSource: 'Keeper2 only', heather: false, notes: '' });
+    if (!lot.ok) throw new Error('lot not made');
+    await scanSuperAction({ lotId: lot.data.id, tagCode: tags[0] });
+    await signInAs(DEMO.keeper);
+    const mine = await (await listLotsRoute(new Request('http://t/api/lots?floral=Keeper2'))).json();
+    expect(mine.total).toBe(0);
+    await signInAs(DEMO.keeper2);
+    const theirs = await (await listLotsRoute(new Request('http://t/api/lots?floral=Keeper2'))).json();
+    expect(theirs.rows.map((r: { code: string }) => r.code)).toEqual([lot.data.code]);
+    await signInAs(DEMO.customer);
+    expect((await listLotsRoute(new Request('http://t/api/lots'))).status).toBe(403);
+  });
+});
