@@ -33,7 +33,7 @@ export async function changeLotStage(actor: SessionUser, lotId: number, target: 
     const patch: { stage: LotStage; holdReasons: string[]; extractedOn?: string } = { stage: result.stage, holdReasons };
     if (result.stage === 'extracted' && !lot.extractedOn) patch.extractedOn = new Date().toISOString().slice(0, 10);
     await lot.update(patch, { transaction: t });
-    const action = lot.stage === 'held' ? (result.stage === 'released' ? 'lot.release_override' : 'lot.unhold') : `lot.stage.${result.stage}`;
+    const action = before.stage === 'held' ? (result.stage === 'released' ? 'lot.release_override' : 'lot.unhold') : `lot.stage.${result.stage}`;
     await recordAudit({ actorUserId: actor.id, action, entityType: 'lot', entityId: lot.id, before, after: { stage: result.stage, holdReasons, asked: target }, reason: reason?.trim() || null }, t);
     return { stage: result.stage, holdReasons };
   });
