@@ -1,0 +1,49 @@
+'use client';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
+import { containerInput, type ContainerInput } from '@/lib/schemas/lots';
+import type { ActionResult } from '@/lib/schemas/result';
+import { TextField } from '@/components/ui/text-field';
+import { FormMessage } from '@/components/ui/form-message';
+import { useResult } from './use-result';
+
+type Values = z.input<typeof containerInput>;
+export type ContainerTypeOption = { id: number; name: string; usualTareGrams: number };
+
+/** Gross and tare of one bucket, pail, drum or tank, in kg or lb; picking a type fills its usual tare. */
+export function ContainerForm({ lotId, types, unit, onSave }: { lotId: number; types: ContainerTypeOption[]; unit: 'kg' | 'lb'; onSave: (v: ContainerInput) => Promise<ActionResult> }) {
+  const form = useForm<Values, unknown, z.output<typeof containerInput>>({ resolver: zodResolver(containerInput), defaultValues: { lotId, unit, label: '', containerTypeId: '' as unknown as number } });
+  const { msg, apply } = useResult(form);
+  const e = form.formState.errors;
+  const typeField = form.register('containerTypeId', {
+    onChange: (ev: React.ChangeEvent<HTMLSelectElement>) => {
+      const t = types.find((x) => String(x.id) === ev.target.value);
+      if (!t) return;
+      const u = form.getValues('unit');
+      const tare = u === 'kg' ? t.usualTareGrams / 1000 : t.usualTareGrams / 453.59237;
+      form.setValue('tare', Number(tare.toFixed(u === 'kg' ? 3 : 2)));
+    },
+  });
+  async function submit(values: z.output<typeof containerInput>) {
+    if (apply(await onSave(values), 'Container recorded.')) form.reset({ lotId, unit: values.unit, label: '', containerTypeId: values.containerTypeId, tare: values.tare, gross: '' as unknown as number });
+  }
+  return (
+    <form onSubmit={form.handleSubmit(submit)} className="grid gap-3 sm:grid-cols-3" noValidate aria-label="Add a container">
+      <label className="field" htmlFor="containerTypeId"><span>Container type</span>
+        <select id="containerTypeId" className="input" {...typeField}>
+          <option value="">Other</option>
+          {types.map((t) => <option key={t.id} value={t.id}>{t.name}</option>)}
+        </select>
+      </label>
+      <TextField label="Label on the container" registration={form.register('label')} error={e.label} placeholder="e.g. B3" />
+      <label className="field" htmlFor="unit"><span>Unit</span>
+        <select id="unit" className="input" {...form.register('unit')}><option value="kg">kg</option><option value="lb">lb</option></select>
+      </label>
+      <TextField label="Gross weight" registration={form.register('gross')} error={e.gross} inputMode="decimal" />
+      <TextField label="Tare (empty container)" registration={form.register('tare')} error={e.tare} inputMode="decimal" />
+      <div className="flex items-end"><button type="submit" className="btn-secondary w-full" disabled={form.formState.isSubmitting}>Add container</button></div>
+      <div className="sm:col-span-3"><FormMessage error={msg.error} success={msg.success} /></div>
+    </form>
+  );
+}
