@@ -104,11 +104,14 @@ export async function listLots(user: SessionUser, q: LotListQuery): Promise<LotL
   if (q.year) { where.push('EXTRACT(YEAR FROM COALESCE(l.extracted_on, l.created_at::date)) = :year'); replacements.year = q.year; }
   if (q.floral) { where.push(`l.floral_source ILIKE :floral ESCAPE '\\'`); replacements.floral = `%${q.floral.replace(/[\\%_]/g, (c) => `\\${c}`)}%`; }
   const whereSql = where.length ? `WHERE ${where.join(' AND ')}` : '';
+  // Sort columns come from the schema's allow-list, never from the request text itself.
+  const sortSql = { createdAt: 'l.created_at', code: 'l.code', extractedOn: 'l.extracted_on', netGrams: 'l.net_grams' }[q.sort];
+  const dir = q.dir === 'asc' ? 'ASC' : 'DESC';
   const { sequelize } = getDb();
   const rows = await sequelize.query<Record<string, unknown>>(
     `SELECT l.id, l.code, l.floral_source, l.stage, l.is_blend, l.extracted_on, l.net_grams, l.used_grams, l.created_at,
             (SELECT count(*) FROM super_pulls sp WHERE sp.lot_id = l.id)::int AS super_count, count(*) OVER ()::int AS total
-     FROM lots l ${whereSql} ORDER BY l.created_at DESC, l.id DESC LIMIT :limit OFFSET :offset`,
+     FROM lots l ${whereSql} ORDER BY ${sortSql} ${dir} NULLS LAST, l.id ${dir} LIMIT :limit OFFSET :offset`,
     { type: QueryTypes.SELECT, replacements },
   );
   const years = await sequelize.query<{ y: number }>(

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { listQuery } from './list-query';
 
 const id = z.coerce.number().int().positive();
 const reason = (what: string) => z.string().trim().min(5, `Write a reason for ${what} (at least 5 characters).`).max(1000);
@@ -90,11 +91,11 @@ export const labResultsFields = z.object({
   insolubleG100g: optionalNumber.pipe(z.number().min(0).max(100).optional()),
 });
 
-export const lotListQuery = z.object({
-  page: z.coerce.number().int().min(1).default(1),
-  pageSize: z.coerce.number().int().min(1).max(100).default(20),
+/** The lot list's query (page, pageSize, sort, dir and filters); sort fields come from an allow-list. */
+export const LOT_SORTS = ['createdAt', 'code', 'extractedOn', 'netGrams'] as const;
+export const lotListQuery = listQuery(LOT_SORTS, {
   stage: z.enum(['gathering', 'extracted', 'released', 'packed_out', 'held']).optional().catch(undefined),
   year: z.coerce.number().int().min(2000).max(2100).optional().catch(undefined),
   floral: z.string().trim().max(80).optional(),
-});
+}, 'createdAt').extend({ dir: z.enum(['asc', 'desc']).default('desc') });
 export type LotListQuery = z.output<typeof lotListQuery>;

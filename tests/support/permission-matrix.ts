@@ -21,6 +21,11 @@ export const ACTIONS: Record<string, Allowed> = {
   'app/(back-office)/admin/settings/actions.ts#saveSettingsAction': OWNER,
   'app/(back-office)/admin/staff/actions.ts#createStaffAction': OWNER,
   'app/(back-office)/admin/staff/actions.ts#updateStaffAction': OWNER,
+  ...Object.fromEntries([
+    'createLotAction', 'updateLotAction', 'scanSuperAction', 'pickSupersAction', 'removeSuperAction', 'emptyWeightAction', 'addContainerAction',
+    'waxAction', 'addReadingAction', 'voidRecordAction', 'changeStageAction', 'createBlendAction',
+  ].map((name) => [`app/(back-office)/admin/lots/actions.ts#${name}`, HOUSE])),
+  'app/(back-office)/admin/lots/actions.ts#saveContainerTypeAction': OWNER,
 };
 
 /** Route handlers: `path#METHOD`. Dynamic segments are filled with ids that do not exist. */
@@ -31,6 +36,15 @@ export const ROUTES: Record<string, Allowed> = {
   'app/api/auth/[...nextauth]/route.ts#POST': 'anyone',
   'app/api/settings/route.ts#GET': OWNER,
   'app/api/settings/route.ts#PUT': OWNER,
+  'app/api/lots/route.ts#GET': STAFF,
+  'app/api/lots/[id]/lab-files/route.ts#POST': HOUSE,
+  'app/api/lab-files/[id]/route.ts#GET': STAFF,
 };
+
+/**
+ * Routes that read one record by id: an allowed role asking for the made-up id gets 404 (no such
+ * record, or not theirs), so for these only 401/403 count as an auth refusal of an allowed role.
+ */
+export const BY_ID_404: readonly string[] = ['app/api/lab-files/[id]/route.ts#GET'];
 
 export const GROUPS = { OWNER, STAFF, HARVEST_WRITE, HOUSE };
