@@ -14,7 +14,7 @@ export type ContainerTypeOption = { id: number; name: string; usualTareGrams: nu
 /** Gross and tare of one bucket, pail, drum or tank, in kg or lb; picking a type fills its usual tare. */
 export function ContainerForm({ lotId, types, unit, onSave }: { lotId: number; types: ContainerTypeOption[]; unit: 'kg' | 'lb'; onSave: (v: ContainerInput) => Promise<ActionResult> }) {
   const form = useForm<Values, unknown, z.output<typeof containerInput>>({ resolver: zodResolver(containerInput), defaultValues: { lotId, unit, label: '', containerTypeId: '' as unknown as number } });
-  const { msg, apply } = useResult(form);
+  const { msg, setMsg, apply } = useResult(form);
   const e = form.formState.errors;
   const typeField = form.register('containerTypeId', {
     onChange: (ev: React.ChangeEvent<HTMLSelectElement>) => {
@@ -26,6 +26,7 @@ export function ContainerForm({ lotId, types, unit, onSave }: { lotId: number; t
     },
   });
   async function submit(values: z.output<typeof containerInput>) {
+    setMsg({});
     if (apply(await onSave(values), 'Container recorded.')) form.reset({ lotId, unit: values.unit, label: '', containerTypeId: values.containerTypeId, tare: values.tare, gross: '' as unknown as number });
   }
   return (

@@ -26,10 +26,11 @@ type Values = z.infer<typeof schema>;
 /** A refractometer reading: refractive index + temperature, or % water from a honey scale (+ temperature if not compensated). */
 export function ReadingForm({ lotId, today, onSave }: { lotId: number; today: string; onSave: (v: ReadingInput) => Promise<ActionResult<{ id: number; waterPct: number }>> }) {
   const form = useForm<Values>({ resolver: zodResolver(schema), defaultValues: { lotId, method: 'scale', refractiveIndex: '', scaleWaterPct: '', temperatureC: '', takenOn: today } });
-  const { msg, apply } = useResult(form);
+  const { msg, setMsg, apply } = useResult(form);
   const method = form.watch('method');
   const e = form.formState.errors;
   async function submit(v: Values) {
+    setMsg({});
     const input: ReadingInput = v.method === 'ri'
       ? { lotId, method: 'ri', refractiveIndex: Number(v.refractiveIndex), temperatureC: Number(v.temperatureC), takenOn: v.takenOn }
       : { lotId, method: 'scale', scaleWaterPct: Number(v.scaleWaterPct), temperatureC: v.temperatureC === '' ? undefined : Number(v.temperatureC), takenOn: v.takenOn };

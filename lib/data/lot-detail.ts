@@ -12,10 +12,9 @@ import { canReadLot } from './lot-access';
 import { labLimits, lotChecks, lotWater, moistureLimits, type LotWater } from './lot-checks';
 import { getSettings, type Settings } from './settings';
 
+/** The owner's honey-per-super estimates (getSettings fills unset depths with the defaults). */
 export function superEstimates(s: Settings): SuperEstimates {
-  const own = s.superEstimates ?? {};
-  const pick = (d: keyof SuperEstimates) => ({ gramsPerBox: Number(own[d] ?? DEFAULT_SUPER_ESTIMATES[d].gramsPerBox), framesPerBox: DEFAULT_SUPER_ESTIMATES[d].framesPerBox });
-  return { deep: pick('deep'), medium: pick('medium'), shallow: pick('shallow') };
+  return { ...DEFAULT_SUPER_ESTIMATES, ...s.superEstimates };
 }
 
 export type LotSuper = {

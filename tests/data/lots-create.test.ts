@@ -1,7 +1,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/lib/db';
 import { parseLotCode } from '@/lib/domain/lot-code';
-import { createLotAction, scanSuperAction, pickSupersAction } from '@/app/(back-office)/admin/lots/actions';
+import { createLotAction, scanSuperAction, pickSupersAction, removeSuperAction, addContainerAction, changeStageAction } from '@/app/(back-office)/admin/lots/actions';
 import { GET as listLotsRoute } from '@/app/api/lots/route';
 import { DEMO, signInAs } from '../support/session';
 import { makePulledSupers } from '../support/lot-fixtures';
@@ -81,6 +81,23 @@ describe('supers into a lot', () => {
   });
 });
 
+describe('taking a super out', () => {
+  it('works while gathering, with a reason in the history; refused once extracted', async () => {
+    await signInAs(DEMO.crew);
+    const { tags, supers } = await makePulledSupers(2);
+    const lot = await createLotAction({ floralSource: 'Out test', heather: false, notes: '' });
+    if (!lot.ok) throw new Error('lot not made');
+    for (const t of tags) await scanSuperAction({ lotId: lot.data.id, tagCode: t });
+    expect(await removeSuperAction({ lotId: lot.data.id, superPullId: supers[0].id, reason: 'Scanned the wrong box' })).toEqual({ ok: true });
+    expect((await getDb().models.SuperPull.findByPk(supers[0].id))!.lotId).toBeNull();
+    const audit = await getDb().models.AuditEntry.findOne({ where: { entityType: 'lot', entityId: String(lot.data.id), action: 'lot.super.remove' } });
+    expect(audit?.reason).toBe('Scanned the wrong box');
+    await addContainerAction({ lotId: lot.data.id, label: 'B', gross: 10, tare: 1, unit: 'kg' });
+    await changeStageAction({ lotId: lot.data.id, target: 'extracted' });
+    expect(await removeSuperAction({ lotId: lot.data.id, superPullId: supers[1].id, reason: 'Too late for this' })).toMatchObject({ ok: false, message: /only be taken out while the lot is gathering/ });
+  });
+});
+
 describe('lot list (JSON route)', () => {
   it('pages and filters; a keeper sees only lots with their colonies’ supers; a customer is refused', async () => {
     await signInAs(DEMO.crew);
@@ -103,5 +120,9 @@ describe('lot list (JSON route)', () => {
     expect(theirs.rows.map((r: { code: string }) => r.code)).toEqual([lot.data.code]);
     await signInAs(DEMO.customer);
     expect((await listLotsRoute(new Request('http://t/api/lots'))).status).toBe(403);
+    await signInAs(DEMO.crew);
+    expect((await listLotsRoute(new Request('http://t/api/lots?sort=password'))).status).toBe(400);
+    const byNet = await (await listLotsRoute(new Request('http://t/api/lots?sort=netGrams&dir=desc&pageSize=3'))).json();
+    expect(byNet.rows[0].netGrams).toBeGreaterThanOrEqual(byNet.rows[1].netGrams);
   });
 });

@@ -61,6 +61,9 @@ describe('weights', () => {
     const detail = await getLotDetail((await currentUser())!, lot.id);
     expect(detail!.supers[0]).toMatchObject({ measured: true, honeyGrams: 27_000 - 9_000 });
     expect(detail!.yield.measuredCount).toBe(1);
+    // the other two are estimated from the medium-super default (37.5 lb per 10 frames, REFERENCES.md rules of thumb)
+    expect(detail!.supers[1]).toMatchObject({ measured: false, honeyGrams: Math.round(37.5 * 453.59237) });
+    expect(detail!.yield.expectedGrams).toBe(18_000 + 2 * Math.round(37.5 * 453.59237));
   });
 });
 

@@ -20,9 +20,10 @@ import { LabUploadForm } from '@/components/lots/lab-upload-form';
 import { VoidButton } from '@/components/lots/void-button';
 import { EmptyWeightForm, WaxForm } from '@/components/lots/weight-field-form';
 import { LotHistory } from '@/components/lots/lot-history';
+import { RemoveSuperButton } from '@/components/lots/remove-super-button';
 import { LotTrace } from '@/components/lots/lot-trace';
 import {
-  addContainerAction, addReadingAction, changeStageAction, emptyWeightAction, pickSupersAction, scanSuperAction, voidRecordAction, waxAction,
+  addContainerAction, addReadingAction, changeStageAction, emptyWeightAction, pickSupersAction, removeSuperAction, scanSuperAction, voidRecordAction, waxAction,
 } from '../actions';
 
 export const metadata = { title: 'Lot' };
@@ -92,7 +93,8 @@ export default async function LotPage({ params, searchParams }: { params: Promis
                       <td className="num">{s.emptyGrams !== null ? w(s.emptyGrams) : null}
                         {writer && open ? <EmptyWeightForm lotId={lot.id} superPullId={s.id} tag={s.tagCode ?? String(s.id)} unit={unit} onSave={emptyWeightAction} /> : s.emptyGrams === null ? '—' : null}</td>
                       <td className="num">{w(s.honeyGrams)} <span className="hint">{s.measured ? 'measured' : 'estimated'}</span></td>
-                      <td>{s.flagged ? (s.overrideReason ? <Chip tone="warn" title={s.overrideReason}>overridden</Chip> : <Chip tone="bad" title={s.flagReasons.join('; ')}>flagged</Chip>) : <Chip tone="ok">clear</Chip>}</td>
+                      <td>{s.flagged ? (s.overrideReason ? <Chip tone="warn" title={s.overrideReason}>overridden</Chip> : <Chip tone="bad" title={s.flagReasons.join('; ')}>flagged</Chip>) : <Chip tone="ok">clear</Chip>}
+                        {writer && lot.stage === 'gathering' ? <RemoveSuperButton lotId={lot.id} superPullId={s.id} tag={s.tagCode ?? String(s.id)} onRemove={removeSuperAction} /> : null}</td>
                     </tr>
                   ))}
                   {lot.supers.length === 0 ? <tr><td colSpan={8} className="hint">No supers yet.</td></tr> : null}
