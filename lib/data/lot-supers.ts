@@ -127,7 +127,7 @@ export async function listPullableSupers(filter: { yardId?: number; q?: string; 
     where: {
       lotId: null, pulledOn: { [Op.ne]: null },
       ...(like ? { [Op.or]: [{ tagCode: { [Op.iLike]: like } }, { '$colony.code$': { [Op.iLike]: like } }] } : {}),
-      ...(filter.yardId ? { '$colony.yardId$': filter.yardId } : {}),
+      ...(filter.yardId ? { '$colony.yard_id$': filter.yardId } : {}),
     },
     include: [{ model: models.Colony, as: 'colony', attributes: ['code', 'yardId'], include: [{ model: models.Yard, as: 'yard', attributes: ['name'] }] }],
     order: [['pulledOn', 'DESC'], ['id', 'DESC']],

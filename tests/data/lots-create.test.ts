@@ -5,6 +5,7 @@ import { createLotAction, scanSuperAction, pickSupersAction, removeSuperAction, 
 import { GET as listLotsRoute } from '@/app/api/lots/route';
 import { DEMO, signInAs } from '../support/session';
 import { makePulledSupers } from '../support/lot-fixtures';
+import { listPullableSupers } from '@/lib/data/lot-supers';
 
 afterAll(closeDb);
 
@@ -78,6 +79,22 @@ describe('supers into a lot', () => {
     const audit = await getDb().models.AuditEntry.findOne({ where: { action: 'super.override', entityId: String(sp!.id) } });
     expect(audit?.reason).toMatch(/Syrup ended/);
     expect(audit?.actorUserId).toBe(owner!.id);
+  });
+});
+
+describe('the list of pulled supers to pick from', () => {
+  it('filters by yard and by tag or colony, and drops a super once it is in a lot', async () => {
+    await signInAs(DEMO.crew);
+    const { tags, supers, yard, colony } = await makePulledSupers(2, { flagged: [false, true] });
+    const byYard = await listPullableSupers({ yardId: yard.id });
+    expect(byYard.map((s) => s.tagCode).sort()).toEqual([...tags].sort());
+    expect(byYard.find((s) => s.id === supers[1].id)).toMatchObject({ flagged: true, yardName: yard.name, colonyCode: colony.code });
+    expect((await listPullableSupers({ q: colony.code })).length).toBe(2);
+    expect((await listPullableSupers({ q: tags[0] })).map((s) => s.id)).toEqual([supers[0].id]);
+    const lot = await createLotAction({ floralSource: 'Pick test', heather: false, notes: '' });
+    if (!lot.ok) throw new Error('lot not made');
+    expect(await pickSupersAction({ lotId: lot.data.id, superPullIds: [supers[0].id] })).toMatchObject({ ok: true });
+    expect((await listPullableSupers({ yardId: yard.id })).map((s) => s.id)).toEqual([supers[1].id]);
   });
 });
 
