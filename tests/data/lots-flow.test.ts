@@ -2,7 +2,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/lib/db';
 import { refractiveIndexFromWater } from '@/lib/domain/moisture';
 import {
-  addContainerAction, addReadingAction, changeStageAction, createBlendAction, createLotAction, scanSuperAction, voidRecordAction, emptyWeightAction,
+  addContainerAction, addReadingAction, changeStageAction, updateLotAction, createBlendAction, createLotAction, scanSuperAction, voidRecordAction, emptyWeightAction,
 } from '@/app/(back-office)/admin/lots/actions';
 import { POST as uploadLabFile } from '@/app/api/lots/[id]/lab-files/route';
 import { GET as downloadLabFile } from '@/app/api/lab-files/[id]/route';
@@ -87,6 +87,14 @@ describe('moisture and release', () => {
     expect(await stageOf(lot.id)).toBe('held');
   });
 
+  it('details can change while the lot is open, with before and after in the history', async () => {
+    const lot = await extractedLot();
+    ok(await updateLotAction({ lotId: lot.id, floralSource: 'Heather moor', heather: true, extractedOn: '2026-08-20', notes: 'Pressed combs' }));
+    const audit = await getDb().models.AuditEntry.findOne({ where: { entityType: 'lot', entityId: String(lot.id), action: 'lot.update' } });
+    expect(audit?.before).toMatchObject({ floralSource: 'Test clover', heather: false });
+    expect(audit?.after).toMatchObject({ floralSource: 'Heather moor', heather: true, extractedOn: '2026-08-20', notes: 'Pressed combs' });
+  });
+
   it('the heather limit (23 %, EU 2001/110/EC Annex II) applies to a heather lot', async () => {
     const lot = await extractedLot(21.5, { heather: true });
     expect(ok(await changeStageAction({ lotId: lot.id, target: 'released' }))).toMatchObject({ stage: 'released' });
@@ -110,6 +118,7 @@ describe('moisture and release', () => {
     ok(await changeStageAction({ lotId: lot.id, target: 'released' }));
     expect(await addContainerAction({ lotId: lot.id, label: 'Late', gross: 10, tare: 1, unit: 'kg' })).toMatchObject({ ok: false, message: /released.*voiding/ });
     expect(await addReadingAction({ lotId: lot.id, method: 'scale', scaleWaterPct: 17, takenOn: '2026-08-03' })).toMatchObject({ ok: false, message: /released/ });
+    expect(await updateLotAction({ lotId: lot.id, floralSource: 'Renamed', heather: true, notes: '' })).toMatchObject({ ok: false, message: /released/ });
     const reading = await getDb().models.MoistureReading.findOne({ where: { lotId: lot.id } });
     ok(await voidRecordAction({ lotId: lot.id, kind: 'reading', recordId: reading!.id, reason: 'Sample was from the wrong bucket' }));
     const after = await getDb().models.MoistureReading.findByPk(reading!.id);

@@ -21,9 +21,11 @@ import { VoidButton } from '@/components/lots/void-button';
 import { EmptyWeightForm, WaxForm } from '@/components/lots/weight-field-form';
 import { LotHistory } from '@/components/lots/lot-history';
 import { RemoveSuperButton } from '@/components/lots/remove-super-button';
+import { LotDetailsForm } from '@/components/lots/lot-details-form';
+import { floralSourceSuggestions } from '@/lib/data/lots';
 import { LotTrace } from '@/components/lots/lot-trace';
 import {
-  addContainerAction, addReadingAction, changeStageAction, emptyWeightAction, pickSupersAction, removeSuperAction, scanSuperAction, voidRecordAction, waxAction,
+  addContainerAction, addReadingAction, changeStageAction, emptyWeightAction, pickSupersAction, removeSuperAction, scanSuperAction, updateLotAction, voidRecordAction, waxAction,
 } from '../actions';
 
 export const metadata = { title: 'Lot' };
@@ -196,6 +198,14 @@ export default async function LotPage({ params, searchParams }: { params: Promis
           ) : null}
           <Caution>Limits start at published honey standards (EU 2001/110/EC, USDA grades); follow your local food law. Combtrace records and warns; it does not certify.</Caution>
         </section>
+
+        {writer && open ? (
+          <section className="card space-y-3" aria-labelledby="details-h">
+            <h2 id="details-h">Details</h2>
+            <LotDetailsForm onSave={updateLotAction} suggestions={await floralSourceSuggestions()}
+              defaults={{ lotId: lot.id, floralSource: lot.floralSource, heather: lot.heather, extractedOn: lot.extractedOn ?? '', notes: lot.notes }} />
+          </section>
+        ) : lot.notes ? <section className="card" aria-label="Notes"><h2>Notes</h2><p className="whitespace-pre-line text-sm">{lot.notes}</p></section> : null}
 
         <section className="card space-y-4" aria-labelledby="lab-h">
           <h2 id="lab-h">Lab reports</h2>
