@@ -1,7 +1,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/lib/db';
 import { parseLotCode } from '@/lib/domain/lot-code';
-import { createLotAction, scanSuperAction, pickSupersAction, removeSuperAction, addContainerAction, changeStageAction } from '@/app/(back-office)/admin/lots/actions';
+import { saveContainerTypeAction, createLotAction, scanSuperAction, pickSupersAction, removeSuperAction, addContainerAction, changeStageAction } from '@/app/(back-office)/admin/lots/actions';
 import { GET as listLotsRoute } from '@/app/api/lots/route';
 import { DEMO, signInAs } from '../support/session';
 import { makePulledSupers } from '../support/lot-fixtures';
@@ -141,5 +141,21 @@ describe('lot list (JSON route)', () => {
     expect((await listLotsRoute(new Request('http://t/api/lots?sort=password'))).status).toBe(400);
     const byNet = await (await listLotsRoute(new Request('http://t/api/lots?sort=netGrams&dir=desc&pageSize=3'))).json();
     expect(byNet.rows[0].netGrams).toBeGreaterThanOrEqual(byNet.rows[1].netGrams);
+  });
+});
+
+describe('container types', () => {
+  it('the owner adds and edits them (tare in lb → grams), names stay unique, the crew cannot', async () => {
+    await signInAs(DEMO.owner);
+    const made = await saveContainerTypeAction({ name: 'Tote 1000 L', usualTare: 130, unit: 'lb', active: true });
+    expect(made.ok).toBe(true);
+    const id = made.ok ? made.data.id : 0;
+    // 130 lb × 453.59237 g/lb = 58 967.0081 g → 58 967 g
+    expect((await getDb().models.ContainerType.findByPk(id))!.usualTareGrams).toBe(58_967);
+    expect(await saveContainerTypeAction({ name: 'Tote 1000 L', usualTare: 1, unit: 'kg', active: true })).toMatchObject({ ok: false, message: /already a container type/ });
+    expect(await saveContainerTypeAction({ id, name: 'Tote 1000 L', usualTare: 58, unit: 'kg', active: false })).toMatchObject({ ok: true });
+    expect((await getDb().models.ContainerType.findByPk(id))).toMatchObject({ usualTareGrams: 58_000, active: false });
+    await signInAs(DEMO.crew);
+    expect(await saveContainerTypeAction({ name: 'Crew tub', usualTare: 1, unit: 'kg', active: true })).toMatchObject({ ok: false, message: /not allowed/ });
   });
 });
