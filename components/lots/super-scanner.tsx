@@ -4,6 +4,7 @@ import { ScanLine } from 'lucide-react';
 import type { ActionResult } from '@/lib/schemas/result';
 import type { ScanSuperInput } from '@/lib/schemas/lots';
 import { FormMessage } from '@/components/ui/form-message';
+import { CameraScan } from './camera-scan';
 
 type Added = { superPullId: number; tagCode: string | null; colonyCode: string; overridden: boolean };
 
@@ -53,6 +54,7 @@ export function SuperScanner({ lotId, isOwner, onScan }: { lotId: number; isOwne
         </label>
         <button type="submit" className="btn-secondary"><ScanLine aria-hidden className="h-4 w-4" /> Add super</button>
       </form>
+      <CameraScan onCode={(c) => send(c)} />
       <FormMessage error={error} />
       {flagged ? (
         <form onSubmit={(e) => { e.preventDefault(); send(flagged, reason); }} className="card space-y-2 border-bad-fg">
