@@ -2,7 +2,7 @@ import 'server-only';
 import { QueryTypes } from 'sequelize';
 import type { SessionUser } from '@/lib/auth/session';
 import { getDb } from '@/lib/db';
-import { allocateByWeight } from '@/lib/domain/yield-allocation';
+import { NOT_ATTRIBUTED, roundLotShares } from '@/lib/domain/yield-allocation';
 import { getSettings } from './settings';
 import {
   listSeasons, seasonColonies, seasonHistory, seasonLots, seasonShares, superEstimatesFrom,
@@ -28,20 +28,7 @@ export type SeasonReport = {
   totals: { honeyGrams: number; revenueCents: number; lotGrams: number; lotRevenueCents: number; unattributedGrams: number };
 };
 
-const UNATTRIBUTED = 'none';
-
-/**
- * Rounds one lot's exact colony fractions to whole grams (and cents) with allocateByWeight:
- * the colonies' grams add up to the lot's own weight exactly. A part that reaches no super
- * (a parent lot with no sources) stays unattributed rather than being pushed onto the others.
- */
-export function roundLot(ownGrams: number, revenueCents: number, shares: { colonyId: number; frac: number }[]) {
-  const fracSum = shares.reduce((a, s) => a + s.frac, 0);
-  const list = shares.map((s) => ({ id: String(s.colonyId), grams: s.frac }));
-  if (fracSum < 1 - 1e-9) list.push({ id: UNATTRIBUTED, grams: 1 - fracSum });
-  if (list.every((s) => !(s.grams > 0))) return { grams: { [UNATTRIBUTED]: ownGrams }, cents: { [UNATTRIBUTED]: revenueCents } };
-  return { grams: allocateByWeight(ownGrams, list), cents: allocateByWeight(revenueCents, list) };
-}
+const UNATTRIBUTED = NOT_ATTRIBUTED;
 
 /** The report scope a user may see: a keeper only their own colonies; null when they ask for another's. */
 export function reportScope(user: SessionUser, filter: ReportFilter): ReportFilter | null {
@@ -104,7 +91,7 @@ async function buildReport(input: { season: number; seasons: number[]; scope: Re
   type Cell = { lotId: number; grams: number; cents: number };
   const cells = new Map<number, Cell[]>();
   const lotRows = lots.map((lot) => {
-    const { grams, cents } = roundLot(lot.ownGrams, lot.revenueCents, sharesByLot.get(lot.id) ?? []);
+    const { grams, cents } = roundLotShares(lot.ownGrams, lot.revenueCents, (sharesByLot.get(lot.id) ?? []).map((s) => ({ id: String(s.colonyId), frac: s.frac })));
     for (const [id, g] of Object.entries(grams)) {
       if (id === UNATTRIBUTED) continue;
       const colonyId = Number(id);
