@@ -187,3 +187,19 @@ export async function keepersWithColonies(season: number): Promise<{ id: number;
     { type: QueryTypes.SELECT, replacements: { season, from: `${season}-01-01`, to: `${season + 1}-01-01` } },
   );
 }
+
+/** Choices for the report's filters, within the user's scope. */
+export async function reportFilterChoices(user: SessionUser): Promise<{ yards: { id: number; name: string }[]; keepers: { id: number; name: string }[] }> {
+  const { sequelize } = getDb();
+  const own = user.role === 'owner' ? null : user.id;
+  const [yards, keepers] = await Promise.all([
+    sequelize.query<{ id: number; name: string }>(
+      `SELECT y.id, y.name FROM yards y WHERE :own::int IS NULL OR EXISTS (SELECT 1 FROM colonies c WHERE c.yard_id = y.id AND c.keeper_id = :own) ORDER BY y.name`,
+      { type: QueryTypes.SELECT, replacements: { own } },
+    ),
+    own === null
+      ? sequelize.query<{ id: number; name: string }>(`SELECT id, name FROM users WHERE role = 'keeper' ORDER BY name`, { type: QueryTypes.SELECT })
+      : Promise.resolve([]),
+  ]);
+  return { yards, keepers };
+}
