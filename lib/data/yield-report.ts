@@ -6,7 +6,7 @@ import { NOT_ATTRIBUTED, roundLotShares } from '@/lib/domain/yield-allocation';
 import { getSettings } from './settings';
 import {
   listSeasons, seasonColonies, seasonHistory, seasonLots, seasonShares, superEstimatesFrom,
-  type HistoryRow, type LotRow, type ShareRow,
+  type ColonyBase, type HistoryRow, type LotRow, type ShareRow,
 } from './yield-sql';
 
 export type ReportFilter = { season?: number; yardId?: number; keeperId?: number };
@@ -78,14 +78,23 @@ export async function getSeasonReport(user: SessionUser, filter: ReportFilter): 
   const [settings, seasons] = await Promise.all([getSettings(), listSeasons()]);
   const season = scope.season ?? seasons[0] ?? new Date().getUTCFullYear();
   const est = superEstimatesFrom(settings.superEstimates);
-  const [shares, lots] = await Promise.all([seasonShares(season, est), seasonLots(season)]);
-  return buildReport({ season, seasons, scope, shares, lots });
+  // Independent queries run side by side; the colony list waits only for the shares.
+  const sharesP = seasonShares(season, est);
+  const basesP = sharesP.then((sh) => seasonColonies(season, [...new Set(sh.map((s) => s.colonyId))], scope));
+  const [shares, lots, bases, lines] = await Promise.all([sharesP, seasonLots(season), basesP, lineRoots()]);
+  return buildReport({ season, seasons, scope, shares, lots, bases, lines });
 }
 
-async function buildReport(input: { season: number; seasons: number[]; scope: ReportFilter; shares: ShareRow[]; lots: LotRow[] }): Promise<SeasonReport> {
-  const { season, seasons, scope, shares, lots } = input;
+function buildReport(input: {
+  season: number; seasons: number[]; scope: ReportFilter; shares: ShareRow[]; lots: LotRow[]; bases: ColonyBase[]; lines: Map<number, string>;
+}): SeasonReport {
+  const { season, seasons, scope, shares, lots, bases, lines } = input;
   const sharesByLot = new Map<number, ShareRow[]>();
-  for (const s of shares) sharesByLot.set(s.lotId, [...(sharesByLot.get(s.lotId) ?? []), s]);
+  for (const s of shares) {
+    const list = sharesByLot.get(s.lotId) ?? [];
+    list.push(s);
+    sharesByLot.set(s.lotId, list);
+  }
 
   // Whole grams and cents per (colony, lot), rounded per lot so each lot adds up exactly.
   type Cell = { lotId: number; grams: number; cents: number };
@@ -95,7 +104,9 @@ async function buildReport(input: { season: number; seasons: number[]; scope: Re
     for (const [id, g] of Object.entries(grams)) {
       if (id === UNATTRIBUTED) continue;
       const colonyId = Number(id);
-      cells.set(colonyId, [...(cells.get(colonyId) ?? []), { lotId: lot.id, grams: g, cents: cents[id] ?? 0 }]);
+      const list = cells.get(colonyId) ?? [];
+      list.push({ lotId: lot.id, grams: g, cents: cents[id] ?? 0 });
+      cells.set(colonyId, list);
     }
     const unattributedGrams = grams[UNATTRIBUTED] ?? 0;
     return { ...lot, attributedGrams: lot.ownGrams - unattributedGrams, unattributedGrams };
@@ -108,11 +119,10 @@ async function buildReport(input: { season: number; seasons: number[]; scope: Re
   const yardHoney = new Map<number, number[]>();
   for (const [colonyId, list] of cells) {
     const yardId = yardOf.get(colonyId)!;
-    yardHoney.set(yardId, [...(yardHoney.get(yardId) ?? []), list.reduce((a, c) => a + c.grams, 0)]);
+    yardHoney.set(yardId, [...(yardHoney.get(yardId) ?? []), list.reduce((a, c) => a + c.grams, 0)]); // ≤ colonies per yard
   }
   const betterInYard = (yardId: number, grams: number) => 1 + (yardHoney.get(yardId) ?? []).filter((g) => g > grams).length;
 
-  const [bases, lines] = await Promise.all([seasonColonies(season, [...cells.keys()], scope), lineRoots()]);
   const colonies: ColonyReportRow[] = bases.map((c) => {
     const list = cells.get(c.id) ?? [];
     const honeyGrams = list.reduce((a, x) => a + x.grams, 0);
@@ -147,6 +157,7 @@ async function buildReport(input: { season: number; seasons: number[]; scope: Re
     .sort((a, b) => b.meanHoneyGrams - a.meanHoneyGrams);
 
   const shown = scope.keeperId !== undefined || scope.yardId !== undefined;
+  const shownLots = new Set(colonies.flatMap((c) => c.lotShares.map((s) => s.lotId)));
   return {
     season, seasons, filter: scope,
     colonies,
@@ -155,7 +166,7 @@ async function buildReport(input: { season: number; seasons: number[]; scope: Re
     keepers: totalsBy(colonies, (c) => c.keeperId, (c) => c.keeperName),
     lines: lineRows,
     // A keeper's or one yard's report lists only the lots its colonies gave to.
-    lots: shown ? lotRows.filter((l) => colonies.some((c) => c.lotShares.some((s) => s.lotId === l.id))) : lotRows,
+    lots: shown ? lotRows.filter((l) => shownLots.has(l.id)) : lotRows,
     totals: {
       honeyGrams: colonies.reduce((a, c) => a + c.honeyGrams, 0),
       revenueCents: colonies.reduce((a, c) => a + c.revenueCents, 0),

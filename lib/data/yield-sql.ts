@@ -51,6 +51,12 @@ export const LOT_SEASON_SQL = (l: string) => `EXTRACT(YEAR FROM COALESCE(${l}.ex
 const REVENUE_SQL = `oa.quantity * ol.unit_price_cents
   * COALESCE(1 - o.refunded_cents::numeric / NULLIF(o.total_cents, 0), 1)`;
 const SOLD_WHERE = `oa.state = 'sold' AND o.status NOT IN ('awaiting_payment', 'cancelled', 'expired')`;
+const revCte = `rev AS (
+  SELECT oa.lot_id, ROUND(SUM(${REVENUE_SQL}))::bigint AS cents
+  FROM order_allocations oa JOIN order_lines ol ON ol.id = oa.order_line_id JOIN orders o ON o.id = ol.order_id
+  WHERE oa.lot_id IN (SELECT id FROM roots) AND ${SOLD_WHERE}
+  GROUP BY oa.lot_id
+)`;
 
 export type ShareRow = { lotId: number; colonyId: number; yardId: number; frac: number };
 export type LotRow = {
@@ -58,16 +64,26 @@ export type LotRow = {
   netGrams: number; ownGrams: number; revenueCents: number; waterPct: number | null; supers: number;
 };
 
+/** The same test as LOT_SEASON_SQL = :season, written as date ranges so the planner can estimate it (and use lots_extracted_on). */
+const LOT_IN_SEASON = (l: string) => `((${l}.extracted_on >= :seasonFrom AND ${l}.extracted_on < :seasonTo)
+  OR (${l}.extracted_on IS NULL AND (${l}.created_at AT TIME ZONE 'UTC')::date >= :seasonFrom AND (${l}.created_at AT TIME ZONE 'UTC')::date < :seasonTo))`;
+const seasonRange = (season: number) => ({ season, seasonFrom: `${season}-01-01`, seasonTo: `${season + 1}-01-01` });
+
 const rootsCte = `given AS (SELECT parent_lot_id AS lot_id, SUM(grams) AS g FROM lot_parents GROUP BY parent_lot_id),
 roots AS (
   SELECT l.id, GREATEST(l.net_grams - COALESCE(gv.g, 0), 0)::bigint AS own
   FROM lots l LEFT JOIN given gv ON gv.lot_id = l.id
-  WHERE ${LOT_SEASON_SQL('l')} = :season
+  WHERE ${LOT_IN_SEASON('l')}
 )`;
 
-const walkCte = `lot_w AS (
+// Each super's honey computed once (MATERIALIZED): the weights of every lot's sources, and the walk
+// from each root lot down through blend parents, multiplying the fractions.
+const walkCte = `sp_h AS MATERIALIZED (
+  SELECT sp.id, sp.lot_id, sp.colony_id, ${HONEY_SQL('sp')}::float8 AS honey FROM super_pulls sp WHERE sp.lot_id IS NOT NULL
+),
+lot_w AS (
   SELECT lot_id, SUM(w)::float8 AS w FROM (
-    SELECT sp.lot_id, ${HONEY_SQL('sp')} AS w FROM super_pulls sp WHERE sp.lot_id IS NOT NULL
+    SELECT lot_id, honey AS w FROM sp_h
     UNION ALL SELECT child_lot_id, grams FROM lot_parents
   ) s GROUP BY lot_id
 ),
@@ -77,6 +93,11 @@ walk AS (
   SELECT w.root_id, lp.parent_lot_id, w.frac * lp.grams / lw.w, w.depth + 1
   FROM walk w JOIN lot_w lw ON lw.lot_id = w.lot_id AND lw.w > 0 JOIN lot_parents lp ON lp.child_lot_id = w.lot_id
   WHERE w.depth < 16
+),
+fracs AS (
+  SELECT w.root_id, sp.colony_id, SUM(w.frac * sp.honey / lw.w) AS frac
+  FROM walk w JOIN lot_w lw ON lw.lot_id = w.lot_id AND lw.w > 0 JOIN sp_h sp ON sp.lot_id = w.lot_id
+  GROUP BY 1, 2
 )`;
 
 /** Exact fraction of each of the season's lots that each colony made (unrounded). */
@@ -84,12 +105,9 @@ export async function seasonShares(season: number, est: SuperEstimates): Promise
   const { sequelize } = getDb();
   return sequelize.query<ShareRow>(
     `WITH RECURSIVE ${rootsCte}, ${walkCte}
-     SELECT w.root_id AS "lotId", sp.colony_id AS "colonyId", c.yard_id AS "yardId",
-            SUM(w.frac * ${HONEY_SQL('sp')} / lw.w)::float8 AS frac
-     FROM walk w JOIN lot_w lw ON lw.lot_id = w.lot_id AND lw.w > 0
-     JOIN super_pulls sp ON sp.lot_id = w.lot_id JOIN colonies c ON c.id = sp.colony_id
-     GROUP BY 1, 2, 3`,
-    { type: QueryTypes.SELECT, replacements: { season, ...estimateParams(est) } },
+     SELECT f.root_id AS "lotId", f.colony_id AS "colonyId", c.yard_id AS "yardId", f.frac
+     FROM fracs f JOIN colonies c ON c.id = f.colony_id`,
+    { type: QueryTypes.SELECT, replacements: { ...seasonRange(season), ...estimateParams(est) } },
   );
 }
 
@@ -97,13 +115,7 @@ export async function seasonShares(season: number, est: SuperEstimates): Promise
 export async function seasonLots(season: number): Promise<LotRow[]> {
   const { sequelize } = getDb();
   return sequelize.query<LotRow>(
-    `WITH ${rootsCte},
-     rev AS (
-       SELECT oa.lot_id, ROUND(SUM(${REVENUE_SQL}))::bigint AS cents
-       FROM order_allocations oa JOIN order_lines ol ON ol.id = oa.order_line_id JOIN orders o ON o.id = ol.order_id
-       WHERE oa.lot_id IN (SELECT id FROM roots) AND ${SOLD_WHERE}
-       GROUP BY oa.lot_id
-     ),
+    `WITH ${rootsCte}, ${revCte},
      water AS (
        SELECT lot_id, AVG(water_pct)::float8 AS pct FROM moisture_readings
        WHERE voided_at IS NULL AND lot_id IN (SELECT id FROM roots) GROUP BY lot_id
@@ -114,7 +126,7 @@ export async function seasonLots(season: number): Promise<LotRow[]> {
      FROM roots r JOIN lots l ON l.id = r.id
      LEFT JOIN rev ON rev.lot_id = r.id LEFT JOIN water ON water.lot_id = r.id LEFT JOIN supers ON supers.lot_id = r.id
      ORDER BY l.code`,
-    { type: QueryTypes.SELECT, replacements: { season } },
+    { type: QueryTypes.SELECT, replacements: seasonRange(season) },
   );
 }
 
@@ -159,9 +171,8 @@ export async function seasonHistory(est: SuperEstimates, scope: { yardId?: numbe
        SELECT l.id, GREATEST(l.net_grams - COALESCE(gv.g, 0), 0)::bigint AS own, ${LOT_SEASON_SQL('l')} AS season
        FROM lots l LEFT JOIN given gv ON gv.lot_id = l.id
      ), ${walkCte}
-     SELECT r.season, c.yard_id AS "yardId", y.name AS "yardName", ROUND(SUM(r.own * w.frac * ${HONEY_SQL('sp')} / lw.w))::bigint AS "honeyGrams"
-     FROM walk w JOIN roots r ON r.id = w.root_id JOIN lot_w lw ON lw.lot_id = w.lot_id AND lw.w > 0
-     JOIN super_pulls sp ON sp.lot_id = w.lot_id JOIN colonies c ON c.id = sp.colony_id JOIN yards y ON y.id = c.yard_id
+     SELECT r.season, c.yard_id AS "yardId", y.name AS "yardName", ROUND(SUM(r.own * f.frac))::bigint AS "honeyGrams"
+     FROM fracs f JOIN roots r ON r.id = f.root_id JOIN colonies c ON c.id = f.colony_id JOIN yards y ON y.id = c.yard_id
      WHERE (:yardId::int IS NULL OR c.yard_id = :yardId) AND (:keeperId::int IS NULL OR c.keeper_id = :keeperId)
      GROUP BY 1, 2, 3 ORDER BY 1, 3`,
     { type: QueryTypes.SELECT, replacements: { ...estimateParams(est), yardId: scope.yardId ?? null, keeperId: scope.keeperId ?? null } },
@@ -179,4 +190,22 @@ export async function listSeasons(): Promise<number[]> {
     { type: QueryTypes.SELECT },
   );
   return rows.map((r) => r.season);
+}
+
+export type ColonyTotalRow = { colonyId: number; honeyGrams: number; revenueCents: number };
+
+/**
+ * The plain SQL aggregate the season report depends on: per colony, the season's lots' own
+ * weight and revenue times the colony's exact fraction, summed and rounded once per colony.
+ * The report's rounding per lot keeps each colony within 1 g (1 cent) per lot of this.
+ */
+export async function seasonColonyTotals(season: number, est: SuperEstimates): Promise<ColonyTotalRow[]> {
+  const { sequelize } = getDb();
+  return sequelize.query<ColonyTotalRow>(
+    `WITH RECURSIVE ${rootsCte}, ${walkCte}, ${revCte}
+     SELECT f.colony_id AS "colonyId", ROUND(SUM(r.own * f.frac))::bigint AS "honeyGrams", ROUND(SUM(COALESCE(rev.cents, 0) * f.frac))::bigint AS "revenueCents"
+     FROM fracs f JOIN roots r ON r.id = f.root_id LEFT JOIN rev ON rev.lot_id = f.root_id
+     GROUP BY f.colony_id`,
+    { type: QueryTypes.SELECT, replacements: { ...seasonRange(season), ...estimateParams(est) } },
+  );
 }

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import { closeDb, getDb } from '@/lib/db';
 import { getSeasonReport } from '@/lib/data/yield-report';
+import { seasonColonyTotals, superEstimatesFrom } from '@/lib/data/yield-sql';
 import { allocateLotTree, superHoneyGrams, DEFAULT_SUPER_ESTIMATES, type LotNode, type SuperDepth } from '@/lib/domain/yield-allocation';
 import type { SessionUser } from '@/lib/auth/session';
 import { buildFixture, type Fixture } from './reports-fixtures';
@@ -71,6 +72,17 @@ describe('season report totals', () => {
     }
     expect(report.colonies.find((c) => c.colonyId === fx.c4)!.honeyGrams).toBe(0);
     expect([...pure.grams.values()].reduce((a, b) => a + b, 0)).toBe(report.totals.honeyGrams);
+  });
+
+  it('stays within 1 g and 1 cent per lot of the plain SQL aggregate (rounded once per colony)', async () => {
+    const report = (await getSeasonReport(owner(fx.owner), { season: SEASON }))!;
+    const plain = await seasonColonyTotals(SEASON, superEstimatesFrom({}));
+    for (const colonyId of [fx.c1, fx.c2, fx.c3]) {
+      const row = report.colonies.find((c) => c.colonyId === colonyId)!;
+      const p = plain.find((x) => x.colonyId === colonyId)!;
+      expect(Math.abs(row.honeyGrams - p.honeyGrams)).toBeLessThanOrEqual(row.lotShares.length);
+      expect(Math.abs(row.revenueCents - p.revenueCents)).toBeLessThanOrEqual(report.lots.length);
+    }
   });
 
   it('shares revenue of sold jars, less refunds, and ignores unpaid orders', async () => {
