@@ -66,8 +66,8 @@ export function LotTraceView({ t, system }: { t: LotTrace; system: UnitSystem })
         <div className="flex flex-wrap items-center justify-between gap-2">
           <p className="font-medium">Recall list: {customers} customers, {t.recall.reduce((a, r) => a + r.jars, 0)} jars</p>
           <div className="flex gap-2">
-            <a className="btn-secondary min-h-11" href={`/api/trace/recall/${t.lot.id}?format=csv`} download>Recall list CSV</a>
-            <a className="btn-secondary min-h-11" href={`/api/trace/recall/${t.lot.id}?format=pdf`} download>Recall list PDF</a>
+            <a className="btn-secondary min-h-11" href={`/api/trace/recall?lot=${t.lot.id}&format=csv`} download>Recall list CSV</a>
+            <a className="btn-secondary min-h-11" href={`/api/trace/recall?lot=${t.lot.id}&format=pdf`} download>Recall list PDF</a>
           </div>
         </div>
         <Table caption="Orders and customers" head={['Order', 'Status', 'Customer', 'E-mail', 'Phone', 'Lot', 'Product', 'Jars']} empty="No jars of this lot were sold."

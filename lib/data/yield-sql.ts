@@ -2,7 +2,6 @@ import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/db';
 import { DEFAULT_SUPER_ESTIMATES, type SuperEstimates } from '@/lib/domain/yield-allocation';
-import type { SuperEstimates as SettingEstimates } from '@/models/business-setting';
 
 /**
  * The SQL behind the season report. Everything that touches many rows (super pulls, lot
@@ -19,12 +18,12 @@ import type { SuperEstimates as SettingEstimates } from '@/models/business-setti
  *   the given grams are counted in the blend, which passes them back through this lot.
  */
 
-/** The owner's estimates (grams per full box of 10 frames) over the defaults. */
-export function superEstimatesFrom(setting: SettingEstimates | null | undefined): SuperEstimates {
+/** The owner's estimates (settings.superEstimates) over the defaults, depth by depth; anything unusable is ignored. */
+export function superEstimatesFrom(setting: Partial<SuperEstimates> | null | undefined): SuperEstimates {
   const out: SuperEstimates = { ...DEFAULT_SUPER_ESTIMATES };
   for (const depth of ['deep', 'medium', 'shallow'] as const) {
-    const grams = setting?.[depth];
-    if (typeof grams === 'number' && Number.isFinite(grams) && grams > 0) out[depth] = { gramsPerBox: Math.round(grams), framesPerBox: 10 };
+    const e = setting?.[depth];
+    if (e && Number.isFinite(e.gramsPerBox) && e.gramsPerBox > 0 && Number.isInteger(e.framesPerBox) && e.framesPerBox > 0) out[depth] = e;
   }
   return out;
 }

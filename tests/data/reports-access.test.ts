@@ -5,8 +5,8 @@ import { getSeasonReport } from '@/lib/data/yield-report';
 import { getRecallList, traceInput } from '@/lib/data/trace';
 import { gs1RawElementString } from '@/lib/domain/gs1';
 import { GET as csvGET } from '@/app/api/reports/csv/route';
-import { GET as pdfGET } from '@/app/api/reports/keepers/[keeperId]/pdf/route';
-import { GET as recallGET } from '@/app/api/trace/recall/[lotId]/route';
+import { GET as pdfGET } from '@/app/api/reports/keeper-pdf/route';
+import { GET as recallGET } from '@/app/api/trace/recall/route';
 import { seasonRecipientsAction, sendKeeperReportAction } from '@/app/(back-office)/admin/reports/actions';
 import type { SessionUser } from '@/lib/auth/session';
 import { DEMO, signInAs } from '../support/session';
@@ -15,7 +15,7 @@ import { buildFixture, type Fixture } from './reports-fixtures';
 const SEASON = 2032;
 let fx: Fixture;
 const as = (id: number, role: SessionUser['role']): SessionUser => ({ id, name: 'x', email: 'x@hollowmere.test', role });
-const pdfReq = (keeperId: number) => pdfGET(new Request(`http://127.0.0.1/api/reports/keepers/${keeperId}/pdf?season=${SEASON}`), { params: Promise.resolve({ keeperId: String(keeperId) }) });
+const pdfReq = (keeperId: number) => pdfGET(new Request(`http://127.0.0.1/api/reports/keeper-pdf?keeper=${keeperId}&season=${SEASON}`));
 
 beforeAll(async () => {
   fx = await buildFixture(SEASON, 'RA');
@@ -58,6 +58,7 @@ describe('a keeper sees only their own colonies', () => {
     expect((await pdfReq(fx.keeper2)).status).toBe(404);
     await signInAs(DEMO.owner);
     expect((await pdfReq(fx.keeper2)).status).toBe(200);
+    expect((await pdfGET(new Request(`http://127.0.0.1/api/reports/keeper-pdf?season=${SEASON}`))).status).toBe(400);
     expect((await pdfReq(fx.cust1)).status).toBe(404); // not a keeper
     await signInAs(null);
     expect((await pdfReq(fx.keeper)).status).toBe(401);
@@ -77,19 +78,36 @@ describe('recall list', () => {
     expect(await getRecallList(fx.lotD)).toEqual([]);
   });
 
+  it('for a demo lot with sales, lists exactly the customers of its sold allocations', async () => {
+    const { sequelize } = getDb();
+    const [lot] = await sequelize.query<{ id: number }>(
+      `SELECT oa.lot_id AS id FROM order_allocations oa WHERE oa.state = 'sold'
+         AND NOT EXISTS (SELECT 1 FROM lot_parents lp WHERE lp.parent_lot_id = oa.lot_id)
+       GROUP BY oa.lot_id ORDER BY COUNT(*) DESC LIMIT 1`, { type: QueryTypes.SELECT });
+    const expected = await sequelize.query<{ email: string; jars: number }>(
+      `SELECT o.email, SUM(oa.quantity)::int AS jars FROM order_allocations oa JOIN order_lines ol ON ol.id = oa.order_line_id
+       JOIN orders o ON o.id = ol.order_id WHERE oa.lot_id = :id AND oa.state = 'sold' GROUP BY o.email ORDER BY o.email`,
+      { type: QueryTypes.SELECT, replacements: { id: lot.id } });
+    expect(expected.length).toBeGreaterThan(0);
+    const rows = await getRecallList(lot.id);
+    const got = new Map<string, number>();
+    for (const r of rows) got.set(r.email, (got.get(r.email) ?? 0) + r.jars);
+    expect([...got].sort()).toEqual(expected.map((e) => [e.email, e.jars]));
+  });
+
   it('recall CSV and PDF routes for the crew; keepers are refused', async () => {
     await signInAs(DEMO.crew);
-    const ctx = { params: Promise.resolve({ lotId: String(fx.lotB) }) };
-    const csv = await recallGET(new Request(`http://127.0.0.1/api/trace/recall/${fx.lotB}?format=csv`), ctx);
+    const csv = await recallGET(new Request(`http://127.0.0.1/api/trace/recall?lot=${fx.lotB}&format=csv`));
     expect(csv.status).toBe(200);
     const lines = (await csv.text()).trim().split('\r\n');
     expect(lines).toHaveLength(3);
     expect(lines[2]).toContain('ra-two@example.test');
-    const pdf = await recallGET(new Request(`http://127.0.0.1/api/trace/recall/${fx.lotB}?format=pdf`), { params: Promise.resolve({ lotId: String(fx.lotB) }) });
+    const pdf = await recallGET(new Request(`http://127.0.0.1/api/trace/recall?lot=${fx.lotB}&format=pdf`));
     expect(pdf.headers.get('content-type')).toBe('application/pdf');
-    expect((await recallGET(new Request('http://127.0.0.1/api/trace/recall/99999999'), { params: Promise.resolve({ lotId: '99999999' }) })).status).toBe(404);
+    expect((await recallGET(new Request('http://127.0.0.1/api/trace/recall?lot=99999999'))).status).toBe(404);
+    expect((await recallGET(new Request('http://127.0.0.1/api/trace/recall?lot=abc'))).status).toBe(400);
     await signInAs(DEMO.keeper);
-    expect((await recallGET(new Request(`http://127.0.0.1/api/trace/recall/${fx.lotB}`), { params: Promise.resolve({ lotId: String(fx.lotB) }) })).status).toBe(403);
+    expect((await recallGET(new Request(`http://127.0.0.1/api/trace/recall?lot=${fx.lotB}`))).status).toBe(403);
   });
 });
 

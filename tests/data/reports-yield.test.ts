@@ -48,6 +48,20 @@ async function pureColonyGrams(lotIds: number[], own: Map<number, number>) {
 }
 
 describe('season report totals', () => {
+  it('on the demo season: colonies + unattributed = lots own weight = Σ net − Σ given to blends', async () => {
+    const { sequelize } = getDb();
+    const [{ net, given }] = await sequelize.query<{ net: number; given: number }>(
+      `SELECT (SELECT SUM(net_grams) FROM lots WHERE extracted_on BETWEEN '2026-01-01' AND '2026-12-31')::bigint AS net,
+              (SELECT COALESCE(SUM(lp.grams), 0) FROM lot_parents lp JOIN lots l ON l.id = lp.parent_lot_id
+               WHERE l.extracted_on BETWEEN '2026-01-01' AND '2026-12-31')::bigint AS given`, { type: QueryTypes.SELECT });
+    expect(net).toBeGreaterThan(0);
+    const report = (await getSeasonReport(owner(fx.owner), { season: 2026 }))!;
+    expect(report.totals.lotGrams).toBe(net - given);
+    expect(report.totals.honeyGrams + report.totals.unattributedGrams).toBe(report.totals.lotGrams);
+    expect(report.colonies.length).toBeGreaterThan(20);
+    expect(report.lots.some((l) => l.isBlend)).toBe(true);
+  });
+
   it('adds up exactly to the sum of the lots own weights, blends counted once', async () => {
     const report = (await getSeasonReport(owner(fx.owner), { season: SEASON }))!;
     // own weight = net − given to blends: A 52 001 − 12 000, B 30 017 − 8 000, blend C 20 000, D 9 000

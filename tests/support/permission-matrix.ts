@@ -21,6 +21,8 @@ export const ACTIONS: Record<string, Allowed> = {
   'app/(back-office)/admin/settings/actions.ts#saveSettingsAction': OWNER,
   'app/(back-office)/admin/staff/actions.ts#createStaffAction': OWNER,
   'app/(back-office)/admin/staff/actions.ts#updateStaffAction': OWNER,
+  'app/(back-office)/admin/reports/actions.ts#seasonRecipientsAction': OWNER,
+  'app/(back-office)/admin/reports/actions.ts#sendKeeperReportAction': OWNER,
 };
 
 /** Route handlers: `path#METHOD`. Dynamic segments are filled with ids that do not exist. */
@@ -31,6 +33,9 @@ export const ROUTES: Record<string, Allowed> = {
   'app/api/auth/[...nextauth]/route.ts#POST': 'anyone',
   'app/api/settings/route.ts#GET': OWNER,
   'app/api/settings/route.ts#PUT': OWNER,
+  'app/api/reports/csv/route.ts#GET': ['owner', 'keeper'],
+  'app/api/reports/keeper-pdf/route.ts#GET': ['owner', 'keeper'],
+  'app/api/trace/recall/route.ts#GET': HOUSE,
 };
 
 export const GROUPS = { OWNER, STAFF, HARVEST_WRITE, HOUSE };

@@ -106,7 +106,7 @@ export default async function ReportsPage({ searchParams }: { searchParams: Prom
           <h2 id="keeper-reports">Keeper reports</h2>
           <ul className="flex flex-wrap gap-2">
             {keeperLinks.map((k) => (
-              <li key={k.id}><a className="btn-secondary min-h-11" href={`/api/reports/keepers/${k.id}/pdf?season=${report.season}`} download>PDF: {k.name}</a></li>
+              <li key={k.id}><a className="btn-secondary min-h-11" href={`/api/reports/keeper-pdf?keeper=${k.id}&season=${report.season}`} download>PDF: {k.name}</a></li>
             ))}
           </ul>
           {can(user.role, 'reports.send') ? (

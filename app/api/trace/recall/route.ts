@@ -11,14 +11,16 @@ export const dynamic = 'force-dynamic';
 
 const COLUMNS = ['Order', 'Status', 'Customer', 'E-mail', 'Phone', 'Address', 'Lot', 'Product', 'Jars', 'Paid on'];
 
-/** Recall list for a lot (and blends made from it): every customer who received its jars, as CSV or PDF (?format=). */
-export async function GET(req: Request, ctx: { params: Promise<{ lotId: string }> }) {
+/** Recall list for a lot (and blends made from it): every customer who received its jars, as CSV or PDF (?lot=ID&format=csv|pdf). */
+export async function GET(req: Request) {
   try {
     await authorize('trace.read');
-    const lotId = idParam.safeParse((await ctx.params).lotId);
-    const code = lotId.success ? await getLotCode(lotId.data) : null;
-    if (!lotId.success || !code) throw new HttpError(404, 'There is no such lot.');
-    const format = recallFormat.parse(new URL(req.url).searchParams.get('format') ?? 'csv');
+    const params = new URL(req.url).searchParams;
+    const lotId = idParam.safeParse(params.get('lot'));
+    if (!lotId.success) throw new HttpError(400, 'Say which lot (?lot=…).');
+    const format = recallFormat.parse(params.get('format') ?? 'csv');
+    const code = await getLotCode(lotId.data);
+    if (!code) throw new HttpError(404, 'There is no such lot.');
     const rows = await getRecallList(lotId.data);
     const cells = rows.map((r) => [r.orderNumber, r.status.replace('_', ' '), r.customerName, r.email, r.phone, r.address, r.lotCode, r.productName, r.jars, r.paidAt ?? '']);
     if (format === 'csv') {
