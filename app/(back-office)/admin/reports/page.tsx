@@ -100,7 +100,7 @@ export default async function ReportsPage({ searchParams }: { searchParams: Prom
         <ReportTableView table={tables.lines} csvHref={csv('lines')} empty="No colony has a parent or splits." />
         <ReportTableView table={tables.nothing} csvHref={csv('nothing')} empty="Every colony made honey." />
         <ReportTableView table={tables.lots} csvHref={csv('lots')} empty="No lots in this season." />
-        <ReportTableView table={tables.shares} csvHref={csv('shares')} />
+        <ReportTableView table={tables.shares} csvHref={csv('shares')} folded />
 
         <section aria-labelledby="keeper-reports" className="card flex flex-col gap-3">
           <h2 id="keeper-reports">Keeper reports</h2>
