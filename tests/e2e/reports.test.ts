@@ -91,6 +91,7 @@ describe('trace', () => {
     await page.getByRole('button', { name: 'Trace' }).click();
     await page.getByRole('heading', { level: 2, name: `Lot ${jar.code}` }).waitFor();
     expect(await page.getByText(`Jar of lot ${jar.code}`).count()).toBe(1);
+    await page.screenshot({ path: 'tests/.artifacts/trace-crew.png', fullPage: true });
     expect(await page.getByTestId('trace-ms').innerText()).toMatch(/Traced in [\d.]+ ms/);
     const colonies = await page.getByRole('table', { name: 'Colonies' }).first().locator('tbody tr td:first-child').allInnerTexts();
     expect(new Set(colonies)).toEqual(new Set(jar.colonies));
