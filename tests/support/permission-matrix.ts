@@ -26,6 +26,8 @@ export const ACTIONS: Record<string, Allowed> = {
     'waxAction', 'addReadingAction', 'voidRecordAction', 'changeStageAction', 'createBlendAction',
   ].map((name) => [`app/(back-office)/admin/lots/actions.ts#${name}`, HOUSE])),
   'app/(back-office)/admin/lots/actions.ts#saveContainerTypeAction': OWNER,
+  'app/(back-office)/admin/reports/actions.ts#seasonRecipientsAction': OWNER,
+  'app/(back-office)/admin/reports/actions.ts#sendKeeperReportAction': OWNER,
 };
 
 /** Route handlers: `path#METHOD`. Dynamic segments are filled with ids that do not exist. */
@@ -39,6 +41,9 @@ export const ROUTES: Record<string, Allowed> = {
   'app/api/lots/route.ts#GET': STAFF,
   'app/api/lots/[id]/lab-files/route.ts#POST': HOUSE,
   'app/api/lab-files/[id]/route.ts#GET': STAFF,
+  'app/api/reports/csv/route.ts#GET': ['owner', 'keeper'],
+  'app/api/reports/keeper-pdf/route.ts#GET': ['owner', 'keeper'],
+  'app/api/trace/recall/route.ts#GET': HOUSE,
 };
 
 /**
