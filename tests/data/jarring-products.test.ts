@@ -50,8 +50,8 @@ describe('products', () => {
   });
 
   describe('photo upload', () => {
-    const png = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000000000005000177a4b6a10000000049454e44ae426082', 'hex');
-    async function upload(id: number, bytes: Uint8Array, type: string, name = 'photo.png') {
+    const png = new Uint8Array(Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000000000005000177a4b6a10000000049454e44ae426082', 'hex'));
+    async function upload(id: number, bytes: Uint8Array<ArrayBuffer>, type: string, name = 'photo.png') {
       const form = new FormData();
       form.set('photo', new File([bytes], name, { type }));
       return photoPost(new Request(`http://test/api/products/${id}/photo`, { method: 'POST', body: form }), { params: Promise.resolve({ id: String(id) }) });
