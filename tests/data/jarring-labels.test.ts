@@ -4,6 +4,7 @@ import { closeDb, getDb } from '@/lib/db';
 import { DEMO, signInAs } from '@/tests/support/session';
 import { GET } from '@/app/api/jarring/[id]/labels/route';
 import { createJarringRunAction } from '@/app/(back-office)/admin/jarring/actions';
+import { saveLabelLayoutAction } from '@/app/(back-office)/admin/labels/actions';
 import { parseGs1ElementString } from '@/lib/domain/gs1';
 import { decodePng } from '@/tests/pdf/decode';
 import { hasPoppler, pdfPagePng, pdfText } from '@/tests/pdf/poppler';
@@ -78,5 +79,20 @@ describe('label PDF of a jarring run', () => {
     const out = await GET(new Request(`http://test/api/jarring/${id}/labels`), { params: Promise.resolve({ id: String(id) }) });
     expect(out.status).toBe(409);
     expect((await out.json()).error).toMatch(/no GTIN/);
+  });
+
+  it('prints on an owner-saved layout; a layout that does not fit its paper is refused; crew cannot save layouts', async () => {
+    const layout = { name: `Test 2x4 ${Date.now()}`, paper: 'letter' as const, labelWidthMm: 100, labelHeightMm: 60, columns: 2, rows: 4, marginTopMm: 10, marginLeftMm: 5, gapXMm: 3, gapYMm: 2, offsetXMm: 0.5, offsetYMm: -0.5 };
+    expect(await saveLabelLayoutAction(layout)).toMatchObject({ ok: false, message: expect.stringMatching(/not allowed/) });
+    await signInAs(DEMO.owner);
+    // Letter is 215.9 mm wide (ANSI/ASME Y14.1): 5 + 3 × 100 + 2 × 3 = 311 mm does not fit
+    expect(await saveLabelLayoutAction({ ...layout, columns: 3 })).toMatchObject({ ok: false, message: expect.stringMatching(/too wide for LETTER/) });
+    const saved = await saveLabelLayoutAction(layout);
+    expect(saved.ok).toBe(true);
+    await signInAs(DEMO.crew);
+    const res = await labels(`?layout=s${saved.ok ? saved.data.id : 0}`);
+    const doc = await PDFDocument.load(new Uint8Array(await res.arrayBuffer()));
+    expect(doc.getPageCount()).toBe(4); // 25 labels, 8 per sheet
+    expect(doc.getPage(0).getWidth()).toBeCloseTo(612, 0); // 8.5 in × 72
   });
 });
