@@ -21,6 +21,12 @@ export const ACTIONS: Record<string, Allowed> = {
   'app/(back-office)/admin/settings/actions.ts#saveSettingsAction': OWNER,
   'app/(back-office)/admin/staff/actions.ts#createStaffAction': OWNER,
   'app/(back-office)/admin/staff/actions.ts#updateStaffAction': OWNER,
+  'app/(back-office)/admin/products/actions.ts#saveProductAction': OWNER,
+  'app/(back-office)/admin/jarring/actions.ts#createJarringRunAction': HOUSE,
+  'app/(back-office)/admin/jarring/actions.ts#overrideJarringRunAction': OWNER,
+  'app/(back-office)/admin/stock/actions.ts#adjustStockAction': HOUSE,
+  'app/(back-office)/admin/labels/actions.ts#saveLabelLayoutAction': OWNER,
+  'app/(back-office)/admin/labels/actions.ts#deleteLabelLayoutAction': OWNER,
 };
 
 /** Route handlers: `path#METHOD`. Dynamic segments are filled with ids that do not exist. */
@@ -31,6 +37,9 @@ export const ROUTES: Record<string, Allowed> = {
   'app/api/auth/[...nextauth]/route.ts#POST': 'anyone',
   'app/api/settings/route.ts#GET': OWNER,
   'app/api/settings/route.ts#PUT': OWNER,
+  'app/api/products/[id]/photo/route.ts#GET': 'anyone', // a product's photo, for the shop
+  'app/api/products/[id]/photo/route.ts#POST': OWNER,
+  'app/api/jarring/[id]/labels/route.ts#GET': HOUSE,
 };
 
 export const GROUPS = { OWNER, STAFF, HARVEST_WRITE, HOUSE };
