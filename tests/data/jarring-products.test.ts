@@ -3,7 +3,7 @@ import { closeDb, getDb } from '@/lib/db';
 import { DEMO, signInAs } from '@/tests/support/session';
 import { saveProductAction } from '@/app/(back-office)/admin/products/actions';
 import { GET as photoGet, POST as photoPost } from '@/app/api/products/[id]/photo/route';
-import { isValidGtin } from '@/lib/domain/gs1';
+import { isValidGtin, makeGtin } from '@/lib/domain/gs1';
 
 afterAll(closeDb);
 
@@ -33,13 +33,15 @@ describe('products', () => {
     expect(row).toMatchObject({ netGrams: 340, declaredUnit: 'oz', declaredAmount: 12, priceCents: 1299, gtin: null });
   });
 
-  it('refuses a typed GTIN with a wrong check digit (GS1 worked example 629104150021 → 3)', async () => {
+  it('refuses a typed GTIN with a wrong check digit, and a GTIN another product has', async () => {
     await signInAs(DEMO.owner);
+    // GS1 General Specifications worked example: 629104150021 → check digit 3, so …4 is wrong.
     const bad = await saveProductAction({ ...base, name: `Bad ${unique()}`, netAmount: 250, gtinMode: 'typed', gtin: '6291041500214' });
     expect(bad).toMatchObject({ ok: false, fieldErrors: { gtin: expect.stringMatching(/check digit/) } });
-    const good = await saveProductAction({ ...base, name: `Good ${unique()}`, netAmount: 250, gtinMode: 'typed', gtin: '6291041500213' });
-    expect(good).toMatchObject({ ok: true, data: { gtin: '6291041500213' } });
-    const twice = await saveProductAction({ ...base, name: `Twice ${unique()}`, netAmount: 250, gtinMode: 'typed', gtin: '6291041500213' });
+    const gtin = makeGtin('0614141', `8${String(Date.now() % 10_000).padStart(4, '0')}`);
+    const good = await saveProductAction({ ...base, name: `Good ${unique()}`, netAmount: 250, gtinMode: 'typed', gtin });
+    expect(good).toMatchObject({ ok: true, data: { gtin } });
+    const twice = await saveProductAction({ ...base, name: `Twice ${unique()}`, netAmount: 250, gtinMode: 'typed', gtin });
     expect(twice).toMatchObject({ ok: false, message: expect.stringMatching(/already has this GTIN/) });
   });
 

@@ -19,7 +19,8 @@ async function pullsInto(lotId: number, yardName: string, pulledOn: string[]) {
 describe('public lot page', () => {
   it('shows floral source, harvest months (blends through their parents), yards without coordinates, mean water, best-before', async () => {
     await signInAs(null);
-    const { LotParent, MoistureReading } = getDb().models;
+    const { LotParent, MoistureReading, BusinessSetting } = getDb().models;
+    await BusinessSetting.update({ region: 'Marrow Valley' }, { where: { id: 1 } });
     const parent = await releasedLot(10_000, { floralSource: 'Spring blossom' });
     const blend = await releasedLot(20_000, { floralSource: 'Wildflower' });
     await blend.update({ isBlend: true, bestBeforeOn: '2028-08-31' });
