@@ -12,12 +12,33 @@ export type PublicLot = {
   region: string;
   yardNames: string[];
   waterPct: number | null;
+  /** True when a blend has no readings of its own and waterPct is its parents' means, weighted by grams. */
+  waterFromParents: boolean;
   bestBeforeOn: string | null;
   note: string;
   businessName: string;
 };
 
 const MAX_DEPTH = 10;
+
+function meanWater(readings: { waterPct: number }[]): number | null {
+  return readings.length ? readings.reduce((s, r) => s + Number(r.waterPct), 0) / readings.length : null;
+}
+
+/** A blend without readings of its own: its parents' mean water, weighted by the grams each gave. */
+async function blendWater(lotId: number): Promise<number | null> {
+  const { LotParent, MoistureReading } = getDb().models;
+  const links = await LotParent.findAll({ where: { childLotId: lotId } });
+  let grams = 0;
+  let sum = 0;
+  for (const link of links) {
+    const mean = meanWater(await MoistureReading.findAll({ where: { lotId: link.parentLotId, voidedAt: null }, attributes: ['waterPct'] }));
+    if (mean === null) return null; // one unmeasured part: no honest figure for the whole
+    grams += link.grams;
+    sum += mean * link.grams;
+  }
+  return grams > 0 ? sum / grams : null;
+}
 
 /** The lot and every lot blended into it (parents of parents too), guarding against cycles. */
 async function lotTreeIds(rootId: number): Promise<number[]> {
@@ -56,10 +77,15 @@ export async function getPublicLot(code: string): Promise<PublicLot | null> {
   ]);
   const months = [...new Set(pulls.map((p) => p.pulledOn?.slice(0, 7)).filter((m): m is string => !!m))].sort();
   const yards = [...new Set(pulls.map((p) => p.colony?.yard?.name).filter((n): n is string => !!n))].sort();
-  const water = readings.length ? readings.reduce((s, r) => s + Number(r.waterPct), 0) / readings.length : null;
+  let water = meanWater(readings);
+  let waterFromParents = false;
+  if (water === null && lot.isBlend) {
+    water = await blendWater(lot.id);
+    waterFromParents = water !== null;
+  }
   return {
     code: lot.code, floralSource: lot.floralSource, isBlend: lot.isBlend, harvestMonths: months, extractedOn: lot.extractedOn ?? null,
-    region: settings.region, yardNames: yards, waterPct: water === null ? null : Math.round(water * 10) / 10,
+    region: settings.region, yardNames: yards, waterPct: water === null ? null : Math.round(water * 10) / 10, waterFromParents,
     bestBeforeOn: lot.bestBeforeOn ?? null, note: settings.publicLotNote, businessName: settings.businessName,
   };
 }

@@ -64,8 +64,15 @@ describe('jarring in the honey house', () => {
     expect(await onHand()).toBe(24);
 
     await page.goto(`${BASE()}/admin/jarring`);
+    await page.screenshot({ path: 'tests/.artifacts/jarring-page.png', fullPage: true });
+    const preview = page.waitForResponse((r) => r.url().includes('/labels?') && r.url().includes('preview=1'));
     await page.getByRole('row').filter({ hasText: lotCode }).filter({ hasText: 'passed' }).first().getByRole('link').click();
     await page.getByRole('heading', { name: /Jarring run #\d+/ }).waitFor();
+    // The print preview frame loads the first page of the run's PDF.
+    const previewRes = await preview;
+    expect(previewRes.status()).toBe(200);
+    expect(previewRes.headers()['content-type']).toBe('application/pdf');
+    await page.screenshot({ path: 'tests/.artifacts/jarring-run.png', fullPage: true });
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: /Download 24 labels/ }).click()]);
     expect(download.suggestedFilename()).toMatch(new RegExp(`^labels-${lotCode}.*\\.pdf$`));
     const bytes = readFileSync((await download.path())!);
@@ -83,6 +90,7 @@ describe('jarring in the honey house', () => {
     await page.goto(`${BASE()}/admin/jarring`);
     const flagged = page.getByRole('row').filter({ hasText: lotCode }).filter({ hasText: 'failed · not in stock' });
     expect(await flagged.count()).toBe(1);
+    await page.screenshot({ path: 'tests/.artifacts/jarring-flagged.png', fullPage: true });
   });
 
   it('the jar’s QR target, the public lot page, opens without signing in', async () => {
@@ -92,6 +100,14 @@ describe('jarring in the honey house', () => {
     expect(res?.status()).toBe(200);
     expect(await p.getByRole('heading', { level: 1 }).textContent()).toBe(`Lot ${lotCode}`);
     expect(await p.getByText('Best before').count()).toBeGreaterThan(0);
+    await p.screenshot({ path: 'tests/.artifacts/jarring-public-lot.png', fullPage: true });
+    // The demo blend (seeders/20261201000200-demo-season.ts): harvest months and yards come from its parent lots.
+    await p.goto(`${BASE()}/lot/HH26-005`);
+    const harvested = p.locator('dt', { hasText: 'Harvested' }).locator('xpath=following-sibling::dd[1]');
+    expect(await harvested.textContent()).toMatch(/2026/);
+    const yards = p.locator('dt', { hasText: 'Yards' }).locator('xpath=following-sibling::dd[1]');
+    expect(await yards.textContent()).not.toBe('—');
+    expect(await p.content()).not.toMatch(/latitude|longitude/i);
     expect((await p.goto(`${BASE()}/lot/NO-SUCH-LOT`))?.status()).toBe(404);
     await p.close();
   });

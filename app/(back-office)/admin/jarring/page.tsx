@@ -39,7 +39,7 @@ export default async function JarringPage() {
             {lots.length === 0 ? <tr><td colSpan={3 + products.length} className="hint">No released lot has honey left.</td></tr> : null}
             {lots.map((l) => (
               <tr key={l.id}>
-                <td>{l.code}</td><td>{l.floralSource}</td><td className="num">{formatWeight(l.remainingGrams, system)}</td>
+                <td className="whitespace-nowrap">{l.code}</td><td>{l.floralSource}</td><td className="num whitespace-nowrap">{formatWeight(l.remainingGrams, system)}</td>
                 {l.jars.map((j) => <td key={j.productId} className="num">{j.jars}</td>)}
               </tr>
             ))}
@@ -71,7 +71,7 @@ export default async function JarringPage() {
             {runs.map((r) => (
               <tr key={r.id} className={r.pass ? undefined : 'bg-bad-bg'}>
                 <td><Link href={`/admin/jarring/${r.id}`}>#{r.id}</Link></td>
-                <td>{r.runOn}</td><td>{r.lotCode}</td><td>{r.productName}</td>
+                <td className="whitespace-nowrap">{r.runOn}</td><td className="whitespace-nowrap">{r.lotCode}</td><td>{r.productName}</td>
                 <td className="num">{r.jarCount}</td><td className="num">{formatWeight(r.honeyUsedGrams, system)}</td>
                 <td>
                   <RunStatus pass={r.pass} overridden={!!r.overrideReason} />

@@ -26,7 +26,7 @@ export default async function PublicLotPage({ params }: Props) {
     ['Extracted', lot.extractedOn ? monthName(lot.extractedOn.slice(0, 7)) : 'Not recorded'],
     ['Region', lot.region || '—'],
     ['Yards', lot.yardNames.length ? lot.yardNames.join(', ') : '—'],
-    ['Water content', lot.waterPct === null ? 'Not measured' : `${lot.waterPct.toFixed(1)} %`],
+    ['Water content', lot.waterPct === null ? 'Not measured' : `${lot.waterPct.toFixed(1)} %${lot.waterFromParents ? ' (from the lots blended)' : ''}`],
     ['Best before', lot.bestBeforeOn ? dayName(lot.bestBeforeOn) : '—'],
   ];
   return (
