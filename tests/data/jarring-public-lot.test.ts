@@ -40,6 +40,21 @@ describe('public lot page', () => {
     expect(JSON.stringify(lot)).not.toMatch(/51\.12|1\.65/);
   });
 
+  it('a blend without its own readings shows its parents’ water, weighted by the grams each gave', async () => {
+    const { LotParent, MoistureReading } = getDb().models;
+    const a = await releasedLot(10_000);
+    const b = await releasedLot(10_000);
+    const blend = await releasedLot(4_000);
+    await blend.update({ isBlend: true });
+    await LotParent.bulkCreate([{ childLotId: blend.id, parentLotId: a.id, grams: 1_000 }, { childLotId: blend.id, parentLotId: b.id, grams: 3_000 }]);
+    await MoistureReading.bulkCreate([
+      { lotId: a.id, method: 'scale', waterPct: 16.0, takenOn: '2026-08-20', recordedBy: null },
+      { lotId: b.id, method: 'scale', waterPct: 18.0, takenOn: '2026-08-20', recordedBy: null },
+    ]);
+    // (16.0 × 1 kg + 18.0 × 3 kg) / 4 kg = 17.5 %
+    expect(await getPublicLot(blend.code)).toMatchObject({ waterPct: 17.5, waterFromParents: true });
+  });
+
   it('unknown codes and lots not yet on the shelf are a 404', async () => {
     await expect(PublicLotPage({ params: Promise.resolve({ code: 'NOPE-999' }) })).rejects.toThrow(/NEXT_NOT_FOUND/);
     const gathering = await releasedLot(1_000, { stage: 'extracted' });
