@@ -62,6 +62,7 @@ describe('jarring in the honey house', () => {
     await ok.waitFor();
     expect(await ok.textContent()).toMatch(/Fill check passed/);
     expect(await onHand()).toBe(24);
+    await page.screenshot({ path: 'tests/.artifacts/jarring-stock.png', fullPage: true });
 
     await page.goto(`${BASE()}/admin/jarring`);
     await page.screenshot({ path: 'tests/.artifacts/jarring-page.png', fullPage: true });
