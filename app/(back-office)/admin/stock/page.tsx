@@ -69,9 +69,9 @@ export default async function StockPage({ searchParams }: { searchParams: Promis
                 {ledger.rows.map((r) => (
                   <tr key={r.id}>
                     <td className="whitespace-nowrap">{r.createdAt.toISOString().slice(0, 16).replace('T', ' ')}</td>
-                    <td>{r.productName}</td><td>{r.lotCode}</td>
+                    <td>{r.productName}</td><td className="whitespace-nowrap">{r.lotCode}</td>
                     <td className="num">{r.delta > 0 ? `+${r.delta}` : r.delta}</td>
-                    <td>{r.jarringRunId ? <Link href={`/admin/jarring/${r.jarringRunId}`}>{KIND_NAMES[r.kind]}</Link> : r.orderId ? `${KIND_NAMES[r.kind]} #${r.orderId}` : KIND_NAMES[r.kind]}</td>
+                    <td className="whitespace-nowrap">{r.jarringRunId ? <Link href={`/admin/jarring/${r.jarringRunId}`}>{KIND_NAMES[r.kind]}</Link> : r.orderId ? `${KIND_NAMES[r.kind]} #${r.orderId}` : KIND_NAMES[r.kind]}</td>
                     <td>{r.reason}</td><td>{r.byName ?? '—'}</td>
                   </tr>
                 ))}
