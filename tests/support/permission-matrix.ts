@@ -27,6 +27,8 @@ export const ACTIONS: Record<string, Allowed> = {
   'app/(back-office)/admin/stock/actions.ts#adjustStockAction': HOUSE,
   'app/(back-office)/admin/labels/actions.ts#saveLabelLayoutAction': OWNER,
   'app/(back-office)/admin/labels/actions.ts#deleteLabelLayoutAction': OWNER,
+  'app/(back-office)/admin/reports/actions.ts#seasonRecipientsAction': OWNER,
+  'app/(back-office)/admin/reports/actions.ts#sendKeeperReportAction': OWNER,
 };
 
 /** Route handlers: `path#METHOD`. Dynamic segments are filled with ids that do not exist. */
@@ -40,6 +42,9 @@ export const ROUTES: Record<string, Allowed> = {
   'app/api/products/[id]/photo/route.ts#GET': 'anyone', // a product's photo, for the shop
   'app/api/products/[id]/photo/route.ts#POST': OWNER,
   'app/api/jarring/[id]/labels/route.ts#GET': HOUSE,
+  'app/api/reports/csv/route.ts#GET': ['owner', 'keeper'],
+  'app/api/reports/keeper-pdf/route.ts#GET': ['owner', 'keeper'],
+  'app/api/trace/recall/route.ts#GET': HOUSE,
 };
 
 export const GROUPS = { OWNER, STAFF, HARVEST_WRITE, HOUSE };
