@@ -210,3 +210,24 @@ describe('who sees an order', () => {
     expect((await getOrderForViewer(number, { id: 1, name: 'o', email: DEMO.crew, role: 'crew' }, null))?.number).toBe(number);
   });
 });
+
+describe('packing slip', () => {
+  it('is a PDF for staff, refused to customers and strangers', async () => {
+    const { GET } = await import('@/app/(back-office)/admin/orders/[id]/packing-slip/route');
+    const p = await makeProduct('slip', [3]);
+    const order = await startOrder(p.productId, 2);
+    await pay(order.stripeSessionId!);
+    await waitUntil(() => orderOf(order.number), (o) => o?.status === 'paid');
+    const call = () => GET(new Request('http://127.0.0.1/x'), { params: Promise.resolve({ id: String(order.id) }) });
+    await signInAs(null);
+    expect((await call()).status).toBe(401);
+    await signInAs(DEMO.customer);
+    expect((await call()).status).toBe(403);
+    await signInAs(DEMO.crew);
+    const res = await call();
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-type')).toBe('application/pdf');
+    const bytes = new Uint8Array(await res.arrayBuffer());
+    expect(new TextDecoder().decode(bytes.slice(0, 5))).toBe('%PDF-');
+  });
+});
