@@ -71,7 +71,8 @@ export async function refundOrder(actorUserId: number, r: RefundRequest): Promis
   const claim = await sequelize.transaction(async (t) => {
     const order = await models.Order.findByPk(r.orderId, { transaction: t, lock: t.LOCK.UPDATE });
     if (!order) throw new HttpError(404, 'No such order.');
-    if (!order.paidAt || !order.paymentIntentId) throw new HttpError(409, 'This order was never paid; cancel it instead.');
+    if (!order.paidAt) throw new HttpError(409, 'This order was never paid; cancel it instead.');
+    if (!order.paymentIntentId) throw new HttpError(409, 'This order was not paid by card through the shop, so it cannot be refunded here; refund it by hand.');
     const left = order.totalCents - order.refundedCents;
     if (r.amountCents > left) throw new HttpError(409, `At most ${left} cents are left to refund on order ${order.number}.`);
     // Check the jars before any money moves: a refund that Stripe made must not fail afterwards.

@@ -11,7 +11,7 @@ type Live = { id: number; slug: string; name: string; available: number };
 const catalogue = async () => ((await (await fetch(`${BASE()}/api/products`)).json()) as { products: Live[] }).products;
 const onHand = async (productId: number) => (await getDb().models.StockLevel.sum('onHand', { where: { productId } })) ?? 0;
 
-const customer = { name: 'Wren Halloway', email: `wren-${Date.now()}@example.test`, password: 'quiet meadow bees' };
+const customer = { name: 'Ash Merriden', email: `ash-${Date.now()}@example.test`, password: 'quiet meadow bees' };
 
 async function addToCart(page: Page, slug: string) {
   await page.goto(`${BASE()}/products/${slug}`);

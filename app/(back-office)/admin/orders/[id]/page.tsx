@@ -44,6 +44,7 @@ export default async function OrderDeskPage({ params }: { params: Promise<{ id: 
           <section className="card">
             <h2 className="mb-2 text-lg">History</h2>
             <ul className="space-y-1 text-sm">
+              {history.length === 0 ? <li className="text-ink-soft">No changes recorded yet.</li> : null}
               {history.map((h) => <li key={h.id}>{formatDateTime(h.createdAt, settings.timeZone)} — {h.action.replace('order.', '').replaceAll('_', ' ')}{h.actorName ? ` by ${h.actorName}` : ''}{h.reason ? `: ${h.reason}` : ''}</li>)}
             </ul>
           </section>
@@ -65,8 +66,9 @@ export default async function OrderDeskPage({ params }: { params: Promise<{ id: 
           </section>
           <section className="card">
             <h2 className="mb-3 text-lg">Next step</h2>
+            {order.paidAt && !order.paymentIntentId ? <p className="hint mb-3">Paid outside the card checkout: refund it by hand.</p> : null}
             <OrderDeskActions
-              order={{ id: order.id, status: order.status, fulfilment: order.fulfilment, paid: Boolean(order.paidAt), refundableCents: order.totalCents - order.refundedCents, currencyDigits: digits, currency: order.currency }}
+              order={{ id: order.id, status: order.status, fulfilment: order.fulfilment, paid: Boolean(order.paidAt && order.paymentIntentId), refundableCents: order.totalCents - order.refundedCents, currencyDigits: digits, currency: order.currency }}
               lines={order.lines.map((l) => ({ id: l.id, name: l.productName, sold: l.lots.filter((x) => x.state === 'sold').reduce((s, x) => s + x.quantity, 0) }))}
               canRefund={can(user.role, 'orders.refund')}
               actions={{ packed: markPackedAction, pickedUp: markPickedUpAction, cancel: cancelOrderAction, shipped: markShippedAction, refund: refundOrderAction }}
