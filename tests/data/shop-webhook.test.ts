@@ -208,6 +208,13 @@ describe('who sees an order', () => {
     expect(await getOrderForViewer(number, null, 'AAAAAAAAAAAAAAAAAAAAAA')).toBeNull();
     expect((await getOrderForViewer(number, null, orderToken(number)))?.number).toBe(number);
     expect((await getOrderForViewer(number, { id: 1, name: 'o', email: DEMO.crew, role: 'crew' }, null))?.number).toBe(number);
+    // The page itself: another customer gets a 404, the owner gets the page.
+    const { default: OrderPage } = await import('@/app/(storefront)/orders/[number]/page');
+    const open = () => OrderPage({ params: Promise.resolve({ number }), searchParams: Promise.resolve({}) });
+    await signInAs('corin@hollowmere.test');
+    await expect(open()).rejects.toThrow('NEXT_NOT_FOUND');
+    await signInAs(DEMO.customer);
+    await expect(open()).resolves.toBeTruthy();
   });
 });
 
