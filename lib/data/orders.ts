@@ -103,7 +103,8 @@ export async function startCheckout(input: CheckoutData, user: SessionUser | nul
     return { orderId: order.id, number: order.number, url: session.url };
   } catch (err) {
     await releaseOrder(order.id, 'cancelled', null, 'Could not start the card payment');
-    throw err;
+    console.error(`[checkout] order ${order.number}: Stripe session not created`, err);
+    throw new HttpError(503, 'The card payment service is not answering. Nothing was charged and your jars are back on the shelf; please try again in a minute.');
   }
 }
 

@@ -109,6 +109,28 @@ describe('checkout', () => {
     expect(order?.email).toBe('customer@hollowmere.test');
   });
 
+  it('a Stripe hiccup is retried with the same idempotency key; one session, one reservation', async () => {
+    await fetch(`${shop.fake.url}/_fake/config`, { method: 'POST', body: JSON.stringify({ failNext: 1 }) });
+    const p = await makeProduct('retry', [3]);
+    const res = await post(guest([{ productId: p.productId, quantity: 2 }]));
+    expect(res.status).toBe(200);
+    const order = await orderOf(((await res.json()) as { number: string }).number);
+    expect(order?.stripeSessionId).toMatch(/^cs_test_/);
+    expect((await stockOf(p.productId))[0].reserved).toBe(2);
+  });
+
+  it('when Stripe stays down the reservation is released and the order cancelled', async () => {
+    await fetch(`${shop.fake.url}/_fake/config`, { method: 'POST', body: JSON.stringify({ failNext: 10 }) });
+    const p = await makeProduct('outage', [3]);
+    const res = await post(guest([{ productId: p.productId, quantity: 2 }]));
+    await fetch(`${shop.fake.url}/_fake/config`, { method: 'POST', body: JSON.stringify({ failNext: 0 }) });
+    expect(res.status).toBe(503);
+    expect((await res.json()).error).toMatch(/Nothing was charged/);
+    expect((await stockOf(p.productId))[0].reserved).toBe(0);
+    const line = await getDb().models.OrderLine.findOne({ where: { productId: p.productId }, include: [{ association: 'order' }] });
+    expect(line?.order?.status).toBe('cancelled');
+  });
+
   it('refuses a cross-site checkout', async () => {
     setRequestHeaders({ origin: 'https://evil.example', host: '127.0.0.1' });
     const p = await makeProduct('csrf', [2]);
