@@ -66,7 +66,9 @@ describe('permission matrix (ASVS 8.1.1, 8.2.1)', () => {
         const allowed = ROUTES[r.key];
         if (!allowed || allowed === 'anyone') continue;
         const status = await callRoute(r.file, r.key.split('#')[1], r.fn as RouteFn, {});
-        if (allows(allowed, who) === routeRefused(status)) wrong.push(`${r.key} as ${who}: ${status}`);
+        // Dynamic segments are filled with ids that match nothing, so an allowed role rightly gets 404 there.
+        const refused = routeRefused(status) && !(status === 404 && r.file.includes('[') && allows(allowed, who));
+        if (allows(allowed, who) === refused) wrong.push(`${r.key} as ${who}: ${status}`);
       }
     }
     expect(wrong).toEqual([]);

@@ -21,6 +21,12 @@ export const ACTIONS: Record<string, Allowed> = {
   'app/(back-office)/admin/settings/actions.ts#saveSettingsAction': OWNER,
   'app/(back-office)/admin/staff/actions.ts#createStaffAction': OWNER,
   'app/(back-office)/admin/staff/actions.ts#updateStaffAction': OWNER,
+  // Order desk (orders.desk / orders.refund: owner and crew).
+  'app/(back-office)/admin/orders/actions.ts#markPackedAction': HOUSE,
+  'app/(back-office)/admin/orders/actions.ts#markShippedAction': HOUSE,
+  'app/(back-office)/admin/orders/actions.ts#markPickedUpAction': HOUSE,
+  'app/(back-office)/admin/orders/actions.ts#cancelOrderAction': HOUSE,
+  'app/(back-office)/admin/orders/actions.ts#refundOrderAction': HOUSE,
 };
 
 /** Route handlers: `path#METHOD`. Dynamic segments are filled with ids that do not exist. */
@@ -31,6 +37,14 @@ export const ROUTES: Record<string, Allowed> = {
   'app/api/auth/[...nextauth]/route.ts#POST': 'anyone',
   'app/api/settings/route.ts#GET': OWNER,
   'app/api/settings/route.ts#PUT': OWNER,
+  // Shop: public catalogue and checkout; the webhook guards itself with Stripe's signature, the
+  // cancel link with the order's HMAC token.
+  'app/api/products/route.ts#GET': 'anyone',
+  'app/api/products/[slug]/photo/route.ts#GET': 'anyone',
+  'app/api/checkout/route.ts#POST': 'anyone',
+  'app/api/stripe/webhook/route.ts#POST': 'anyone',
+  'app/(storefront)/checkout/cancelled/route.ts#GET': 'anyone',
+  'app/(back-office)/admin/orders/[id]/packing-slip/route.ts#GET': HOUSE,
 };
 
 export const GROUPS = { OWNER, STAFF, HARVEST_WRITE, HOUSE };
