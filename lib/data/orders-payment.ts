@@ -69,7 +69,7 @@ async function sessionCompleted(t: Transaction, session: Stripe.Checkout.Session
   if (order.status === 'expired' || order.status === 'cancelled') {
     // Paid after the reservation was released (out-of-order or late events): take the jars again if we can.
     const lines = await getDb().models.OrderLine.findAll({ where: { orderId: order.id }, transaction: t });
-    const savepoint = await getDb().sequelize.transaction({ transaction: t }, async (sp) => {
+    const reReserved = await getDb().sequelize.transaction({ transaction: t }, async (sp) => {
       try {
         await reserveLines(sp, lines.map((l) => ({ lineId: l.id, productId: l.productId, productName: l.productName, quantity: l.quantity })));
         return true;
@@ -78,7 +78,7 @@ async function sessionCompleted(t: Transaction, session: Stripe.Checkout.Session
         throw err;
       }
     });
-    if (!savepoint) {
+    if (!reReserved) {
       const before = order.status;
       await order.update(paid, { transaction: t });
       await recordAudit({ actorUserId: null, action: 'order.paid_without_stock', entityType: 'order', entityId: order.id, before: { status: before }, after: { paymentIntentId }, reason: 'Paid after its reservation was released; not enough jars left' }, t);
