@@ -27,6 +27,8 @@ export const ACTIONS: Record<string, Allowed> = {
   'app/(back-office)/admin/orders/actions.ts#markPickedUpAction': HOUSE,
   'app/(back-office)/admin/orders/actions.ts#cancelOrderAction': HOUSE,
   'app/(back-office)/admin/orders/actions.ts#refundOrderAction': HOUSE,
+  'app/(back-office)/admin/reports/actions.ts#seasonRecipientsAction': OWNER,
+  'app/(back-office)/admin/reports/actions.ts#sendKeeperReportAction': OWNER,
 };
 
 /** Route handlers: `path#METHOD`. Dynamic segments are filled with ids that do not exist. */
@@ -45,6 +47,9 @@ export const ROUTES: Record<string, Allowed> = {
   'app/api/stripe/webhook/route.ts#POST': 'anyone',
   'app/(storefront)/checkout/cancelled/route.ts#GET': 'anyone',
   'app/(back-office)/admin/orders/[id]/packing-slip/route.ts#GET': HOUSE,
+  'app/api/reports/csv/route.ts#GET': ['owner', 'keeper'],
+  'app/api/reports/keeper-pdf/route.ts#GET': ['owner', 'keeper'],
+  'app/api/trace/recall/route.ts#GET': HOUSE,
 };
 
 export const GROUPS = { OWNER, STAFF, HARVEST_WRITE, HOUSE };
