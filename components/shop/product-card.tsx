@@ -8,7 +8,7 @@ export function ProductCard({ item, currency, system }: { item: CatalogueItem; c
     <li className="card flex flex-col gap-2">
       {item.photoId ? (
         // eslint-disable-next-line @next/next/no-img-element -- served by our own route, sizes vary
-        <img src={`/api/products/${item.slug}/photo`} alt="" className="aspect-[4/3] w-full rounded-lg object-cover" loading="lazy" />
+        <img src={`/api/products/${item.id}/photo?v=${item.photoId}`} alt="" className="aspect-[4/3] w-full rounded-lg object-cover" loading="lazy" />
       ) : null}
       <h2 className="text-lg"><Link href={`/products/${item.slug}`}>{item.name}</Link></h2>
       <p className="text-sm text-ink-soft">{formatWeight(item.netGrams, system)} net · {item.containerKind}</p>

@@ -51,7 +51,6 @@ export const ROUTES: Record<string, Allowed> = {
   // Shop: public catalogue and checkout; the webhook guards itself with Stripe's signature, the
   // cancel link with the order's HMAC token.
   'app/api/products/route.ts#GET': 'anyone',
-  'app/api/products/[slug]/photo/route.ts#GET': 'anyone',
   'app/api/checkout/route.ts#POST': 'anyone',
   'app/api/stripe/webhook/route.ts#POST': 'anyone',
   'app/(storefront)/checkout/cancelled/route.ts#GET': 'anyone',

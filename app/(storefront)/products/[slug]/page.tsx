@@ -19,7 +19,7 @@ export default async function ProductPage({ params }: { params: Promise<{ slug: 
       <div>
         {item.photoId ? (
           // eslint-disable-next-line @next/next/no-img-element -- served by our own route
-          <img src={`/api/products/${item.slug}/photo`} alt={item.name} className="w-full rounded-card object-cover" />
+          <img src={`/api/products/${item.id}/photo?v=${item.photoId}`} alt={item.name} className="w-full rounded-card object-cover" />
         ) : (
           <div className="flex aspect-[4/3] items-center justify-center rounded-card bg-paper-sunk text-ink-soft">{item.containerKind}</div>
         )}
