@@ -1,4 +1,4 @@
-/** Runs once per server process: a timer that sends queued mail the request path did not get to. */
+/** Runs once per server process: timers for queued mail and for unpaid orders whose reservation ran out. */
 export async function register() {
   if (process.env.NEXT_RUNTIME !== 'nodejs' || process.env.MAIL_TIMER === 'off') return;
   const { deliverDueMail } = await import('@/lib/mail/outbox');
@@ -7,4 +7,10 @@ export async function register() {
     deliverDueMail().catch((err) => console.error('[mail] timer:', err instanceof Error ? err.message : err));
   }, everyMs);
   timer.unref();
+  // Expired Checkout Sessions also release through the webhook; this catches a missed one.
+  const { releaseOverdueReservations } = await import('@/lib/data/orders');
+  const sweep = setInterval(() => {
+    releaseOverdueReservations().catch((err) => console.error('[orders] sweep:', err instanceof Error ? err.message : err));
+  }, 60_000);
+  sweep.unref();
 }

@@ -1,6 +1,7 @@
 import Link from 'next/link';
 import { ShoppingBasket, UserRound } from 'lucide-react';
 import type { SessionUser } from '@/lib/auth/session';
+import { CartCount } from '@/components/shop/cart-count';
 
 export function ShopHeader({ businessName, user }: { businessName: string; user: SessionUser | null }) {
   const staff = user && user.role !== 'customer';
@@ -12,7 +13,7 @@ export function ShopHeader({ businessName, user }: { businessName: string; user:
         </Link>
         <nav aria-label="Shop" className="flex items-center gap-1 text-sm">
           <Link className="btn-quiet no-underline" href="/products">Shop</Link>
-          <Link className="btn-quiet no-underline" href="/cart"><ShoppingBasket aria-hidden className="h-4 w-4" />Cart</Link>
+          <Link className="btn-quiet no-underline" href="/cart"><ShoppingBasket aria-hidden className="h-4 w-4" />Cart<CartCount /></Link>
           {staff ? <Link className="btn-quiet no-underline" href="/admin">Back office</Link> : null}
           {user ? (
             <Link className="btn-quiet no-underline" href="/account"><UserRound aria-hidden className="h-4 w-4" />{user.name.split(' ')[0]}</Link>

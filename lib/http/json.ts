@@ -4,12 +4,12 @@ import { OriginError } from './origin';
 import { toFieldErrors } from '@/lib/schemas/result';
 
 /** A JSON answer with a message a person understands. */
-export function jsonError(status: 400 | 401 | 403 | 404 | 409 | 413 | 415 | 422 | 429, message: string, extra?: Record<string, unknown>): Response {
+export function jsonError(status: 400 | 401 | 403 | 404 | 409 | 413 | 415 | 422 | 429 | 503, message: string, extra?: Record<string, unknown>): Response {
   return Response.json({ error: message, ...extra }, { status, headers: { 'Cache-Control': 'no-store' } });
 }
 
 export class HttpError extends Error {
-  constructor(public status: 400 | 404 | 409 | 413 | 415 | 422, message: string) {
+  constructor(public status: 400 | 404 | 409 | 413 | 415 | 422 | 503, message: string) {
     super(message);
   }
 }

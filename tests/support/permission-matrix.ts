@@ -26,6 +26,18 @@ export const ACTIONS: Record<string, Allowed> = {
     'waxAction', 'addReadingAction', 'voidRecordAction', 'changeStageAction', 'createBlendAction',
   ].map((name) => [`app/(back-office)/admin/lots/actions.ts#${name}`, HOUSE])),
   'app/(back-office)/admin/lots/actions.ts#saveContainerTypeAction': OWNER,
+  'app/(back-office)/admin/products/actions.ts#saveProductAction': OWNER,
+  'app/(back-office)/admin/jarring/actions.ts#createJarringRunAction': HOUSE,
+  'app/(back-office)/admin/jarring/actions.ts#overrideJarringRunAction': OWNER,
+  'app/(back-office)/admin/stock/actions.ts#adjustStockAction': HOUSE,
+  'app/(back-office)/admin/labels/actions.ts#saveLabelLayoutAction': OWNER,
+  'app/(back-office)/admin/labels/actions.ts#deleteLabelLayoutAction': OWNER,
+  // Order desk (orders.desk / orders.refund: owner and crew).
+  'app/(back-office)/admin/orders/actions.ts#markPackedAction': HOUSE,
+  'app/(back-office)/admin/orders/actions.ts#markShippedAction': HOUSE,
+  'app/(back-office)/admin/orders/actions.ts#markPickedUpAction': HOUSE,
+  'app/(back-office)/admin/orders/actions.ts#cancelOrderAction': HOUSE,
+  'app/(back-office)/admin/orders/actions.ts#refundOrderAction': HOUSE,
   'app/(back-office)/admin/reports/actions.ts#seasonRecipientsAction': OWNER,
   'app/(back-office)/admin/reports/actions.ts#sendKeeperReportAction': OWNER,
 };
@@ -41,15 +53,19 @@ export const ROUTES: Record<string, Allowed> = {
   'app/api/lots/route.ts#GET': STAFF,
   'app/api/lots/[id]/lab-files/route.ts#POST': HOUSE,
   'app/api/lab-files/[id]/route.ts#GET': STAFF,
+  'app/api/products/[id]/photo/route.ts#GET': 'anyone', // a product's photo, for the shop
+  'app/api/products/[id]/photo/route.ts#POST': OWNER,
+  'app/api/jarring/[id]/labels/route.ts#GET': HOUSE,
+  // Shop: public catalogue and checkout; the webhook guards itself with Stripe's signature, the
+  // cancel link with the order's HMAC token.
+  'app/api/products/route.ts#GET': 'anyone',
+  'app/api/checkout/route.ts#POST': 'anyone',
+  'app/api/stripe/webhook/route.ts#POST': 'anyone',
+  'app/(storefront)/checkout/cancelled/route.ts#GET': 'anyone',
+  'app/(back-office)/admin/orders/[id]/packing-slip/route.ts#GET': HOUSE,
   'app/api/reports/csv/route.ts#GET': ['owner', 'keeper'],
   'app/api/reports/keeper-pdf/route.ts#GET': ['owner', 'keeper'],
   'app/api/trace/recall/route.ts#GET': HOUSE,
 };
-
-/**
- * Routes that read one record by id: an allowed role asking for the made-up id gets 404 (no such
- * record, or not theirs), so for these only 401/403 count as an auth refusal of an allowed role.
- */
-export const BY_ID_404: readonly string[] = ['app/api/lab-files/[id]/route.ts#GET'];
 
 export const GROUPS = { OWNER, STAFF, HARVEST_WRITE, HOUSE };

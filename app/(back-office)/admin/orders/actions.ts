@@ -1,0 +1,45 @@
+'use server';
+import { revalidatePath } from 'next/cache';
+import { guardedAction } from '@/lib/http/action';
+import { orderIdInput, refundInput, shipInput } from '@/lib/schemas/orders';
+import { advanceOrder, cancelUnpaidOrder, refundOrder } from '@/lib/data/orders-desk';
+import { getOrderDetail } from '@/lib/data/orders-read';
+import { kickMail } from '@/lib/mail/outbox';
+import { fail } from '@/lib/schemas/result';
+
+function done(orderId: number) {
+  kickMail();
+  revalidatePath(`/admin/orders/${orderId}`);
+  revalidatePath('/admin/orders');
+  return { ok: true as const };
+}
+
+export const markPackedAction = guardedAction('orders.desk', orderIdInput, async (user, { orderId }) => {
+  await advanceOrder(user.id, orderId, 'packed');
+  return done(orderId);
+});
+
+export const markShippedAction = guardedAction('orders.desk', shipInput, async (user, { orderId, tracking }) => {
+  await advanceOrder(user.id, orderId, 'shipped', tracking);
+  return done(orderId);
+});
+
+export const markPickedUpAction = guardedAction('orders.desk', orderIdInput, async (user, { orderId }) => {
+  await advanceOrder(user.id, orderId, 'picked_up');
+  return done(orderId);
+});
+
+export const cancelOrderAction = guardedAction('orders.desk', orderIdInput, async (user, { orderId }) => {
+  await cancelUnpaidOrder(user.id, orderId);
+  return done(orderId);
+});
+
+export const refundOrderAction = guardedAction('orders.refund', refundInput, async (user, data) => {
+  const order = await getOrderDetail(data.orderId);
+  if (!order) return fail('No such order.');
+  // Money typed in the major unit becomes integer minor units once (STYLE.md: Math.round).
+  const digits = new Intl.NumberFormat('en', { style: 'currency', currency: order.currency.toUpperCase() }).resolvedOptions().maximumFractionDigits ?? 2;
+  const amountCents = Math.round(data.amount * 10 ** digits);
+  await refundOrder(user.id, { orderId: data.orderId, amountCents, jars: data.jars, restock: data.restock, reason: data.reason });
+  return done(data.orderId);
+});

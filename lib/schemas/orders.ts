@@ -1,0 +1,21 @@
+import { z } from 'zod';
+
+export const orderIdInput = z.object({ orderId: z.number().int().positive() });
+
+export const shipInput = z.object({
+  orderId: z.number().int().positive(),
+  tracking: z.string().trim().max(200, 'At most 200 characters').default(''),
+});
+export type ShipInput = z.input<typeof shipInput>;
+
+export const refundInput = z.object({
+  orderId: z.number().int().positive(),
+  /** Money in the currency's major unit as typed (e.g. 12.50); converted to cents once. */
+  amount: z.number({ error: 'Enter the amount to refund' }).positive('More than zero').max(1_000_000),
+  /** Jars coming back per order line; 0 for a money-only refund. */
+  jars: z.array(z.object({ lineId: z.number().int().positive(), quantity: z.number().int().min(0).max(1000) })).default([]),
+  /** true: the jars go back on the shelf; false: they are written off (broken, opened). */
+  restock: z.boolean(),
+  reason: z.string().trim().max(500).default(''),
+});
+export type RefundInput = z.input<typeof refundInput>;
