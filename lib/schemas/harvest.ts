@@ -6,8 +6,10 @@ const id = z.coerce.number().int().positive();
 const idempotencyKey = z.string().trim().min(8, 'Missing entry key').max(80);
 const code = z.string().trim().min(1, 'Required').max(30, 'At most 30 characters').regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'Letters, digits, dot, dash or underscore');
 const tagCode = z.union([code, z.literal('').transform(() => null), z.null()]).optional().transform((v) => v ?? null);
-const blankToNull = (schema: z.ZodType<number>) =>
-  z.union([z.literal('').transform(() => null), z.null(), z.undefined().transform(() => null), z.nan().transform(() => null), schema]);
+/** An optional number: blank, NaN (an empty number input) and missing all become null. */
+const blankToNull = (schema: z.ZodType<number, unknown>) =>
+  z.union([z.literal(''), z.null(), z.nan(), schema]).optional()
+    .transform((v): number | null => (typeof v === 'number' && !Number.isNaN(v) ? v : null));
 
 export const SUPER_DEPTHS = ['deep', 'medium', 'shallow'] as const;
 export const depth = z.enum(SUPER_DEPTHS, 'Choose deep, medium or shallow');
