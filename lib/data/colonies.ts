@@ -148,7 +148,8 @@ export async function moveColony(user: Viewer, input: { colonyId: number; yardId
     const colony = await writableColony(user, input.colonyId, t);
     if (!inScope(await yardScope(user, t), input.yardId)) throw new HttpError(404, 'No such yard.');
     if (colony.yardId === input.yardId) throw new HttpError(422, 'The colony is already in that yard.');
-    const [from, to] = await Promise.all([models.Yard.findByPk(colony.yardId, { transaction: t }), models.Yard.findByPk(input.yardId, { transaction: t })]);
+    const from = await models.Yard.findByPk(colony.yardId, { transaction: t });
+    const to = await models.Yard.findByPk(input.yardId, { transaction: t });
     if (!to) throw new HttpError(404, 'No such yard.');
     await colony.update({ yardId: input.yardId }, { transaction: t });
     await models.ColonyEvent.create({ colonyId: colony.id, kind: 'move', occurredOn: input.occurredOn, details: { fromYardId: from?.id, fromYard: from?.name, toYardId: to.id, toYard: to.name }, note: input.note, recordedBy: user.id }, { transaction: t });

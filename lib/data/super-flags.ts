@@ -8,11 +8,10 @@ type ColonyRecords = { feedings: FeedingRecord[]; treatments: TreatmentRecord[];
 
 async function colonyRecords(colonyId: number, t: Transaction): Promise<ColonyRecords> {
   const { models } = getDb();
-  const [feedings, treatments, pulls] = await Promise.all([
-    models.Feeding.findAll({ where: { colonyId }, transaction: t }),
-    models.Treatment.findAll({ where: { colonyId }, include: [{ association: 'kind', attributes: ['name'] }], transaction: t }),
-    models.SuperPull.findAll({ where: { colonyId, pulledOn: { [Op.ne]: null } }, attributes: ['id', 'pulledOn'], transaction: t }),
-  ]);
+  // One after another: a transaction is one connection, which runs one query at a time.
+  const feedings = await models.Feeding.findAll({ where: { colonyId }, transaction: t });
+  const treatments = await models.Treatment.findAll({ where: { colonyId }, include: [{ association: 'kind', attributes: ['name'] }], transaction: t });
+  const pulls = await models.SuperPull.findAll({ where: { colonyId, pulledOn: { [Op.ne]: null } }, attributes: ['id', 'pulledOn'], transaction: t });
   return {
     feedings: feedings.map((f) => ({ kind: f.kind, startedOn: f.startedOn, endedOn: f.endedOn ?? null })),
     // supers_allowed and waiting_days are the values copied onto the treatment when recorded.
