@@ -8,17 +8,21 @@ const alias = {
   'server-only': fileURLToPath(new URL('./tests/support/empty.ts', import.meta.url)),
 };
 
+// Fast password hashing in tests; the cost travels inside each hash, production uses 2^17.
+const env = { SCRYPT_LOG_N: '12' };
+
 export default defineConfig({
   resolve: { alias },
   test: {
     projects: [
       {
         resolve: { alias },
-        test: { name: 'unit', include: ['tests/domain/**/*.test.ts', 'tests/unit/**/*.test.ts', 'tests/fakes/**/*.test.ts', 'tests/pdf/**/*.test.ts'], testTimeout: 30_000 },
+        test: { env, name: 'unit', include: ['tests/domain/**/*.test.ts', 'tests/unit/**/*.test.ts', 'tests/fakes/**/*.test.ts', 'tests/pdf/**/*.test.ts'], testTimeout: 30_000 },
       },
       {
         resolve: { alias },
         test: {
+          env,
           name: 'db',
           include: ['tests/data/**/*.test.ts', 'tests/api/**/*.test.ts'],
           globalSetup: ['tests/support/db-setup.ts'],
@@ -31,6 +35,7 @@ export default defineConfig({
       {
         resolve: { alias },
         test: {
+          env,
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],
           globalSetup: ['tests/support/e2e-setup.ts'],

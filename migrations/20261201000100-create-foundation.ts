@@ -58,7 +58,7 @@ export async function up({ context: q }: { context: QueryInterface }) {
     barcode_kind: { type: DataTypes.ENUM('gs1-128', 'gs1datamatrix'), allowNull: false, defaultValue: 'gs1-128' },
     // [{ upToGrams, cents }], smallest band first.
     shipping_bands: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
-    // Estimated extracted honey per capped frame by box depth, grams (common practice defaults).
+    // Estimated extracted honey per full box by depth: { deep: { gramsPerBox, framesPerBox }, … } (common practice).
     super_estimates: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
     ...timestamps,
   });

@@ -1,7 +1,8 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
 export type ShippingBand = { upToGrams: number; cents: number };
-export type SuperEstimates = Partial<Record<'deep' | 'medium' | 'shallow', number>>;
+import type { SuperEstimates } from '@/lib/domain/yield-allocation';
+export type { SuperEstimates };
 
 /** The single row (id 1) of the business's own settings. */
 export class BusinessSetting extends Model<InferAttributes<BusinessSetting>, InferCreationAttributes<BusinessSetting>> {

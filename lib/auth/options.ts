@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { authenticate } from '@/lib/data/sign-in';
 import { bumpSessionVersion } from '@/lib/data/users';
 import { isRole, type Role } from './roles';
+import { clientIp } from '@/lib/http/client-ip';
 
 declare module 'next-auth' {
   interface Session {
@@ -24,12 +25,6 @@ declare module 'next-auth/jwt' {
 
 const credentials = z.object({ email: z.string().trim().toLowerCase().email().max(254), password: z.string().min(1).max(1024) });
 
-function clientIp(headers: Record<string, unknown> | undefined): string {
-  const fwd = headers?.['x-forwarded-for'];
-  const first = typeof fwd === 'string' ? fwd.split(',')[0].trim() : '';
-  return first || 'local';
-}
-
 export const authOptions: NextAuthOptions = {
   secret: process.env.NEXTAUTH_SECRET,
   session: { strategy: 'jwt', maxAge: 8 * 60 * 60 },
@@ -41,7 +36,7 @@ export const authOptions: NextAuthOptions = {
       async authorize(raw, req) {
         const parsed = credentials.safeParse(raw);
         if (!parsed.success) return null;
-        const result = await authenticate(parsed.data.email, parsed.data.password, clientIp(req?.headers));
+        const result = await authenticate(parsed.data.email, parsed.data.password, clientIp(req?.headers as Record<string, unknown> | undefined));
         if (result.status === 'throttled') throw new Error('Throttled');
         if (result.status !== 'ok') return null;
         const u = result.user;

@@ -4,6 +4,7 @@ import type { InferAttributes, Transaction } from 'sequelize';
 import { getDb } from '@/lib/db';
 import type { BusinessSetting } from '@/models/business-setting';
 import { recordAudit } from './audit';
+import { DEFAULT_SUPER_ESTIMATES } from '@/lib/domain/yield-allocation';
 
 export type Settings = Omit<InferAttributes<BusinessSetting>, 'createdAt' | 'updatedAt'>;
 
@@ -15,7 +16,8 @@ export const getSettings = cache(async (): Promise<Settings> => {
   const row = await BusinessSetting.findByPk(1);
   if (row) {
     const { createdAt: _c, updatedAt: _u, ...rest } = row.get({ plain: true });
-    return rest;
+    // Depths the owner has not set fall back to the common-practice defaults.
+    return { ...rest, superEstimates: { ...DEFAULT_SUPER_ESTIMATES, ...rest.superEstimates } };
   }
   const { createdAt: _c, updatedAt: _u, ...rest } = BusinessSetting.build({ id: 1, businessName: FALLBACK_NAME }).get({ plain: true });
   return rest;

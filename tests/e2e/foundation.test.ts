@@ -102,3 +102,36 @@ describe('accounts', () => {
     expect(new URL(page.url()).pathname).toBe('/account');
   });
 });
+
+describe('security headers (ASVS 3.4)', () => {
+  it('pages carry a nonce-based CSP, frame-ancestors none, nosniff and a referrer policy', async () => {
+    for (const path of ['/', '/sign-in', '/admin']) {
+      const res = await fetch(`${BASE()}${path}`, { redirect: 'manual' });
+      const csp = res.headers.get('content-security-policy') ?? '';
+      if (res.status === 200) {
+        expect(csp, path).toMatch(/script-src 'self' 'nonce-[A-Za-z0-9+/=]+'/);
+        expect(csp).toContain("frame-ancestors 'none'");
+        expect(csp).toContain("object-src 'none'");
+        expect(csp).not.toMatch(/script-src[^;]*'unsafe-inline'/);
+        const html = await res.text();
+        const nonce = csp.match(/'nonce-([^']+)'/)?.[1];
+        expect(html).toContain(`nonce="${nonce}"`);
+      }
+      expect(res.headers.get('x-content-type-options'), path).toBe('nosniff');
+      expect(res.headers.get('referrer-policy')).toBe('strict-origin-when-cross-origin');
+    }
+    const api = await fetch(`${BASE()}/api/health`);
+    expect(api.headers.get('x-content-type-options')).toBe('nosniff');
+  });
+
+  it('a page renders and runs its scripts under the CSP (no blocked script)', async () => {
+    const page = await browser.newPage();
+    const violations: string[] = [];
+    page.on('console', (m) => { if (/Content Security Policy/i.test(m.text())) violations.push(m.text()); });
+    await page.goto(`${BASE()}/sign-up`);
+    await page.getByLabel('Your name').fill('x');
+    await page.getByRole('button', { name: 'Create account' }).click();
+    await page.locator('form [role=alert]').first().waitFor();
+    expect(violations).toEqual([]);
+  });
+});

@@ -1,5 +1,28 @@
 import NextAuth from 'next-auth';
 import { authOptions } from '@/lib/auth/options';
+import { isThrottled } from '@/lib/data/sign-in';
+import { clientIp } from '@/lib/http/client-ip';
 
 const handler = NextAuth(authOptions);
-export { handler as GET, handler as POST };
+
+type Ctx = { params: Promise<{ nextauth: string[] }> };
+
+export function GET(req: Request, ctx: Ctx) {
+  return handler(req, ctx);
+}
+
+/**
+ * Sign-in attempts past the limit get 429 with the same generic message before any password is
+ * checked (ASVS 6.3.1). next-auth's client reads the error from the returned URL.
+ */
+export async function POST(req: Request, ctx: Ctx) {
+  if (new URL(req.url).pathname.endsWith('/callback/credentials')) {
+    const form = await req.clone().formData().catch(() => null);
+    const email = String(form?.get('email') ?? '').trim().toLowerCase().slice(0, 254);
+    if (await isThrottled(email, clientIp(req.headers))) {
+      const base = process.env.NEXTAUTH_URL ?? new URL(req.url).origin;
+      return Response.json({ url: `${base}/sign-in?error=Throttled`, error: 'Too many attempts. Wait a few minutes, then try again.' }, { status: 429 });
+    }
+  }
+  return handler(req, ctx);
+}

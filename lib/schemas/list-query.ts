@@ -1,0 +1,24 @@
+import { z } from 'zod';
+
+/**
+ * Query string of a paginated list route: page (1-based), pageSize ≤ 100, sort from an allow-list,
+ * dir asc|desc, plus the route's own filters. Unknown sort fields are refused, never passed to SQL.
+ */
+export function listQuery<const S extends readonly [string, ...string[]], F extends z.ZodRawShape>(sortFields: S, filters: F, defaultSort: S[number]) {
+  return z.object({
+    page: z.coerce.number().int().min(1, 'Page starts at 1.').max(100_000).default(1),
+    pageSize: z.coerce.number().int().min(1).max(100, 'At most 100 rows per page.').default(25),
+    sort: z.enum(sortFields, `Sort by one of: ${sortFields.join(', ')}.`).default(defaultSort as never),
+    dir: z.enum(['asc', 'desc']).default('asc'),
+    ...filters,
+  });
+}
+
+/** URLSearchParams → plain object for zod (the first value of each key). */
+export function searchParamsObject(params: URLSearchParams): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const [k, v] of params) if (!(k in out) && k !== '__proto__' && k !== 'constructor') out[k] = v;
+  return out;
+}
+
+export type Page<Row> = { rows: Row[]; total: number; page: number; pageSize: number };

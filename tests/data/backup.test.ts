@@ -1,0 +1,43 @@
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { Sequelize } from 'sequelize';
+import { closeDb, getDb } from '@/lib/db';
+import { dropDatabase } from '../support/pg';
+
+const restored = `combtrace_restore_${process.pid}`;
+afterAll(async () => { await closeDb(); dropDatabase(restored); });
+
+// The figures a restore must bring back exactly: row counts and the sums that carry money and stock.
+const CHECKS = `SELECT
+  (SELECT count(*) FROM users) AS users,
+  (SELECT count(*) FROM colonies) AS colonies,
+  (SELECT count(*) FROM super_pulls) AS pulls,
+  (SELECT count(*) FROM lots) AS lots,
+  (SELECT count(*) FROM audit_entries) AS audit_rows,
+  (SELECT coalesce(sum(on_hand), 0) FROM stock_levels) AS stock_on_hand,
+  (SELECT coalesce(sum(delta), 0) FROM stock_entries) AS ledger_sum,
+  (SELECT coalesce(sum(total_cents), 0) FROM orders WHERE paid_at IS NOT NULL) AS paid_cents,
+  (SELECT coalesce(sum(net_grams), 0) FROM lots) AS lot_grams`;
+
+describe('backups (npm run db:backup / db:restore)', () => {
+  it('restores the demo database into a new one with identical counts and sums', async () => {
+    const before = await getDb().sequelize.query(CHECKS, { plain: true });
+    expect(Number((before as Record<string, number>).lots)).toBeGreaterThan(0);
+    const file = path.join(mkdtempSync(path.join(tmpdir(), 'combtrace-backup-')), 'demo.dump');
+    execFileSync('bash', ['lib/ops/backup.sh', 'backup', file], { env: process.env, stdio: 'pipe' });
+    execFileSync('bash', ['lib/ops/backup.sh', 'restore', file, restored], { env: process.env, stdio: 'pipe' });
+    const url = process.env.DATABASE_URL!.replace(/\/[^/]+$/, `/${restored}`);
+    const copy = new Sequelize(url, { logging: false });
+    try {
+      const after = await copy.query(CHECKS, { plain: true });
+      expect(after).toEqual(before);
+      const [ck] = await copy.query(`SELECT count(*)::int AS n FROM pg_constraint WHERE conname = 'stock_levels_ck'`);
+      expect((ck as { n: number }[])[0].n).toBe(1);
+    } finally {
+      await copy.close();
+    }
+  });
+});
