@@ -7,10 +7,9 @@ import {
   splitColonyAction, superOnAction, updateColonyAction, createColonyAction,
 } from '@/app/(back-office)/admin/colonies/actions';
 import { recordPullsAction, updateYardAction } from '@/app/(back-office)/admin/yards/actions';
-import { GET as getColonyRoute } from '@/app/api/colonies/[id]/route';
+import { GET as colonyDetailRoute } from '@/app/api/colonies/detail/route';
 import { GET as listColoniesRoute } from '@/app/api/colonies/route';
 import { GET as listYardsRoute } from '@/app/api/yards/route';
-import { GET as getYardRoute } from '@/app/api/yards/[id]/route';
 import { GET as listPullsRoute, POST as postPullsRoute } from '@/app/api/super-pulls/route';
 import ColonyPage from '@/app/(back-office)/admin/colonies/[id]/page';
 
@@ -20,19 +19,18 @@ beforeEach(() => setRequestHeaders({}));
 let f: Awaited<ReturnType<typeof harvestFixture>>;
 beforeAll(async () => { f = await harvestFixture('SCP'); });
 
-const params = (id: number) => ({ params: Promise.resolve({ id: String(id) }) });
+const getColonyRoute = (req: Request) => colonyDetailRoute(req);
 const url = (path: string) => new Request(`http://127.0.0.1:3100${path}`);
 const rowsOf = async (res: Response) => ((await res.json()) as { rows: { id: number; code?: string; colonyCode?: string }[] }).rows;
 
 describe('keeper A and keeper B colonies', () => {
   it('keeper A reads their own colony through the route, but B\'s is a 404 in the route and the page', async () => {
     await signInAs(DEMO.keeper);
-    expect((await getColonyRoute(url(`/api/colonies/${f.a1}`), params(f.a1))).status).toBe(200);
-    const res = await getColonyRoute(url(`/api/colonies/${f.b1}`), params(f.b1));
+    expect((await getColonyRoute(url(`/api/colonies/detail?id=${f.a1}`))).status).toBe(200);
+    const res = await getColonyRoute(url(`/api/colonies/detail?id=${f.b1}`));
     expect(res.status).toBe(404);
     expect((await res.json()).error).toBe('No such colony.');
     await expect(ColonyPage({ params: Promise.resolve({ id: String(f.b1) }) })).rejects.toThrow('NEXT_NOT_FOUND');
-    expect((await getYardRoute(url(`/api/yards/${f.yardB}`), params(f.yardB))).status).toBe(404);
   });
 
   it('lists show only the keeper\'s own yards, colonies and supers', async () => {
@@ -80,7 +78,7 @@ describe('keeper A and keeper B colonies', () => {
     expect(await addFeedingAction({ colonyId: f.a1, kind: 'other', startedOn: '2026-07-01', idempotencyKey: key() })).toMatchObject({ ok: false, message: expect.stringMatching(/not allowed/) });
     expect((await recordPullsAction({ entries: [{ colonyId: f.a1, pulledOn: '2026-07-01', depth: 'deep', frameCount: 10, idempotencyKey: key() }] })).ok).toBe(false);
     await signInAs(DEMO.customer);
-    for (const res of [await listPullsRoute(url('/api/super-pulls')), await listColoniesRoute(url('/api/colonies')), await getColonyRoute(url(`/api/colonies/${f.a1}`), params(f.a1))]) {
+    for (const res of [await listPullsRoute(url('/api/super-pulls')), await listColoniesRoute(url('/api/colonies')), await getColonyRoute(url(`/api/colonies/detail?id=${f.a1}`))]) {
       expect(res.status).toBe(403);
     }
   });

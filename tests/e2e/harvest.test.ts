@@ -75,6 +75,6 @@ describe('keeper on a phone', () => {
     await signIn(page, DEMO_LOGINS.keeper2.email, DEMO_LOGINS.keeper2.password);
     const res = await page.goto(`${BASE()}/admin/colonies/${ids[0]}`);
     expect(res?.status()).toBe(404);
-    expect((await page.request.get(`${BASE()}/api/colonies/${ids[0]}`)).status()).toBe(404);
+    expect((await page.request.get(`${BASE()}/api/colonies/detail?id=${ids[0]}`)).status()).toBe(404);
   });
 });

@@ -21,6 +21,23 @@ export const ACTIONS: Record<string, Allowed> = {
   'app/(back-office)/admin/settings/actions.ts#saveSettingsAction': OWNER,
   'app/(back-office)/admin/staff/actions.ts#createStaffAction': OWNER,
   'app/(back-office)/admin/staff/actions.ts#updateStaffAction': OWNER,
+  // Harvest (issue 3). Scope (a keeper's own yards) is checked in lib/data: tests/data/harvest-scope.test.ts.
+  'app/(back-office)/admin/yards/actions.ts#createYardAction': OWNER,
+  'app/(back-office)/admin/yards/actions.ts#updateYardAction': OWNER,
+  'app/(back-office)/admin/yards/actions.ts#recordPullsAction': HARVEST_WRITE,
+  'app/(back-office)/admin/colonies/actions.ts#createColonyAction': HARVEST_WRITE,
+  'app/(back-office)/admin/colonies/actions.ts#updateColonyAction': HARVEST_WRITE,
+  'app/(back-office)/admin/colonies/actions.ts#moveColonyAction': HARVEST_WRITE,
+  'app/(back-office)/admin/colonies/actions.ts#colonyStatusAction': HARVEST_WRITE,
+  'app/(back-office)/admin/colonies/actions.ts#splitColonyAction': HARVEST_WRITE,
+  'app/(back-office)/admin/colonies/actions.ts#colonyNoteAction': HARVEST_WRITE,
+  'app/(back-office)/admin/colonies/actions.ts#addFeedingAction': HARVEST_WRITE,
+  'app/(back-office)/admin/colonies/actions.ts#endFeedingAction': HARVEST_WRITE,
+  'app/(back-office)/admin/colonies/actions.ts#addTreatmentAction': HARVEST_WRITE,
+  'app/(back-office)/admin/colonies/actions.ts#endTreatmentAction': HARVEST_WRITE,
+  'app/(back-office)/admin/colonies/actions.ts#superOnAction': HARVEST_WRITE,
+  'app/(back-office)/admin/treatment-kinds/actions.ts#saveTreatmentKindAction': OWNER,
+  'app/(back-office)/admin/supers/actions.ts#createTagBatchAction': OWNER,
 };
 
 /** Route handlers: `path#METHOD`. Dynamic segments are filled with ids that do not exist. */
@@ -31,6 +48,13 @@ export const ROUTES: Record<string, Allowed> = {
   'app/api/auth/[...nextauth]/route.ts#POST': 'anyone',
   'app/api/settings/route.ts#GET': OWNER,
   'app/api/settings/route.ts#PUT': OWNER,
+  'app/api/yards/route.ts#GET': STAFF,
+  'app/api/colonies/route.ts#GET': STAFF,
+  'app/api/colonies/detail/route.ts#GET': STAFF,
+  'app/api/super-pulls/route.ts#GET': STAFF,
+  'app/api/super-pulls/route.ts#POST': HARVEST_WRITE,
+  'app/api/super-pulls/import/route.ts#POST': HARVEST_WRITE,
+  'app/api/super-tags/sheet/route.ts#GET': OWNER,
 };
 
 export const GROUPS = { OWNER, STAFF, HARVEST_WRITE, HOUSE };

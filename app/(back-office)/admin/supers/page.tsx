@@ -4,12 +4,9 @@ import { can } from '@/lib/auth/roles';
 import { listSuperPulls } from '@/lib/data/super-pulls';
 import { listYardChoices } from '@/lib/data/yards';
 import { getSettings } from '@/lib/data/settings';
-import { formatWeight } from '@/lib/domain/units';
 import { pullListQuery, queryRecord } from '@/lib/schemas/harvest';
 import { PageHeader } from '@/components/ui/page-header';
-import { Chip } from '@/components/ui/chip';
-import { FlagCell } from '@/components/harvest/chips';
-import { Pager } from '@/components/harvest/pager';
+import { SuperPullTable } from '@/components/harvest/super-pull-table';
 
 export const metadata = { title: 'Super pulls' };
 
@@ -18,8 +15,9 @@ export default async function SuperPullsPage({ searchParams }: { searchParams: P
   const params = queryRecord(await searchParams);
   const parsed = pullListQuery.safeParse(params);
   const query = parsed.success ? parsed.data : pullListQuery.parse({});
-  const [{ rows, total, page, pageSize }, yards, settings] = await Promise.all([listSuperPulls(user, query), listYardChoices(user), getSettings()]);
-  const sortLink = (sort: string) => `/admin/supers?${new URLSearchParams({ ...params, sort, dir: query.sort === sort && query.dir === 'desc' ? 'asc' : 'desc', page: '1' })}`;
+  const [first, yards, settings] = await Promise.all([listSuperPulls(user, { ...query, page: 1, sort: 'pulledOn', dir: 'desc' }), listYardChoices(user), getSettings()]);
+  // Only the filters go to the client table; it asks /api/super-pulls for other pages and sorts.
+  const filters = Object.fromEntries(Object.entries({ yardId: query.yardId, flagged: query.flagged, from: query.from, to: query.to }).filter(([, v]) => v !== undefined).map(([k, v]) => [k, String(v)]));
   return (
     <>
       <PageHeader
@@ -46,36 +44,7 @@ export default async function SuperPullsPage({ searchParams }: { searchParams: P
         <label className="field" htmlFor="f-to"><span>To</span><input id="f-to" type="date" name="to" className="input min-h-11" defaultValue={params.to ?? ''} /></label>
         <button type="submit" className="btn-secondary min-h-11">Filter</button>
       </form>
-      <div className="card overflow-x-auto p-0">
-        <table className="data-table">
-          <caption className="sr-only">Super pulls</caption>
-          <thead>
-            <tr>
-              <th scope="col"><Link href={sortLink('pulledOn')}>Pulled</Link></th>
-              <th scope="col"><Link href={sortLink('colony')}>Colony</Link></th>
-              <th scope="col">Yard</th><th scope="col">Box</th><th scope="col">Tag</th>
-              <th scope="col" className="num"><Link href={sortLink('fullGrams')}>Full weight</Link></th>
-              <th scope="col">Conflict check</th><th scope="col">Lot</th>
-            </tr>
-          </thead>
-          <tbody>
-            {rows.map((p) => (
-              <tr key={p.id} className={p.flagged ? 'bg-bad-bg/40' : undefined}>
-                <td className="num">{p.pulledOn}</td>
-                <td><Link href={`/admin/colonies/${p.colonyId}`}>{p.colonyCode}</Link></td>
-                <td>{p.yardName}</td>
-                <td>{p.depth}, {p.frameCount} fr.</td>
-                <td>{p.tagCode ?? '—'}</td>
-                <td className="num">{p.fullGrams ? formatWeight(p.fullGrams, settings.weightSystem) : p.cappedFrames != null ? `~${p.cappedFrames} capped fr.` : '—'}</td>
-                <td><FlagCell flagged={p.flagged} reasons={p.flagReasons} /></td>
-                <td>{p.inLot ? <Chip tone="info">in a lot</Chip> : <Chip>waiting</Chip>}</td>
-              </tr>
-            ))}
-            {rows.length === 0 ? <tr><td colSpan={8}>No super pulls match.</td></tr> : null}
-          </tbody>
-        </table>
-      </div>
-      <Pager path="/admin/supers" params={params} page={page} pageSize={pageSize} total={total} />
+      <SuperPullTable initial={first} filters={filters} weightSystem={settings.weightSystem} />
     </>
   );
 }

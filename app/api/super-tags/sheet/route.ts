@@ -21,7 +21,7 @@ export async function GET(req: Request) {
     const layout = q.layout ? BUILT_IN_LAYOUTS.find((l) => l.name === q.layout) : BUILT_IN_LAYOUTS[0];
     if (!layout) throw new HttpError(422, `Unknown label layout. Choose one of: ${BUILT_IN_LAYOUTS.map((l) => l.name).join(', ')}.`);
     const tags = await listTags(q.prefix);
-    if (tags.length === 0) throw new HttpError(404, 'No super tags to print. Create a batch of tags first.');
+    if (tags.length === 0) throw new HttpError(422, 'No super tags to print. Create a batch of tags first.');
     const bytes = await renderSuperTagSheet(tags.map((t) => ({ code: t.code, caption: `${t.depth} · ${t.frameCount} frames` })), layout);
     return pdfResponse(bytes, `super-tags${q.prefix ? `-${q.prefix}` : ''}.pdf`);
   } catch (err) {
