@@ -56,7 +56,7 @@ export function queryRecord(params: URLSearchParams | Record<string, string | st
 // ---- yards ----
 const coordinate = (max: number) => blankToNull(z.coerce.number().min(-max).max(max, `Between -${max} and ${max}`));
 export const yardInput = z.object({
-  name: z.string().trim().min(1, 'Give the yard a name').max(80),
+  name: z.string().trim().min(1, 'Give the yard a name').max(80).regex(/^[\p{L}\p{N}]/u, 'Start the name with a letter or digit'),
   place: z.string().trim().max(500).default(''),
   latitude: coordinate(90),
   longitude: coordinate(180),
@@ -120,7 +120,7 @@ export const treatmentEndInput = z.object({ treatmentId: id, removedOn: isoDay }
 
 export const treatmentKindInput = z.object({
   id: id.optional(),
-  name: z.string().trim().min(1, 'Name the kind').max(80),
+  name: z.string().trim().min(1, 'Name the kind').max(80).regex(/^[\p{L}\p{N}]/u, 'Start the name with a letter or digit'),
   supersAllowed: z.boolean(),
   waitingDays: z.coerce.number().int().min(0, '0 or more').max(365),
   notes: z.string().trim().max(1000).default(''),
