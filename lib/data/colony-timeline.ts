@@ -55,7 +55,7 @@ export async function colonyTimeline(colonyId: number, formatGrams: (g: number) 
   for (const e of events) {
     const d = e.details as Record<string, string | number | undefined>;
     const base = { key: `ev-${e.id}`, on: e.occurredOn, kind: e.kind, by: name(e.recordedBy) } as const;
-    if (e.kind === 'split') out.push({ ...base, title: 'Split', detail: [`new colony ${d.childCode}`, e.note].filter(Boolean).join(' · '), linkColonyId: Number(d.childId) });
+    if (e.kind === 'split') out.push({ ...base, title: 'Split', detail: [`new colony ${d.childCode}`, e.note].filter(Boolean).join(' · '), linkColonyId: d.childId ? Number(d.childId) : undefined });
     else if (e.kind === 'move') out.push({ ...base, title: 'Moved', detail: [`from ${d.fromYard} to ${d.toYard}`, e.note].filter(Boolean).join(' · ') });
     else if (e.kind === 'status') out.push({ ...base, title: `Status: ${STATUS_NAMES[String(d.to)] ?? d.to}`, detail: [d.combinedInto ? `combined into ${d.combinedInto}` : '', e.note].filter(Boolean).join(' · ') });
     else out.push({ ...base, title: 'Note', detail: e.note });
