@@ -23,8 +23,10 @@ export type ColonyDetail = ColonyRow & {
   combinedInto: { id: number; code: string } | null;
 };
 
-const lastPull = `(SELECT max(p.pulled_on) FROM super_pulls p WHERE p.colony_id = "Colony"."id")`;
-const flaggedCount = `(SELECT count(*)::int FROM super_pulls p WHERE p.colony_id = "Colony"."id" AND p.flagged)`;
+// The main table's alias is the model's class name, which a production build minifies: ask the class.
+const alias = () => getDb().models.Colony.name;
+const lastPull = () => `(SELECT max(p.pulled_on) FROM super_pulls p WHERE p.colony_id = "${alias()}"."id")`;
+const flaggedCount = () => `(SELECT count(*)::int FROM super_pulls p WHERE p.colony_id = "${alias()}"."id" AND p.flagged)`;
 const SORTS = { code: 'code', yard: '$yard.name$', status: 'status', queenYear: 'queenYear' } as const;
 
 function toRow(c: Colony): ColonyRow {
@@ -51,7 +53,7 @@ export async function listColonies(user: Viewer, query: ColonyListQuery): Promis
   const sortKey = SORTS[query.sort];
   const { rows, count } = await models.Colony.findAndCountAll({
     where: { [Op.and]: and },
-    attributes: { include: [[sequelize.literal(lastPull), 'lastPulledOn'], [sequelize.literal(flaggedCount), 'flaggedSupers']] },
+    attributes: { include: [[sequelize.literal(lastPull()), 'lastPulledOn'], [sequelize.literal(flaggedCount()), 'flaggedSupers']] },
     include: baseInclude,
     order: sortKey === '$yard.name$'
       ? [[{ model: models.Yard, as: 'yard' }, 'name', query.dir], ['code', 'ASC']]
@@ -68,7 +70,7 @@ export async function getColony(user: Viewer, colonyId: number): Promise<ColonyD
   const scoped = await colonyInScope(user, colonyId);
   if (!scoped) return null;
   const c = await models.Colony.findByPk(colonyId, {
-    attributes: { include: [[sequelize.literal(lastPull), 'lastPulledOn'], [sequelize.literal(flaggedCount), 'flaggedSupers']] },
+    attributes: { include: [[sequelize.literal(lastPull()), 'lastPulledOn'], [sequelize.literal(flaggedCount()), 'flaggedSupers']] },
     include: [
       ...baseInclude,
       { association: 'parent', attributes: ['id', 'code'] },

@@ -15,7 +15,8 @@ export type YardRow = {
 };
 export type Paged<T> = { rows: T[]; total: number; page: number; pageSize: number };
 
-const colonyCount = `(SELECT count(*)::int FROM colonies c WHERE c.yard_id = "Yard"."id" AND c.status = 'active')`;
+// The main table's alias is the model's class name, which a production build minifies: ask the class.
+const colonyCount = () => `(SELECT count(*)::int FROM colonies c WHERE c.yard_id = "${getDb().models.Yard.name}"."id" AND c.status = 'active')`;
 
 function toRow(y: Yard): YardRow {
   return {
@@ -32,10 +33,10 @@ export async function listYards(user: Viewer, query: YardListQuery): Promise<Pag
   const and: WhereOptions[] = [where];
   if (!scope.all) and.push({ id: scope.yardIds });
   if (query.q) and.push({ name: { [Op.iLike]: `%${query.q.replace(/[%_\\]/g, '\\$&')}%` } });
-  const order = query.sort === 'colonies' ? sequelize.literal(`${colonyCount} ${query.dir.toUpperCase()}, "Yard"."name" ASC`) : [['name', query.dir]];
+  const order = query.sort === 'colonies' ? sequelize.literal(`${colonyCount()} ${query.dir.toUpperCase()}, "${models.Yard.name}"."name" ASC`) : [['name', query.dir]];
   const { rows, count } = await models.Yard.findAndCountAll({
     where: { [Op.and]: and },
-    attributes: { include: [[sequelize.literal(colonyCount), 'activeColonies']] },
+    attributes: { include: [[sequelize.literal(colonyCount()), 'activeColonies']] },
     order: Array.isArray(order) ? (order as [string, string][]) : [order],
     limit: query.pageSize,
     offset: (query.page - 1) * query.pageSize,
@@ -60,7 +61,7 @@ export async function getYard(user: Viewer, yardId: number): Promise<YardRow | n
   if (!Number.isInteger(yardId) || yardId <= 0) return null;
   if (!inScope(await yardScope(user), yardId)) return null;
   const yard = await models.Yard.findByPk(yardId, {
-    attributes: { include: [[sequelize.literal(colonyCount), 'activeColonies']] },
+    attributes: { include: [[sequelize.literal(colonyCount()), 'activeColonies']] },
     include: [{ association: 'keepers', attributes: ['id', 'name'], through: { attributes: [] } }],
   });
   return yard ? toRow(yard) : null;
