@@ -94,6 +94,19 @@ describe('field-sheet import', () => {
     expect((await big.json()).error).toMatch(/larger than 5 MB/);
   });
 
+  it('imports 1,000 rows in one transaction (timed)', async () => {
+    await signInAs(DEMO.keeper);
+    const lines = ['Colony,Date,Box,Weight,Unit,Tag'];
+    for (let i = 0; i < 1000; i++) lines.push(`IMP-A${(i % 3) + 1},2026-0${6 + (i % 3)}-${String((i % 28) + 1).padStart(2, '0')},medium,${18 + (i % 10)},kg,BULK-${i}`);
+    const started = performance.now();
+    const res = await upload(lines.join('\n'), { mode: 'commit', mapping: JSON.stringify(MAPPING) });
+    const ms = Math.round(performance.now() - started);
+    console.log(`[measure] 1000-row field-sheet import: ${ms} ms`);
+    expect(res.status).toBe(200);
+    expect((await res.json()).imported).toBe(1000);
+    expect(await getDb().models.SuperPull.count({ where: { colonyId: [f.a1, f.a2, f.a3] } })).toBeGreaterThanOrEqual(1000);
+  });
+
   it('crew may not import', async () => {
     await signInAs(DEMO.crew);
     expect((await upload(SHEET, { mode: 'commit', mapping: JSON.stringify(MAPPING) })).status).toBe(403);
