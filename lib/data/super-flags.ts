@@ -4,9 +4,9 @@ import { getDb } from '@/lib/db';
 import { superConflicts, type FeedingRecord, type TreatmentRecord } from '@/lib/domain/conflicts';
 import { flagReasons, pullWindow } from '@/lib/domain/pull-window';
 
-type ColonyRecords = { feedings: FeedingRecord[]; treatments: TreatmentRecord[]; pulledDates: { id: number; pulledOn: string }[] };
+export type ColonyRecords = { feedings: FeedingRecord[]; treatments: TreatmentRecord[]; pulledDates: { id: number; pulledOn: string }[] };
 
-async function colonyRecords(colonyId: number, t: Transaction): Promise<ColonyRecords> {
+export async function colonyRecords(colonyId: number, t: Transaction): Promise<ColonyRecords> {
   const { models } = getDb();
   // One after another: a transaction is one connection, which runs one query at a time.
   const feedings = await models.Feeding.findAll({ where: { colonyId }, transaction: t });
@@ -23,7 +23,7 @@ async function colonyRecords(colonyId: number, t: Transaction): Promise<ColonyRe
   };
 }
 
-function flagsWith(records: ColonyRecords, pull: { id?: number; pulledOn: string; putOnOn: string | null }) {
+export function flagsWith(records: ColonyRecords, pull: { id?: number; pulledOn: string; putOnOn: string | null }) {
   const previous = records.pulledDates.filter((p) => p.id !== pull.id).map((p) => p.pulledOn);
   const window = pullWindow(pull.pulledOn, pull.putOnOn, previous);
   const result = superConflicts(window, records);

@@ -7,7 +7,7 @@ import { validatePullRows, type PullMapping, type PullRowError, type ValidPullRo
 import { HttpError } from '@/lib/http/json';
 import { recordAudit } from './audit';
 import { canWriteColonies, yardScope } from './harvest-scope';
-import { flagsForPull } from './super-flags';
+import { colonyRecords, flagsWith, type ColonyRecords } from './super-flags';
 
 type Viewer = Pick<SessionUser, 'id' | 'role'>;
 export const MAX_IMPORT_BYTES = 5 * 1024 * 1024;
@@ -73,14 +73,19 @@ export async function commitImport(user: Viewer, text: string, mapping: PullMapp
   if (expectedValid !== undefined && expectedValid !== valid.length) throw new HttpError(409, 'The records changed since the preview. Check the preview again.');
   let flagged = 0;
   await sequelize.transaction(async (t) => {
+    // Each colony's feedings, treatments and pulls are read once; rows of this sheet join its pulls as they go in.
+    const records = new Map<number, ColonyRecords>();
     for (const row of valid) {
       const colonyId = k.colonyIds.get(row.colonyCode) as number;
-      const flags = await flagsForPull(colonyId, { pulledOn: row.pulledOn, putOnOn: null }, t);
+      let colony = records.get(colonyId);
+      if (!colony) records.set(colonyId, (colony = await colonyRecords(colonyId, t)));
+      const flags = flagsWith(colony, { pulledOn: row.pulledOn, putOnOn: null });
       if (flags.flagged) flagged++;
-      await models.SuperPull.create({
+      const created = await models.SuperPull.create({
         colonyId, pulledOn: row.pulledOn, depth: row.depth, frameCount: row.frameCount, fullGrams: row.fullGrams,
         cappedFrames: row.cappedFrames, tagCode: row.tagCode, pulledBy: user.id, note: `Imported from field sheet, row ${row.row}`, ...flags,
       }, { transaction: t });
+      colony.pulledDates.push({ id: created.id, pulledOn: row.pulledOn });
     }
     await recordAudit({ actorUserId: user.id, action: 'superPulls.import', entityType: 'superPulls', entityId: 'import', after: { imported: valid.length, rejected: errors.length } }, t);
   });
