@@ -104,3 +104,21 @@ export function allocateLotTree(lots: LotNode[], lotId: string): Record<string, 
   pass(lotId, root.netGrams, []);
   return result;
 }
+
+/** The key of the part of a lot that reaches no super (e.g. a blend parent with no sources). */
+export const NOT_ATTRIBUTED = 'none';
+
+/**
+ * One lot's exact fractions per colony (from the SQL walk through blends; they add up to 1
+ * when every part of the lot reaches a super) rounded to whole grams and cents with
+ * allocateByWeight, so each lot adds up exactly. A missing part stays under NOT_ATTRIBUTED
+ * rather than being pushed onto the colonies that are known.
+ */
+export function roundLotShares(
+  ownGrams: number, revenueCents: number, shares: { id: string; frac: number }[],
+): { grams: Record<string, number>; cents: Record<string, number> } {
+  const fracSum = shares.reduce((a, s) => a + (s.frac > 0 ? s.frac : 0), 0);
+  const list: Share[] = shares.map((s) => ({ id: s.id, grams: s.frac }));
+  if (fracSum < 1 - 1e-9) list.push({ id: NOT_ATTRIBUTED, grams: 1 - fracSum });
+  return { grams: allocateByWeight(ownGrams, list), cents: allocateByWeight(revenueCents, list) };
+}

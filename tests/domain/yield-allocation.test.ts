@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
-  DEFAULT_SUPER_ESTIMATES, allocateByWeight, allocateLotTree, allocateRevenue, superHoneyGrams, type LotNode,
+  DEFAULT_SUPER_ESTIMATES, NOT_ATTRIBUTED, allocateByWeight, allocateLotTree, allocateRevenue, roundLotShares, superHoneyGrams, type LotNode,
 } from '@/lib/domain/yield-allocation';
 import { GRAMS_PER_POUND } from '@/lib/domain/units';
 
@@ -118,5 +118,51 @@ describe('allocateLotTree', () => {
     const loop2: LotNode = { id: 'L2', netGrams: 10, supers: [], parents: [{ lotId: 'L1', grams: 1 }] };
     expect(() => allocateLotTree([loop1, loop2], 'L1')).toThrow(/own ancestor/);
     expect(() => allocateLotTree([{ id: 'E', netGrams: 100, supers: [{ id: 'x', grams: 0 }], parents: [] }], 'E')).toThrow(RangeError);
+  });
+});
+
+describe('a lot with weighed and unweighed supers', () => {
+  const est = (frames: number) => superHoneyGrams({ fullGrams: null, emptyGrams: null, depth: 'medium', frameCount: 10, cappedFrames: frames }).grams;
+  it('shares by measured honey and estimates together, exactly', () => {
+    const supers = [
+      { id: 'w1', grams: superHoneyGrams({ fullGrams: 25_000, emptyGrams: 7_000, depth: 'medium', frameCount: 10, cappedFrames: null }).grams },
+      { id: 'u1', grams: est(5) },
+      { id: 'u2', grams: est(10) },
+    ];
+    const lot: LotNode = { id: 'L', netGrams: 40_003, supers, parents: [] };
+    const result = allocateLotTree([lot], 'L');
+    expect(sum(result)).toBe(40_003);
+    const weightSum = supers.reduce((a, s) => a + s.grams, 0);
+    for (const s of supers) expect(Math.abs(result[s.id] - (40_003 * s.grams) / weightSum)).toBeLessThan(1);
+    expect(result.u2 - 2 * result.u1).toBeLessThanOrEqual(2); // 10 capped frames ≈ twice 5
+  });
+
+  it('gives a lot with one super all of it, whatever the super weighs', () => {
+    expect(allocateLotTree([{ id: 'L', netGrams: 17_777, supers: [{ id: 'only', grams: est(3) }], parents: [] }], 'L')).toEqual({ only: 17_777 });
+  });
+
+  it('shares a blend\'s revenue back through its parents like its weight', () => {
+    const a: LotNode = { id: 'A', netGrams: 0, supers: [{ id: 's1', grams: 3 }, { id: 's2', grams: 1 }], parents: [] };
+    const blend: LotNode = { id: 'C', netGrams: 10_001, supers: [], parents: [{ lotId: 'A', grams: 1 }] };
+    const cents = allocateLotTree([a, { ...blend, netGrams: 2_199 }], 'C');
+    expect(sum(cents)).toBe(2_199);
+    expect(cents).toEqual({ s1: 1_649, s2: 550 }); // 2 199 × ¾ = 1 649.25, × ¼ = 549.75
+  });
+});
+
+describe('roundLotShares', () => {
+  it('rounds exact colony fractions to whole grams and cents that add up to the lot', () => {
+    const shares = [{ id: '1', frac: 0.5 }, { id: '2', frac: 1 / 3 }, { id: '3', frac: 1 / 6 }];
+    const { grams, cents } = roundLotShares(10_001, 1_099, shares);
+    expect(sum(grams)).toBe(10_001);
+    expect(sum(cents)).toBe(1_099);
+    expect(grams).toEqual({ '1': 5_000, '2': 3_334, '3': 1_667 }); // 5000.5, 3333.67, 1666.83: the two left go to remainders .83 and .67
+    expect(Object.keys(grams)).not.toContain(NOT_ATTRIBUTED);
+  });
+
+  it('keeps a part that reaches no super apart instead of pushing it onto the others', () => {
+    const { grams } = roundLotShares(1_000, 0, [{ id: '1', frac: 0.25 }]);
+    expect(grams).toEqual({ '1': 250, [NOT_ATTRIBUTED]: 750 });
+    expect(roundLotShares(500, 0, []).grams).toEqual({ [NOT_ATTRIBUTED]: 500 });
   });
 });

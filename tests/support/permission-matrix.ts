@@ -38,6 +38,8 @@ export const ACTIONS: Record<string, Allowed> = {
   'app/(back-office)/admin/colonies/actions.ts#superOnAction': HARVEST_WRITE,
   'app/(back-office)/admin/treatment-kinds/actions.ts#saveTreatmentKindAction': OWNER,
   'app/(back-office)/admin/supers/actions.ts#createTagBatchAction': OWNER,
+  'app/(back-office)/admin/reports/actions.ts#seasonRecipientsAction': OWNER,
+  'app/(back-office)/admin/reports/actions.ts#sendKeeperReportAction': OWNER,
 };
 
 /** Route handlers: `path#METHOD`. Dynamic segments are filled with ids that do not exist. */
@@ -55,6 +57,9 @@ export const ROUTES: Record<string, Allowed> = {
   'app/api/super-pulls/route.ts#POST': HARVEST_WRITE,
   'app/api/super-pulls/import/route.ts#POST': HARVEST_WRITE,
   'app/api/super-tags/sheet/route.ts#GET': OWNER,
+  'app/api/reports/csv/route.ts#GET': ['owner', 'keeper'],
+  'app/api/reports/keeper-pdf/route.ts#GET': ['owner', 'keeper'],
+  'app/api/trace/recall/route.ts#GET': HOUSE,
 };
 
 export const GROUPS = { OWNER, STAFF, HARVEST_WRITE, HOUSE };
