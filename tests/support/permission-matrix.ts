@@ -38,6 +38,12 @@ export const ACTIONS: Record<string, Allowed> = {
   'app/(back-office)/admin/colonies/actions.ts#superOnAction': HARVEST_WRITE,
   'app/(back-office)/admin/treatment-kinds/actions.ts#saveTreatmentKindAction': OWNER,
   'app/(back-office)/admin/supers/actions.ts#createTagBatchAction': OWNER,
+  'app/(back-office)/admin/products/actions.ts#saveProductAction': OWNER,
+  'app/(back-office)/admin/jarring/actions.ts#createJarringRunAction': HOUSE,
+  'app/(back-office)/admin/jarring/actions.ts#overrideJarringRunAction': OWNER,
+  'app/(back-office)/admin/stock/actions.ts#adjustStockAction': HOUSE,
+  'app/(back-office)/admin/labels/actions.ts#saveLabelLayoutAction': OWNER,
+  'app/(back-office)/admin/labels/actions.ts#deleteLabelLayoutAction': OWNER,
   'app/(back-office)/admin/reports/actions.ts#seasonRecipientsAction': OWNER,
   'app/(back-office)/admin/reports/actions.ts#sendKeeperReportAction': OWNER,
 };
@@ -57,6 +63,9 @@ export const ROUTES: Record<string, Allowed> = {
   'app/api/super-pulls/route.ts#POST': HARVEST_WRITE,
   'app/api/super-pulls/import/route.ts#POST': HARVEST_WRITE,
   'app/api/super-tags/sheet/route.ts#GET': OWNER,
+  'app/api/products/[id]/photo/route.ts#GET': 'anyone', // a product's photo, for the shop
+  'app/api/products/[id]/photo/route.ts#POST': OWNER,
+  'app/api/jarring/[id]/labels/route.ts#GET': HOUSE,
   'app/api/reports/csv/route.ts#GET': ['owner', 'keeper'],
   'app/api/reports/keeper-pdf/route.ts#GET': ['owner', 'keeper'],
   'app/api/trace/recall/route.ts#GET': HOUSE,

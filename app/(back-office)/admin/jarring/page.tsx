@@ -1,0 +1,88 @@
+import Link from 'next/link';
+import { requirePermission } from '@/lib/auth/session';
+import { can } from '@/lib/auth/roles';
+import { getSettings } from '@/lib/data/settings';
+import { listJarrableLots, listJarringRuns } from '@/lib/data/jarring';
+import { listProducts } from '@/lib/data/products';
+import { formatWeight } from '@/lib/domain/units';
+import { declareNetQuantity } from '@/lib/domain/net-quantity';
+import { PageHeader } from '@/components/ui/page-header';
+import { Caution, INFANT_CAUTION } from '@/components/ui/caution';
+import { RunForm } from '@/components/jarring/run-form';
+import { RunStatus } from '@/components/jarring/run-status';
+import { createJarringRunAction } from './actions';
+
+export const metadata = { title: 'Jarring' };
+
+function todayIn(timeZone: string): string {
+  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
+}
+
+export default async function JarringPage() {
+  const user = await requirePermission('jarring.read', '/admin/jarring');
+  const [settings, lots, products, runs] = await Promise.all([getSettings(), listJarrableLots(), listProducts({ activeOnly: true }), listJarringRuns({ limit: 30 })]);
+  const system = settings.weightSystem;
+  const writer = can(user.role, 'jarring.write');
+  return (
+    <>
+      <PageHeader
+        title="Jarring"
+        lead="Fill jars from a released lot, weigh samples, and the fill check decides whether the jars go into stock."
+        actions={can(user.role, 'labels.layouts') ? <Link className="btn-secondary" href="/admin/labels">Label layouts</Link> : null}
+      />
+      <section className="card mb-6 overflow-x-auto p-0" aria-labelledby="lots-h">
+        <h2 id="lots-h" className="px-4 pt-4">What the released lots can still fill</h2>
+        <p className="hint px-4">Jars after the expected loss of {settings.expectedLossPct} % (Settings).</p>
+        <table className="data-table">
+          <thead><tr><th scope="col">Lot</th><th scope="col">Floral source</th><th scope="col" className="num">Honey left</th>{products.map((p) => <th key={p.id} scope="col" className="num">{p.name}</th>)}</tr></thead>
+          <tbody>
+            {lots.length === 0 ? <tr><td colSpan={3 + products.length} className="hint">No released lot has honey left.</td></tr> : null}
+            {lots.map((l) => (
+              <tr key={l.id}>
+                <td className="whitespace-nowrap">{l.code}</td><td>{l.floralSource}</td><td className="num whitespace-nowrap">{formatWeight(l.remainingGrams, system)}</td>
+                {l.jars.map((j) => <td key={j.productId} className="num">{j.jars}</td>)}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </section>
+      {writer ? (
+        <section className="card mb-6" aria-labelledby="run-h">
+          <h2 id="run-h" className="mb-1">New jarring run</h2>
+          <p className="hint mb-4">Fill check: {settings.fillRuleSet === 'oiml' ? 'tolerable negative error (OIML R 87 / EU 76/211/EEC)' : 'US average and MAV (NIST Handbook 133)'}.</p>
+          <RunForm
+            lots={lots.filter((l) => l.remainingGrams > 0).map((l) => ({ id: l.id, code: l.code, floralSource: l.floralSource, remainingText: formatWeight(l.remainingGrams, system), jars: l.jars }))}
+            products={products.map((p) => ({ id: p.id, name: p.name, containerGrams: p.containerGrams, netText: declareNetQuantity(p, settings.labelDeclaration) }))}
+            ruleSet={settings.fillRuleSet}
+            today={todayIn(settings.timeZone)}
+            onSave={createJarringRunAction}
+          />
+          <div className="mt-4">
+            <Caution title="Glass and food safety">Hot jars and broken glass cut: wear gloves, check every jar for chips. Labels carry “{INFANT_CAUTION}” Follow your local food, labelling and weights-and-measures law; Combtrace records and warns, it does not certify.</Caution>
+          </div>
+        </section>
+      ) : null}
+      <section className="card overflow-x-auto p-0" aria-labelledby="runs-h">
+        <h2 id="runs-h" className="px-4 pt-4">Recent runs</h2>
+        <table className="data-table">
+          <thead><tr><th scope="col">Run</th><th scope="col">Date</th><th scope="col">Lot</th><th scope="col">Product</th><th scope="col" className="num">Jars</th><th scope="col" className="num">Honey used</th><th scope="col">Fill check</th></tr></thead>
+          <tbody>
+            {runs.length === 0 ? <tr><td colSpan={7} className="hint">No runs yet.</td></tr> : null}
+            {runs.map((r) => (
+              <tr key={r.id} className={r.pass ? undefined : 'bg-bad-bg'}>
+                <td><Link href={`/admin/jarring/${r.id}`}>#{r.id}</Link></td>
+                <td className="whitespace-nowrap">{r.runOn}</td><td className="whitespace-nowrap">{r.lotCode}</td><td>{r.productName}</td>
+                <td className="num">{r.jarCount}</td><td className="num">{formatWeight(r.honeyUsedGrams, system)}</td>
+                <td>
+                  <RunStatus pass={r.pass} overridden={!!r.overrideReason} />
+                  {!r.pass ? <ul className="mt-1 ml-4 list-disc text-xs text-bad-fg">{r.reasons.map((x) => <li key={x}>{x}</li>)}</ul> : null}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </section>
+    </>
+  );
+}
+

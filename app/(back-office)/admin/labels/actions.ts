@@ -1,0 +1,18 @@
+'use server';
+import { z } from 'zod';
+import { revalidatePath } from 'next/cache';
+import { guardedAction } from '@/lib/http/action';
+import { labelLayoutInput } from '@/lib/schemas/jarring';
+import { deleteLabelLayout, saveLabelLayout } from '@/lib/data/label-layouts';
+
+export const saveLabelLayoutAction = guardedAction('labels.layouts', labelLayoutInput, async (user, data) => {
+  const saved = await saveLabelLayout(user.id, data);
+  revalidatePath('/admin/labels');
+  return { ok: true, data: saved };
+});
+
+export const deleteLabelLayoutAction = guardedAction('labels.layouts', z.object({ layoutId: z.coerce.number().int().positive() }), async (user, data) => {
+  await deleteLabelLayout(user.id, data.layoutId);
+  revalidatePath('/admin/labels');
+  return { ok: true };
+});

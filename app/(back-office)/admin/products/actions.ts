@@ -1,0 +1,11 @@
+'use server';
+import { revalidatePath } from 'next/cache';
+import { guardedAction } from '@/lib/http/action';
+import { productInput } from '@/lib/schemas/jarring';
+import { saveProduct } from '@/lib/data/products';
+
+export const saveProductAction = guardedAction('products.manage', productInput, async (user, data) => {
+  const row = await saveProduct(user.id, data);
+  revalidatePath('/admin/products');
+  return { ok: true, data: { id: row.id, gtin: row.gtin } };
+});

@@ -1,0 +1,11 @@
+'use server';
+import { revalidatePath } from 'next/cache';
+import { guardedAction } from '@/lib/http/action';
+import { stockAdjustInput } from '@/lib/schemas/jarring';
+import { adjustStock } from '@/lib/data/stock';
+
+export const adjustStockAction = guardedAction('stock.adjust', stockAdjustInput, async (user, data) => {
+  const level = await adjustStock(user.id, data);
+  revalidatePath('/admin/stock');
+  return { ok: true, data: { onHand: level.onHand } };
+});

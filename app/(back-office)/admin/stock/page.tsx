@@ -1,0 +1,96 @@
+import Link from 'next/link';
+import { requirePermission } from '@/lib/auth/session';
+import { can } from '@/lib/auth/roles';
+import { listLedger, listStockLevels, stockTotals } from '@/lib/data/stock';
+import { PageHeader } from '@/components/ui/page-header';
+import { Chip } from '@/components/ui/chip';
+import { AdjustForm } from '@/components/stock/adjust-form';
+import { adjustStockAction } from './actions';
+
+export const metadata = { title: 'Stock' };
+
+const KIND_NAMES = { jarring: 'jarring run', order: 'order', breakage: 'breakage', adjustment: 'adjustment', return: 'return' } as const;
+
+function monthsUntil(iso: string): number {
+  const [y, m] = iso.split('-').map(Number);
+  const now = new Date();
+  return (y - now.getUTCFullYear()) * 12 + (m - 1 - now.getUTCMonth());
+}
+
+function BestBefore({ iso }: { iso: string }) {
+  const months = monthsUntil(iso);
+  return <span className="whitespace-nowrap">{iso} {months < 0 ? <Chip tone="bad">past</Chip> : months < 3 ? <Chip tone="warn">soon</Chip> : null}</span>;
+}
+
+export default async function StockPage({ searchParams }: { searchParams: Promise<{ page?: string }> }) {
+  const user = await requirePermission('stock.read', '/admin/stock');
+  const page = Math.max(1, Number((await searchParams).page) || 1);
+  const [totals, levels, ledger] = await Promise.all([stockTotals(), listStockLevels(), listLedger({ page, pageSize: 25 })]);
+  const pages = Math.max(1, Math.ceil(ledger.total / ledger.pageSize));
+  return (
+    <>
+      <PageHeader title="Stock" lead="Jars on hand per product and per lot. Every change is a line in the ledger below." />
+      <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
+        <div className="space-y-6">
+          <section className="card overflow-x-auto p-0" aria-labelledby="totals-h">
+            <h2 id="totals-h" className="px-4 pt-4">Per product</h2>
+            <table className="data-table" data-testid="stock-totals">
+              <thead><tr><th scope="col">Product</th><th scope="col" className="num">On hand</th><th scope="col" className="num">Reserved</th><th scope="col" className="num">Available</th><th scope="col" className="num">Lots</th><th scope="col">Earliest best-before</th></tr></thead>
+              <tbody>
+                {totals.map((t) => (
+                  <tr key={t.productId}>
+                    <td>{t.productName}</td><td className="num">{t.onHand}</td><td className="num">{t.reserved}</td><td className="num">{t.available}</td><td className="num">{t.lots}</td>
+                    <td>{t.earliestBestBefore ? <BestBefore iso={t.earliestBestBefore} /> : '—'}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </section>
+          <section className="card overflow-x-auto p-0" aria-labelledby="lots-h">
+            <h2 id="lots-h" className="px-4 pt-4">Per lot</h2>
+            <table className="data-table">
+              <thead><tr><th scope="col">Product</th><th scope="col">Lot</th><th scope="col" className="num">On hand</th><th scope="col" className="num">Reserved</th><th scope="col">Best before</th></tr></thead>
+              <tbody>
+                {levels.length === 0 ? <tr><td colSpan={5} className="hint">No stock yet.</td></tr> : null}
+                {levels.map((l) => (
+                  <tr key={`${l.productId}:${l.lotId}`}>
+                    <td>{l.productName}</td><td>{l.lotCode}</td><td className="num">{l.onHand}</td><td className="num">{l.reserved}</td><td><BestBefore iso={l.bestBeforeOn} /></td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </section>
+          <section className="card overflow-x-auto p-0" aria-labelledby="ledger-h">
+            <h2 id="ledger-h" className="px-4 pt-4">Ledger</h2>
+            <table className="data-table">
+              <thead><tr><th scope="col">When</th><th scope="col">Product</th><th scope="col">Lot</th><th scope="col" className="num">Change</th><th scope="col">Kind</th><th scope="col">Reason</th><th scope="col">By</th></tr></thead>
+              <tbody>
+                {ledger.rows.length === 0 ? <tr><td colSpan={7} className="hint">No entries.</td></tr> : null}
+                {ledger.rows.map((r) => (
+                  <tr key={r.id}>
+                    <td className="whitespace-nowrap">{r.createdAt.toISOString().slice(0, 16).replace('T', ' ')}</td>
+                    <td>{r.productName}</td><td className="whitespace-nowrap">{r.lotCode}</td>
+                    <td className="num">{r.delta > 0 ? `+${r.delta}` : r.delta}</td>
+                    <td className="whitespace-nowrap">{r.jarringRunId ? <Link href={`/admin/jarring/${r.jarringRunId}`}>{KIND_NAMES[r.kind]}</Link> : r.orderId ? `${KIND_NAMES[r.kind]} #${r.orderId}` : KIND_NAMES[r.kind]}</td>
+                    <td>{r.reason}</td><td>{r.byName ?? '—'}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+            <nav aria-label="Ledger pages" className="flex items-center justify-between gap-2 p-3 text-sm">
+              {page > 1 ? <Link className="btn-quiet" href={`/admin/stock?page=${page - 1}`}>Newer</Link> : <span />}
+              <span>Page {page} of {pages} · {ledger.total} entries</span>
+              {page < pages ? <Link className="btn-quiet" href={`/admin/stock?page=${page + 1}`}>Older</Link> : <span />}
+            </nav>
+          </section>
+        </div>
+        {can(user.role, 'stock.adjust') ? (
+          <section className="card h-fit" aria-labelledby="adjust-h">
+            <h2 id="adjust-h" className="mb-3">Breakage, count, return</h2>
+            <AdjustForm choices={levels.map((l) => ({ productId: l.productId, lotId: l.lotId, label: `${l.productName} · ${l.lotCode} (${l.onHand} on hand)` }))} onAdjust={adjustStockAction} />
+          </section>
+        ) : null}
+      </div>
+    </>
+  );
+}
