@@ -50,6 +50,8 @@ describe('keeper on a phone', () => {
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
     // The box depth is remembered on this phone for the next pass.
     await page.reload();
+    // (read after hydration: the remembered depth is applied in an effect)
+    await page.waitForFunction(() => document.querySelector('[role=radio][aria-checked=true]')?.textContent === 'shallow', undefined, { timeout: 10_000 });
     expect(await page.getByRole('radio', { name: 'shallow' }).getAttribute('aria-checked')).toBe('true');
 
     for (const [i, code] of codes.entries()) {
