@@ -18,6 +18,10 @@ const nextConfig = {
   },
   experimental: {
     serverActions: { bodySizeLimit: '12mb' },
+    // Sequelize names each model (and its SQL alias) after its class; minified server code gives
+    // different models the same short class name, and an include then joins the wrong table
+    // ("column kind.name does not exist": treatments joined to treatments). Client code stays minified.
+    turbopackMinify: { server: false, client: true },
   },
 };
 

@@ -26,6 +26,6 @@ export function initAuditEntry(sequelize: Sequelize) {
       reason: { type: DataTypes.TEXT, allowNull: true },
       createdAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'audit_entries', underscored: true, updatedAt: false },
+    { sequelize, modelName: 'AuditEntry', tableName: 'audit_entries', underscored: true, updatedAt: false },
   );
 }

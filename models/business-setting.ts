@@ -67,6 +67,6 @@ export function initBusinessSetting(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'business_settings', underscored: true },
+    { sequelize, modelName: 'BusinessSetting', tableName: 'business_settings', underscored: true },
   );
 }

@@ -33,6 +33,6 @@ export function initColonyEvent(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'colony_events', underscored: true },
+    { sequelize, modelName: 'ColonyEvent', tableName: 'colony_events', underscored: true },
   );
 }

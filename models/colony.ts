@@ -53,6 +53,6 @@ export function initColony(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'colonies', underscored: true },
+    { sequelize, modelName: 'Colony', tableName: 'colonies', underscored: true },
   );
 }

@@ -19,6 +19,6 @@ export function initContainerType(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'container_types', underscored: true },
+    { sequelize, modelName: 'ContainerType', tableName: 'container_types', underscored: true },
   );
 }

@@ -36,6 +36,6 @@ export function initFeeding(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'feedings', underscored: true },
+    { sequelize, modelName: 'Feeding', tableName: 'feedings', underscored: true },
   );
 }

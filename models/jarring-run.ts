@@ -53,6 +53,6 @@ export function initJarringRun(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'jarring_runs', underscored: true },
+    { sequelize, modelName: 'JarringRun', tableName: 'jarring_runs', underscored: true },
   );
 }

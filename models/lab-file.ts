@@ -42,6 +42,6 @@ export function initLabFile(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'lab_files', underscored: true },
+    { sequelize, modelName: 'LabFile', tableName: 'lab_files', underscored: true },
   );
 }

@@ -20,6 +20,6 @@ export function initLabelLayoutRecord(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'label_layouts', underscored: true },
+    { sequelize, modelName: 'LabelLayoutRecord', tableName: 'label_layouts', underscored: true },
   );
 }

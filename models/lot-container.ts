@@ -36,6 +36,6 @@ export function initLotContainer(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'lot_containers', underscored: true },
+    { sequelize, modelName: 'LotContainer', tableName: 'lot_containers', underscored: true },
   );
 }

@@ -23,6 +23,6 @@ export function initLotParent(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'lot_parents', underscored: true },
+    { sequelize, modelName: 'LotParent', tableName: 'lot_parents', underscored: true },
   );
 }

@@ -14,6 +14,6 @@ export function initLotSequence(sequelize: Sequelize) {
       year: { type: DataTypes.INTEGER, allowNull: false, primaryKey: true },
       lastValue: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     },
-    { sequelize, tableName: 'lot_sequences', underscored: true, timestamps: false },
+    { sequelize, modelName: 'LotSequence', tableName: 'lot_sequences', underscored: true, timestamps: false },
   );
 }

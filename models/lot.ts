@@ -60,6 +60,6 @@ export function initLot(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'lots', underscored: true },
+    { sequelize, modelName: 'Lot', tableName: 'lots', underscored: true },
   );
 }

@@ -41,6 +41,6 @@ export function initMoistureReading(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'moisture_readings', underscored: true },
+    { sequelize, modelName: 'MoistureReading', tableName: 'moisture_readings', underscored: true },
   );
 }

@@ -29,6 +29,6 @@ export function initOrderAllocation(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'order_allocations', underscored: true },
+    { sequelize, modelName: 'OrderAllocation', tableName: 'order_allocations', underscored: true },
   );
 }

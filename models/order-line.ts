@@ -30,6 +30,6 @@ export function initOrderLine(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'order_lines', underscored: true },
+    { sequelize, modelName: 'OrderLine', tableName: 'order_lines', underscored: true },
   );
 }

@@ -77,6 +77,6 @@ export function initOrder(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'orders', underscored: true },
+    { sequelize, modelName: 'Order', tableName: 'orders', underscored: true },
   );
 }

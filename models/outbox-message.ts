@@ -38,6 +38,6 @@ export function initOutboxMessage(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'outbox_messages', underscored: true },
+    { sequelize, modelName: 'OutboxMessage', tableName: 'outbox_messages', underscored: true },
   );
 }

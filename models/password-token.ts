@@ -24,6 +24,6 @@ export function initPasswordToken(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'password_tokens', underscored: true },
+    { sequelize, modelName: 'PasswordToken', tableName: 'password_tokens', underscored: true },
   );
 }

@@ -48,6 +48,6 @@ export function initProduct(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'products', underscored: true },
+    { sequelize, modelName: 'Product', tableName: 'products', underscored: true },
   );
 }

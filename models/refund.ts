@@ -27,6 +27,6 @@ export function initRefund(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'refunds', underscored: true },
+    { sequelize, modelName: 'Refund', tableName: 'refunds', underscored: true },
   );
 }

@@ -17,6 +17,6 @@ export function initSignInAttempt(sequelize: Sequelize) {
       succeeded: { type: DataTypes.BOOLEAN, allowNull: false },
       createdAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'sign_in_attempts', underscored: true, updatedAt: false },
+    { sequelize, modelName: 'SignInAttempt', tableName: 'sign_in_attempts', underscored: true, updatedAt: false },
   );
 }

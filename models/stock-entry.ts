@@ -40,6 +40,6 @@ export function initStockEntry(sequelize: Sequelize) {
       createdBy: { type: DataTypes.INTEGER, allowNull: true },
       createdAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'stock_entries', underscored: true, updatedAt: false },
+    { sequelize, modelName: 'StockEntry', tableName: 'stock_entries', underscored: true, updatedAt: false },
   );
 }

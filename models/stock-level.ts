@@ -26,6 +26,6 @@ export function initStockLevel(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'stock_levels', underscored: true },
+    { sequelize, modelName: 'StockLevel', tableName: 'stock_levels', underscored: true },
   );
 }

@@ -26,6 +26,6 @@ export function initStoredFile(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'stored_files', underscored: true },
+    { sequelize, modelName: 'StoredFile', tableName: 'stored_files', underscored: true },
   );
 }

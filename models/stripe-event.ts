@@ -14,6 +14,6 @@ export function initStripeEvent(sequelize: Sequelize) {
       type: { type: DataTypes.STRING(80), allowNull: false },
       receivedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
     },
-    { sequelize, tableName: 'stripe_events', underscored: true, timestamps: false },
+    { sequelize, modelName: 'StripeEvent', tableName: 'stripe_events', underscored: true, timestamps: false },
   );
 }

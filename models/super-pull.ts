@@ -55,6 +55,6 @@ export function initSuperPull(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'super_pulls', underscored: true },
+    { sequelize, modelName: 'SuperPull', tableName: 'super_pulls', underscored: true },
   );
 }

@@ -25,6 +25,6 @@ export function initSuperTag(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'super_tags', underscored: true },
+    { sequelize, modelName: 'SuperTag', tableName: 'super_tags', underscored: true },
   );
 }

@@ -24,6 +24,6 @@ export function initTreatmentKind(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'treatment_kinds', underscored: true },
+    { sequelize, modelName: 'TreatmentKind', tableName: 'treatment_kinds', underscored: true },
   );
 }

@@ -38,6 +38,6 @@ export function initTreatment(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'treatments', underscored: true },
+    { sequelize, modelName: 'Treatment', tableName: 'treatments', underscored: true },
   );
 }

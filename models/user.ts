@@ -30,6 +30,6 @@ export function initUser(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'users', underscored: true },
+    { sequelize, modelName: 'User', tableName: 'users', underscored: true },
   );
 }

@@ -14,6 +14,6 @@ export function initYardKeeper(sequelize: Sequelize) {
       userId: { type: DataTypes.INTEGER, allowNull: false, primaryKey: true },
       createdAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'yard_keepers', underscored: true, updatedAt: false },
+    { sequelize, modelName: 'YardKeeper', tableName: 'yard_keepers', underscored: true, updatedAt: false },
   );
 }

@@ -29,6 +29,6 @@ export function initYard(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'yards', underscored: true },
+    { sequelize, modelName: 'Yard', tableName: 'yards', underscored: true },
   );
 }

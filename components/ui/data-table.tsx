@@ -61,7 +61,8 @@ export function DataTable<Row extends { id: number | string }>({
 
   const tableColumns = useMemo(() => {
     const helper = createColumnHelper<typeof features, Row>();
-    return helper.columns(columns.map((c) => helper.display({ id: c.id, header: c.header, enableSorting: Boolean(c.sortable), cell: ({ row }) => c.cell(row.original) })));
+    // Accessor columns, not display ones: table-core only lets a column with an accessor sort.
+    return helper.columns(columns.map((c) => helper.accessor((row) => row.id, { id: c.id, header: c.header, enableSorting: Boolean(c.sortable), cell: ({ row }) => c.cell(row.original) })));
   }, [columns]);
 
   const rows = data?.rows ?? EMPTY;

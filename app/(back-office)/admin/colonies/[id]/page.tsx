@@ -1,0 +1,129 @@
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { requirePermission } from '@/lib/auth/session';
+import { can } from '@/lib/auth/roles';
+import { getColony } from '@/lib/data/colonies';
+import { listColonySupers } from '@/lib/data/super-pulls';
+import { colonyTimeline } from '@/lib/data/colony-timeline';
+import { listTreatmentKinds } from '@/lib/data/colony-records';
+import { listYardChoices } from '@/lib/data/yards';
+import { getSettings } from '@/lib/data/settings';
+import { formatWeight } from '@/lib/domain/units';
+import { localDate } from '@/lib/domain/local-date';
+import { PageHeader } from '@/components/ui/page-header';
+import { Chip } from '@/components/ui/chip';
+import { ColonyStatusChip, FlagCell, QueenColour } from '@/components/harvest/chips';
+import { TreatmentCaution } from '@/components/harvest/treatment-caution';
+import {
+  EndRecordForm, FeedingForm, MoveForm, NoteForm, SplitForm, StatusForm, SuperOnForm, TreatmentForm,
+} from '@/components/harvest/colony-record-forms';
+import {
+  addFeedingAction, addTreatmentAction, colonyNoteAction, colonyStatusAction, endFeedingAction, endTreatmentAction,
+  moveColonyAction, splitColonyAction, superOnAction,
+} from '../actions';
+
+export const metadata = { title: 'Colony' };
+
+function Section({ title, children, open = false }: { title: string; children: React.ReactNode; open?: boolean }) {
+  return (
+    <details className="card" open={open}>
+      <summary className="min-h-11 cursor-pointer font-heading text-lg font-bold text-forest-800">{title}</summary>
+      <div className="mt-3">{children}</div>
+    </details>
+  );
+}
+
+export default async function ColonyPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const user = await requirePermission('colonies.read', `/admin/colonies/${id}`);
+  const colony = await getColony(user, Number(id));
+  if (!colony) notFound();
+  const settings = await getSettings();
+  const fmt = (g: number) => formatWeight(g, settings.weightSystem);
+  const today = localDate(new Date(), settings.timeZone);
+  const [supers, timeline] = await Promise.all([listColonySupers(colony.id), colonyTimeline(colony.id, fmt)]);
+  const write = can(user.role, 'colonies.write');
+  const [kinds, yards] = write ? await Promise.all([listTreatmentKinds(true), listYardChoices(user)]) : [[], []];
+  const endFeeding = async (feedingId: number, endedOn: string) => { 'use server'; return endFeedingAction({ colonyId: colony.id, feedingId, endedOn }); };
+  const endTreatment = async (treatmentId: number, removedOn: string) => { 'use server'; return endTreatmentAction({ colonyId: colony.id, treatmentId, removedOn }); };
+
+  return (
+    <>
+      <PageHeader
+        title={`Colony ${colony.code}`}
+        lead={<>In <Link href={`/admin/yards/${colony.yardId}`}>{colony.yardName}</Link> · keeper {colony.keeperName}</>}
+        actions={write ? <>
+          <Link href={`/admin/yards/${colony.yardId}/pulls`} className="btn-primary min-h-11">Record pulls</Link>
+          <Link href={`/admin/colonies/${colony.id}/edit`} className="btn-secondary min-h-11">Edit</Link>
+        </> : null}
+      />
+      <div className="grid gap-4 lg:grid-cols-[1fr_22rem]">
+        <div className="space-y-4">
+          <dl className="card grid grid-cols-[auto_1fr] gap-x-4 gap-y-2 text-sm">
+            <dt className="text-ink-soft">Status</dt><dd><ColonyStatusChip status={colony.status} />{colony.combinedInto ? <> into <Link href={`/admin/colonies/${colony.combinedInto.id}`}>{colony.combinedInto.code}</Link></> : null}</dd>
+            <dt className="text-ink-soft">Queen</dt><dd><QueenColour year={colony.queenYear} colour={colony.queenColour} /></dd>
+            <dt className="text-ink-soft">Origin</dt><dd>{colony.origin === 'split' ? 'split' : colony.origin}{colony.startedOn ? `, started ${colony.startedOn}` : ''}</dd>
+            <dt className="text-ink-soft">Line</dt>
+            <dd>
+              {colony.parent ? <>split from <Link href={`/admin/colonies/${colony.parent.id}`}>{colony.parent.code}</Link></> : 'no parent recorded'}
+              {colony.splits.length ? <> · splits: {colony.splits.map((s, i) => <span key={s.id}>{i ? ', ' : ''}<Link href={`/admin/colonies/${s.id}`}>{s.code}</Link></span>)}</> : null}
+            </dd>
+            {colony.notes ? <><dt className="text-ink-soft">Notes</dt><dd>{colony.notes}</dd></> : null}
+          </dl>
+
+          <section className="card overflow-x-auto p-0" aria-labelledby="supers-h">
+            <h2 id="supers-h" className="px-4 pt-4">Supers</h2>
+            <table className="data-table">
+              <thead><tr><th scope="col">Pulled</th><th scope="col">Box</th><th scope="col">Tag</th><th scope="col" className="num">Full weight</th><th scope="col">Conflict check</th></tr></thead>
+              <tbody>
+                {supers.map((s) => (
+                  <tr key={s.id}>
+                    <td>{s.pulledOn ?? <Chip tone="info">on hive</Chip>}{s.putOnOn ? <div className="hint">on {s.putOnOn}</div> : null}</td>
+                    <td>{s.depth}, {s.frameCount} fr.</td>
+                    <td>{s.tagCode ?? '—'}</td>
+                    <td className="num">{s.fullGrams ? fmt(s.fullGrams) : s.cappedFrames != null ? `~${s.cappedFrames} capped fr.` : '—'}</td>
+                    <td>{s.pulledOn ? <FlagCell flagged={s.flagged} reasons={s.flagReasons} /> : <span className="hint">checked when pulled</span>}</td>
+                  </tr>
+                ))}
+                {supers.length === 0 ? <tr><td colSpan={5}>No supers recorded yet.</td></tr> : null}
+              </tbody>
+            </table>
+          </section>
+
+          <section className="card" aria-labelledby="timeline-h">
+            <h2 id="timeline-h">Timeline</h2>
+            <ol className="mt-3 space-y-3">
+              {timeline.map((e) => (
+                <li key={e.key} className="border-l-4 border-line pl-3">
+                  <div className="flex flex-wrap items-center gap-2">
+                    <span className="num text-sm text-ink-soft">{e.on}</span>
+                    <strong>{e.title}</strong>
+                    {e.kind === 'super_pulled' ? (e.flagged ? <Chip tone="bad">flagged</Chip> : <Chip tone="ok">clear</Chip>) : null}
+                  </div>
+                  <div className="text-sm">{e.detail}{e.linkColonyId ? <> · <Link href={`/admin/colonies/${e.linkColonyId}`}>open</Link></> : null}</div>
+                  {e.flagged ? <ul className="list-disc pl-5 text-sm text-bad-fg">{e.flagReasons?.map((r) => <li key={r}>{r}</li>)}</ul> : null}
+                  <div className="hint">recorded by {e.by ?? 'unknown'}</div>
+                  {write && e.openFeedingId ? <EndRecordForm label="End feeding" today={today} onEnd={endFeeding.bind(null, e.openFeedingId)} /> : null}
+                  {write && e.openTreatmentId ? <><TreatmentCaution /><EndRecordForm label="Record removal" today={today} onEnd={endTreatment.bind(null, e.openTreatmentId)} /></> : null}
+                </li>
+              ))}
+              {timeline.length === 0 ? <li>Nothing recorded yet.</li> : null}
+            </ol>
+          </section>
+        </div>
+
+        {write ? (
+          <aside className="space-y-3">
+            <Section title="Super on"><SuperOnForm colonyId={colony.id} today={today} onSave={superOnAction} /></Section>
+            <Section title="Feeding"><FeedingForm colonyId={colony.id} today={today} onSave={addFeedingAction} /></Section>
+            <Section title="Mite treatment"><TreatmentForm colonyId={colony.id} today={today} kinds={kinds} onSave={addTreatmentAction} /></Section>
+            <Section title="Note"><NoteForm colonyId={colony.id} today={today} onSave={colonyNoteAction} /></Section>
+            <Section title="Split"><SplitForm colonyId={colony.id} today={today} onSave={splitColonyAction} /></Section>
+            <Section title="Move to another yard"><MoveForm colonyId={colony.id} today={today} yards={yards.filter((y) => y.id !== colony.yardId)} onSave={moveColonyAction} /></Section>
+            <Section title="Status"><StatusForm colonyId={colony.id} today={today} status={colony.status} onSave={colonyStatusAction} /></Section>
+          </aside>
+        ) : null}
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,11 @@
+'use server';
+import { revalidatePath } from 'next/cache';
+import { guardedAction } from '@/lib/http/action';
+import { treatmentKindInput } from '@/lib/schemas/harvest';
+import { saveTreatmentKind } from '@/lib/data/colony-records';
+
+export const saveTreatmentKindAction = guardedAction('treatmentKinds.manage', treatmentKindInput, async (user, data) => {
+  const id = await saveTreatmentKind(user.id, data);
+  revalidatePath('/admin/treatment-kinds');
+  return { ok: true, data: { id } };
+});

@@ -1,0 +1,30 @@
+import { authorize } from '@/lib/auth/session';
+import { handleRouteError, readJson } from '@/lib/http/json';
+import { assertSameOrigin } from '@/lib/http/origin';
+import { listSuperPulls, recordPulls } from '@/lib/data/super-pulls';
+import { pullBatch, pullListQuery, queryRecord } from '@/lib/schemas/harvest';
+
+export const dynamic = 'force-dynamic';
+
+/** Pulled supers: ?page&pageSize(≤100)&sort=pulledOn|colony|fullGrams&dir&yardId&colonyId&flagged=yes|no&from&to */
+export async function GET(req: Request) {
+  try {
+    const user = await authorize('supers.read');
+    const query = pullListQuery.parse(queryRecord(new URL(req.url).searchParams));
+    return Response.json(await listSuperPulls(user, query), { headers: { 'Cache-Control': 'no-store' } });
+  } catch (err) {
+    return handleRouteError(err);
+  }
+}
+
+/** Records pulls { entries: [...] }; each entry's idempotencyKey makes a retry safe. */
+export async function POST(req: Request) {
+  try {
+    await assertSameOrigin(req.headers);
+    const user = await authorize('supers.write');
+    const data = pullBatch.parse(await readJson(req));
+    return Response.json({ results: await recordPulls(user, data.entries) });
+  } catch (err) {
+    return handleRouteError(err);
+  }
+}

@@ -1,0 +1,142 @@
+import 'server-only';
+import { Op, UniqueConstraintError, type Transaction, type WhereOptions } from 'sequelize';
+import { getDb } from '@/lib/db';
+import type { SessionUser } from '@/lib/auth/session';
+import type { PullListQuery } from '@/lib/schemas/harvest';
+import type { SuperPull } from '@/models/super-pull';
+import type { SuperDepth } from '@/models/super-tag';
+import { toGrams } from '@/lib/domain/units';
+import { HttpError } from '@/lib/http/json';
+import { yardScope } from './harvest-scope';
+import { writableColony } from './colonies';
+import { flagsForPull } from './super-flags';
+import type { Paged } from './yards';
+
+type Viewer = Pick<SessionUser, 'id' | 'role'>;
+export type PullRow = {
+  id: number; colonyId: number; colonyCode: string; yardId: number; yardName: string; tagCode: string | null;
+  depth: SuperDepth; frameCount: number; putOnOn: string | null; pulledOn: string | null; fullGrams: number | null;
+  cappedFrames: number | null; flagged: boolean; flagReasons: string[]; inLot: boolean; pulledByName: string | null;
+};
+
+function toRow(p: SuperPull & { pulledByUser?: { name: string } | null }): PullRow {
+  return {
+    id: p.id, colonyId: p.colonyId, colonyCode: p.colony?.code ?? '', yardId: p.colony?.yardId ?? 0, yardName: p.colony?.yard?.name ?? '',
+    tagCode: p.tagCode ?? null, depth: p.depth, frameCount: p.frameCount, putOnOn: p.putOnOn ?? null, pulledOn: p.pulledOn ?? null,
+    fullGrams: p.fullGrams ?? null, cappedFrames: p.cappedFrames ?? null, flagged: p.flagged, flagReasons: p.flagReasons ?? [],
+    inLot: p.lotId != null, pulledByName: null,
+  };
+}
+
+const SORTS = { pulledOn: ['pulledOn'], colony: ['colony', 'code'], fullGrams: ['fullGrams'] } as const;
+
+/** Pulled supers (not those still on a hive), newest first by default, in the user's yards. */
+export async function listSuperPulls(user: Viewer, query: PullListQuery): Promise<Paged<PullRow>> {
+  const { models } = getDb();
+  const scope = await yardScope(user);
+  const and: WhereOptions[] = [{ pulledOn: { [Op.ne]: null } }];
+  const colonyWhere: WhereOptions[] = [];
+  if (!scope.all) colonyWhere.push({ yardId: scope.yardIds });
+  if (query.yardId) colonyWhere.push({ yardId: query.yardId });
+  if (query.colonyId) and.push({ colonyId: query.colonyId });
+  if (query.flagged) and.push({ flagged: query.flagged === 'yes' });
+  if (query.from) and.push({ pulledOn: { [Op.gte]: query.from } });
+  if (query.to) and.push({ pulledOn: { [Op.lte]: query.to } });
+  const sort = SORTS[query.sort];
+  const { rows, count } = await models.SuperPull.findAndCountAll({
+    where: { [Op.and]: and },
+    include: [{ association: 'colony', attributes: ['id', 'code', 'yardId'], where: { [Op.and]: colonyWhere }, required: true, include: [{ association: 'yard', attributes: ['id', 'name'] }] }],
+    order: [
+      sort.length === 2 ? [{ model: models.Colony, as: 'colony' }, 'code', query.dir] : [sort[0], query.dir === 'desc' ? 'DESC NULLS LAST' : 'ASC NULLS LAST'],
+      ['id', 'DESC'],
+    ],
+    limit: query.pageSize,
+    offset: (query.page - 1) * query.pageSize,
+  });
+  return { rows: rows.map(toRow), total: count, page: query.page, pageSize: query.pageSize };
+}
+
+/** All supers of one colony (on and pulled), for its page. The caller has checked the colony is in scope. */
+export async function listColonySupers(colonyId: number): Promise<PullRow[]> {
+  const rows = await getDb().models.SuperPull.findAll({
+    where: { colonyId },
+    include: [{ association: 'colony', attributes: ['id', 'code', 'yardId'], include: [{ association: 'yard', attributes: ['id', 'name'] }] }],
+    order: [['pulledOn', 'DESC NULLS FIRST'], ['putOnOn', 'DESC NULLS LAST'], ['id', 'DESC']],
+  });
+  return rows.map(toRow);
+}
+
+async function idempotent<T>(find: () => Promise<T | null>, run: () => Promise<T>): Promise<{ value: T; created: boolean }> {
+  const existing = await find();
+  if (existing) return { value: existing, created: false };
+  try {
+    return { value: await run(), created: true };
+  } catch (err) {
+    if (!(err instanceof UniqueConstraintError)) throw err;
+    // Two copies of the same entry raced: the unique index on idempotency_key let only one through.
+    const again = await find();
+    if (again) return { value: again, created: false };
+    throw new HttpError(409, 'That tag is already on a hive; pull it there first, or check the tag code.');
+  }
+}
+
+export async function putSuperOn(user: Viewer, input: { colonyId: number; depth: SuperDepth; frameCount: number; tagCode: string | null; putOnOn: string; idempotencyKey: string }): Promise<number> {
+  const { sequelize, models } = getDb();
+  const { value } = await idempotent(
+    () => models.SuperPull.findOne({ where: { idempotencyKey: input.idempotencyKey } }),
+    () => sequelize.transaction(async (t) => {
+      const colony = await writableColony(user, input.colonyId, t);
+      return models.SuperPull.create({ ...input, colonyId: colony.id, putOnBy: user.id }, { transaction: t });
+    }));
+  return value.id;
+}
+
+export type PullInput = {
+  colonyId: number; pulledOn: string; depth: SuperDepth; frameCount: number; weight: number | null; weightUnit: 'kg' | 'lb';
+  cappedFrames: number | null; tagCode: string | null; idempotencyKey: string;
+};
+export type PullResult = { id: number; colonyId: number; created: boolean; flagged: boolean; flagReasons: string[] };
+
+/**
+ * Records one super pulled. If the colony has a super still on (the same tag, or else the
+ * oldest one put on), that super is closed; otherwise a pulled super is recorded with no
+ * put-on date. The conflict flag is computed from the colony's feedings and treatments in
+ * the same transaction. A repeated idempotency key returns the first result, never a second row.
+ */
+export async function recordPull(user: Viewer, input: PullInput, outer?: Transaction): Promise<PullResult> {
+  const { sequelize, models } = getDb();
+  const fullGrams = input.weight === null ? null : toGrams(input.weight, input.weightUnit);
+  const find = () => models.SuperPull.findOne({ where: { idempotencyKey: input.idempotencyKey }, transaction: outer });
+  const work = async (t: Transaction) => {
+    const colony = await writableColony(user, input.colonyId, t);
+    const open = await models.SuperPull.findAll({
+      where: { colonyId: colony.id, pulledOn: null, ...(input.tagCode ? { tagCode: input.tagCode } : {}) },
+      order: [['putOnOn', 'ASC NULLS LAST'], ['id', 'ASC']], limit: 1, transaction: t, lock: t.LOCK.UPDATE,
+    });
+    const onHive = open[0] && (!open[0].putOnOn || open[0].putOnOn <= input.pulledOn) ? open[0] : null;
+    const flags = await flagsForPull(colony.id, { id: onHive?.id, pulledOn: input.pulledOn, putOnOn: onHive?.putOnOn ?? null }, t);
+    const fields = {
+      depth: input.depth, frameCount: input.frameCount, pulledOn: input.pulledOn, fullGrams, cappedFrames: input.cappedFrames,
+      tagCode: input.tagCode ?? onHive?.tagCode ?? null, pulledBy: user.id, idempotencyKey: input.idempotencyKey, ...flags,
+    };
+    if (onHive) return onHive.update(fields, { transaction: t });
+    return models.SuperPull.create({ ...fields, colonyId: colony.id }, { transaction: t });
+  };
+  const { value, created } = await idempotent(find, () => (outer ? work(outer) : sequelize.transaction(work)));
+  if (!created && value.colonyId !== input.colonyId) throw new HttpError(409, 'This entry key was already used for another colony.');
+  return { id: value.id, colonyId: value.colonyId, created, flagged: value.flagged, flagReasons: value.flagReasons };
+}
+
+/** Several colonies in one pass: each entry stands alone (one failing entry does not undo the others). */
+export async function recordPulls(user: Viewer, entries: PullInput[]): Promise<({ ok: true; key: string } & PullResult | { ok: false; key: string; colonyId: number; message: string })[]> {
+  const out = [];
+  for (const entry of entries) {
+    try {
+      out.push({ ok: true as const, key: entry.idempotencyKey, ...(await recordPull(user, entry)) });
+    } catch (err) {
+      if (!(err instanceof HttpError)) throw err;
+      out.push({ ok: false as const, key: entry.idempotencyKey, colonyId: entry.colonyId, message: err.message });
+    }
+  }
+  return out;
+}
