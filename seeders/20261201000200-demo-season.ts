@@ -341,6 +341,8 @@ export async function up({ context: q }: { context: QueryInterface }) {
 }
 
 export async function down({ context: q }: { context: QueryInterface }) {
+  // Removing demo data is the one time records are deleted: skip the append-only triggers (superuser only).
+  await q.sequelize.query(`SET session_replication_role = replica`);
   for (const t of ['order_allocations', 'order_lines', 'refunds', 'orders', 'stock_entries', 'stock_levels', 'jarring_runs', 'label_layouts', 'products',
     'lot_parents', 'moisture_readings', 'lab_files', 'lot_containers']) await q.sequelize.query(`DELETE FROM ${t}`);
   await q.sequelize.query(`UPDATE super_pulls SET lot_id = NULL`);
@@ -348,4 +350,5 @@ export async function down({ context: q }: { context: QueryInterface }) {
     await q.sequelize.query(`DELETE FROM ${t}`);
   }
   await q.sequelize.query(`DELETE FROM audit_entries WHERE entity_type = 'lot'`);
+  await q.sequelize.query(`SET session_replication_role = DEFAULT`);
 }
