@@ -7,6 +7,7 @@ import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { useResult } from './use-result';
+import { gramsToKg, gramsToLb } from '@/lib/domain/units';
 
 type Values = z.input<typeof containerInput>;
 export type ContainerTypeOption = { id: number; name: string; usualTareGrams: number };
@@ -21,7 +22,7 @@ export function ContainerForm({ lotId, types, unit, onSave }: { lotId: number; t
       const t = types.find((x) => String(x.id) === ev.target.value);
       if (!t) return;
       const u = form.getValues('unit');
-      const tare = u === 'kg' ? t.usualTareGrams / 1000 : t.usualTareGrams / 453.59237;
+      const tare = u === 'kg' ? gramsToKg(t.usualTareGrams) : gramsToLb(t.usualTareGrams);
       form.setValue('tare', Number(tare.toFixed(u === 'kg' ? 3 : 2)));
     },
   });

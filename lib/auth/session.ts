@@ -40,10 +40,3 @@ export async function requirePermission(permission: Permission, from = '/admin')
   if (!can(user.role, permission)) redirect('/forbidden');
   return user;
 }
-
-export async function requireRole(...roles: Role[]): Promise<SessionUser> {
-  const user = await currentUser();
-  if (!user) redirect('/sign-in');
-  if (!roles.includes(user.role)) redirect('/forbidden');
-  return user;
-}

@@ -8,6 +8,7 @@ import { toGrams } from '@/lib/domain/units';
 import type { ProductData } from '@/lib/schemas/jarring';
 import { recordAudit } from './audit';
 import { getSettings } from './settings';
+import { sniffImageType } from '@/lib/domain/file-type';
 
 export type ProductRow = {
   id: number; slug: string; name: string; description: string; netGrams: number; declaredUnit: 'g' | 'oz'; declaredAmount: number;
@@ -100,16 +101,6 @@ export async function saveProduct(actorUserId: number, data: ProductData): Promi
 }
 
 export const MAX_PHOTO_BYTES = 5 * 1024 * 1024;
-
-/** The image type from the first bytes, never from the file name or the browser's claim. */
-export function sniffImageType(bytes: Uint8Array): 'image/jpeg' | 'image/png' | 'image/webp' | null {
-  const b = bytes;
-  if (b.length >= 3 && b[0] === 0xff && b[1] === 0xd8 && b[2] === 0xff) return 'image/jpeg';
-  if (b.length >= 8 && [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a].every((v, i) => b[i] === v)) return 'image/png';
-  const ascii = (from: number, to: number) => String.fromCharCode(...b.subarray(from, to));
-  if (b.length >= 12 && ascii(0, 4) === 'RIFF' && ascii(8, 12) === 'WEBP') return 'image/webp';
-  return null;
-}
 
 /** Stores an uploaded photo (JPEG/PNG/WebP by content, ≤ 5 MB) and attaches it to the product. */
 export async function setProductPhoto(actorUserId: number, productId: number, file: { name: string; bytes: Uint8Array }): Promise<{ photoId: number }> {

@@ -1,5 +1,5 @@
 /**
- * The type of an uploaded lab report, read from the file's first bytes ("magic numbers"),
+ * The type of an uploaded file (lab reports, product photos), read from the file's first bytes ("magic numbers"),
  * never from its name or the browser's claim: a file named report.pdf that is HTML is refused.
  * Signatures: PDF "%PDF-" (ISO 32000-1 §7.5.2); PNG 89 50 4E 47 0D 0A 1A 0A (PNG spec §5.2);
  * JPEG FF D8 FF (JFIF/Exif SOI marker); WebP "RIFF" size "WEBP" (RIFF container, WebP spec).
@@ -23,6 +23,14 @@ export function sniffLabFileType(bytes: Uint8Array): LabFileType | null {
   if (startsWith(bytes, [0xff, 0xd8, 0xff])) return 'image/jpeg';
   if (startsWith(bytes, ascii('RIFF')) && startsWith(bytes, ascii('WEBP'), 8)) return 'image/webp';
   return null;
+}
+
+export type ImageFileType = Exclude<LabFileType, 'application/pdf'>;
+
+/** The same signatures, images only: product photos are JPEG, PNG or WebP. */
+export function sniffImageType(bytes: Uint8Array): ImageFileType | null {
+  const type = sniffLabFileType(bytes);
+  return type === 'application/pdf' ? null : type;
 }
 
 /** A plain sentence saying why a file is refused, or null when it is accepted. */

@@ -86,13 +86,16 @@ export function formatWeight(grams: number, system: UnitSystem): string {
   return oz === 0 ? `${sign}${lb} lb` : `${sign}${lb} lb ${oz} oz`;
 }
 
+/** Digits of a currency's minor unit, from Intl's currency data (2 for USD/EUR, 0 for JPY). */
+export function currencyMinorDigits(currency: string): number {
+  return new Intl.NumberFormat('en', { style: 'currency', currency: currency.toUpperCase() }).resolvedOptions().maximumFractionDigits ?? 2;
+}
+
 /**
  * Money from integer minor units, formatted by Intl. The number of minor-unit
  * digits is taken from Intl for the currency (2 for USD/EUR, 0 for JPY).
  */
 export function formatMoney(cents: number, currency: string, locale = 'en-US'): string {
   if (!Number.isInteger(cents)) throw new RangeError('Money must be an integer number of minor units');
-  const format = new Intl.NumberFormat(locale, { style: 'currency', currency });
-  const digits = format.resolvedOptions().maximumFractionDigits ?? 2;
-  return format.format(cents / 10 ** digits);
+  return new Intl.NumberFormat(locale, { style: 'currency', currency }).format(cents / 10 ** currencyMinorDigits(currency));
 }

@@ -1,4 +1,4 @@
-import { formatMoney, formatWeight, type UnitSystem } from '@/lib/domain/units';
+import { currencyMinorDigits, formatMoney, formatWeight, type UnitSystem } from '@/lib/domain/units';
 import type { SeasonReport } from '@/lib/data/yield-report';
 
 /**
@@ -16,8 +16,7 @@ export type TableKey = (typeof TABLE_KEYS)[number];
 export type Units = { weightSystem: UnitSystem; currency: string };
 
 function money(cents: number, currency: string): { text: string; value: number } {
-  const digits = new Intl.NumberFormat('en-US', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
-  return { text: formatMoney(cents, currency), value: cents / 10 ** digits };
+  return { text: formatMoney(cents, currency), value: cents / 10 ** currencyMinorDigits(currency) };
 }
 
 export function seasonTables(report: SeasonReport, u: Units): Record<TableKey, ReportTable> {

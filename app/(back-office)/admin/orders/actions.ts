@@ -6,6 +6,7 @@ import { advanceOrder, cancelUnpaidOrder, refundOrder } from '@/lib/data/orders-
 import { getOrderDetail } from '@/lib/data/orders-read';
 import { kickMail } from '@/lib/mail/outbox';
 import { fail } from '@/lib/schemas/result';
+import { currencyMinorDigits } from '@/lib/domain/units';
 
 function done(orderId: number) {
   kickMail();
@@ -38,8 +39,7 @@ export const refundOrderAction = guardedAction('orders.refund', refundInput, asy
   const order = await getOrderDetail(data.orderId);
   if (!order) return fail('No such order.');
   // Money typed in the major unit becomes integer minor units once (STYLE.md: Math.round).
-  const digits = new Intl.NumberFormat('en', { style: 'currency', currency: order.currency.toUpperCase() }).resolvedOptions().maximumFractionDigits ?? 2;
-  const amountCents = Math.round(data.amount * 10 ** digits);
+  const amountCents = Math.round(data.amount * 10 ** currencyMinorDigits(order.currency));
   await refundOrder(user.id, { orderId: data.orderId, amountCents, jars: data.jars, restock: data.restock, reason: data.reason });
   return done(data.orderId);
 });

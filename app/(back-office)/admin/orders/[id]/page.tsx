@@ -5,7 +5,7 @@ import { can } from '@/lib/auth/roles';
 import { getOrderDetail } from '@/lib/data/orders-read';
 import { getSettings } from '@/lib/data/settings';
 import { listAudit } from '@/lib/data/audit';
-import { formatMoney } from '@/lib/domain/units';
+import { currencyMinorDigits, formatMoney } from '@/lib/domain/units';
 import { formatDateTime } from '@/lib/domain/order-dates';
 import { PageHeader } from '@/components/ui/page-header';
 import { Caution } from '@/components/ui/caution';
@@ -25,7 +25,7 @@ export default async function OrderDeskPage({ params }: { params: Promise<{ id: 
   if (!order) notFound();
   const [settings, history] = await Promise.all([getSettings(), listAudit('order', order.id, 50)]);
   const when = (d: Date | null) => (d ? formatDateTime(d, settings.timeZone) : '—');
-  const digits = new Intl.NumberFormat('en', { style: 'currency', currency: order.currency.toUpperCase() }).resolvedOptions().maximumFractionDigits ?? 2;
+  const digits = currencyMinorDigits(order.currency);
   const a = order.shippingAddress;
   return (
     <>
