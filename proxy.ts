@@ -1,11 +1,38 @@
 import { NextResponse, type NextRequest } from 'next/server';
 import { getToken } from 'next-auth/jwt';
+import { contentSecurityPolicy, newNonce } from '@/lib/http/csp';
+import { PublicPageCache, RENDER_HEADER, isPublicPageView, respondWithNonce, storablePage } from '@/lib/http/public-page-cache';
+
+const publicPages = new PublicPageCache(Number(process.env.PUBLIC_PAGE_CACHE_SECONDS ?? 5) * 1000);
+
+/**
+ * Where the proxy asks for a render of a public page. Never the request's Host header (a forged Host
+ * would fill the cache from another server): APP_INTERNAL_URL, or the loopback port `next start` set.
+ */
+function internalOrigin(): string | null {
+  if (process.env.APP_INTERNAL_URL) return process.env.APP_INTERNAL_URL.replace(/\/$/, '');
+  return process.env.PORT ? `http://127.0.0.1:${process.env.PORT}` : null;
+}
+
+async function renderPublicPage(pathname: string) {
+  const origin = internalOrigin();
+  if (!origin) return null;
+  const res = await fetch(`${origin}${pathname}`, {
+    headers: { [RENDER_HEADER]: '1', accept: 'text/html', 'accept-encoding': 'identity' },
+    cache: 'no-store',
+    redirect: 'manual',
+    signal: AbortSignal.timeout(10_000),
+  });
+  return storablePage(res);
+}
 
 /**
  * Runs before every page (not /api, not static files):
- * 1. A Content-Security-Policy with a fresh nonce per request (ASVS 3.4.3); Next puts the nonce on
+ * 1. A Content-Security-Policy with a fresh nonce per response (ASVS 3.4.3); Next puts the nonce on
  *    its own scripts when it sees the header on the request.
- * 2. Signed-out visitors to /admin go to sign-in. This is only a convenience: every page, action and
+ * 2. Signed-out views of the public shop pages come from a few seconds' cache, each answer with its
+ *    own fresh nonce (lib/http/public-page-cache.ts).
+ * 3. Signed-out visitors to /admin go to sign-in. This is only a convenience: every page, action and
  *    route handler checks the user itself (lib/auth/session.ts).
  */
 export async function proxy(req: NextRequest) {
@@ -19,22 +46,14 @@ export async function proxy(req: NextRequest) {
     }
   }
 
-  const nonce = Buffer.from(crypto.randomUUID()).toString('base64');
-  const csp = [
-    "default-src 'self'",
-    `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'`,
-    // Inline style attributes (charts, React style props) are allowed; scripts are not.
-    "style-src 'self' 'unsafe-inline'",
-    "img-src 'self' data: blob:",
-    "font-src 'self'",
-    "connect-src 'self'",
-    "frame-src 'self'",
-    "frame-ancestors 'none'",
-    "object-src 'none'",
-    "base-uri 'self'",
-  ].join('; ');
+  const nonce = newNonce();
+  if (publicPages.enabled && isPublicPageView(req.method, pathname, search, req.headers)) {
+    const page = await publicPages.get(pathname, () => renderPublicPage(pathname));
+    if (page) return respondWithNonce(page, nonce);
+  }
+
+  const csp = contentSecurityPolicy(nonce);
   const headers = new Headers(req.headers);
-  headers.set('x-nonce', nonce);
   headers.set('Content-Security-Policy', csp);
   const res = NextResponse.next({ request: { headers } });
   res.headers.set('Content-Security-Policy', csp);

@@ -134,4 +134,35 @@ describe('security headers (ASVS 3.4)', () => {
     await page.locator('form [role=alert]').first().waitFor();
     expect(violations).toEqual([]);
   });
+
+  it('signed-out shop pages come from the short cache, each answer with its own fresh nonce', async () => {
+    const nonces = new Set<string>();
+    const bodies = new Set<string>();
+    for (let i = 0; i < 3; i++) {
+      const res = await fetch(`${BASE()}/products`);
+      const nonce = res.headers.get('content-security-policy')?.match(/'nonce-([^']+)'/)?.[1] ?? '';
+      const html = await res.text();
+      expect(nonce).not.toBe('');
+      // Every nonce in the page and in the preload header is this answer's own.
+      expect(new Set([...html.matchAll(/nonce="([^"]+)"/g)].map((m) => m[1]))).toEqual(new Set([nonce]));
+      for (const m of (res.headers.get('link') ?? '').matchAll(/nonce="([^"]+)"/g)) expect(m[1]).toBe(nonce);
+      expect(res.headers.get('x-frame-options')).toBe('DENY');
+      nonces.add(nonce);
+      bodies.add(html.split(nonce).join('N'));
+    }
+    expect(nonces.size).toBe(3);
+    expect(bodies.size).toBe(1);
+
+    // A page answered from the cache still runs its scripts under its CSP: the catalogue links work
+    // as client-side navigation and nothing is blocked.
+    const page = await freshPage();
+    const violations: string[] = [];
+    page.on('console', (m) => { if (/Content Security Policy/i.test(m.text())) violations.push(m.text()); });
+    await page.goto(`${BASE()}/products`);
+    await page.goto(`${BASE()}/products`);
+    await page.locator('main h2 a').first().click();
+    await page.getByRole('button', { name: 'Add to cart' }).click();
+    await page.getByRole('status').filter({ hasText: 'Added' }).waitFor();
+    expect(violations).toEqual([]);
+  });
 });
