@@ -10,7 +10,8 @@ export const SHOP_WEBHOOK_SECRET = 'whsec_shop_tests';
 
 export type ShopFake = { fake: StripeFake; close(): Promise<void>; webhookStatuses: number[] };
 
-export async function startShopFake(): Promise<ShopFake> {
+/** `retryBaseMs` spaces the fake's webhook retries (default 50 ms); a large value lets a test look between a failed delivery and the redelivery. */
+export async function startShopFake(options: { retryBaseMs?: number } = {}): Promise<ShopFake> {
   const webhookStatuses: number[] = [];
   const receiver = createServer(async (req, res) => {
     const chunks: Buffer[] = [];
@@ -26,7 +27,7 @@ export async function startShopFake(): Promise<ShopFake> {
   });
   await new Promise<void>((r) => receiver.listen(0, '127.0.0.1', r));
   const { port } = receiver.address() as AddressInfo;
-  const fake = await startStripeFake({ port: 0, webhookUrl: `http://127.0.0.1:${port}/api/stripe/webhook`, webhookSecret: SHOP_WEBHOOK_SECRET, retryBaseMs: 50 });
+  const fake = await startStripeFake({ port: 0, webhookUrl: `http://127.0.0.1:${port}/api/stripe/webhook`, webhookSecret: SHOP_WEBHOOK_SECRET, retryBaseMs: options.retryBaseMs ?? 50 });
   Object.assign(process.env, {
     STRIPE_SECRET_KEY: 'sk_test_shop',
     STRIPE_API_HOST: '127.0.0.1',
