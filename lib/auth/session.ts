@@ -25,11 +25,19 @@ export class AuthError extends Error {
   }
 }
 
+/** ASVS 16.3.2: a refused request is logged by who and what, never with the request's data. */
+function logRefusal(user: SessionUser, permission: Permission): void {
+  console.warn(`[auth] refused ${permission} user=${user.id} role=${user.role}`);
+}
+
 /** For server actions and route handlers: the user if allowed, else an AuthError (401/403). */
 export async function authorize(permission: Permission): Promise<SessionUser> {
   const user = await currentUser();
   if (!user) throw new AuthError(401, 'Please sign in first.');
-  if (!can(user.role, permission)) throw new AuthError(403, 'Your account is not allowed to do that.');
+  if (!can(user.role, permission)) {
+    logRefusal(user, permission);
+    throw new AuthError(403, 'Your account is not allowed to do that.');
+  }
   return user;
 }
 
@@ -37,6 +45,9 @@ export async function authorize(permission: Permission): Promise<SessionUser> {
 export async function requirePermission(permission: Permission, from = '/admin'): Promise<SessionUser> {
   const user = await currentUser();
   if (!user) redirect(`/sign-in?next=${encodeURIComponent(from)}`);
-  if (!can(user.role, permission)) redirect('/forbidden');
+  if (!can(user.role, permission)) {
+    logRefusal(user, permission);
+    redirect('/forbidden');
+  }
   return user;
 }

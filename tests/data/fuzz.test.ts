@@ -1,7 +1,8 @@
 import { afterAll, describe, expect, it } from 'vitest';
-import { closeDb, getDb } from '@/lib/db';
+import { closeDb } from '@/lib/db';
 import { signInAs, setRequestHeaders } from '../support/session';
 import { callRoute, type ActionFn, type RouteFn } from '../support/matrix-calls';
+import { dbFingerprint } from '../support/db-fingerprint';
 
 afterAll(closeDb);
 
@@ -28,18 +29,6 @@ const PAYLOADS: [string, unknown][] = [
 ];
 const QUERIES = ['?page=-1&pageSize=1e309&sort=__proto__&dir=sideways', "?page=1&sort=id;DROP TABLE lots&q=%27%20OR%201%3D1--", `?q=${'y'.repeat(20_000)}`];
 
-async function fingerprint(): Promise<string> {
-  const { sequelize } = getDb();
-  const [tables] = await sequelize.query(`SELECT c.relname AS t, EXISTS (SELECT 1 FROM information_schema.columns i WHERE i.table_name = c.relname AND i.column_name = 'updated_at') AS u
-    FROM pg_class c JOIN pg_namespace n ON n.oid = c.relnamespace WHERE c.relkind = 'r' AND n.nspname = 'public' AND c.relname NOT IN ('sign_in_attempts', 'schema_migrations', 'schema_seeds') ORDER BY 1`);
-  const parts: string[] = [];
-  for (const { t, u } of tables as { t: string; u: boolean }[]) {
-    const [[row]] = (await sequelize.query(`SELECT count(*) AS n${u ? ', max(updated_at) AS m' : ''} FROM "${t}"`)) as [Record<string, unknown>[], unknown];
-    parts.push(`${t}:${row.n}:${row.m ?? ''}`);
-  }
-  return parts.join('|');
-}
-
 async function allExports(modules: Record<string, () => Promise<Record<string, unknown>>>, filter: (n: string) => boolean) {
   const out: { file: string; name: string; fn: unknown }[] = [];
   for (const [file, load] of Object.entries(modules)) for (const [name, fn] of Object.entries(await load())) if (typeof fn === 'function' && filter(name)) out.push({ file: file.slice(1), name, fn });
@@ -50,7 +39,7 @@ describe('fuzzing every action and route handler', () => {
   it('server actions answer hostile input with a readable refusal and change nothing', async () => {
     await signInAs('owner@hollowmere.test');
     setRequestHeaders({});
-    const before = await fingerprint();
+    const before = await dbFingerprint();
     const problems: string[] = [];
     for (const a of await allExports(actionModules, (n) => n.endsWith('Action'))) {
       for (const [label, payload] of PAYLOADS) {
@@ -64,14 +53,14 @@ describe('fuzzing every action and route handler', () => {
       }
     }
     expect(problems).toEqual([]);
-    expect(await fingerprint()).toBe(before);
+    expect(await dbFingerprint()).toBe(before);
     expect(({} as Record<string, unknown>).polluted).toBeUndefined();
   });
 
   it('route handlers answer hostile bodies and queries with 4xx, never 5xx, and change nothing', async () => {
     await signInAs('owner@hollowmere.test');
     setRequestHeaders({});
-    const before = await fingerprint();
+    const before = await dbFingerprint();
     const problems: string[] = [];
     for (const r of await allExports(routeModules, (n) => ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'].includes(n))) {
       if (r.file.includes('[...nextauth]')) continue; // next-auth's own handler, fronted by our throttle
@@ -82,6 +71,6 @@ describe('fuzzing every action and route handler', () => {
       }
     }
     expect(problems).toEqual([]);
-    expect(await fingerprint()).toBe(before);
+    expect(await dbFingerprint()).toBe(before);
   });
 });
