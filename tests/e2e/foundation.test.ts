@@ -1,10 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
+import { QueryTypes } from 'sequelize';
+import { closeDb, getDb } from '@/lib/db';
 import { BASE, DEMO_LOGINS, openBrowser, signIn, waitForMail } from './support';
 
 let browser: BrowserContext;
 beforeAll(async () => { browser = await openBrowser(); });
-afterAll(async () => { await browser?.close(); });
+afterAll(async () => { await browser?.close(); await closeDb(); });
 
 async function freshPage() {
   for (const p of browser.pages()) await p.close();
@@ -103,7 +105,42 @@ describe('accounts', () => {
   });
 });
 
+describe('output (ASVS 1.2.1)', () => {
+  it('markup typed into a product description shows as text on the shop page and runs nothing', async () => {
+    const { sequelize } = getDb();
+    const [product] = await sequelize.query<{ id: number; slug: string; description: string }>(`SELECT id, slug, description FROM products WHERE active ORDER BY id LIMIT 1`, { type: QueryTypes.SELECT });
+    const markup = '<img src=x onerror="document.title=\'pwned\'"><script>document.title=\'pwned\'</script>Clover & <b>lime</b>';
+    await sequelize.query(`UPDATE products SET description = :markup WHERE id = :id`, { replacements: { markup, id: product.id } });
+    try {
+      const page = await freshPage();
+      await signIn(page, DEMO_LOGINS.customer.email, DEMO_LOGINS.customer.password); // signed in: rendered now, not from the public cache
+      await page.goto(`${BASE()}/products/${product.slug}`);
+      await page.getByText('Clover & <b>lime</b>', { exact: false }).waitFor();
+      expect(await page.locator('main img[src="x"], main b').count()).toBe(0);
+      expect(await page.title()).not.toBe('pwned');
+    } finally {
+      await sequelize.query(`UPDATE products SET description = :d WHERE id = :id`, { replacements: { d: product.description, id: product.id } });
+    }
+  });
+});
+
 describe('security headers (ASVS 3.4)', () => {
+  it('the session cookie is HttpOnly and SameSite, and each sign-in gets a new token (ASVS 3.3.x, 7.2.4)', async () => {
+    const tokens: string[] = [];
+    for (let i = 0; i < 2; i++) {
+      const page = await freshPage();
+      await signIn(page, DEMO_LOGINS.crew.email, DEMO_LOGINS.crew.password);
+      const cookie = (await browser.cookies()).find((c) => /next-auth\.session-token$/.test(c.name));
+      expect(cookie?.httpOnly).toBe(true);
+      expect(cookie?.sameSite).toBe('Lax');
+      // Over plain http (this test server) the cookie cannot be Secure; next-auth sets Secure and the
+      // __Secure- prefix itself when NEXTAUTH_URL is https (README "Production notes").
+      tokens.push(cookie?.value ?? '');
+    }
+    expect(tokens[0]).not.toBe('');
+    expect(tokens[1]).not.toBe(tokens[0]);
+  });
+
   it('pages carry a nonce-based CSP, frame-ancestors none, nosniff and a referrer policy', async () => {
     for (const path of ['/', '/sign-in', '/admin']) {
       const res = await fetch(`${BASE()}${path}`, { redirect: 'manual' });
