@@ -1,6 +1,6 @@
 import { DataTypes, Sequelize } from 'sequelize';
 import pg from 'pg';
-import { databaseUrl } from './config';
+import { appDatabaseUrl } from './config';
 import { initModels, type Models } from '@/models';
 
 // Return BIGINT counts/sums as numbers: our sums are grams and cents, far below 2^53.
@@ -14,10 +14,15 @@ pg.types.setTypeParser(1082, (v) => v);
 
 export type Db = { sequelize: Sequelize; models: Models };
 
-function createDb(): Db {
-  const sequelize = new Sequelize(databaseUrl(), {
+/**
+ * A Sequelize instance with the models on the given connection. The app uses getDb(); migrate.ts
+ * makes its own on the owner's connection, closes it itself, and names itself in pg_stat_activity.
+ */
+export function createDb(url: string, applicationName = 'combtrace'): Db {
+  const sequelize = new Sequelize(url, {
     dialect: 'postgres',
     dialectModule: pg,
+    dialectOptions: { application_name: applicationName },
     logging: process.env.DB_LOG === '1' ? console.log : false,
     pool: { max: Number(process.env.DB_POOL_MAX ?? 10), min: 0, idle: 10_000 },
     define: { underscored: true },
@@ -28,12 +33,13 @@ function createDb(): Db {
 const holder = globalThis as unknown as { __combtraceDb?: Db };
 
 /**
- * The one Sequelize instance with its models. Instance and models are cached together on
- * globalThis: Next bundles route handlers and server components separately, and a model class
- * initialised in one bundle is not initialised in the other (STACK.md §5).
+ * The one Sequelize instance with its models, connected as the app's own role (appDatabaseUrl).
+ * Instance and models are cached together on globalThis: Next bundles route handlers and server
+ * components separately, and a model class initialised in one bundle is not initialised in the
+ * other (STACK.md §5).
  */
 export function getDb(): Db {
-  holder.__combtraceDb ??= createDb();
+  holder.__combtraceDb ??= createDb(appDatabaseUrl());
   return holder.__combtraceDb;
 }
 

@@ -1,12 +1,14 @@
 /**
  * Migrations and seeders with umzug, run by tsx:
  *   tsx lib/db/migrate.ts up | down [--to 0] | seed | reseed | status
+ * They run as the database owner (databaseUrl), never as the app's own role.
  */
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { Umzug, SequelizeStorage } from 'umzug';
 import type { QueryInterface, Sequelize } from 'sequelize';
-import { getDb, closeDb } from './index';
+import { createDb } from './index';
+import { APP_ROLE, databaseUrl } from './config';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 
@@ -28,9 +30,21 @@ export function seeder(sequelize: Sequelize) {
   });
 }
 
+/**
+ * schema_seeds appears with the first seed, after the app-role migration, so it got the app role's
+ * default row grants; umzug's bookkeeping is not the app's business (DEVELOPERS.md, "Database roles").
+ */
+async function keepSeedBookkeepingFromApp(sequelize: Sequelize): Promise<void> {
+  await sequelize.query(`DO $$ BEGIN
+    IF EXISTS (SELECT 1 FROM pg_roles WHERE rolname = '${APP_ROLE}') AND to_regclass('public.schema_seeds') IS NOT NULL THEN
+      REVOKE ALL ON public.schema_seeds FROM ${APP_ROLE};
+    END IF;
+  END $$`);
+}
+
 async function main() {
   const [cmd = 'up', ...rest] = process.argv.slice(2);
-  const { sequelize } = getDb();
+  const { sequelize } = createDb(databaseUrl(), 'combtrace-migrate');
   try {
     if (cmd === 'up') {
       const done = await migrator(sequelize).up();
@@ -41,6 +55,7 @@ async function main() {
       console.log(`Migrations reverted: ${done.length}`);
     } else if (cmd === 'seed') {
       const done = await seeder(sequelize).up();
+      await keepSeedBookkeepingFromApp(sequelize);
       console.log(done.length ? `Demo data loaded (${done.length} seeders).` : 'Demo data already loaded.');
     } else if (cmd === 'status') {
       const pending = await migrator(sequelize).pending();
@@ -49,7 +64,7 @@ async function main() {
       throw new Error(`Unknown command ${cmd}`);
     }
   } finally {
-    await closeDb();
+    await sequelize.close();
   }
 }
 

@@ -50,6 +50,10 @@ echo "Building the app (about a minute)…"
 NEXT_TELEMETRY_DISABLED=1 node node_modules/next/dist/bin/next build > "$RUN/build.log" 2>&1 || { tail -40 "$RUN/build.log"; exit 1; }
 
 export STRIPE_WEBHOOK_URL=http://127.0.0.1:$APP_PORT/api/stripe/webhook
+# Migrations and the seed above ran as the owner (postgres). The app connects as its own role,
+# combtrace_app, which may read and write rows but not change the schema or the append-only
+# records (lib/db/config.ts: APP_DATABASE_URL, else DATABASE_URL as given, else the local cluster).
+APP_DB_ROLE=$(node node_modules/tsx/dist/cli.mjs -e "import('./lib/db/config.ts').then(({appDatabaseUrl})=>console.log(decodeURIComponent(new URL(appDatabaseUrl()).username)))")
 setsid node node_modules/tsx/dist/cli.mjs fakes/run.ts > "$RUN/fakes.log" 2>&1 < /dev/null & echo $! > "$RUN/fakes.pid"
 NODE_ENV=production setsid node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$APP_PORT" > "$RUN/app.log" 2>&1 < /dev/null & echo $! > "$RUN/app.pid"
 
@@ -64,6 +68,7 @@ Combtrace is running ($(( $(date +%s) - started )) s).
   Shop and back office  http://127.0.0.1:$APP_PORT        (back office at /admin)
   Fake Stripe           http://127.0.0.1:$FAKE_STRIPE_PORT   (sessions and webhook deliveries)
   Fake mail inbox       http://127.0.0.1:$FAKE_MAIL_WEB_PORT    (every e-mail the app sends)
+  Database role         $APP_DB_ROLE (migrations and demo data: the owner)
 
 Demo sign-ins (invented business: Hollowmere Apiaries):
 TXT

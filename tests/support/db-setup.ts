@@ -13,6 +13,8 @@ export default async function setup() {
   migrate(url, 'up');
   migrate(url, 'seed');
   process.env.DATABASE_URL = url;
+  // The app under test connects with DATABASE_URL (the owner); tests/data/app-role.test.ts switches to combtrace_app.
+  delete process.env.APP_DATABASE_URL;
   process.env.SCRYPT_LOG_N ??= '12';
   process.env.MAIL_TIMER = 'off';
   return () => {

@@ -3,6 +3,7 @@ import { existsSync, mkdirSync, openSync } from 'node:fs';
 import path from 'node:path';
 import { migrate, recreateDatabase, startTestCluster } from './pg';
 import { E2E_MAIL_WEB_PORT, E2E_PORT, E2E_SMTP_PORT, E2E_STRIPE_PORT, ROOT } from './test-env';
+import { APP_ROLE } from '../../lib/db/config';
 
 const children: ChildProcess[] = [];
 
@@ -30,7 +31,9 @@ async function waitFor(url: string, what: string, timeoutMs = 60_000): Promise<v
 
 /**
  * Browser tests run against a production build with everything real: PostgreSQL (a fresh
- * database with the demo seed), the Stripe and mail fakes, and `next start`.
+ * database with the demo seed), the Stripe and mail fakes, and `next start`. Migrations and the
+ * seed run as the owner; the server connects as the app's own role, as in production, and is
+ * never given the owner's URL.
  */
 export default async function setup() {
   startTestCluster();
@@ -43,10 +46,12 @@ export default async function setup() {
   }
 
   const baseUrl = `http://127.0.0.1:${E2E_PORT}`;
+  const appDbUrl = new URL(dbUrl);
+  appDbUrl.username = APP_ROLE;
   const env: NodeJS.ProcessEnv = {
     ...process.env,
     NODE_ENV: 'production',
-    DATABASE_URL: dbUrl,
+    APP_DATABASE_URL: appDbUrl.toString(),
     NEXTAUTH_URL: baseUrl,
     APP_URL: baseUrl,
     NEXTAUTH_SECRET: 'e2e-secret-not-for-production-000000000000',
@@ -64,6 +69,7 @@ export default async function setup() {
     SCRYPT_LOG_N: '12',
   };
   delete env.NEXT_RUNTIME;
+  delete env.DATABASE_URL;
   startDetached('fakes', 'node', ['node_modules/tsx/dist/cli.mjs', 'fakes/run.ts'], env);
   startDetached('app', 'node', ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(E2E_PORT)], env);
   await waitFor(`http://127.0.0.1:${E2E_MAIL_WEB_PORT}/api/messages`, 'The mail fake');
