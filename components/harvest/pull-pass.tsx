@@ -1,32 +1,70 @@
 'use client';
-import { useEffect, useState } from 'react';
-import { Check, RotateCw, TriangleAlert } from 'lucide-react';
+import { useCallback, useEffect, useRef, useState } from 'react';
+import { Check, CloudOff, RotateCw, TriangleAlert } from 'lucide-react';
 import { SUPER_DEPTHS, type PullEntry } from '@/lib/schemas/harvest';
 import { newEntryKey } from './entry-key';
+import {
+  changeWaiting, markRefused, notShown, pullOutcome, readWaiting, toSend, waitingKey, withoutWaiting, withWaiting,
+  type PullOutcome, type PullReply, type StoredEntry, type WaitingPull,
+} from './pull-queue';
 
 type Depth = (typeof SUPER_DEPTHS)[number];
-type Result = { ok: true; key: string; id: number; flagged: boolean; flagReasons: string[] } | { ok: false; key: string; message: string };
-type Save = (input: { entries: PullEntry[] }) => Promise<{ ok: true; data?: unknown } | { ok: false; message?: string }>;
-type Sent = { key: string; state: 'sending' | 'saved' | 'failed'; flagged?: boolean; reasons?: string[]; message?: string; entry: PullEntry };
+type Save = (input: { entries: PullEntry[] }) => Promise<PullReply>;
+/**
+ * One tap as the page shows it. `waited`: it has been kept on this phone for a later send
+ * (it failed, was tapped with no signal, or was restored after a reload).
+ */
+type Shown = {
+  key: string; entry: StoredEntry; colonyCode: string; yardName: string; state: 'sending' | 'waiting' | 'saved' | 'refused';
+  waited: boolean; flagged?: boolean; reasons?: string[]; message?: string;
+};
 type Colony = { id: number; code: string; lastPulledOn: string | null };
 
 const DEPTH_KEY = 'combtrace.pull.depth';
 const FRAMES_KEY = 'combtrace.pull.frames';
+const KEPT = 'waiting to send — saved on this phone';
+const supers = (n: number) => `${n} ${n === 1 ? 'super' : 'supers'}`;
 
-/** Sends one entry; a network failure is retried with the SAME key, so the server records it once. */
-async function sendWithRetry(onSave: Save, entry: PullEntry, tries = 3): Promise<Result> {
-  let last = 'Could not reach the server.';
+/**
+ * Sends one entry; a network failure is retried with the SAME key, so the server records it once.
+ * With no signal it does not try at all: the entry stays on the phone and the `online` event sends it.
+ */
+async function sendWithRetry(onSave: Save, entry: PullEntry, tries = 3): Promise<PullOutcome> {
   for (let i = 0; i < tries; i++) {
+    if (!navigator.onLine) break;
     try {
-      const r = await onSave({ entries: [entry] });
-      if (!r.ok) return { ok: false, key: entry.idempotencyKey, message: r.message ?? 'Not saved.' };
-      return (r.data as { results: Result[] }).results[0];
+      return pullOutcome(entry.idempotencyKey, await onSave({ entries: [entry] }));
     } catch {
-      last = 'No connection: not saved yet.';
-      await new Promise((res) => setTimeout(res, 800 * (i + 1)));
+      if (i < tries - 1) await new Promise((res) => setTimeout(res, 800 * (i + 1)));
     }
   }
-  return { ok: false, key: entry.idempotencyKey, message: last };
+  return pullOutcome(entry.idempotencyKey, undefined);
+}
+
+const fromStored = (w: WaitingPull): Shown => ({
+  key: w.entry.idempotencyKey, entry: w.entry, colonyCode: w.colonyCode, yardName: w.yardName,
+  state: w.refused === undefined ? 'waiting' : 'refused', waited: true, message: w.refused,
+});
+
+function EntryLine({ item, label, name, onDismiss }: { item: Shown; label: string; name: string; onDismiss: () => void }) {
+  const sendingKept = item.state === 'sending' && item.waited;
+  const text = item.state === 'saved' ? 'recorded'
+    : item.state === 'refused' ? `not recorded — ${item.message ?? 'refused'}`
+    : item.state === 'waiting' ? (item.message ? `${KEPT} (${item.message})` : KEPT)
+    : sendingKept ? `${KEPT}; sending…` : 'saving…';
+  return (
+    <li className="flex flex-wrap items-start gap-2">
+      {item.state === 'saved' ? <Check aria-hidden className="mt-0.5 h-4 w-4 shrink-0 text-ok-fg" />
+        : item.state === 'refused' ? <TriangleAlert aria-hidden className="mt-0.5 h-4 w-4 shrink-0 text-bad-fg" />
+        : item.state === 'waiting' ? <CloudOff aria-hidden className="mt-0.5 h-4 w-4 shrink-0 text-warn-fg" />
+        : <RotateCw aria-hidden className="mt-0.5 h-4 w-4 shrink-0 animate-spin" />}
+      <span className={`min-w-0 flex-1 ${item.state === 'refused' ? 'text-bad-fg' : item.state === 'waiting' || sendingKept ? 'text-warn-fg' : ''}`}>{label}: {text}</span>
+      {item.state === 'saved' && item.flagged ? <span className="w-full rounded bg-bad-bg px-2 py-1 text-bad-fg"><strong>Flagged:</strong> {item.reasons?.join('; ')}</span> : null}
+      {item.state === 'refused' ? (
+        <button type="button" className="btn-secondary min-h-11" aria-label={`Dismiss ${name}`} onClick={onDismiss}>Dismiss</button>
+      ) : null}
+    </li>
+  );
 }
 
 function Details({ colony, value, onChange }: { colony: Colony; value: Partial<PullEntry>; onChange: (v: Partial<PullEntry>) => void }) {
@@ -54,13 +92,68 @@ function Details({ colony, value, onChange }: { colony: Colony; value: Partial<P
 /**
  * The keeper's pass through a yard: pick the pull date, box depth and frames once (remembered
  * on this device), then one tap per colony. Each tap is one super with its own idempotency key.
+ * Every tap is kept in this browser until the server answers (components/harvest/pull-queue.ts):
+ * with no signal, after a reload or a flat battery, it is shown again and sent when there is a
+ * connection; the key makes a second send harmless.
  */
-export function PullPass({ colonies, today, defaultUnit, onSave }: { colonies: Colony[]; today: string; defaultUnit: 'kg' | 'lb'; onSave: Save }) {
+export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardName }: {
+  colonies: Colony[]; today: string; defaultUnit: 'kg' | 'lb'; onSave: Save; userId: number; yardName: string;
+}) {
   const [pulledOn, setPulledOn] = useState(today);
   const [depth, setDepth] = useState<Depth>('medium');
   const [frames, setFrames] = useState('10');
   const [details, setDetails] = useState<Record<number, Partial<PullEntry> | undefined>>({});
-  const [sent, setSent] = useState<Record<number, Sent[]>>({});
+  const [shown, setShown] = useState<Shown[]>([]);
+  const [ready, setReady] = useState(false);
+  const [online, setOnline] = useState(true);
+  const [draining, setDraining] = useState(false);
+  const [storageFailed, setStorageFailed] = useState(false);
+  const inFlight = useRef(new Set<string>());
+  const drainingRef = useRef(false);
+  const saveRef = useRef(onSave);
+  useEffect(() => { saveRef.current = onSave; }, [onSave]);
+  const storeKey = waitingKey(userId);
+
+  const patch = (key: string, p: Partial<Shown>) => setShown((s) => s.map((x) => (x.key === key ? { ...x, ...p } : x)));
+  const keep = useCallback((change: (list: WaitingPull[]) => WaitingPull[]) => {
+    if (!changeWaiting(localStorage, storeKey, change)) setStorageFailed(true);
+  }, [storeKey]);
+
+  const send = useCallback(async (entry: PullEntry): Promise<PullOutcome['kind'] | 'busy'> => {
+    const key = entry.idempotencyKey;
+    if (inFlight.current.has(key)) return 'busy';
+    inFlight.current.add(key);
+    patch(key, { state: 'sending' });
+    const out = await sendWithRetry(saveRef.current, entry);
+    inFlight.current.delete(key);
+    if (out.kind === 'saved') {
+      keep((l) => withoutWaiting(l, [key]));
+      patch(key, { state: 'saved', flagged: out.flagged, reasons: out.flagReasons, message: undefined });
+    } else if (out.kind === 'refused') {
+      keep((l) => markRefused(l, key, out.message));
+      patch(key, { state: 'refused', message: out.message });
+    } else {
+      patch(key, { state: 'waiting', waited: true, message: out.message });
+    }
+    return out.kind;
+  }, [keep]);
+
+  /** Sends everything this user has waiting on this phone, one at a time; stops at the first entry that gets no answer. */
+  const sendWaiting = useCallback(async () => {
+    if (drainingRef.current) return;
+    drainingRef.current = true;
+    setDraining(true);
+    try {
+      const stored = readWaiting(localStorage, storeKey);
+      setShown((s) => [...s, ...notShown(stored, new Set(s.map((x) => x.key))).map(fromStored)]);
+      for (const w of toSend(stored, inFlight.current)) {
+        if ((await send(w.entry)) === 'waiting') break;
+      }
+    } finally {
+      drainingRef.current = false;
+      setDraining(false);
+    }
+  }, [send, storeKey]);
 
   useEffect(() => {
     const d = localStorage.getItem(DEPTH_KEY);
@@ -68,35 +161,67 @@ export function PullPass({ colonies, today, defaultUnit, onSave }: { colonies: C
     const f = localStorage.getItem(FRAMES_KEY);
     if (f && /^\d{1,2}$/.test(f)) setFrames(f);
   }, []);
+
+  // Restore what is waiting on this phone, send it if there is a connection, and again whenever the connection comes back.
+  useEffect(() => {
+    const stored = readWaiting(localStorage, storeKey);
+    setShown((s) => [...s, ...notShown(stored, new Set(s.map((x) => x.key))).map(fromStored)]);
+    setOnline(navigator.onLine);
+    setReady(true);
+    if (navigator.onLine && toSend(stored).length) void sendWaiting();
+    const up = () => { setOnline(true); void sendWaiting(); };
+    const down = () => setOnline(false);
+    window.addEventListener('online', up);
+    window.addEventListener('offline', down);
+    return () => { window.removeEventListener('online', up); window.removeEventListener('offline', down); };
+  }, [storeKey, sendWaiting]);
+
   const chooseDepth = (d: Depth) => { setDepth(d); localStorage.setItem(DEPTH_KEY, d); };
   const chooseFrames = (f: string) => { setFrames(f); if (/^\d{1,2}$/.test(f)) localStorage.setItem(FRAMES_KEY, f); };
 
-  function update(colonyId: number, key: string, patch: Partial<Sent>) {
-    setSent((s) => ({ ...s, [colonyId]: (s[colonyId] ?? []).map((x) => (x.key === key ? { ...x, ...patch } : x)) }));
-  }
-
-  async function send(colonyId: number, entry: PullEntry) {
-    update(colonyId, entry.idempotencyKey, { state: 'sending', message: undefined });
-    const r = await sendWithRetry(onSave, entry);
-    if (r.ok) update(colonyId, entry.idempotencyKey, { state: 'saved', flagged: r.flagged, reasons: r.flagReasons });
-    else update(colonyId, entry.idempotencyKey, { state: 'failed', message: r.message });
-  }
-
   function pull(colony: Colony) {
     const extra = details[colony.id] ?? {};
-    const entry: PullEntry = {
+    const entry: StoredEntry = {
       colonyId: colony.id, pulledOn, depth, frameCount: Number(frames), idempotencyKey: newEntryKey(),
       weight: extra.weight === '' ? null : extra.weight ?? null, weightUnit: extra.weightUnit ?? defaultUnit,
       cappedFrames: extra.cappedFrames === '' ? null : extra.cappedFrames ?? null, tagCode: extra.tagCode || null,
     };
-    setSent((s) => ({ ...s, [colony.id]: [...(s[colony.id] ?? []), { key: entry.idempotencyKey, state: 'sending', entry }] }));
+    // Kept on the phone before anything is sent: a closed tab or a flat battery mid-send loses nothing.
+    keep((l) => withWaiting(l, { entry, colonyCode: colony.code, yardName, savedAt: new Date().toISOString() }));
+    const offline = !navigator.onLine;
+    setShown((s) => [...s, { key: entry.idempotencyKey, entry, colonyCode: colony.code, yardName, state: offline ? 'waiting' : 'sending', waited: offline }]);
     setDetails((d) => ({ ...d, [colony.id]: undefined }));
-    void send(colony.id, entry);
+    if (!offline) void send(entry);
   }
 
-  const total = Object.values(sent).flat().filter((x) => x.state === 'saved').length;
+  function dismiss(item: Shown) {
+    keep((l) => withoutWaiting(l, [item.key]));
+    setShown((s) => s.filter((x) => x.key !== item.key));
+    // The Dismiss button goes away: keep keyboard focus in the pass.
+    (document.getElementById(`pull-${item.entry.colonyId}`) ?? document.getElementById('pull-summary'))?.focus();
+  }
+
+  const total = shown.filter((x) => x.state === 'saved').length;
+  const waiting = shown.filter((x) => x.state === 'waiting' || (x.state === 'sending' && x.waited)).length;
+  const refused = shown.filter((x) => x.state === 'refused').length;
+  const here = new Set(colonies.map((c) => c.id));
+  const elsewhere = shown.filter((x) => !here.has(x.entry.colonyId));
+  const summary = [
+    waiting ? `${supers(waiting)} waiting to send — saved on this phone.` : '',
+    waiting && !online ? 'No signal: they will be sent when there is one.' : '',
+    refused ? `${supers(refused)} not recorded: see below.` : '',
+    storageFailed ? 'This browser would not keep unsent supers: keep this page open until they are sent.' : '',
+  ].filter(Boolean).join(' ');
   return (
     <div className="space-y-4">
+      <div id="pull-summary" tabIndex={-1} className={summary ? 'flex flex-wrap items-center gap-3 rounded-card border border-warn-fg bg-warn-bg p-4 text-warn-fg' : 'sr-only'}>
+        <p role="status" className={summary ? 'min-w-0 flex-1 text-sm font-semibold' : ''}>{summary}</p>
+        {waiting ? (
+          <button type="button" className="btn-secondary min-h-11" disabled={draining || !ready} onClick={() => void sendWaiting()}>
+            {draining ? 'Sending…' : 'Send now'}
+          </button>
+        ) : null}
+      </div>
       <fieldset className="card grid gap-3">
         <legend className="sr-only">For every super in this pass</legend>
         <label className="field" htmlFor="pull-date"><span>Pulled on</span>
@@ -113,11 +238,21 @@ export function PullPass({ colonies, today, defaultUnit, onSave }: { colonies: C
         </label>
       </fieldset>
       <p role="status" className="text-sm text-ink-soft">{total === 0 ? 'Tap a colony once for each super you take off it.' : `${total} ${total === 1 ? 'super' : 'supers'} recorded in this pass.`}</p>
+      {elsewhere.length ? (
+        <section aria-labelledby="pull-elsewhere" className="card">
+          <h2 id="pull-elsewhere" className="font-heading text-lg font-bold">Other colonies</h2>
+          <p className="hint">Tapped on this phone in another pass, or for a colony no longer listed here.</p>
+          <ul className="mt-2 space-y-1 text-sm">
+            {elsewhere.map((x) => <EntryLine key={x.key} item={x} label={`${x.colonyCode} (${x.yardName}), ${x.entry.pulledOn}`} name={`the super for ${x.colonyCode}`} onDismiss={() => dismiss(x)} />)}
+          </ul>
+        </section>
+      ) : null}
       <ul className="space-y-3">
         {colonies.map((c) => {
-          const mine = sent[c.id] ?? [];
+          const mine = shown.filter((x) => x.entry.colonyId === c.id);
           const open = details[c.id] !== undefined;
-          const busy = mine.some((x) => x.state === 'sending');
+          // Only a first send blocks a second tap on the same colony; a super waiting on the phone never does.
+          const busy = mine.some((x) => x.state === 'sending' && !x.waited);
           return (
             <li key={c.id} className="card" aria-label={`Colony ${c.code}`}>
               <div className="flex items-center justify-between gap-2">
@@ -130,19 +265,15 @@ export function PullPass({ colonies, today, defaultUnit, onSave }: { colonies: C
                 </button>
               </div>
               {open ? <Details colony={c} value={details[c.id] ?? {}} onChange={(v) => setDetails((d) => ({ ...d, [c.id]: { ...(d[c.id] ?? {}), ...v } }))} /> : null}
-              <button type="button" disabled={busy} onClick={() => pull(c)} className="btn-primary mt-3 min-h-14 w-full text-lg">
+              {/* Disabled until the page has started: a tap before that would do nothing. */}
+              <button id={`pull-${c.id}`} type="button" disabled={!ready || busy} onClick={() => pull(c)} className="btn-primary mt-3 min-h-14 w-full text-lg">
                 {busy ? 'Saving…' : mine.length ? `Pulled another super from ${c.code}` : `Pulled a super from ${c.code}`}
               </button>
-              <ul className="mt-2 space-y-1 text-sm">
-                {mine.map((x, i) => (
-                  <li key={x.key} className="flex flex-wrap items-start gap-2">
-                    {x.state === 'saved' ? <Check aria-hidden className="h-4 w-4 text-ok-fg" /> : x.state === 'failed' ? <TriangleAlert aria-hidden className="h-4 w-4 text-bad-fg" /> : <RotateCw aria-hidden className="h-4 w-4 animate-spin" />}
-                    <span>Super {i + 1}: {x.state === 'saved' ? 'recorded' : x.state === 'failed' ? x.message : 'saving…'}</span>
-                    {x.state === 'saved' && x.flagged ? <span className="w-full rounded bg-bad-bg px-2 py-1 text-bad-fg"><strong>Flagged:</strong> {x.reasons?.join('; ')}</span> : null}
-                    {x.state === 'failed' ? <button type="button" className="btn-secondary min-h-11" onClick={() => void send(c.id, x.entry)}>Try again</button> : null}
-                  </li>
-                ))}
-              </ul>
+              {mine.length ? (
+                <ul className="mt-2 space-y-1 text-sm">
+                  {mine.map((x, i) => <EntryLine key={x.key} item={x} label={`Super ${i + 1}`} name={`super ${i + 1} of ${c.code}`} onDismiss={() => dismiss(x)} />)}
+                </ul>
+              ) : null}
             </li>
           );
         })}

@@ -29,6 +29,8 @@ export default async function RecordPullsPage({ params }: { params: Promise<{ id
           today={localDate(new Date(), settings.timeZone)}
           defaultUnit={settings.weightSystem === 'us' ? 'lb' : 'kg'}
           onSave={recordPullsAction}
+          userId={user.id}
+          yardName={yard.name}
         />
       </div>
     </>
