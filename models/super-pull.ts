@@ -22,7 +22,10 @@ export class SuperPull extends Model<InferAttributes<SuperPull>, InferCreationAt
   declare overrideBy: CreationOptional<number | null>;
   declare putOnBy: CreationOptional<number | null>;
   declare pulledBy: CreationOptional<number | null>;
+  /** The key of the entry that created the row (a put-on, or a pull with no put-on). */
   declare idempotencyKey: CreationOptional<string | null>;
+  /** The key of the pull entry that closed the row. */
+  declare pullKey: CreationOptional<string | null>;
   declare note: CreationOptional<string>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -51,6 +54,7 @@ export function initSuperPull(sequelize: Sequelize) {
       putOnBy: { type: DataTypes.INTEGER, allowNull: true },
       pulledBy: { type: DataTypes.INTEGER, allowNull: true },
       idempotencyKey: { type: DataTypes.STRING(80), allowNull: true, unique: true },
+      pullKey: { type: DataTypes.STRING(80), allowNull: true, unique: true },
       note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,

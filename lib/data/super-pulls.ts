@@ -66,6 +66,9 @@ export async function listColonySupers(colonyId: number): Promise<PullRow[]> {
   return rows.map(toRow);
 }
 
+/** A phone's entry key names one record: the row a put-on or a pull created, or the pull that closed it. */
+const byEntryKey = (key: string) => ({ [Op.or]: [{ idempotencyKey: key }, { pullKey: key }] });
+
 async function idempotent<T>(find: () => Promise<T | null>, run: () => Promise<T>): Promise<{ value: T; created: boolean }> {
   const existing = await find();
   if (existing) return { value: existing, created: false };
@@ -83,7 +86,7 @@ async function idempotent<T>(find: () => Promise<T | null>, run: () => Promise<T
 export async function putSuperOn(user: Viewer, input: { colonyId: number; depth: SuperDepth; frameCount: number; tagCode: string | null; putOnOn: string; idempotencyKey: string }): Promise<number> {
   const { sequelize, models } = getDb();
   const { value } = await idempotent(
-    () => models.SuperPull.findOne({ where: { idempotencyKey: input.idempotencyKey } }),
+    () => models.SuperPull.findOne({ where: byEntryKey(input.idempotencyKey) }),
     () => sequelize.transaction(async (t) => {
       const colony = await writableColony(user, input.colonyId, t);
       return models.SuperPull.create({ ...input, colonyId: colony.id, putOnBy: user.id }, { transaction: t });
@@ -106,7 +109,7 @@ export type PullResult = { id: number; colonyId: number; created: boolean; flagg
 export async function recordPull(user: Viewer, input: PullInput, outer?: Transaction): Promise<PullResult> {
   const { sequelize, models } = getDb();
   const fullGrams = input.weight === null ? null : toGrams(input.weight, input.weightUnit);
-  const find = () => models.SuperPull.findOne({ where: { idempotencyKey: input.idempotencyKey }, transaction: outer });
+  const find = () => models.SuperPull.findOne({ where: byEntryKey(input.idempotencyKey), transaction: outer });
   const work = async (t: Transaction) => {
     const colony = await writableColony(user, input.colonyId, t);
     const open = await models.SuperPull.findAll({
@@ -117,10 +120,11 @@ export async function recordPull(user: Viewer, input: PullInput, outer?: Transac
     const flags = await flagsForPull(colony.id, { id: onHive?.id, pulledOn: input.pulledOn, putOnOn: onHive?.putOnOn ?? null }, t);
     const fields = {
       depth: input.depth, frameCount: input.frameCount, pulledOn: input.pulledOn, fullGrams, cappedFrames: input.cappedFrames,
-      tagCode: input.tagCode ?? onHive?.tagCode ?? null, pulledBy: user.id, idempotencyKey: input.idempotencyKey, ...flags,
+      tagCode: input.tagCode ?? onHive?.tagCode ?? null, pulledBy: user.id, pullKey: input.idempotencyKey, ...flags,
     };
+    // Closing a super that went on keeps the put-on's key, so a late retry of that put-on still finds it.
     if (onHive) return onHive.update(fields, { transaction: t });
-    return models.SuperPull.create({ ...fields, colonyId: colony.id }, { transaction: t });
+    return models.SuperPull.create({ ...fields, idempotencyKey: input.idempotencyKey, colonyId: colony.id }, { transaction: t });
   };
   const { value, created } = await idempotent(find, () => (outer ? work(outer) : sequelize.transaction(work)));
   if (!created && value.colonyId !== input.colonyId) throw new HttpError(409, 'This entry key was already used for another colony.');

@@ -48,6 +48,23 @@ describe('idempotent pull entry', () => {
     const row = await getDb().models.SuperPull.findByPk(on.ok ? on.data.id : -1);
     expect(row).toMatchObject({ putOnOn: '2026-06-01', pulledOn: '2026-06-20', tagCode: 'PUL-T1', cappedFrames: 7 });
   });
+
+  it('a late retry of the put-on after the pull finds the same super; a pull retry too (no second super)', async () => {
+    await signInAs(DEMO.keeper);
+    const onInput = { colonyId: f.a3, depth: 'medium' as const, frameCount: 10, tagCode: 'PUL-T9', putOnOn: '2026-06-02', idempotencyKey: key() };
+    const on = await superOnAction(onInput);
+    const pull = entry(f.a3, { pulledOn: '2026-06-28', tagCode: 'PUL-T9' });
+    const pulled = await recordPullsAction({ entries: [pull] });
+    const id = on.ok ? on.data.id : -1;
+    expect(pulled.ok && pulled.data.results[0]).toMatchObject({ ok: true, id, created: true });
+    // The phone never heard back from the put-on and sends it again, after the pull went through.
+    const retriedOn = await superOnAction(onInput);
+    expect(retriedOn.ok && retriedOn.data.id).toBe(id);
+    const retriedPull = await recordPullsAction({ entries: [pull] });
+    expect(retriedPull.ok && retriedPull.data.results[0]).toMatchObject({ ok: true, id, created: false });
+    const rows = await getDb().models.SuperPull.findAll({ where: { colonyId: f.a3, tagCode: 'PUL-T9' } });
+    expect(rows.map((r) => ({ id: r.id, pulledOn: r.pulledOn }))).toEqual([{ id, pulledOn: '2026-06-28' }]);
+  });
 });
 
 describe('conflict flags', () => {
