@@ -39,7 +39,7 @@ export function isPublicPageView(method: string, pathname: string, search: strin
 export function respondWithNonce(page: StoredPage, nonce: string): Response {
   const swap = (text: string) => text.split(page.nonce).join(nonce);
   // The nonce is in the body's scripts and in headers too (Next's `Link: …; nonce=` preload).
-  const headers = new Headers(page.headers.map(([name, value]) => [name, swap(value)]));
+  const headers = new Headers(page.headers.map(([name, value]): [string, string] => [name, swap(value)]));
   headers.set('content-security-policy', contentSecurityPolicy(nonce));
   return new Response(swap(page.body), { status: page.status, headers });
 }
