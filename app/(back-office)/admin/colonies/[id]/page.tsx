@@ -62,7 +62,8 @@ export default async function ColonyPage({ params }: { params: Promise<{ id: str
         </> : null}
       />
       <div className="grid gap-4 lg:grid-cols-[1fr_22rem]">
-        <div className="space-y-4">
+        {/* min-w-0: the supers table scrolls inside its card instead of widening the page on a phone. */}
+        <div className="min-w-0 space-y-4">
           <dl className="card grid grid-cols-[auto_1fr] gap-x-4 gap-y-2 text-sm">
             <dt className="text-ink-soft">Status</dt><dd><ColonyStatusChip status={colony.status} />{colony.combinedInto ? <> into <Link href={`/admin/colonies/${colony.combinedInto.id}`}>{colony.combinedInto.code}</Link></> : null}</dd>
             <dt className="text-ink-soft">Queen</dt><dd><QueenColour year={colony.queenYear} colour={colony.queenColour} /></dd>
@@ -116,7 +117,7 @@ export default async function ColonyPage({ params }: { params: Promise<{ id: str
                   {e.flagged && !e.voided ? <ul className="list-disc pl-5 text-sm text-bad-fg">{e.flagReasons?.map((r) => <li key={r}>{r}</li>)}</ul> : null}
                   <div className="hint">recorded by {e.by ?? 'unknown'}</div>
                   {e.voided ? <div><VoidedNote v={e.voided} date={voidedOn(e.voided.at)} /></div> : null}
-                  {canVoid && e.voidablePullId ? <VoidPullButton superPullId={e.voidablePullId} what={`the super pulled on ${e.on}`} onVoid={voidSuperPullAction} /> : null}
+                  {canVoid && e.voidablePullId ? <VoidPullButton superPullId={e.voidablePullId} what={`the pull of ${e.on}`} onVoid={voidSuperPullAction} /> : null}
                   {write && e.openFeedingId ? <EndRecordForm label="End feeding" today={today} onEnd={endFeeding.bind(null, e.openFeedingId)} /> : null}
                   {write && e.openTreatmentId ? <><TreatmentCaution /><EndRecordForm label="Record removal" today={today} onEnd={endTreatment.bind(null, e.openTreatmentId)} /></> : null}
                 </li>
