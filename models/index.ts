@@ -105,6 +105,7 @@ export function initModels(sequelize: Sequelize) {
   Treatment.belongsTo(TreatmentKind, { foreignKey: 'treatmentKindId', as: 'kind' });
   SuperPull.belongsTo(Colony, { foreignKey: 'colonyId', as: 'colony' });
   SuperPull.belongsTo(Lot, { foreignKey: 'lotId', as: 'lot' });
+  SuperPull.belongsTo(User, { foreignKey: 'voidedByUserId', as: 'voidedBy' });
 
   // Honey house
   Lot.hasMany(SuperPull, { foreignKey: 'lotId', as: 'superPulls' });

@@ -2,6 +2,7 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 import { SUPER_DEPTHS, type SuperDepth } from './super-tag';
 import type { Colony } from './colony';
 import type { Lot } from './lot';
+import type { User } from './user';
 
 /** A super on a colony: put on, pulled (weighed full), later its empty weight and its lot. */
 export class SuperPull extends Model<InferAttributes<SuperPull>, InferCreationAttributes<SuperPull>> {
@@ -27,10 +28,15 @@ export class SuperPull extends Model<InferAttributes<SuperPull>, InferCreationAt
   /** The key of the pull entry that closed the row. */
   declare pullKey: CreationOptional<string | null>;
   declare note: CreationOptional<string>;
+  /** Set together when a pull recorded by mistake is voided (who, when, why); never edited or deleted. */
+  declare voidedAt: CreationOptional<Date | null>;
+  declare voidedByUserId: CreationOptional<number | null>;
+  declare voidReason: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare colony?: NonAttribute<Colony>;
   declare lot?: NonAttribute<Lot | null>;
+  declare voidedBy?: NonAttribute<User | null>;
 }
 
 export function initSuperPull(sequelize: Sequelize) {
@@ -56,6 +62,9 @@ export function initSuperPull(sequelize: Sequelize) {
       idempotencyKey: { type: DataTypes.STRING(80), allowNull: true, unique: true },
       pullKey: { type: DataTypes.STRING(80), allowNull: true, unique: true },
       note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+      voidedAt: { type: DataTypes.DATE, allowNull: true },
+      voidedByUserId: { type: DataTypes.INTEGER, allowNull: true },
+      voidReason: { type: DataTypes.TEXT, allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

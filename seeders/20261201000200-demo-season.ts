@@ -9,7 +9,7 @@ import { DEFAULT_SUPER_ESTIMATES } from '../lib/domain/yield-allocation';
 
 /**
  * One invented season of Hollowmere Apiaries (PRODUCT.md's demo scenario): four yards, about forty
- * colonies with a few splits and a dead-out, super pulls (two of them flagged), feedings, treatments,
+ * colonies with a few splits and a dead-out, super pulls (two of them flagged, one voided as entered twice), feedings, treatments,
  * lots (a blend, one held for high moisture), products, jarring runs, stock and paid orders.
  * Deterministic: the same data on every machine. Derived values use the same domain functions as the app.
  */
@@ -175,6 +175,25 @@ export async function up({ context: q }: { context: QueryInterface }) {
   });
   await insert(q, 'super_tags', tagCodes);
   const pulls = await insert(q, 'super_pulls', pullRows);
+
+  // One pull entered twice by mistake (once with its tag, once without) and voided by its keeper the
+  // same evening: it stays on record with who, when and why, and counts for nothing. Fixed values, no
+  // draw from the PRNG, so every other demo figure stays the same.
+  const twice = pulls[plans.findIndex((p) => p.colony === 'LR-03' && p.pulled === `${YEAR}-09-20`)];
+  const lr03 = colonyBy['LR-03'];
+  const voidedAt = new Date(`${YEAR}-09-20T18:10:00Z`);
+  const voidReason = `Entered twice: the same box was already recorded with its tag ${twice.tag_code}.`;
+  const [voidedPull] = await insert(q, 'super_pulls', [{
+    colony_id: lr03.id, tag_code: null, depth: 'medium', frame_count: 10, put_on_on: null, pulled_on: `${YEAR}-09-20`,
+    full_grams: twice.full_grams, capped_frames: null, empty_grams: null, flagged: false, flag_reasons: JSON.stringify([]),
+    put_on_by: null, pulled_by: lr03.keeper_id, note: '', voided_at: voidedAt, voided_by_user_id: lr03.keeper_id, void_reason: voidReason,
+    created_at: new Date(`${YEAR}-09-20T16:45:00Z`), updated_at: voidedAt,
+  }]);
+  await insert(q, 'audit_entries', [{
+    actor_user_id: lr03.keeper_id, action: 'super.void', entity_type: 'super_pull', entity_id: String(voidedPull.id), before: JSON.stringify({ voidedAt: null }),
+    after: JSON.stringify({ colonyId: lr03.id, colonyCode: 'LR-03', tagCode: null, pulledOn: `${YEAR}-09-20`, voidedAt: voidedAt.toISOString(), reflaggedNeighbours: 0 }),
+    reason: voidReason, created_at: voidedAt,
+  }]);
 
   // Container types (owner-editable; usual tare).
   const ctypes = await insert(q, 'container_types', [
@@ -349,6 +368,6 @@ export async function down({ context: q }: { context: QueryInterface }) {
   for (const t of ['lots', 'lot_sequences', 'container_types', 'super_pulls', 'super_tags', 'treatments', 'feedings', 'colony_events', 'colonies', 'treatment_kinds', 'yard_keepers', 'yards']) {
     await q.sequelize.query(`DELETE FROM ${t}`);
   }
-  await q.sequelize.query(`DELETE FROM audit_entries WHERE entity_type = 'lot'`);
+  await q.sequelize.query(`DELETE FROM audit_entries WHERE entity_type IN ('lot', 'super_pull')`);
   await q.sequelize.query(`SET session_replication_role = DEFAULT`);
 }

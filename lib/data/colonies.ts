@@ -25,8 +25,9 @@ export type ColonyDetail = ColonyRow & {
 
 // The main table's alias is the model's class name, which a production build minifies: ask the class.
 const alias = () => getDb().models.Colony.name;
-const lastPull = () => `(SELECT max(p.pulled_on) FROM super_pulls p WHERE p.colony_id = "${alias()}"."id")`;
-const flaggedCount = () => `(SELECT count(*)::int FROM super_pulls p WHERE p.colony_id = "${alias()}"."id" AND p.flagged)`;
+// A voided pull (recorded by mistake) counts for nothing here.
+const lastPull = () => `(SELECT max(p.pulled_on) FROM super_pulls p WHERE p.colony_id = "${alias()}"."id" AND p.voided_at IS NULL)`;
+const flaggedCount = () => `(SELECT count(*)::int FROM super_pulls p WHERE p.colony_id = "${alias()}"."id" AND p.flagged AND p.voided_at IS NULL)`;
 const SORTS = { code: 'code', yard: '$yard.name$', status: 'status', queenYear: 'queenYear' } as const;
 
 function toRow(c: Colony): ColonyRow {

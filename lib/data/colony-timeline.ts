@@ -1,5 +1,6 @@
 import 'server-only';
 import { getDb } from '@/lib/db';
+import type { PullVoid } from './super-pulls';
 
 export type TimelineEntry = {
   key: string;
@@ -10,6 +11,10 @@ export type TimelineEntry = {
   by: string | null;
   flagged?: boolean;
   flagReasons?: string[];
+  /** A super pull (and its put-on) voided as a mistake: shown struck through, with who, when and why. */
+  voided?: PullVoid;
+  /** A standing pull that may still be voided (not in a lot): its id. */
+  voidablePullId?: number;
   /** For open feedings/treatments: the id to end them with. */
   openFeedingId?: number;
   openTreatmentId?: number;
@@ -29,7 +34,7 @@ export async function colonyTimeline(colonyId: number, formatGrams: (g: number) 
     models.ColonyEvent.findAll({ where: { colonyId } }),
   ]);
   const userIds = new Set<number>();
-  for (const p of pulls) { if (p.putOnBy) userIds.add(p.putOnBy); if (p.pulledBy) userIds.add(p.pulledBy); }
+  for (const p of pulls) { if (p.putOnBy) userIds.add(p.putOnBy); if (p.pulledBy) userIds.add(p.pulledBy); if (p.voidedByUserId) userIds.add(p.voidedByUserId); }
   for (const r of [...feedings, ...treatments, ...events]) if (r.recordedBy) userIds.add(r.recordedBy);
   const users = await models.User.findAll({ where: { id: [...userIds] }, attributes: ['id', 'name'] });
   const name = (id: number | null | undefined) => (id ? users.find((u) => u.id === id)?.name ?? null : null);
@@ -37,10 +42,14 @@ export async function colonyTimeline(colonyId: number, formatGrams: (g: number) 
   const out: TimelineEntry[] = [];
   for (const p of pulls) {
     const box = `${p.depth}, ${p.frameCount} frames${p.tagCode ? `, tag ${p.tagCode}` : ''}`;
-    if (p.putOnOn) out.push({ key: `on-${p.id}`, on: p.putOnOn, kind: 'super_on', title: 'Super on', detail: box, by: name(p.putOnBy) });
+    const voided = p.voidedAt ? { at: new Date(p.voidedAt).toISOString(), byName: name(p.voidedByUserId), reason: p.voidReason ?? '' } : undefined;
+    if (p.putOnOn) out.push({ key: `on-${p.id}`, on: p.putOnOn, kind: 'super_on', title: 'Super on', detail: box, by: name(p.putOnBy), voided });
     if (p.pulledOn) {
       const weight = p.fullGrams ? `full ${formatGrams(p.fullGrams)}` : p.cappedFrames != null ? `about ${p.cappedFrames} capped frames` : 'not weighed';
-      out.push({ key: `pull-${p.id}`, on: p.pulledOn, kind: 'super_pulled', title: 'Super pulled', detail: `${box}; ${weight}`, by: name(p.pulledBy), flagged: p.flagged, flagReasons: p.flagReasons });
+      out.push({
+        key: `pull-${p.id}`, on: p.pulledOn, kind: 'super_pulled', title: 'Super pulled', detail: `${box}; ${weight}`, by: name(p.pulledBy),
+        flagged: p.flagged, flagReasons: p.flagReasons, voided, voidablePullId: !voided && p.lotId === null ? p.id : undefined,
+      });
     }
   }
   for (const f of feedings) {

@@ -26,6 +26,7 @@ async function lotCodeOf(lotId: number, t: Transaction): Promise<string> {
  */
 async function attach(actor: SessionUser, lot: Lot, sp: SuperPull, overrideReason: string | undefined, t: Transaction): Promise<AddedSuper> {
   if (sp.lotId !== null) throw new HttpError(409, `${superLabel(sp)} is already in lot ${await lotCodeOf(sp.lotId, t)}.`);
+  if (sp.voidedAt) throw new HttpError(409, `${superLabel(sp)} was voided by its keeper (recorded by mistake), so it cannot go into a lot.`);
   if (!sp.pulledOn) throw new HttpError(409, `${superLabel(sp)} has not been pulled yet.`);
   let overridden = false;
   if (sp.flagged && !sp.overrideReason) {
@@ -60,7 +61,7 @@ export async function addSuperByTag(actor: SessionUser, lotId: number, tagCode: 
     const lot = await openLotForSupers(lotId, t);
     const tagWhere = sequelize.where(sequelize.fn('upper', sequelize.col('tag_code')), code.toUpperCase());
     const sp = await models.SuperPull.findOne({
-      where: { [Op.and]: [tagWhere, { pulledOn: { [Op.ne]: null } }, { lotId: null }] },
+      where: { [Op.and]: [tagWhere, { pulledOn: { [Op.ne]: null } }, { lotId: null }, { voidedAt: null }] },
       order: [['pulledOn', 'DESC'], ['id', 'DESC']],
       lock: t.LOCK.UPDATE, transaction: t,
     });
@@ -68,6 +69,7 @@ export async function addSuperByTag(actor: SessionUser, lotId: number, tagCode: 
       const any = await models.SuperPull.findOne({ where: tagWhere, order: [['id', 'DESC']], transaction: t });
       if (!any) throw new HttpError(404, `No super with tag ${code}.`);
       if (!any.pulledOn) throw new HttpError(409, `Super ${code} is still on a hive: record its pull first.`);
+      if (any.voidedAt) throw new HttpError(409, `The last pull of super ${code} was voided by its keeper (recorded by mistake): nothing to put in.`);
       if (any.lotId === lot.id) throw new HttpError(409, `Super ${code} is already in this lot.`);
       throw new HttpError(409, `Super ${code} is already in lot ${await lotCodeOf(any.lotId!, t)}.`);
     }
@@ -118,14 +120,14 @@ export async function setSuperEmptyWeight(actor: SessionUser, lotId: number, sup
 
 export type PullableSuper = { id: number; tagCode: string | null; colonyCode: string; yardName: string; pulledOn: string; depth: string; fullGrams: number | null; flagged: boolean; flagReasons: string[] };
 
-/** Pulled supers in no lot yet, newest first; filtered by yard and tag/colony text. */
+/** Pulled supers in no lot yet and not voided, newest first; filtered by yard and tag/colony text. */
 export async function listPullableSupers(filter: { yardId?: number; q?: string; limit?: number } = {}): Promise<PullableSuper[]> {
   const { models } = getDb();
   const q = filter.q?.trim();
   const like = q ? `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%` : null;
   const rows = await models.SuperPull.findAll({
     where: {
-      lotId: null, pulledOn: { [Op.ne]: null },
+      lotId: null, pulledOn: { [Op.ne]: null }, voidedAt: null,
       ...(like ? { [Op.or]: [{ tagCode: { [Op.iLike]: like } }, { '$colony.code$': { [Op.iLike]: like } }] } : {}),
       ...(filter.yardId ? { '$colony.yard_id$': filter.yardId } : {}),
     },

@@ -11,7 +11,8 @@ export async function colonyRecords(colonyId: number, t: Transaction): Promise<C
   // One after another: a transaction is one connection, which runs one query at a time.
   const feedings = await models.Feeding.findAll({ where: { colonyId }, transaction: t });
   const treatments = await models.Treatment.findAll({ where: { colonyId }, include: [{ association: 'kind', attributes: ['name'] }], transaction: t });
-  const pulls = await models.SuperPull.findAll({ where: { colonyId, pulledOn: { [Op.ne]: null } }, attributes: ['id', 'pulledOn'], transaction: t });
+  // A voided pull was never there: it neither narrows nor widens its neighbours' windows.
+  const pulls = await models.SuperPull.findAll({ where: { colonyId, pulledOn: { [Op.ne]: null }, voidedAt: null }, attributes: ['id', 'pulledOn'], transaction: t });
   return {
     feedings: feedings.map((f) => ({ kind: f.kind, startedOn: f.startedOn, endedOn: f.endedOn ?? null })),
     // supers_allowed and waiting_days are the values copied onto the treatment when recorded.
@@ -36,13 +37,15 @@ export async function flagsForPull(colonyId: number, pull: { id?: number; pulled
 }
 
 /**
- * After a feeding or treatment is added or edited, every pulled super of the colony is checked
- * again: a record entered late must still flag the supers it touched. Returns how many changed.
+ * After a feeding or treatment is added or edited, or a pull is voided, every standing pulled super
+ * of the colony is checked again: a record entered late must still flag the supers it touched.
+ * A voided pull keeps the flag it had when it was voided. Returns how many changed.
  */
 export async function recomputeColonyFlags(colonyId: number, t: Transaction): Promise<number> {
   const { models } = getDb();
   const records = await colonyRecords(colonyId, t);
-  const pulls = await models.SuperPull.findAll({ where: { colonyId, pulledOn: { [Op.ne]: null } }, transaction: t, lock: t.LOCK.UPDATE });
+  // Locked in id order, as everywhere else supers are locked, so two writers cannot deadlock.
+  const pulls = await models.SuperPull.findAll({ where: { colonyId, pulledOn: { [Op.ne]: null }, voidedAt: null }, order: [['id', 'ASC']], transaction: t, lock: t.LOCK.UPDATE });
   let changed = 0;
   for (const pull of pulls) {
     const next = flagsWith(records, { id: pull.id, pulledOn: pull.pulledOn as string, putOnOn: pull.putOnOn ?? null });

@@ -39,8 +39,8 @@ async function known(user: Viewer) {
   const scope = await yardScope(user);
   // Only the user's own colonies count as known: another keeper's colony is an unknown colony.
   const colonies = await models.Colony.findAll({ where: scope.all ? {} : { yardId: scope.yardIds }, attributes: ['id', 'code'] });
-  // A tag pulled and not yet in a lot is still a full box waiting for the honey house.
-  const tags = await models.SuperPull.findAll({ where: { pulledOn: { [Op.ne]: null }, lotId: null, tagCode: { [Op.ne]: null } }, attributes: ['tagCode'] });
+  // A tag pulled and not yet in a lot is still a full box waiting for the honey house (unless that pull was voided).
+  const tags = await models.SuperPull.findAll({ where: { pulledOn: { [Op.ne]: null }, lotId: null, voidedAt: null, tagCode: { [Op.ne]: null } }, attributes: ['tagCode'] });
   return { colonyIds: new Map(colonies.map((c) => [c.code, c.id])), colonyCodes: new Set(colonies.map((c) => c.code)), existingTagCodes: new Set(tags.map((t) => t.tagCode as string)) };
 }
 

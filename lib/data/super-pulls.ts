@@ -7,9 +7,10 @@ import type { SuperPull } from '@/models/super-pull';
 import type { SuperDepth } from '@/models/super-tag';
 import { toGrams } from '@/lib/domain/units';
 import { HttpError } from '@/lib/http/json';
-import { yardScope } from './harvest-scope';
+import { canWriteColonies, colonyInScope, yardScope } from './harvest-scope';
 import { writableColony } from './colonies';
-import { flagsForPull } from './super-flags';
+import { flagsForPull, recomputeColonyFlags } from './super-flags';
+import { recordAudit } from './audit';
 import type { Paged } from './yards';
 
 type Viewer = Pick<SessionUser, 'id' | 'role'>;
@@ -17,20 +18,30 @@ export type PullRow = {
   id: number; colonyId: number; colonyCode: string; yardId: number; yardName: string; tagCode: string | null;
   depth: SuperDepth; frameCount: number; putOnOn: string | null; pulledOn: string | null; fullGrams: number | null;
   cappedFrames: number | null; flagged: boolean; flagReasons: string[]; inLot: boolean; pulledByName: string | null;
+  /** Set when the pull was voided as a mistake: it stays listed, struck through, and counts for nothing. */
+  voided: PullVoid | null;
 };
+export type PullVoid = { at: string; byName: string | null; reason: string };
+
+export function pullVoid(p: Pick<SuperPull, 'voidedAt' | 'voidReason' | 'voidedBy'>): PullVoid | null {
+  if (!p.voidedAt) return null;
+  return { at: new Date(p.voidedAt).toISOString(), byName: p.voidedBy?.name ?? null, reason: p.voidReason ?? '' };
+}
 
 function toRow(p: SuperPull & { pulledByUser?: { name: string } | null }): PullRow {
   return {
     id: p.id, colonyId: p.colonyId, colonyCode: p.colony?.code ?? '', yardId: p.colony?.yardId ?? 0, yardName: p.colony?.yard?.name ?? '',
     tagCode: p.tagCode ?? null, depth: p.depth, frameCount: p.frameCount, putOnOn: p.putOnOn ?? null, pulledOn: p.pulledOn ?? null,
     fullGrams: p.fullGrams ?? null, cappedFrames: p.cappedFrames ?? null, flagged: p.flagged, flagReasons: p.flagReasons ?? [],
-    inLot: p.lotId != null, pulledByName: null,
+    inLot: p.lotId != null, pulledByName: null, voided: pullVoid(p),
   };
 }
 
+const voidedByInclude = { association: 'voidedBy', attributes: ['id', 'name'] };
+
 const SORTS = { pulledOn: ['pulledOn'], colony: ['colony', 'code'], fullGrams: ['fullGrams'] } as const;
 
-/** Pulled supers (not those still on a hive), newest first by default, in the user's yards. */
+/** Pulled supers (not those still on a hive), newest first by default, in the user's yards; voided ones too unless filtered. */
 export async function listSuperPulls(user: Viewer, query: PullListQuery): Promise<Paged<PullRow>> {
   const { models } = getDb();
   const scope = await yardScope(user);
@@ -40,12 +51,16 @@ export async function listSuperPulls(user: Viewer, query: PullListQuery): Promis
   if (query.yardId) colonyWhere.push({ yardId: query.yardId });
   if (query.colonyId) and.push({ colonyId: query.colonyId });
   if (query.flagged) and.push({ flagged: query.flagged === 'yes' });
+  if (query.voided) and.push({ voidedAt: query.voided === 'yes' ? { [Op.ne]: null } : null });
   if (query.from) and.push({ pulledOn: { [Op.gte]: query.from } });
   if (query.to) and.push({ pulledOn: { [Op.lte]: query.to } });
   const sort = SORTS[query.sort];
   const { rows, count } = await models.SuperPull.findAndCountAll({
     where: { [Op.and]: and },
-    include: [{ association: 'colony', attributes: ['id', 'code', 'yardId'], where: { [Op.and]: colonyWhere }, required: true, include: [{ association: 'yard', attributes: ['id', 'name'] }] }],
+    include: [
+      { association: 'colony', attributes: ['id', 'code', 'yardId'], where: { [Op.and]: colonyWhere }, required: true, include: [{ association: 'yard', attributes: ['id', 'name'] }] },
+      voidedByInclude,
+    ],
     order: [
       sort.length === 2 ? [{ model: models.Colony, as: 'colony' }, 'code', query.dir] : [sort[0], query.dir === 'desc' ? 'DESC NULLS LAST' : 'ASC NULLS LAST'],
       ['id', 'DESC'],
@@ -60,7 +75,7 @@ export async function listSuperPulls(user: Viewer, query: PullListQuery): Promis
 export async function listColonySupers(colonyId: number): Promise<PullRow[]> {
   const rows = await getDb().models.SuperPull.findAll({
     where: { colonyId },
-    include: [{ association: 'colony', attributes: ['id', 'code', 'yardId'], include: [{ association: 'yard', attributes: ['id', 'name'] }] }],
+    include: [{ association: 'colony', attributes: ['id', 'code', 'yardId'], include: [{ association: 'yard', attributes: ['id', 'name'] }] }, voidedByInclude],
     order: [['pulledOn', 'DESC NULLS FIRST'], ['putOnOn', 'DESC NULLS LAST'], ['id', 'DESC']],
   });
   return rows.map(toRow);
@@ -143,4 +158,50 @@ export async function recordPulls(user: Viewer, entries: PullInput[]): Promise<(
     }
   }
   return out;
+}
+
+export type VoidResult = { id: number; colonyId: number; void: PullVoid; reflagged: number };
+
+/**
+ * Voids a super pull recorded by mistake: the row stays (struck through in the lists, with who,
+ * when and why) but counts for nothing from then on — not in the honey house's pick list, not in
+ * yields, last-pulled dates or counts, and not in its colony's conflict checks (the colony's other
+ * pulls are checked again in the same transaction). A super already in a lot cannot be voided here:
+ * the honey house takes it out of the lot first. Another keeper's pull is "not found".
+ */
+export async function voidSuperPull(user: Viewer, superPullId: number, reason: string): Promise<VoidResult> {
+  const { sequelize, models } = getDb();
+  const why = reason.trim();
+  if (why.length < 3) throw new HttpError(422, 'Say why this pull is being voided (at least 3 characters).');
+  const notFound = () => new HttpError(404, 'No such super pull.');
+  if (!Number.isInteger(superPullId) || superPullId <= 0) throw notFound();
+  return sequelize.transaction(async (t) => {
+    const found = await models.SuperPull.findByPk(superPullId, { attributes: ['id', 'colonyId'], transaction: t });
+    if (!found) throw notFound();
+    // The colony first, then its supers in id order: recording a pull also locks the colony first,
+    // and filling a lot locks supers in id order, so none of them can deadlock with a void.
+    const colony = canWriteColonies(user) ? await colonyInScope(user, found.colonyId, t) : null;
+    if (!colony) throw notFound();
+    const supers = await models.SuperPull.findAll({ where: { colonyId: colony.id }, order: [['id', 'ASC']], lock: t.LOCK.UPDATE, transaction: t });
+    const sp = supers.find((s) => s.id === superPullId);
+    if (!sp) throw notFound();
+    const label = sp.tagCode ? `Super ${sp.tagCode}` : 'This super';
+    if (sp.voidedAt) throw new HttpError(409, 'This pull is already voided.');
+    if (!sp.pulledOn) throw new HttpError(409, `${label} is still on the hive: only a recorded pull can be voided.`);
+    if (sp.lotId !== null) {
+      const lot = await models.Lot.findByPk(sp.lotId, { attributes: ['code'], transaction: t });
+      throw new HttpError(409, `${label} is already in lot ${lot?.code ?? `#${sp.lotId}`}, so its pull cannot be voided. Ask the honey house to take it out of the lot first (they can while the lot is still gathering).`);
+    }
+    const voidedAt = new Date();
+    await sp.update({ voidedAt, voidedByUserId: user.id, voidReason: why }, { transaction: t });
+    const reflagged = await recomputeColonyFlags(colony.id, t);
+    const actor = await models.User.findByPk(user.id, { attributes: ['name'], transaction: t });
+    await recordAudit({
+      actorUserId: user.id, action: 'super.void', entityType: 'super_pull', entityId: sp.id,
+      before: { voidedAt: null },
+      after: { colonyId: colony.id, colonyCode: colony.code, tagCode: sp.tagCode, pulledOn: sp.pulledOn, voidedAt: voidedAt.toISOString(), reflaggedNeighbours: reflagged },
+      reason: why,
+    }, t);
+    return { id: sp.id, colonyId: colony.id, void: { at: voidedAt.toISOString(), byName: actor?.name ?? null, reason: why }, reflagged };
+  });
 }

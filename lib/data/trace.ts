@@ -14,7 +14,7 @@ import { parseGs1ElementString } from '@/lib/domain/gs1';
 export type TraceMatch =
   | { kind: 'lot'; label: string }
   | { kind: 'jar'; label: string; gtin?: string; bestBefore?: string }
-  | { kind: 'super'; label: string; pulls: { id: number; colonyCode: string; pulledOn: string | null; lotCode: string | null }[] }
+  | { kind: 'super'; label: string; pulls: { id: number; colonyCode: string; pulledOn: string | null; lotCode: string | null; voided: boolean }[] }
   | { kind: 'order'; label: string; order: { number: string; status: string; name: string; email: string; createdAt: string } };
 
 export type LotTrace = {
@@ -140,8 +140,8 @@ export async function resolveTraceInput(raw: string): Promise<{ match: TraceMatc
   const lot = await lotByCode(input);
   if (lot) return { match: { kind: 'lot', label: `Lot ${lot.code}` }, lotIds: [lot.id] };
 
-  const pulls = await sequelize.query<{ id: number; colonyCode: string; pulledOn: string | null; lotCode: string | null; lotId: number | null }>(
-    `SELECT sp.id, c.code AS "colonyCode", sp.pulled_on AS "pulledOn", l.code AS "lotCode", sp.lot_id AS "lotId"
+  const pulls = await sequelize.query<{ id: number; colonyCode: string; pulledOn: string | null; lotCode: string | null; lotId: number | null; voided: boolean }>(
+    `SELECT sp.id, c.code AS "colonyCode", sp.pulled_on AS "pulledOn", l.code AS "lotCode", sp.lot_id AS "lotId", sp.voided_at IS NOT NULL AS voided
      FROM super_pulls sp JOIN colonies c ON c.id = sp.colony_id LEFT JOIN lots l ON l.id = sp.lot_id
      WHERE sp.tag_code IN (:tag, :upper) ORDER BY sp.pulled_on DESC NULLS FIRST, sp.id DESC LIMIT 20`,
     { ...sel, replacements: { tag: input, upper: input.toUpperCase() } },

@@ -191,7 +191,7 @@ export async function keepersWithColonies(season: number): Promise<{ id: number;
   return sequelize.query<{ id: number; name: string; email: string }>(
     `SELECT DISTINCT u.id, u.name, u.email FROM users u JOIN colonies c ON c.keeper_id = u.id
      WHERE u.role = 'keeper' AND u.disabled_at IS NULL AND (
-       EXISTS (SELECT 1 FROM super_pulls sp WHERE sp.colony_id = c.id AND sp.pulled_on >= :from AND sp.pulled_on < :to)
+       EXISTS (SELECT 1 FROM super_pulls sp WHERE sp.colony_id = c.id AND sp.pulled_on >= :from AND sp.pulled_on < :to AND sp.voided_at IS NULL)
        OR EXISTS (SELECT 1 FROM super_pulls sp JOIN lots l ON l.id = sp.lot_id WHERE sp.colony_id = c.id
                   AND EXTRACT(YEAR FROM COALESCE(l.extracted_on, (l.created_at AT TIME ZONE 'UTC')::date)) = :season))
      ORDER BY u.name`,

@@ -16,6 +16,8 @@ import { DEFAULT_SUPER_ESTIMATES, type SuperEstimates } from '@/lib/domain/yield
  *   exact fraction of it that each colony made.
  * - A lot's own weight is net_grams minus what it gave to blends, so no gram is counted twice:
  *   the given grams are counted in the blend, which passes them back through this lot.
+ * - A voided pull (recorded by mistake) is never in a lot (super_pulls_void_state_ck), so the lot
+ *   walks below need no test for it; the per-colony pull counts and seasons leave it out.
  */
 
 /** The owner's estimates (settings.superEstimates) over the defaults, depth by depth; anything unusable is ignored. */
@@ -146,7 +148,7 @@ export async function seasonColonies(season: number, withHoney: number[], scope:
             COALESCE(sc.n, 0)::int AS "supersPulled"
      FROM colonies c JOIN yards y ON y.id = c.yard_id JOIN users u ON u.id = c.keeper_id
      LEFT JOIN colonies p ON p.id = c.parent_colony_id
-     LEFT JOIN (SELECT colony_id, COUNT(*) AS n FROM super_pulls WHERE pulled_on >= :from AND pulled_on < :to GROUP BY colony_id) sc
+     LEFT JOIN (SELECT colony_id, COUNT(*) AS n FROM super_pulls WHERE pulled_on >= :from AND pulled_on < :to AND voided_at IS NULL GROUP BY colony_id) sc
        ON sc.colony_id = c.id
      WHERE (sc.n > 0 OR c.id = ANY(:withHoney::int[])
             OR (c.status = 'active' AND (c.started_on IS NULL OR c.started_on < :to)))
@@ -184,7 +186,7 @@ export async function listSeasons(): Promise<number[]> {
   const rows = await sequelize.query<{ season: number }>(
     `SELECT DISTINCT s AS season FROM (
        SELECT ${LOT_SEASON_SQL('l')} AS s FROM lots l
-       UNION SELECT EXTRACT(YEAR FROM pulled_on)::int FROM super_pulls WHERE pulled_on IS NOT NULL
+       UNION SELECT EXTRACT(YEAR FROM pulled_on)::int FROM super_pulls WHERE pulled_on IS NOT NULL AND voided_at IS NULL
      ) x ORDER BY 1 DESC`,
     { type: QueryTypes.SELECT },
   );

@@ -42,6 +42,8 @@ export const pullListQuery = z.object({
   yardId: id.optional(),
   colonyId: id.optional(),
   flagged: z.enum(['yes', 'no']).optional(),
+  /** Voided pulls are listed (struck through) unless asked for: no = standing pulls only, yes = voided only. */
+  voided: z.enum(['yes', 'no']).optional(),
   from: isoDay.optional(),
   to: isoDay.optional(),
 });
@@ -152,6 +154,15 @@ export const pullEntry = z.object({
 }).refine((v) => v.cappedFrames === null || v.cappedFrames <= v.frameCount, { path: ['cappedFrames'], message: 'More capped frames than frames' });
 export type PullEntry = z.input<typeof pullEntry>;
 export const pullBatch = z.object({ entries: z.array(pullEntry).min(1, 'Nothing to record').max(100) });
+
+/** A pull recorded by mistake is voided with a reason, never edited or deleted. */
+export const voidPullInput = z.object({
+  superPullId: id,
+  reason: z.string({ error: 'Say why this pull is being voided.' }).trim()
+    .min(3, 'Say why this pull is being voided (at least 3 characters).')
+    .max(500, 'Keep the reason to 500 characters or fewer.'),
+});
+export type VoidPullInput = z.input<typeof voidPullInput>;
 
 export const tagBatchInput = z.object({
   prefix: z.string().trim().min(1).max(12).regex(/^[A-Za-z0-9-]+$/, 'Letters, digits and dashes'),

@@ -72,6 +72,32 @@ describe('keeper on a phone', () => {
     expect(counts).toBe(3);
   });
 
+  it('voids a pull recorded by mistake from the colony timeline: it stays, struck through, with who and why', async () => {
+    const page = await browser.newPage(); // still signed in as the keeper
+    await page.goto(`${BASE()}/admin/colonies/${ids[0]}`);
+    await page.getByRole('heading', { name: `Colony ${codes[0]}` }).waitFor();
+    const timeline = page.getByRole('region', { name: 'Timeline' });
+    await timeline.getByRole('button', { name: /Void this pull…/ }).click();
+    const confirm = timeline.getByRole('button', { name: 'Void pull' });
+    expect(await confirm.isDisabled()).toBe(true); // no reason yet
+    await timeline.getByLabel('Why void this pull?').fill('Tapped the wrong colony in the pass');
+    await confirm.click();
+    await timeline.getByText(/Voided \d{4}-\d{2}-\d{2} by .+: Tapped the wrong colony in the pass/).waitFor();
+    expect(await timeline.getByText('voided', { exact: true }).count()).toBe(1);
+    expect(await timeline.getByRole('button', { name: /Void this pull/ }).count()).toBe(0);
+    expect(await page.getByRole('region', { name: 'Supers' }).getByText('voided', { exact: true }).count()).toBe(1);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+    expect((await getDb().models.SuperPull.findOne({ where: { colonyId: ids[0] } }))?.voidReason).toBe('Tapped the wrong colony in the pass');
+
+    // The pull list keeps it (struck through) under the "Voided only" filter.
+    await page.goto(`${BASE()}/admin/supers?voided=yes`);
+    const rows = page.locator('table.data-table tbody tr');
+    await rows.first().waitFor();
+    const texts = await rows.allTextContents();
+    for (const t of texts) expect(t).toMatch(/voided/);
+    expect(texts.some((t) => t.includes(codes[0]) && t.includes('Tapped the wrong colony in the pass'))).toBe(true);
+  });
+
   it('another keeper cannot open these colonies (404 page and API)', async () => {
     await browser.clearCookies();
     const page = await browser.newPage();

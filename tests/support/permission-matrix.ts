@@ -43,6 +43,7 @@ export const ACTIONS: Record<string, Allowed> = {
   'app/(back-office)/admin/colonies/actions.ts#superOnAction': HARVEST_WRITE,
   'app/(back-office)/admin/treatment-kinds/actions.ts#saveTreatmentKindAction': OWNER,
   'app/(back-office)/admin/supers/actions.ts#createTagBatchAction': OWNER,
+  'app/(back-office)/admin/supers/actions.ts#voidSuperPullAction': HARVEST_WRITE, // scope: tests/data/harvest-void.test.ts
   'app/(back-office)/admin/products/actions.ts#saveProductAction': OWNER,
   'app/(back-office)/admin/jarring/actions.ts#createJarringRunAction': HOUSE,
   'app/(back-office)/admin/jarring/actions.ts#overrideJarringRunAction': OWNER,

@@ -1,11 +1,20 @@
 'use server';
 import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/action';
-import { tagBatchInput } from '@/lib/schemas/harvest';
+import { tagBatchInput, voidPullInput } from '@/lib/schemas/harvest';
 import { createTagBatch } from '@/lib/data/super-tags';
+import { voidSuperPull } from '@/lib/data/super-pulls';
 
 export const createTagBatchAction = guardedAction('superTags.print', tagBatchInput, async (user, data) => {
   const r = await createTagBatch(user.id, data);
   revalidatePath('/admin/supers/tags');
+  return { ok: true, data: r };
+});
+
+/** A pull recorded by mistake: voided with a reason (owner, or the keeper of the colony's yard). */
+export const voidSuperPullAction = guardedAction('supers.write', voidPullInput, async (user, data) => {
+  const r = await voidSuperPull(user, data.superPullId, data.reason);
+  revalidatePath('/admin/supers');
+  revalidatePath(`/admin/colonies/${r.colonyId}`);
   return { ok: true, data: r };
 });

@@ -33,7 +33,7 @@ export default async function TracePage({ searchParams }: { searchParams: Promis
           {m?.kind === 'order' ? <p className="hint">Order {m.order.number} · {m.order.status.replace('_', ' ')} · {m.order.name} · {m.order.email} · placed {m.order.createdAt}</p> : null}
           {m?.kind === 'super' ? (
             <ul className="hint">
-              {m.pulls.map((p) => <li key={p.id}>On colony {p.colonyCode}, pulled {p.pulledOn ?? 'not yet'}, into lot {p.lotCode ?? 'none yet'}</li>)}
+              {m.pulls.map((p) => <li key={p.id}>On colony {p.colonyCode}, pulled {p.pulledOn ?? 'not yet'}, {p.voided ? 'voided by its keeper (recorded by mistake)' : `into lot ${p.lotCode ?? 'none yet'}`}</li>)}
             </ul>
           ) : null}
           {result.lots.map((t) => <LotTraceView key={t.lot.id} t={t} system={settings.weightSystem} />)}

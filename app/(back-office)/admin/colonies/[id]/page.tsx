@@ -14,6 +14,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { Chip } from '@/components/ui/chip';
 import { ColonyStatusChip, FlagCell, QueenColour } from '@/components/harvest/chips';
 import { TreatmentCaution } from '@/components/harvest/treatment-caution';
+import { VoidedNote, VoidPullButton } from '@/components/harvest/void-pull-button';
 import {
   EndRecordForm, FeedingForm, MoveForm, NoteForm, SplitForm, StatusForm, SuperOnForm, TreatmentForm,
 } from '@/components/harvest/colony-record-forms';
@@ -21,6 +22,7 @@ import {
   addFeedingAction, addTreatmentAction, colonyNoteAction, colonyStatusAction, endFeedingAction, endTreatmentAction,
   moveColonyAction, splitColonyAction, superOnAction,
 } from '../actions';
+import { voidSuperPullAction } from '../../supers/actions';
 
 export const metadata = { title: 'Colony' };
 
@@ -43,6 +45,8 @@ export default async function ColonyPage({ params }: { params: Promise<{ id: str
   const today = localDate(new Date(), settings.timeZone);
   const [supers, timeline] = await Promise.all([listColonySupers(colony.id), colonyTimeline(colony.id, fmt)]);
   const write = can(user.role, 'colonies.write');
+  const canVoid = can(user.role, 'supers.write');
+  const voidedOn = (at: string) => localDate(new Date(at), settings.timeZone);
   const [kinds, yards] = write ? await Promise.all([listTreatmentKinds(true), listYardChoices(user)]) : [[], []];
   const endFeeding = async (feedingId: number, endedOn: string) => { 'use server'; return endFeedingAction({ colonyId: colony.id, feedingId, endedOn }); };
   const endTreatment = async (treatmentId: number, removedOn: string) => { 'use server'; return endTreatmentAction({ colonyId: colony.id, treatmentId, removedOn }); };
@@ -58,7 +62,8 @@ export default async function ColonyPage({ params }: { params: Promise<{ id: str
         </> : null}
       />
       <div className="grid gap-4 lg:grid-cols-[1fr_22rem]">
-        <div className="space-y-4">
+        {/* min-w-0: the supers table scrolls inside its card instead of widening the page on a phone. */}
+        <div className="min-w-0 space-y-4">
           <dl className="card grid grid-cols-[auto_1fr] gap-x-4 gap-y-2 text-sm">
             <dt className="text-ink-soft">Status</dt><dd><ColonyStatusChip status={colony.status} />{colony.combinedInto ? <> into <Link href={`/admin/colonies/${colony.combinedInto.id}`}>{colony.combinedInto.code}</Link></> : null}</dd>
             <dt className="text-ink-soft">Queen</dt><dd><QueenColour year={colony.queenYear} colour={colony.queenColour} /></dd>
@@ -76,15 +81,22 @@ export default async function ColonyPage({ params }: { params: Promise<{ id: str
             <table className="data-table">
               <thead><tr><th scope="col">Pulled</th><th scope="col">Box</th><th scope="col">Tag</th><th scope="col" className="num">Full weight</th><th scope="col">Conflict check</th></tr></thead>
               <tbody>
-                {supers.map((s) => (
-                  <tr key={s.id}>
-                    <td>{s.pulledOn ?? <Chip tone="info">on hive</Chip>}{s.putOnOn ? <div className="hint">on {s.putOnOn}</div> : null}</td>
-                    <td>{s.depth}, {s.frameCount} fr.</td>
-                    <td>{s.tagCode ?? '—'}</td>
-                    <td className="num">{s.fullGrams ? fmt(s.fullGrams) : s.cappedFrames != null ? `~${s.cappedFrames} capped fr.` : '—'}</td>
-                    <td>{s.pulledOn ? <FlagCell flagged={s.flagged} reasons={s.flagReasons} /> : <span className="hint">checked when pulled</span>}</td>
-                  </tr>
-                ))}
+                {supers.map((s) => {
+                  const strike = (x: React.ReactNode) => (s.voided ? <s className="text-ink-soft">{x}</s> : x);
+                  return (
+                    <tr key={s.id}>
+                      <td>{s.pulledOn ? strike(s.pulledOn) : <Chip tone="info">on hive</Chip>}{s.putOnOn ? <div className="hint">on {s.putOnOn}</div> : null}</td>
+                      <td>{strike(`${s.depth}, ${s.frameCount} fr.`)}</td>
+                      <td>{strike(s.tagCode ?? '—')}</td>
+                      <td className="num">{strike(s.fullGrams ? fmt(s.fullGrams) : s.cappedFrames != null ? `~${s.cappedFrames} capped fr.` : '—')}</td>
+                      <td>
+                        {s.voided
+                          ? <div className="flex flex-col items-start gap-1"><Chip tone="warn">voided</Chip><VoidedNote v={s.voided} date={voidedOn(s.voided.at)} /></div>
+                          : s.pulledOn ? <FlagCell flagged={s.flagged} reasons={s.flagReasons} /> : <span className="hint">checked when pulled</span>}
+                      </td>
+                    </tr>
+                  );
+                })}
                 {supers.length === 0 ? <tr><td colSpan={5}>No supers recorded yet.</td></tr> : null}
               </tbody>
             </table>
@@ -96,13 +108,16 @@ export default async function ColonyPage({ params }: { params: Promise<{ id: str
               {timeline.map((e) => (
                 <li key={e.key} className="border-l-4 border-line pl-3">
                   <div className="flex flex-wrap items-center gap-2">
-                    <span className="num text-sm text-ink-soft">{e.on}</span>
-                    <strong>{e.title}</strong>
-                    {e.kind === 'super_pulled' ? (e.flagged ? <Chip tone="bad">flagged</Chip> : <Chip tone="ok">clear</Chip>) : null}
+                    <span className="num text-sm text-ink-soft">{e.voided ? <s>{e.on}</s> : e.on}</span>
+                    <strong>{e.voided ? <s className="text-ink-soft">{e.title}</s> : e.title}</strong>
+                    {e.voided ? <Chip tone="warn">voided</Chip>
+                      : e.kind === 'super_pulled' ? (e.flagged ? <Chip tone="bad">flagged</Chip> : <Chip tone="ok">clear</Chip>) : null}
                   </div>
-                  <div className="text-sm">{e.detail}{e.linkColonyId ? <> · <Link href={`/admin/colonies/${e.linkColonyId}`}>open</Link></> : null}</div>
-                  {e.flagged ? <ul className="list-disc pl-5 text-sm text-bad-fg">{e.flagReasons?.map((r) => <li key={r}>{r}</li>)}</ul> : null}
+                  <div className="text-sm">{e.voided ? <s className="text-ink-soft">{e.detail}</s> : e.detail}{e.linkColonyId ? <> · <Link href={`/admin/colonies/${e.linkColonyId}`}>open</Link></> : null}</div>
+                  {e.flagged && !e.voided ? <ul className="list-disc pl-5 text-sm text-bad-fg">{e.flagReasons?.map((r) => <li key={r}>{r}</li>)}</ul> : null}
                   <div className="hint">recorded by {e.by ?? 'unknown'}</div>
+                  {e.voided ? <div><VoidedNote v={e.voided} date={voidedOn(e.voided.at)} /></div> : null}
+                  {canVoid && e.voidablePullId ? <VoidPullButton superPullId={e.voidablePullId} what={`the pull of ${e.on}`} onVoid={voidSuperPullAction} /> : null}
                   {write && e.openFeedingId ? <EndRecordForm label="End feeding" today={today} onEnd={endFeeding.bind(null, e.openFeedingId)} /> : null}
                   {write && e.openTreatmentId ? <><TreatmentCaution /><EndRecordForm label="Record removal" today={today} onEnd={endTreatment.bind(null, e.openTreatmentId)} /></> : null}
                 </li>
