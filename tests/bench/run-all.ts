@@ -51,6 +51,10 @@ async function main() {
   if (!exists || process.env.RESEED === '1') {
     const seeded = tsx(['tests/bench/seed-large.ts']);
     if (seeded.status !== 0) throw new Error(seeded.stderr || seeded.stdout);
+  } else {
+    // A dataset seeded by an older checkout gets this checkout's migrations first.
+    const migrated = spawnSync(process.execPath, [path.join(ROOT, 'node_modules/tsx/dist/cli.mjs'), 'lib/db/migrate.ts', 'up'], { cwd: ROOT, env: { ...env, DATABASE_URL: DB_URL }, encoding: 'utf8' });
+    if (migrated.status !== 0) throw new Error(migrated.stderr || migrated.stdout);
   }
   // The synthetic owner gets a password so the back-office route can be measured signed in.
   const hash = tsx(['-e', "import('./lib/auth/password.ts').then(async (m) => console.log(await m.hashPassword('bench-owner-pass')))"]).stdout.trim();
