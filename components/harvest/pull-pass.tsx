@@ -4,7 +4,7 @@ import { Check, CloudOff, RotateCw, TriangleAlert } from 'lucide-react';
 import { SUPER_DEPTHS, type PullEntry } from '@/lib/schemas/harvest';
 import { newEntryKey } from './entry-key';
 import {
-  changeWaiting, markRefused, notShown, pullOutcome, readWaiting, toSend, waitingKey, withoutWaiting, withWaiting,
+  ANSWER_WITHIN_MS, NoAnswer, answerWithin, changeWaiting, markRefused, notShown, pullOutcome, readWaiting, toSend, waitingKey, withoutWaiting, withWaiting,
   type PullOutcome, type PullReply, type StoredEntry, type WaitingPull,
 } from './pull-queue';
 
@@ -33,8 +33,11 @@ async function sendWithRetry(onSave: Save, entry: PullEntry, tries = 3): Promise
   for (let i = 0; i < tries; i++) {
     if (!navigator.onLine) break;
     try {
-      return pullOutcome(entry.idempotencyKey, await onSave({ entries: [entry] }));
-    } catch {
+      return pullOutcome(entry.idempotencyKey, await answerWithin(onSave({ entries: [entry] }), ANSWER_WITHIN_MS));
+    } catch (err) {
+      // A weak signal can leave a request hanging; later sends would queue behind it, so stop here.
+      // The entry stays on the phone; if the hung request does arrive, the resend is recognised by its key.
+      if (err instanceof NoAnswer) break;
       if (i < tries - 1) await new Promise((res) => setTimeout(res, 800 * (i + 1)));
     }
   }

@@ -130,3 +130,20 @@ export function pullOutcome(key: string, reply: PullReply | undefined): PullOutc
   if (!mine.ok) return { kind: 'refused', message: mine.message };
   return { kind: 'saved', flagged: mine.flagged, flagReasons: mine.flagReasons ?? [] };
 }
+
+/** How long a send may go unanswered before the entry is left waiting (a field signal can stall for minutes). */
+export const ANSWER_WITHIN_MS = 20_000;
+
+export class NoAnswer extends Error {
+  constructor() {
+    super('No answer from the server yet.');
+  }
+}
+
+/** `promise`, or a NoAnswer rejection once `ms` have passed without it settling. */
+export function answerWithin<T>(promise: Promise<T>, ms: number): Promise<T> {
+  return new Promise<T>((resolve, reject) => {
+    const timer = setTimeout(() => reject(new NoAnswer()), ms);
+    promise.then((v) => { clearTimeout(timer); resolve(v); }, (e: unknown) => { clearTimeout(timer); reject(e); });
+  });
+}

@@ -1,6 +1,6 @@
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import {
-  changeWaiting, markRefused, notShown, parseWaiting, pullOutcome, readWaiting, toSend, waitingKey, withoutWaiting, withWaiting,
+  NoAnswer, answerWithin, changeWaiting, markRefused, notShown, parseWaiting, pullOutcome, readWaiting, toSend, waitingKey, withoutWaiting, withWaiting,
   type WaitingPull,
 } from '@/components/harvest/pull-queue';
 
@@ -117,5 +117,22 @@ describe('what a send attempt means for a waiting pull', () => {
   it('an answer about another key, or none, is not taken as saved', () => {
     expect(pullOutcome(key, { ok: true, data: { results: [{ ok: true, key: 'key-other-9', flagged: false, flagReasons: [] }] } }).kind).toBe('waiting');
     expect(pullOutcome(key, { ok: true, data: undefined }).kind).toBe('waiting');
+  });
+});
+
+describe('answerWithin', () => {
+  it('passes an answer or a failure through, and gives up with NoAnswer when none comes in time', async () => {
+    vi.useFakeTimers();
+    try {
+      await expect(answerWithin(Promise.resolve('saved'), 1000)).resolves.toBe('saved');
+      await expect(answerWithin(Promise.reject(new TypeError('Failed to fetch')), 1000)).rejects.toBeInstanceOf(TypeError);
+      const outcome = answerWithin(new Promise(() => undefined), 1000).then(() => 'answered', (e: unknown) => e);
+      await vi.advanceTimersByTimeAsync(999);
+      expect(await Promise.race([outcome, Promise.resolve('still waiting')])).toBe('still waiting');
+      await vi.advanceTimersByTimeAsync(1);
+      expect(await outcome).toBeInstanceOf(NoAnswer);
+    } finally {
+      vi.useRealTimers();
+    }
   });
 });
