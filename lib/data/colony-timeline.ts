@@ -15,6 +15,8 @@ export type TimelineEntry = {
   voided?: PullVoid;
   /** A standing pull that may still be voided (not in a lot): its id. */
   voidablePullId?: number;
+  /** A super still on the hive (put on, not pulled, not voided) that may be voided as entered by mistake: its id. */
+  voidableOnId?: number;
   /** For open feedings/treatments: the id to end them with. */
   openFeedingId?: number;
   openTreatmentId?: number;
@@ -43,7 +45,12 @@ export async function colonyTimeline(colonyId: number, formatGrams: (g: number) 
   for (const p of pulls) {
     const box = `${p.depth}, ${p.frameCount} frames${p.tagCode ? `, tag ${p.tagCode}` : ''}`;
     const voided = p.voidedAt ? { at: new Date(p.voidedAt).toISOString(), byName: name(p.voidedByUserId), reason: p.voidReason ?? '' } : undefined;
-    if (p.putOnOn) out.push({ key: `on-${p.id}`, on: p.putOnOn, kind: 'super_on', title: 'Super on', detail: box, by: name(p.putOnBy), voided });
+    if (p.putOnOn) {
+      out.push({
+        key: `on-${p.id}`, on: p.putOnOn, kind: 'super_on', title: 'Super on', detail: box, by: name(p.putOnBy), voided,
+        voidableOnId: !voided && !p.pulledOn && p.lotId === null ? p.id : undefined,
+      });
+    }
     if (p.pulledOn) {
       const weight = p.fullGrams ? `full ${formatGrams(p.fullGrams)}` : p.cappedFrames != null ? `about ${p.cappedFrames} capped frames` : 'not weighed';
       out.push({

@@ -68,8 +68,8 @@ export async function addSuperByTag(actor: SessionUser, lotId: number, tagCode: 
     if (!sp) {
       const any = await models.SuperPull.findOne({ where: tagWhere, order: [['id', 'DESC']], transaction: t });
       if (!any) throw new HttpError(404, `No super with tag ${code}.`);
+      if (any.voidedAt) throw new HttpError(409, `The last ${any.pulledOn ? 'pull' : 'super-on record'} of super ${code} was voided by its keeper (recorded by mistake): nothing to put in.`);
       if (!any.pulledOn) throw new HttpError(409, `Super ${code} is still on a hive: record its pull first.`);
-      if (any.voidedAt) throw new HttpError(409, `The last pull of super ${code} was voided by its keeper (recorded by mistake): nothing to put in.`);
       if (any.lotId === lot.id) throw new HttpError(409, `Super ${code} is already in this lot.`);
       throw new HttpError(409, `Super ${code} is already in lot ${await lotCodeOf(any.lotId!, t)}.`);
     }

@@ -117,7 +117,7 @@ export type PullResult = { id: number; colonyId: number; created: boolean; flagg
 
 /**
  * Records one super pulled. If the colony has a super still on (the same tag, or else the
- * oldest one put on), that super is closed; otherwise a pulled super is recorded with no
+ * oldest one put on; a put-on voided as a mistake is not on), that super is closed; otherwise a pulled super is recorded with no
  * put-on date. The conflict flag is computed from the colony's feedings and treatments in
  * the same transaction. A repeated idempotency key returns the first result, never a second row.
  */
@@ -128,7 +128,7 @@ export async function recordPull(user: Viewer, input: PullInput, outer?: Transac
   const work = async (t: Transaction) => {
     const colony = await writableColony(user, input.colonyId, t);
     const open = await models.SuperPull.findAll({
-      where: { colonyId: colony.id, pulledOn: null, ...(input.tagCode ? { tagCode: input.tagCode } : {}) },
+      where: { colonyId: colony.id, pulledOn: null, voidedAt: null, ...(input.tagCode ? { tagCode: input.tagCode } : {}) },
       order: [['putOnOn', 'ASC NULLS LAST'], ['id', 'ASC']], limit: 1, transaction: t, lock: t.LOCK.UPDATE,
     });
     const onHive = open[0] && (!open[0].putOnOn || open[0].putOnOn <= input.pulledOn) ? open[0] : null;
@@ -161,19 +161,29 @@ export async function recordPulls(user: Viewer, entries: PullInput[]): Promise<(
 }
 
 export type VoidResult = { id: number; colonyId: number; void: PullVoid; reflagged: number };
+/** Which record the keeper saw and meant to void: a recorded pull, or a super still on the hive. */
+export type VoidTarget = 'pull' | 'on';
 
 /**
- * Voids a super pull recorded by mistake: the row stays (struck through in the lists, with who,
- * when and why) but counts for nothing from then on — not in the honey house's pick list, not in
- * yields, last-pulled dates or counts, and not in its colony's conflict checks (the colony's other
- * pulls are checked again in the same transaction). A super already in a lot cannot be voided here:
- * the honey house takes it out of the lot first. Another keeper's pull is "not found".
+ * Voids a super record entered by mistake: the row stays (struck through in the lists, with who,
+ * when and why) but counts for nothing from then on.
+ *
+ * - A recorded pull (`target` 'pull'): not in the honey house's pick list, not in yields,
+ *   last-pulled dates or counts, and not in its colony's conflict checks (the colony's other pulls
+ *   are checked again in the same transaction).
+ * - A super still on the hive (`target` 'on'): no longer on the hive anywhere, so the colony's next
+ *   pull does not close it and its tag is free to go on again. If it was pulled meanwhile, that is a
+ *   409: the keeper saw a super on, and voiding would now void a pull they have not seen.
+ *
+ * A super already in a lot cannot be voided here: the honey house takes it out of the lot first.
+ * Another keeper's record is "not found".
  */
-export async function voidSuperPull(user: Viewer, superPullId: number, reason: string): Promise<VoidResult> {
+export async function voidSuperPull(user: Viewer, superPullId: number, reason: string, target: VoidTarget = 'pull'): Promise<VoidResult> {
   const { sequelize, models } = getDb();
   const why = reason.trim();
-  if (why.length < 3) throw new HttpError(422, 'Say why this pull is being voided (at least 3 characters).');
-  const notFound = () => new HttpError(404, 'No such super pull.');
+  const noun = target === 'on' ? 'super-on record' : 'pull';
+  if (why.length < 3) throw new HttpError(422, `Say why this ${noun} is being voided (at least 3 characters).`);
+  const notFound = () => new HttpError(404, target === 'on' ? 'No such super-on record.' : 'No such super pull.');
   if (!Number.isInteger(superPullId) || superPullId <= 0) throw notFound();
   return sequelize.transaction(async (t) => {
     const found = await models.SuperPull.findByPk(superPullId, { attributes: ['id', 'colonyId'], transaction: t });
@@ -186,20 +196,24 @@ export async function voidSuperPull(user: Viewer, superPullId: number, reason: s
     const sp = supers.find((s) => s.id === superPullId);
     if (!sp) throw notFound();
     const label = sp.tagCode ? `Super ${sp.tagCode}` : 'This super';
-    if (sp.voidedAt) throw new HttpError(409, 'This pull is already voided.');
-    if (!sp.pulledOn) throw new HttpError(409, `${label} is still on the hive: only a recorded pull can be voided.`);
+    if (sp.voidedAt) throw new HttpError(409, `This ${noun} is already voided.`);
+    if (target === 'pull' && !sp.pulledOn) throw new HttpError(409, `${label} is still on the hive: only a recorded pull can be voided. To void it as put on by mistake, use “Void this super-on record…”.`);
+    if (target === 'on' && sp.pulledOn) throw new HttpError(409, `${label} was pulled on ${sp.pulledOn}, so it is no longer on the hive. Reload the page; if that pull is the mistake, void the pull.`);
     if (sp.lotId !== null) {
       const lot = await models.Lot.findByPk(sp.lotId, { attributes: ['code'], transaction: t });
       throw new HttpError(409, `${label} is already in lot ${lot?.code ?? `#${sp.lotId}`}, so its pull cannot be voided. Ask the honey house to take it out of the lot first (they can while the lot is still gathering).`);
     }
     const voidedAt = new Date();
     await sp.update({ voidedAt, voidedByUserId: user.id, voidReason: why }, { transaction: t });
-    const reflagged = await recomputeColonyFlags(colony.id, t);
+    // Only pulled supers take part in the conflict checks: a super still on changes no other row's flags.
+    const reflagged = target === 'pull' ? await recomputeColonyFlags(colony.id, t) : 0;
     const actor = await models.User.findByPk(user.id, { attributes: ['name'], transaction: t });
     await recordAudit({
-      actorUserId: user.id, action: 'super.void', entityType: 'super_pull', entityId: sp.id,
+      actorUserId: user.id, action: target === 'on' ? 'super.on.void' : 'super.void', entityType: 'super_pull', entityId: sp.id,
       before: { voidedAt: null },
-      after: { colonyId: colony.id, colonyCode: colony.code, tagCode: sp.tagCode, pulledOn: sp.pulledOn, voidedAt: voidedAt.toISOString(), reflaggedNeighbours: reflagged },
+      after: target === 'on'
+        ? { colonyId: colony.id, colonyCode: colony.code, tagCode: sp.tagCode, putOnOn: sp.putOnOn, voidedAt: voidedAt.toISOString() }
+        : { colonyId: colony.id, colonyCode: colony.code, tagCode: sp.tagCode, pulledOn: sp.pulledOn, voidedAt: voidedAt.toISOString(), reflaggedNeighbours: reflagged },
       reason: why,
     }, t);
     return { id: sp.id, colonyId: colony.id, void: { at: voidedAt.toISOString(), byName: actor?.name ?? null, reason: why }, reflagged };

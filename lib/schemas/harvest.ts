@@ -158,8 +158,10 @@ export const pullBatch = z.object({ entries: z.array(pullEntry).min(1, 'Nothing 
 /** A pull recorded by mistake is voided with a reason, never edited or deleted. */
 export const voidPullInput = z.object({
   superPullId: id,
-  reason: z.string({ error: 'Say why this pull is being voided.' }).trim()
-    .min(3, 'Say why this pull is being voided (at least 3 characters).')
+  /** What the keeper saw: a recorded pull, or a super still on the hive ("super on" entered by mistake). */
+  record: z.enum(['pull', 'on'], { error: 'Choose a pull or a super-on record.' }).default('pull'),
+  reason: z.string({ error: 'Say why this record is being voided.' }).trim()
+    .min(3, 'Say why this record is being voided (at least 3 characters).')
     .max(500, 'Keep the reason to 500 characters or fewer.'),
 });
 export type VoidPullInput = z.input<typeof voidPullInput>;

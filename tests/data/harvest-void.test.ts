@@ -3,15 +3,16 @@ import { closeDb, getDb } from '@/lib/db';
 import { DEMO, setRequestHeaders, signInAs } from '../support/session';
 import { harvestFixture, key } from './harvest-fixtures';
 import { recordPullsAction } from '@/app/(back-office)/admin/yards/actions';
-import { addFeedingAction } from '@/app/(back-office)/admin/colonies/actions';
+import { addFeedingAction, superOnAction } from '@/app/(back-office)/admin/colonies/actions';
 import { voidSuperPullAction } from '@/app/(back-office)/admin/supers/actions';
 import { createLotAction, pickSupersAction, scanSuperAction } from '@/app/(back-office)/admin/lots/actions';
 import { GET as listPullsRoute } from '@/app/api/super-pulls/route';
 import { addSupersById, listPullableSupers } from '@/lib/data/lot-supers';
-import { getColony } from '@/lib/data/colonies';
+import { createColony, getColony } from '@/lib/data/colonies';
 import { colonyTimeline } from '@/lib/data/colony-timeline';
 import { getSeasonReport } from '@/lib/data/yield-report';
-import { voidSuperPull, type PullRow } from '@/lib/data/super-pulls';
+import { listColonySupers, voidSuperPull, type PullRow } from '@/lib/data/super-pulls';
+import { down as undoVoidPutOn } from '@/migrations/20261203000500-void-put-on';
 
 afterAll(closeDb);
 beforeEach(() => setRequestHeaders({}));
@@ -193,7 +194,7 @@ describe('refusals change nothing', () => {
     await signInAs(DEMO.keeper);
     const id = await pull(f.a3, '2026-07-28');
     const cases: [unknown, RegExp][] = [
-      [undefined, /^Say why this pull is being voided\.$/],
+      [undefined, /^Say why this record is being voided\.$/],
       ['  ab  ', /at least 3 characters/],
       ['x'.repeat(501), /500 characters or fewer/],
     ];
@@ -219,5 +220,114 @@ describe('the database holds the rules whatever the app does', () => {
     await expect(sql(`UPDATE super_pulls SET void_reason = 'rewritten later' WHERE id = :id`)).rejects.toThrow(/stays voided/);
     const [[lot]] = (await sequelize.query(`SELECT id FROM lots ORDER BY id LIMIT 1`)) as [{ id: number }[], unknown];
     await expect(sql(`UPDATE super_pulls SET lot_id = ${lot.id} WHERE id = :id`)).rejects.toThrow(/super_pulls_void_state_ck/);
+  });
+});
+
+describe('a super-on record entered by mistake can be voided too', () => {
+  /** A fresh colony in yard A (keeper A) per test: no other supers on it. */
+  let n = 0;
+  const freshColony = () => createColony({ id: f.owner.id, role: 'owner' }, {
+    code: `VOI-ON${++n}`, yardId: f.yardA, keeperId: f.keeperA.id, origin: 'nucleus', parentColonyId: null, queenYear: 2025, startedOn: '2026-04-01', notes: '',
+  });
+  async function putOn(colonyId: number, putOnOn: string, extra: Record<string, unknown> = {}): Promise<number> {
+    const r = await superOnAction({ colonyId, depth: 'medium', frameCount: 10, tagCode: '', putOnOn, idempotencyKey: key(), ...extra });
+    if (!r.ok) throw new Error(`put-on not recorded: ${JSON.stringify(r)}`);
+    return (r.data as { id: number }).id;
+  }
+  const onAudits = (id: number) => getDb().models.AuditEntry.findAll({ where: { action: 'super.on.void', entityType: 'super_pull', entityId: String(id) } });
+  const onHive = async (colonyId: number) => (await listColonySupers(colonyId)).filter((s) => !s.pulledOn && !s.voided).map((s) => s.id);
+
+  it('the keeper voids their own mistaken put-on: voided, audited, no longer on the hive, and the next pulls do not close it', async () => {
+    await signInAs(DEMO.keeper);
+    const c = await freshColony();
+    const mistake = await putOn(c, '2026-06-01', { tagCode: 'VOI-ON-T1' });
+    const real = await putOn(c, '2026-06-10');
+    expect(await onHive(c)).toEqual([real, mistake]);
+
+    const r = await voidSuperPullAction({ superPullId: mistake, record: 'on', reason: ' Put on the wrong colony in the app ' });
+    expect(r).toMatchObject({ ok: true, data: { id: mistake, colonyId: c, reflagged: 0, void: { reason: 'Put on the wrong colony in the app', byName: f.keeperA.name } } });
+    expect(await row(mistake)).toMatchObject({ voidedByUserId: f.keeperA.id, voidReason: 'Put on the wrong colony in the app', pulledOn: null, putOnOn: '2026-06-01' });
+    const audits = await onAudits(mistake);
+    expect(audits).toHaveLength(1);
+    expect(audits[0]).toMatchObject({ actorUserId: f.keeperA.id, reason: 'Put on the wrong colony in the app' });
+    expect(audits[0].after).toMatchObject({ colonyId: c, tagCode: 'VOI-ON-T1', putOnOn: '2026-06-01' });
+
+    // Not on the hive any more: not in the colony's supers on, shown voided in the timeline with no button.
+    expect(await onHive(c)).toEqual([real]);
+    const timeline = await colonyTimeline(c, (g) => `${g} g`);
+    expect(timeline.find((e) => e.key === `on-${mistake}`)).toMatchObject({ voided: { reason: 'Put on the wrong colony in the app' }, voidableOnId: undefined });
+    expect(timeline.find((e) => e.key === `on-${real}`)?.voidableOnId).toBe(real);
+
+    // The next pull closes the real super (the voided one was put on earlier and would have been chosen).
+    expect(await pull(c, '2026-07-01')).toBe(real);
+    // With nothing left on, a pull is a new row; a pull naming the voided super's tag does not close it either.
+    const next = await pull(c, '2026-07-02');
+    const tagged = await pull(c, '2026-07-03', { tagCode: 'VOI-ON-T1' });
+    expect(new Set([mistake, real, next, tagged]).size).toBe(4);
+    expect(await row(next)).toMatchObject({ putOnOn: null, pulledOn: '2026-07-02' });
+    expect(await row(mistake)).toMatchObject({ pulledOn: null, pullKey: null });
+    // Its tag is free: the same super can go on a hive again.
+    const again = await putOn(c, '2026-07-05', { tagCode: 'VOI-ON-T1' });
+    expect(await onHive(c)).toEqual([again]);
+  });
+
+  it('a late retry of the voided put-on returns the same voided row and never puts a new super on', async () => {
+    await signInAs(DEMO.keeper);
+    const c = await freshColony();
+    const entry = { colonyId: c, depth: 'medium', frameCount: 10, tagCode: 'VOI-ON-T2', putOnOn: '2026-06-05', idempotencyKey: key() } as const;
+    const first = await superOnAction(entry);
+    if (!first.ok) throw new Error('put-on not recorded');
+    const id = (first.data as { id: number }).id;
+    expect(await voidSuperPullAction({ superPullId: id, record: 'on', reason: 'Tapped twice by mistake' })).toMatchObject({ ok: true });
+    const retry = await superOnAction(entry);
+    expect(retry).toMatchObject({ ok: true, data: { id } });
+    expect(await getDb().models.SuperPull.count({ where: { colonyId: c } })).toBe(1);
+    expect((await row(id))?.voidedAt).toBeInstanceOf(Date);
+    expect(await onHive(c)).toEqual([]);
+  });
+
+  it('another keeper’s put-on is not found (404); crew and customers are refused; nothing changes', async () => {
+    await signInAs(DEMO.keeper2);
+    const theirs = await putOn(f.b1, '2026-06-03');
+    await signInAs(DEMO.keeper);
+    expect(await voidSuperPullAction({ superPullId: theirs, record: 'on', reason: 'Not mine to void' })).toEqual({ ok: false, message: 'No such super-on record.' });
+    for (const who of [DEMO.crew, DEMO.customer]) {
+      await signInAs(who);
+      expect(await voidSuperPullAction({ superPullId: theirs, record: 'on', reason: 'Not allowed at all' })).toMatchObject({ ok: false, message: expect.stringMatching(/not allowed/) });
+    }
+    expect((await row(theirs))?.voidedAt).toBeNull();
+    expect(await onAudits(theirs)).toHaveLength(0);
+    // The owner may void any keeper's.
+    await signInAs(DEMO.owner);
+    expect(await voidSuperPullAction({ superPullId: theirs, record: 'on', reason: 'Keeper asked by phone' })).toMatchObject({ ok: true });
+    expect((await row(theirs))?.voidedByUserId).toBe(f.owner.id);
+  });
+
+  it('voiding twice is a 409 "already voided"; a super pulled meanwhile is a 409 and stays counted', async () => {
+    await signInAs(DEMO.keeper);
+    const c = await freshColony();
+    const id = await putOn(c, '2026-06-07');
+    expect(await voidSuperPullAction({ superPullId: id, record: 'on', reason: 'Wrong colony' })).toMatchObject({ ok: true });
+    expect(await voidSuperPullAction({ superPullId: id, record: 'on', reason: 'Wrong colony again' })).toEqual({ ok: false, message: 'This super-on record is already voided.' });
+    expect(await onAudits(id)).toHaveLength(1);
+
+    const pulledMeanwhile = await putOn(c, '2026-06-08');
+    expect(await pull(c, '2026-07-08')).toBe(pulledMeanwhile);
+    const r = await voidSuperPullAction({ superPullId: pulledMeanwhile, record: 'on', reason: 'Saw it still on a minute ago' });
+    expect(r).toMatchObject({ ok: false, message: expect.stringMatching(/was pulled on 2026-07-08.*void the pull/) });
+    expect((await row(pulledMeanwhile))?.voidedAt).toBeNull();
+  });
+
+  it('the database allows a voided put-on but still never a voided row in a lot; undoing the migration refuses while one exists', async () => {
+    await signInAs(DEMO.keeper);
+    const c = await freshColony();
+    const id = await putOn(c, '2026-06-09');
+    expect(await voidSuperPullAction({ superPullId: id, record: 'on', reason: 'Entered on the wrong day' })).toMatchObject({ ok: true });
+    const { sequelize } = getDb();
+    const [[lot]] = (await sequelize.query(`SELECT id FROM lots ORDER BY id LIMIT 1`)) as [{ id: number }[], unknown];
+    await expect(sequelize.query(`UPDATE super_pulls SET lot_id = :lot WHERE id = :id`, { replacements: { id, lot: lot.id } })).rejects.toThrow(/super_pulls_void_state_ck/);
+    await expect(undoVoidPutOn({ context: sequelize.getQueryInterface() })).rejects.toThrow(/Cannot undo 20261203000500-void-put-on: .*voided super-on record/);
+    const [[still]] = (await sequelize.query(`SELECT pg_get_constraintdef(oid) AS def FROM pg_constraint WHERE conname = 'super_pulls_void_state_ck'`)) as [{ def: string }[], unknown];
+    expect(still.def).not.toMatch(/pulled_on/);
   });
 });

@@ -11,9 +11,9 @@ export const createTagBatchAction = guardedAction('superTags.print', tagBatchInp
   return { ok: true, data: r };
 });
 
-/** A pull recorded by mistake: voided with a reason (owner, or the keeper of the colony's yard). */
+/** A pull, or a super still on the hive, recorded by mistake: voided with a reason (owner, or the keeper of the colony's yard). */
 export const voidSuperPullAction = guardedAction('supers.write', voidPullInput, async (user, data) => {
-  const r = await voidSuperPull(user, data.superPullId, data.reason);
+  const r = await voidSuperPull(user, data.superPullId, data.reason, data.record);
   revalidatePath('/admin/supers');
   revalidatePath(`/admin/colonies/${r.colonyId}`);
   return { ok: true, data: r };

@@ -47,6 +47,7 @@ export default async function ColonyPage({ params }: { params: Promise<{ id: str
   const write = can(user.role, 'colonies.write');
   const canVoid = can(user.role, 'supers.write');
   const voidedOn = (at: string) => localDate(new Date(at), settings.timeZone);
+  const superOnWhat = (s: { putOnOn: string | null; tagCode: string | null }) => `the super on${s.putOnOn ? ` of ${s.putOnOn}` : ''}${s.tagCode ? `, tag ${s.tagCode}` : ''}`;
   const [kinds, yards] = write ? await Promise.all([listTreatmentKinds(true), listYardChoices(user)]) : [[], []];
   const endFeeding = async (feedingId: number, endedOn: string) => { 'use server'; return endFeedingAction({ colonyId: colony.id, feedingId, endedOn }); };
   const endTreatment = async (treatmentId: number, removedOn: string) => { 'use server'; return endTreatmentAction({ colonyId: colony.id, treatmentId, removedOn }); };
@@ -85,14 +86,23 @@ export default async function ColonyPage({ params }: { params: Promise<{ id: str
                   const strike = (x: React.ReactNode) => (s.voided ? <s className="text-ink-soft">{x}</s> : x);
                   return (
                     <tr key={s.id}>
-                      <td>{s.pulledOn ? strike(s.pulledOn) : <Chip tone="info">on hive</Chip>}{s.putOnOn ? <div className="hint">on {s.putOnOn}</div> : null}</td>
+                      <td>
+                        {s.pulledOn ? strike(s.pulledOn) : s.voided ? <span className="text-ink-soft">not on the hive</span> : <Chip tone="info">on hive</Chip>}
+                        {s.putOnOn ? <div className="hint">{strike(`on ${s.putOnOn}`)}</div> : null}
+                      </td>
                       <td>{strike(`${s.depth}, ${s.frameCount} fr.`)}</td>
                       <td>{strike(s.tagCode ?? '—')}</td>
                       <td className="num">{strike(s.fullGrams ? fmt(s.fullGrams) : s.cappedFrames != null ? `~${s.cappedFrames} capped fr.` : '—')}</td>
                       <td>
                         {s.voided
                           ? <div className="flex flex-col items-start gap-1"><Chip tone="warn">voided</Chip><VoidedNote v={s.voided} date={voidedOn(s.voided.at)} /></div>
-                          : s.pulledOn ? <FlagCell flagged={s.flagged} reasons={s.flagReasons} /> : <span className="hint">checked when pulled</span>}
+                          : s.pulledOn ? <FlagCell flagged={s.flagged} reasons={s.flagReasons} />
+                            : (
+                              <div className="flex flex-col items-start gap-1">
+                                <span className="hint">checked when pulled</span>
+                                {canVoid ? <VoidPullButton record="on" superPullId={s.id} what={superOnWhat(s)} onVoid={voidSuperPullAction} /> : null}
+                              </div>
+                            )}
                       </td>
                     </tr>
                   );
@@ -118,6 +128,7 @@ export default async function ColonyPage({ params }: { params: Promise<{ id: str
                   <div className="hint">recorded by {e.by ?? 'unknown'}</div>
                   {e.voided ? <div><VoidedNote v={e.voided} date={voidedOn(e.voided.at)} /></div> : null}
                   {canVoid && e.voidablePullId ? <VoidPullButton superPullId={e.voidablePullId} what={`the pull of ${e.on}`} onVoid={voidSuperPullAction} /> : null}
+                  {canVoid && e.voidableOnId ? <VoidPullButton record="on" superPullId={e.voidableOnId} what={`the super on of ${e.on}`} onVoid={voidSuperPullAction} /> : null}
                   {write && e.openFeedingId ? <EndRecordForm label="End feeding" today={today} onEnd={endFeeding.bind(null, e.openFeedingId)} /> : null}
                   {write && e.openTreatmentId ? <><TreatmentCaution /><EndRecordForm label="Record removal" today={today} onEnd={endTreatment.bind(null, e.openTreatmentId)} /></> : null}
                 </li>
