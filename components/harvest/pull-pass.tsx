@@ -212,19 +212,12 @@ export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardNam
   const summary = [
     waiting ? `${supers(waiting)} waiting to send — saved on this phone.` : '',
     waiting && !online ? 'No signal: they will be sent when there is one.' : '',
-    refused ? `${supers(refused)} not recorded: see below.` : '',
+    refused ? `${supers(refused)} not recorded: see the marked entries.` : '',
     storageFailed ? 'This browser would not keep unsent supers: keep this page open until they are sent.' : '',
   ].filter(Boolean).join(' ');
+  const attention = summary !== '';
   return (
     <div className="space-y-4">
-      <div id="pull-summary" tabIndex={-1} className={summary ? 'flex flex-wrap items-center gap-3 rounded-card border border-warn-fg bg-warn-bg p-4 text-warn-fg' : 'sr-only'}>
-        <p role="status" className={summary ? 'min-w-0 flex-1 text-sm font-semibold' : ''}>{summary}</p>
-        {waiting ? (
-          <button type="button" className="btn-secondary min-h-11" disabled={draining || !ready} onClick={() => void sendWaiting()}>
-            {draining ? 'Sending…' : 'Send now'}
-          </button>
-        ) : null}
-      </div>
       <fieldset className="card grid gap-3">
         <legend className="sr-only">For every super in this pass</legend>
         <label className="field" htmlFor="pull-date"><span>Pulled on</span>
@@ -240,7 +233,6 @@ export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardNam
           <input id="pull-frames" className="input min-h-11" inputMode="numeric" value={frames} onChange={(e) => chooseFrames(e.target.value)} />
         </label>
       </fieldset>
-      <p role="status" className="text-sm text-ink-soft">{total === 0 ? 'Tap a colony once for each super you take off it.' : `${total} ${total === 1 ? 'super' : 'supers'} recorded in this pass.`}</p>
       {elsewhere.length ? (
         <section aria-labelledby="pull-elsewhere" className="card">
           <h2 id="pull-elsewhere" className="font-heading text-lg font-bold">Other colonies</h2>
@@ -281,6 +273,24 @@ export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardNam
           );
         })}
       </ul>
+      {/*
+        The pass's status bar: always there, at the foot of the pass and held at the bottom of the
+        screen while the list scrolls. What is waiting on the phone shows here, so nothing appears
+        above the colonies and moves them under the keeper's thumb; "Send now" keeps its place.
+      */}
+      <div
+        id="pull-summary" tabIndex={-1}
+        className={`sticky bottom-0 z-10 flex min-h-21 items-center gap-3 rounded-card border p-3 shadow-lg ${attention ? 'border-warn-fg bg-warn-bg text-warn-fg' : 'border-line bg-paper-raised text-ink-soft'}`}
+      >
+        <div className="min-w-0 flex-1 text-sm">
+          <p role="status">{total === 0 ? 'Tap a colony once for each super you take off it.' : `${total} ${total === 1 ? 'super' : 'supers'} recorded in this pass.`}</p>
+          <p role="status" className={summary ? 'font-semibold' : 'sr-only'}>{summary}</p>
+        </div>
+        {/* Room for the count and two lines of news, and the button's place kept when there is nothing to send: the bar keeps its shape. */}
+        <button type="button" className={`btn-secondary min-h-11 shrink-0 ${waiting ? '' : 'invisible'}`} disabled={!waiting || draining || !ready} onClick={() => void sendWaiting()}>
+          {draining ? 'Sending…' : 'Send now'}
+        </button>
+      </div>
     </div>
   );
 }

@@ -58,11 +58,16 @@ describe('keeper in a yard with no signal', () => {
     const page = await browser.newPage();
     await openPass(page);
     await browser.setOffline(true);
+    // Where the first colony sits on the page: news of supers waiting must not push the list down under the thumb.
+    const topOfFirst = () => colony(page, 'OF-01').evaluate((el) => Math.round(el.getBoundingClientRect().top + window.scrollY));
+    const before = await topOfFirst();
     for (const code of ['OF-01', 'OF-02']) {
       await tap(page, code).click();
       await colony(page, code).getByText(`Super 1: ${KEPT}`).waitFor();
     }
     await page.getByRole('status').filter({ hasText: `2 supers ${KEPT}.` }).waitFor();
+    expect(await topOfFirst()).toBe(before);
+    expect(await page.getByRole('button', { name: 'Send now' }).isVisible()).toBe(true);
     expect(await page.getByRole('status').filter({ hasText: 'No signal' }).count()).toBe(1);
     // Offline taps never block the next one.
     expect(await page.getByRole('button', { name: 'Pulled another super from OF-01' }).isEnabled()).toBe(true);
