@@ -211,7 +211,7 @@ export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardNam
   const elsewhere = shown.filter((x) => !here.has(x.entry.colonyId));
   const summary = [
     waiting ? `${supers(waiting)} waiting to send — saved on this phone.` : '',
-    waiting && !online ? 'No signal: they will be sent when there is one.' : '',
+    waiting && !online ? 'No signal: they go as soon as there is one.' : '',
     refused ? `${supers(refused)} not recorded: see the marked entries.` : '',
     storageFailed ? 'This browser would not keep unsent supers: keep this page open until they are sent.' : '',
   ].filter(Boolean).join(' ');
