@@ -56,3 +56,16 @@ describe('errors and logs (issue 8 §10, ASVS 16)', () => {
     expect(logged).toContain(`[auth] refused settings.manage user=${keeper!.id} role=keeper`);
   });
 });
+
+describe('the session cookie (ASVS 3.3)', () => {
+  it('is HttpOnly and SameSite=Lax always, and Secure with the __Secure- prefix when the app is served over https', async () => {
+    const { sessionCookie, authOptions } = await import('@/lib/auth/options');
+    expect(sessionCookie('https://shop.example')).toEqual({
+      name: '__Secure-next-auth.session-token', options: { httpOnly: true, sameSite: 'lax', path: '/', secure: true },
+    });
+    expect(sessionCookie('http://127.0.0.1:3100')).toEqual({
+      name: 'next-auth.session-token', options: { httpOnly: true, sameSite: 'lax', path: '/', secure: false },
+    });
+    expect(authOptions.cookies?.sessionToken?.options.httpOnly).toBe(true);
+  });
+});

@@ -133,8 +133,8 @@ describe('security headers (ASVS 3.4)', () => {
       const cookie = (await browser.cookies()).find((c) => /next-auth\.session-token$/.test(c.name));
       expect(cookie?.httpOnly).toBe(true);
       expect(cookie?.sameSite).toBe('Lax');
-      // Over plain http (this test server) the cookie cannot be Secure; next-auth sets Secure and the
-      // __Secure- prefix itself when NEXTAUTH_URL is https (README "Production notes").
+      // Over plain http (this test server) the cookie cannot be Secure; over https it is, with the
+      // __Secure- prefix (sessionCookie in lib/auth/options.ts, tests/data/errors-and-logs.test.ts).
       tokens.push(cookie?.value ?? '');
     }
     expect(tokens[0]).not.toBe('');
