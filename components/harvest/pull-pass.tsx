@@ -141,14 +141,20 @@ export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardNam
     return out.kind;
   }, [keep]);
 
+  /** Reads what this user has waiting on this phone and shows the entries the page does not show yet. */
+  const restore = useCallback((): WaitingPull[] => {
+    const stored = readWaiting(localStorage, storeKey);
+    setShown((s) => [...s, ...notShown(stored, new Set(s.map((x) => x.key))).map(fromStored)]);
+    return stored;
+  }, [storeKey]);
+
   /** Sends everything this user has waiting on this phone, one at a time; stops at the first entry that gets no answer. */
   const sendWaiting = useCallback(async () => {
     if (drainingRef.current) return;
     drainingRef.current = true;
     setDraining(true);
     try {
-      const stored = readWaiting(localStorage, storeKey);
-      setShown((s) => [...s, ...notShown(stored, new Set(s.map((x) => x.key))).map(fromStored)]);
+      const stored = restore();
       for (const w of toSend(stored, inFlight.current)) {
         if ((await send(w.entry)) === 'waiting') break;
       }
@@ -156,7 +162,7 @@ export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardNam
       drainingRef.current = false;
       setDraining(false);
     }
-  }, [send, storeKey]);
+  }, [send, restore]);
 
   useEffect(() => {
     const d = localStorage.getItem(DEPTH_KEY);
@@ -167,8 +173,7 @@ export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardNam
 
   // Restore what is waiting on this phone, send it if there is a connection, and again whenever the connection comes back.
   useEffect(() => {
-    const stored = readWaiting(localStorage, storeKey);
-    setShown((s) => [...s, ...notShown(stored, new Set(s.map((x) => x.key))).map(fromStored)]);
+    const stored = restore();
     setOnline(navigator.onLine);
     setReady(true);
     if (navigator.onLine && toSend(stored).length) void sendWaiting();
@@ -177,7 +182,7 @@ export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardNam
     window.addEventListener('online', up);
     window.addEventListener('offline', down);
     return () => { window.removeEventListener('online', up); window.removeEventListener('offline', down); };
-  }, [storeKey, sendWaiting]);
+  }, [restore, sendWaiting]);
 
   const chooseDepth = (d: Depth) => { setDepth(d); localStorage.setItem(DEPTH_KEY, d); };
   const chooseFrames = (f: string) => { setFrames(f); if (/^\d{1,2}$/.test(f)) localStorage.setItem(FRAMES_KEY, f); };
