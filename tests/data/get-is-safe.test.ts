@@ -5,7 +5,8 @@ import { POST as uploadLabFile } from '@/app/api/lots/[id]/lab-files/route';
 import { POST as uploadPhoto } from '@/app/api/products/[id]/photo/route';
 import { DEMO, signInAs, setRequestHeaders } from '../support/session';
 import { dbFingerprint } from '../support/db-fingerprint';
-import type { RouteFn } from '../support/matrix-calls';
+import { urlFor, type RouteFn } from '../support/matrix-calls';
+import { TINY_PDF, TINY_PNG } from '../support/files';
 
 afterAll(closeDb);
 
@@ -35,13 +36,11 @@ beforeAll(async () => {
   const lotId = await one(`SELECT id FROM lots ORDER BY id LIMIT 1`);
   const productId = await one(`SELECT id FROM products ORDER BY id LIMIT 1`);
   // A lab file and a product photo to read back (uploaded before the fingerprint is taken).
-  const pdf = new TextEncoder().encode('%PDF-1.4\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n');
   const lab = new FormData();
-  lab.set('file', new File([pdf], 'pollen.pdf', { type: 'application/pdf' }));
+  lab.set('file', new File([TINY_PDF], 'pollen.pdf', { type: 'application/pdf' }));
   expect((await uploadLabFile(new Request(`http://t/api/lots/${lotId}/lab-files`, { method: 'POST', body: lab }), { params: Promise.resolve({ id: String(lotId) }) })).status).toBe(201);
-  const png = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000000000005000177a4b6a10000000049454e44ae426082', 'hex');
   const photo = new FormData();
-  photo.set('photo', new File([png], 'jar.png', { type: 'image/png' }));
+  photo.set('photo', new File([TINY_PNG], 'jar.png', { type: 'image/png' }));
   expect((await uploadPhoto(new Request(`http://t/api/products/${productId}/photo`, { method: 'POST', body: photo }), { params: Promise.resolve({ id: String(productId) }) })).status).toBe(201);
 
   const orderId = await one(`SELECT id FROM orders WHERE status <> 'pending' ORDER BY id LIMIT 1`);
@@ -71,9 +70,9 @@ beforeAll(async () => {
 });
 
 async function call(file: string, fn: RouteFn, c: Call): Promise<number> {
-  const path = file.replace(/^app/, '').replace(/\/route\.ts$/, '').replace(/\/\([^)]+\)/g, '').replace(/\[([^\]]+)\]/g, (_, k: string) => c.params?.[k] ?? '');
+  const params = c.params ?? {};
   try {
-    const res = await fn(new Request(`http://127.0.0.1:3100${path}${c.query ?? ''}`), { params: Promise.resolve(c.params ?? {}) });
+    const res = await fn(new Request(urlFor(file, params) + (c.query ?? '')), { params: Promise.resolve(params) });
     await res.arrayBuffer(); // streamed PDFs and CSVs do their work while they are read
     return res.status;
   } catch (err) {

@@ -4,6 +4,7 @@ import { DEMO, signInAs } from '@/tests/support/session';
 import { saveProductAction } from '@/app/(back-office)/admin/products/actions';
 import { GET as photoGet, POST as photoPost } from '@/app/api/products/[id]/photo/route';
 import { isValidGtin, makeGtin } from '@/lib/domain/gs1';
+import { TINY_PNG } from '../support/files';
 
 afterAll(closeDb);
 
@@ -52,7 +53,7 @@ describe('products', () => {
   });
 
   describe('photo upload', () => {
-    const png = new Uint8Array(Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000000000005000177a4b6a10000000049454e44ae426082', 'hex'));
+    const png = TINY_PNG;
     async function upload(id: number, bytes: Uint8Array<ArrayBuffer>, type: string, name = 'photo.png') {
       const form = new FormData();
       form.set('photo', new File([bytes], name, { type }));

@@ -10,6 +10,7 @@ import { getLotDetail } from '@/lib/data/lot-detail';
 import { currentUser } from '@/lib/auth/session';
 import { DEMO, signInAs } from '../support/session';
 import { makePulledSupers } from '../support/lot-fixtures';
+import { TINY_PDF } from '../support/files';
 
 afterAll(closeDb);
 
@@ -143,7 +144,7 @@ describe('moisture and release', () => {
 });
 
 describe('lab files', () => {
-  const pdf = new TextEncoder().encode('%PDF-1.4\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n');
+  const pdf = TINY_PDF;
   it('stores a PDF with its checksum and serves it as an attachment with nosniff', async () => {
     const lot = await extractedLot(17);
     const res = await upload(lot.id, pdf, 'lab report.pdf', 'application/pdf', { hmfMgKg: '12', diastaseSchade: '14' });
