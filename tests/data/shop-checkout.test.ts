@@ -3,7 +3,7 @@ import { closeDb, getDb } from '@/lib/db';
 import { POST as checkoutPOST } from '@/app/api/checkout/route';
 import { releaseOverdueReservations } from '@/lib/data/orders';
 import { signInAs, setRequestHeaders } from '../support/session';
-import { guest, hook, makeProduct, startShopFake, stockOf, waitUntil, type ShopFake } from '../support/shop';
+import { guest, hook, makeProduct, orderOf, startShopFake, stockOf, waitUntil, type ShopFake } from '../support/shop';
 
 let shop: ShopFake;
 beforeAll(async () => { shop = await startShopFake(); });
@@ -11,7 +11,6 @@ afterAll(async () => { await shop?.close(); await closeDb(); });
 beforeEach(async () => { setRequestHeaders({}); await signInAs(null); });
 
 const post = (body: unknown) => checkoutPOST(new Request('http://127.0.0.1/api/checkout', { method: 'POST', body: JSON.stringify(body) }));
-const orderOf = (number: string) => getDb().models.Order.findOne({ where: { number } });
 
 describe('checkout', () => {
   it('reserves oldest best-before first at our price, whatever the browser says', async () => {

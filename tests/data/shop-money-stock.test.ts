@@ -5,7 +5,7 @@ import { closeDb, getDb } from '@/lib/db';
 import { POST as checkoutPOST } from '@/app/api/checkout/route';
 import { POST as webhookPOST } from '@/app/api/stripe/webhook/route';
 import { signInAs, setRequestHeaders } from '../support/session';
-import { guest, hook, makeProduct, SHOP_WEBHOOK_SECRET, startShopFake, stockOf, waitUntil, type ShopFake } from '../support/shop';
+import { guest, hook, makeProduct, orderOf, SHOP_WEBHOOK_SECRET, startOrder, startShopFake, stockOf, waitUntil, type ShopFake } from '../support/shop';
 
 // Issue 8 §11 "Money and stock": multi-line checkouts under contention, and a webhook whose
 // handling fails once and is redelivered. Each story ends with exactly one effect.
@@ -28,13 +28,6 @@ const signer = new Stripe('sk_test_signer');
 const select = <T extends object>(sql: string, replacements: Record<string, unknown> = {}) =>
   getDb().sequelize.query<T>(sql, { type: QueryTypes.SELECT, replacements });
 const post = (items: Item[]) => checkoutPOST(new Request('http://127.0.0.1/api/checkout', { method: 'POST', body: JSON.stringify(guest(items)) }));
-const orderOf = (number: string) => getDb().models.Order.findOne({ where: { number } });
-
-async function startOrder(items: Item[]) {
-  const res = await post(items);
-  expect(res.status).toBe(200);
-  return (await orderOf(((await res.json()) as { number: string }).number))!;
-}
 
 function deliver(event: Stripe.Event) {
   const payload = JSON.stringify(event, null, 2);

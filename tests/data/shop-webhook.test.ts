@@ -7,7 +7,7 @@ import { cancelOrderAction, markPackedAction, refundOrderAction } from '@/app/(b
 import { getOrderForViewer } from '@/lib/data/orders-read';
 import { orderToken } from '@/lib/payments/order-token';
 import { DEMO, signInAs, setRequestHeaders } from '../support/session';
-import { guest, hook, makeProduct, SHOP_WEBHOOK_SECRET, startShopFake, stockOf, waitUntil, type ShopFake } from '../support/shop';
+import { guest, hook, makeProduct, orderOf, SHOP_WEBHOOK_SECRET, startOrder, startShopFake, stockOf, waitUntil, type ShopFake } from '../support/shop';
 
 let shop: ShopFake;
 beforeAll(async () => { shop = await startShopFake(); });
@@ -19,15 +19,7 @@ beforeEach(async () => {
 });
 
 const signer = new Stripe('sk_test_signer');
-const orderOf = (number: string) => getDb().models.Order.findOne({ where: { number } });
 const count = (table: string) => getDb().sequelize.query(`SELECT count(*)::int AS n FROM ${table}`, { plain: true }).then((r) => (r as { n: number }).n);
-
-async function startOrder(productId: number, quantity: number) {
-  const res = await checkoutPOST(new Request('http://127.0.0.1/api/checkout', { method: 'POST', body: JSON.stringify(guest([{ productId, quantity }])) }));
-  expect(res.status).toBe(200);
-  const { number } = (await res.json()) as { number: string };
-  return (await orderOf(number))!;
-}
 
 function deliver(payload: string, signature: string) {
   return webhookPOST(new Request('http://127.0.0.1/api/stripe/webhook', { method: 'POST', headers: { 'stripe-signature': signature }, body: payload }));
@@ -45,7 +37,7 @@ async function pay(sessionId: string, card = '4242424242424242') {
 describe('the Stripe webhook', () => {
   it('marks the order paid, sells the reserved jars and queues the confirmation with lot codes', async () => {
     const p = await makeProduct('paid', [2, 5]);
-    const order = await startOrder(p.productId, 3);
+    const order = await startOrder([{ productId: p.productId, quantity: 3 }]);
     expect((await pay(order.stripeSessionId!)).status).toBe(200);
     const paid = await waitUntil(() => orderOf(order.number), (o) => o?.status === 'paid');
     expect(paid?.paymentIntentId).toMatch(/^pi_/);
@@ -62,7 +54,7 @@ describe('the Stripe webhook', () => {
 
   it('a replayed event changes nothing', async () => {
     const p = await makeProduct('replay', [5]);
-    const order = await startOrder(p.productId, 2);
+    const order = await startOrder([{ productId: p.productId, quantity: 2 }]);
     await pay(order.stripeSessionId!);
     await waitUntil(() => orderOf(order.number), (o) => o?.status === 'paid');
     const event = await paidEventFor(order.stripeSessionId!);
@@ -78,7 +70,7 @@ describe('the Stripe webhook', () => {
 
   it('a bad signature is a 400 and changes nothing', async () => {
     const p = await makeProduct('badsig', [5]);
-    const order = await startOrder(p.productId, 2);
+    const order = await startOrder([{ productId: p.productId, quantity: 2 }]);
     // A forged "paid" event for a real, unpaid order: tampered body, wrong secret, no header, too old.
     const forged = JSON.stringify({ id: 'evt_forged_1', object: 'event', type: 'checkout.session.completed', data: { object: { id: order.stripeSessionId, object: 'checkout.session', payment_status: 'paid', metadata: { orderId: String(order.id) }, payment_intent: 'pi_forged' } } });
     const events = await count('stripe_events');
@@ -94,7 +86,7 @@ describe('the Stripe webhook', () => {
   it('events delivered twice are applied once', async () => {
     await fetch(`${shop.fake.url}/_fake/config`, { method: 'POST', body: JSON.stringify({ deliverTwice: true }) });
     const p = await makeProduct('twice', [5]);
-    const order = await startOrder(p.productId, 2);
+    const order = await startOrder([{ productId: p.productId, quantity: 2 }]);
     await pay(order.stripeSessionId!);
     await waitUntil(async () => shop.webhookStatuses.length, () => false, 600);
     expect((await orderOf(order.number))?.status).toBe('paid');
@@ -104,7 +96,7 @@ describe('the Stripe webhook', () => {
 
   it('an expiry that arrives after the payment is ignored', async () => {
     const p = await makeProduct('late-expiry', [5]);
-    const order = await startOrder(p.productId, 2);
+    const order = await startOrder([{ productId: p.productId, quantity: 2 }]);
     await pay(order.stripeSessionId!);
     await waitUntil(() => orderOf(order.number), (o) => o?.status === 'paid');
     const expired = { ...(await paidEventFor(order.stripeSessionId!)), id: 'evt_late_expiry_' + order.id, type: 'checkout.session.expired' };
@@ -118,7 +110,7 @@ describe('the Stripe webhook', () => {
   it('a payment after the order was cancelled takes the jars again when there are enough', async () => {
     await signInAs(DEMO.crew);
     const p = await makeProduct('late-pay', [5]);
-    const order = await startOrder(p.productId, 2);
+    const order = await startOrder([{ productId: p.productId, quantity: 2 }]);
     const sessionId = order.stripeSessionId!;
     // Stripe's session stays payable in this story: cancel only our side, then the buyer pays.
     await getDb().models.Order.update({ stripeSessionId: null }, { where: { id: order.id } });
@@ -133,14 +125,14 @@ describe('the Stripe webhook', () => {
 
   it('a payment after release with no jars left is flagged for a refund, not oversold', async () => {
     const p = await makeProduct('late-none', [2]);
-    const order = await startOrder(p.productId, 2);
+    const order = await startOrder([{ productId: p.productId, quantity: 2 }]);
     const sessionId = order.stripeSessionId!;
     await getDb().models.Order.update({ stripeSessionId: null }, { where: { id: order.id } });
     await signInAs(DEMO.crew);
     await cancelOrderAction({ orderId: order.id });
     await getDb().models.Order.update({ stripeSessionId: sessionId }, { where: { id: order.id } });
     await signInAs(null);
-    const other = await startOrder(p.productId, 2);
+    const other = await startOrder([{ productId: p.productId, quantity: 2 }]);
     await pay(sessionId);
     const flagged = await waitUntil(() => orderOf(order.number), (o) => Boolean(o?.paidAt));
     expect(flagged?.status).toBe('cancelled');
@@ -154,7 +146,7 @@ describe('the Stripe webhook', () => {
 describe('the order desk', () => {
   it('a refund returns jars to stock, records the refund and tells the customer', async () => {
     const p = await makeProduct('refund', [4], 1000);
-    const order = await startOrder(p.productId, 3);
+    const order = await startOrder([{ productId: p.productId, quantity: 3 }]);
     await pay(order.stripeSessionId!);
     await waitUntil(() => orderOf(order.number), (o) => o?.status === 'paid');
     const line = await getDb().models.OrderLine.findOne({ where: { orderId: order.id } });
@@ -185,7 +177,7 @@ describe('the order desk', () => {
 
   it('mark packed needs a paid order, and a pickup order gets a ready mail', async () => {
     const p = await makeProduct('pack', [3]);
-    const order = await startOrder(p.productId, 1);
+    const order = await startOrder([{ productId: p.productId, quantity: 1 }]);
     await signInAs(DEMO.crew);
     expect(await markPackedAction({ orderId: order.id })).toMatchObject({ ok: false, message: expect.stringMatching(/awaiting payment/) });
     await pay(order.stripeSessionId!);
@@ -222,7 +214,7 @@ describe('packing slip', () => {
   it('is a PDF for staff, refused to customers and strangers', async () => {
     const { GET } = await import('@/app/(back-office)/admin/orders/[id]/packing-slip/route');
     const p = await makeProduct('slip', [3]);
-    const order = await startOrder(p.productId, 2);
+    const order = await startOrder([{ productId: p.productId, quantity: 2 }]);
     await pay(order.stripeSessionId!);
     await waitUntil(() => orderOf(order.number), (o) => o?.status === 'paid');
     const call = () => GET(new Request('http://127.0.0.1/x'), { params: Promise.resolve({ id: String(order.id) }) });

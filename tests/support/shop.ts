@@ -5,6 +5,7 @@ import type { AddressInfo } from 'node:net';
 import { startStripeFake, type StripeFake } from '@/fakes/stripe/server';
 import { getDb } from '@/lib/db';
 import { POST as webhookPOST } from '@/app/api/stripe/webhook/route';
+import { POST as checkoutPOST } from '@/app/api/checkout/route';
 
 export const SHOP_WEBHOOK_SECRET = 'whsec_shop_tests';
 
@@ -84,3 +85,12 @@ export function hook(fake: StripeFake, path: string, body: unknown = {}) {
 export const guest = (items: { productId: number; quantity: number }[], email = `guest-${++seq}@example.test`) => ({
   items, email, name: 'Ada Fenwick', phone: '', fulfilment: 'pickup' as const,
 });
+
+export const orderOf = (number: string) => getDb().models.Order.findOne({ where: { number } });
+
+/** A guest checkout through the real route handler (it must succeed); the order it made. */
+export async function startOrder(items: { productId: number; quantity: number }[]) {
+  const res = await checkoutPOST(new Request('http://127.0.0.1/api/checkout', { method: 'POST', body: JSON.stringify(guest(items)) }));
+  if (res.status !== 200) throw new Error(`checkout answered ${res.status}: ${await res.text()}`);
+  return (await orderOf(((await res.json()) as { number: string }).number))!;
+}
