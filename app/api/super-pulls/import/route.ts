@@ -1,6 +1,7 @@
 import { authorize } from '@/lib/auth/session';
 import { handleRouteError, HttpError } from '@/lib/http/json';
 import { assertSameOrigin } from '@/lib/http/origin';
+import { readUploadForm, uploadedFile } from '@/lib/http/upload';
 import { getSettings } from '@/lib/data/settings';
 import { commitImport, MAX_IMPORT_BYTES, previewImport } from '@/lib/data/super-pull-import';
 import { importMapping } from '@/lib/schemas/harvest';
@@ -11,10 +12,10 @@ export const dynamic = 'force-dynamic';
 const CSV_TYPES = new Set(['text/csv', 'application/csv', 'text/plain', 'application/vnd.ms-excel', '']);
 
 /** Reads the uploaded field sheet: a CSV file of at most 5 MB, or a clear refusal. */
+const TOO_LARGE = 'The file is larger than 5 MB. Split it into smaller files.';
+
 async function readSheet(form: FormData): Promise<string> {
-  const file = form.get('file');
-  if (!(file instanceof File)) throw new HttpError(400, 'Choose a CSV file to upload.');
-  if (file.size > MAX_IMPORT_BYTES) throw new HttpError(413, 'The file is larger than 5 MB. Split it into smaller files.');
+  const file = uploadedFile(form, 'file', MAX_IMPORT_BYTES, { missing: 'Choose a CSV file to upload.', tooLarge: TOO_LARGE });
   if (!/\.csv$/i.test(file.name) || !CSV_TYPES.has(file.type)) throw new HttpError(415, 'Only CSV files (.csv) can be imported. Save the spreadsheet as CSV first.');
   const bytes = new Uint8Array(await file.arrayBuffer());
   if (bytes.includes(0)) throw new HttpError(415, 'This file is not plain CSV text.');
@@ -33,14 +34,7 @@ export async function POST(req: Request) {
   try {
     await assertSameOrigin(req.headers);
     const user = await authorize('supers.import');
-    const length = Number(req.headers.get('content-length') ?? 0);
-    if (length > MAX_IMPORT_BYTES + 64 * 1024) throw new HttpError(413, 'The file is larger than 5 MB. Split it into smaller files.');
-    let form: FormData;
-    try {
-      form = await req.formData();
-    } catch {
-      throw new HttpError(400, 'Upload the file as a form (multipart/form-data).');
-    }
+    const form = await readUploadForm(req, MAX_IMPORT_BYTES, { tooLarge: TOO_LARGE, notAForm: 'Upload the file as a form (multipart/form-data).' });
     const text = await readSheet(form);
     const mode = form.get('mode') === 'commit' ? 'commit' : 'preview';
     const mappingText = form.get('mapping');

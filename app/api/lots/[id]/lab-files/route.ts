@@ -3,7 +3,8 @@ import { authorize } from '@/lib/auth/session';
 import { addLabFile } from '@/lib/data/lot-records';
 import { LAB_FILE_MAX_BYTES } from '@/lib/domain/file-type';
 import { labResultsFields } from '@/lib/schemas/lots';
-import { handleRouteError, HttpError } from '@/lib/http/json';
+import { handleRouteError } from '@/lib/http/json';
+import { readUploadForm, uploadedFile } from '@/lib/http/upload';
 import { assertSameOrigin } from '@/lib/http/origin';
 
 export const dynamic = 'force-dynamic';
@@ -19,17 +20,9 @@ export async function POST(req: Request, ctx: { params: Promise<{ id: string }> 
     await assertSameOrigin(req.headers);
     const user = await authorize('lots.write');
     const id = lotId.parse((await ctx.params).id);
-    const declared = Number(req.headers.get('content-length') ?? 0);
-    if (declared > LAB_FILE_MAX_BYTES + 64 * 1024) throw new HttpError(413, 'The file is larger than 10 MB.');
-    let form: FormData;
-    try {
-      form = await req.formData();
-    } catch {
-      throw new HttpError(400, 'Send the file as a multipart form.');
-    }
-    const file = form.get('file');
-    if (!(file instanceof File)) throw new HttpError(400, 'Choose a file to upload.');
-    if (file.size > LAB_FILE_MAX_BYTES) throw new HttpError(413, 'The file is larger than 10 MB.');
+    const messages = { tooLarge: 'The file is larger than 10 MB.', notAForm: 'Send the file as a multipart form.', missing: 'Choose a file to upload.' };
+    const form = await readUploadForm(req, LAB_FILE_MAX_BYTES, messages);
+    const file = uploadedFile(form, 'file', LAB_FILE_MAX_BYTES, messages);
     const results = labResultsFields.parse({ hmfMgKg: form.get('hmfMgKg') ?? undefined, diastaseSchade: form.get('diastaseSchade') ?? undefined, insolubleG100g: form.get('insolubleG100g') ?? undefined });
     const saved = await addLabFile(user, id, { filename: file.name, bytes: new Uint8Array(await file.arrayBuffer()), ...results });
     return Response.json(saved, { status: 201 });

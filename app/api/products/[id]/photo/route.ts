@@ -1,4 +1,5 @@
 import { assertSameOrigin } from '@/lib/http/origin';
+import { readUploadForm, uploadedFile } from '@/lib/http/upload';
 import { authorize } from '@/lib/auth/session';
 import { handleRouteError, HttpError, jsonError } from '@/lib/http/json';
 import { getProductPhoto, MAX_PHOTO_BYTES, setProductPhoto } from '@/lib/data/products';
@@ -38,17 +39,9 @@ export async function POST(req: Request, { params }: Ctx): Promise<Response> {
     await assertSameOrigin(req.headers);
     const user = await authorize('products.manage');
     const id = productId((await params).id);
-    const declared = Number(req.headers.get('content-length') ?? 0);
-    if (declared > MAX_PHOTO_BYTES + 64 * 1024) throw new HttpError(413, 'The photo is larger than 5 MB.');
-    let form: FormData;
-    try {
-      form = await req.formData();
-    } catch {
-      throw new HttpError(400, 'Send the photo as a form upload.');
-    }
-    const file = form.get('photo');
-    if (!(file instanceof File)) throw new HttpError(400, 'Choose a photo to upload.');
-    if (file.size > MAX_PHOTO_BYTES) throw new HttpError(413, 'The photo is larger than 5 MB.');
+    const messages = { tooLarge: 'The photo is larger than 5 MB.', notAForm: 'Send the photo as a form upload.', missing: 'Choose a photo to upload.' };
+    const form = await readUploadForm(req, MAX_PHOTO_BYTES, messages);
+    const file = uploadedFile(form, 'photo', MAX_PHOTO_BYTES, messages);
     const saved = await setProductPhoto(user.id, id, { name: file.name, bytes: new Uint8Array(await file.arrayBuffer()) });
     return Response.json({ ok: true, photoId: saved.photoId, url: `/api/products/${id}/photo?v=${saved.photoId}` }, { status: 201 });
   } catch (err) {
