@@ -2,20 +2,13 @@ import { authorize } from '@/lib/auth/session';
 import { handleRouteError, readJson } from '@/lib/http/json';
 import { assertSameOrigin } from '@/lib/http/origin';
 import { listSuperPulls, recordPulls } from '@/lib/data/super-pulls';
-import { pullBatch, pullListQuery, queryRecord } from '@/lib/schemas/harvest';
+import { pullBatch, pullListQuery } from '@/lib/schemas/harvest';
+import { listRoute } from '@/lib/http/list-route';
 
 export const dynamic = 'force-dynamic';
 
 /** Pulled supers: ?page&pageSize(≤100)&sort=pulledOn|colony|fullGrams&dir&yardId&colonyId&flagged=yes|no&from&to */
-export async function GET(req: Request) {
-  try {
-    const user = await authorize('supers.read');
-    const query = pullListQuery.parse(queryRecord(new URL(req.url).searchParams));
-    return Response.json(await listSuperPulls(user, query), { headers: { 'Cache-Control': 'no-store' } });
-  } catch (err) {
-    return handleRouteError(err);
-  }
-}
+export const GET = listRoute('supers.read', pullListQuery, listSuperPulls);
 
 /** Records pulls { entries: [...] }; each entry's idempotencyKey makes a retry safe. */
 export async function POST(req: Request) {
