@@ -8,7 +8,7 @@ export async function register() {
   }, everyMs);
   timer.unref();
   // Expired Checkout Sessions also release through the webhook; this catches a missed one.
-  const { releaseOverdueReservations } = await import('@/lib/data/orders');
+  const { releaseOverdueReservations } = await import('@/lib/data/shop/checkout');
   const sweep = setInterval(() => {
     releaseOverdueReservations().catch((err) => console.error('[orders] sweep:', err instanceof Error ? err.message : err));
   }, 60_000);

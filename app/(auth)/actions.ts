@@ -1,6 +1,6 @@
 'use server';
 import { headers } from 'next/headers';
-import { createCustomer, EmailTakenError, requestPasswordReset, resetPassword } from '@/lib/data/users';
+import { createCustomer, EmailTakenError, requestPasswordReset, resetPassword } from '@/lib/data/staff/users';
 import { forgotPasswordInput, resetPasswordInput, signUpInput, type ForgotPasswordInput, type ResetPasswordInput, type SignUpInput } from '@/lib/schemas/auth';
 import { fail, toFieldErrors, type ActionResult } from '@/lib/schemas/result';
 import { assertSameOrigin } from '@/lib/http/origin';

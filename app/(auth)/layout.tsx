@@ -1,7 +1,7 @@
 import { ShopHeader } from '@/components/layout/shop-header';
 import { SiteFooter } from '@/components/layout/site-footer';
 import { currentUser } from '@/lib/auth/session';
-import { getSettings } from '@/lib/data/settings';
+import { getSettings } from '@/lib/data/settings/settings';
 
 export default async function AuthLayout({ children }: { children: React.ReactNode }) {
   const [settings, user] = await Promise.all([getSettings(), currentUser()]);

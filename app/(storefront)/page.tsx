@@ -1,6 +1,6 @@
 import Link from 'next/link';
-import { getSettings } from '@/lib/data/settings';
-import { listCatalogue } from '@/lib/data/catalogue';
+import { getSettings } from '@/lib/data/settings/settings';
+import { listCatalogue } from '@/lib/data/shop/catalogue';
 import { Caution, INFANT_CAUTION } from '@/components/ui/caution';
 import { ProductCard } from '@/components/shop/product-card';
 

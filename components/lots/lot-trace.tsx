@@ -1,4 +1,4 @@
-import type { TraceRow } from '@/lib/data/lot-detail';
+import type { TraceRow } from '@/lib/data/lots/detail';
 import { Chip } from '@/components/ui/chip';
 
 /** Upstream trace: each super with its colony, yard and keeper, and feedings/treatments while it was on. */

@@ -2,7 +2,7 @@
 import Link from 'next/link';
 import { DataTable, type DataColumn } from '@/components/ui/data-table';
 import { formatWeight, type UnitSystem } from '@/lib/domain/units';
-import type { LotListRow } from '@/lib/data/lots';
+import type { LotListRow } from '@/lib/data/lots/lots';
 import type { Page } from '@/lib/schemas/list-query';
 import { StageChip } from './stage-chip';
 

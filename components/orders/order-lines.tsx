@@ -1,5 +1,5 @@
 import { formatMoney } from '@/lib/domain/units';
-import type { OrderDetail } from '@/lib/data/orders-read';
+import type { OrderDetail } from '@/lib/data/orders/read';
 
 const STATE: Record<string, string> = { reserved: 'held', sold: '', returned: 'returned', written_off: 'written off' };
 

@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { formatMoney, formatWeight, type UnitSystem } from '@/lib/domain/units';
 import { Chip } from '@/components/ui/chip';
-import type { CatalogueItem } from '@/lib/data/catalogue';
+import type { CatalogueItem } from '@/lib/data/shop/catalogue';
 
 export function ProductCard({ item, currency, system }: { item: CatalogueItem; currency: string; system: UnitSystem }) {
   return (

@@ -1,4 +1,4 @@
-import type { LotTrace } from '@/lib/data/trace';
+import type { LotTrace } from '@/lib/data/trace/trace';
 import { formatWeight, type UnitSystem } from '@/lib/domain/units';
 import { Chip, type ChipTone } from '@/components/ui/chip';
 import { Caution } from '@/components/ui/caution';

@@ -1,8 +1,8 @@
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { z } from 'zod';
-import { authenticate } from '@/lib/data/sign-in';
-import { bumpSessionVersion } from '@/lib/data/users';
+import { authenticate } from '@/lib/data/auth/sign-in';
+import { bumpSessionVersion } from '@/lib/data/staff/users';
 import { isRole, type Role } from './roles';
 import { clientIp } from '@/lib/http/client-ip';
 

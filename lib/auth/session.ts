@@ -3,7 +3,7 @@ import { getServerSession } from 'next-auth';
 import { redirect } from 'next/navigation';
 import { authOptions } from './options';
 import { can, type Permission, type Role } from './roles';
-import { getActiveUser } from '@/lib/data/users';
+import { getActiveUser } from '@/lib/data/staff/users';
 
 export type SessionUser = { id: number; name: string; email: string; role: Role };
 

@@ -1,5 +1,5 @@
 import { formatMoney } from '@/lib/domain/units';
-import type { OrderDetail } from '@/lib/data/orders-read';
+import type { OrderDetail } from '@/lib/data/orders/read';
 import type { MailInput } from './outbox';
 import { escapeHtml, mailHtml } from './templates';
 

@@ -1,7 +1,7 @@
 import 'server-only';
 import type { SessionUser } from '@/lib/auth/session';
-import { getSeasonReport } from '@/lib/data/yield-report';
-import { getSettings } from '@/lib/data/settings';
+import { getSeasonReport } from '@/lib/data/reports/yield-report';
+import { getSettings } from '@/lib/data/settings/settings';
 import { formatMoney, formatWeight } from '@/lib/domain/units';
 import { renderTableReport } from '@/lib/pdf/table-report';
 import { seasonTables } from './season-tables';

@@ -1,8 +1,8 @@
 import 'server-only';
 import type { SessionUser } from '@/lib/auth/session';
 import { getDb } from '@/lib/db';
-import { keepersWithColonies } from '@/lib/data/yield-report';
-import { getSettings } from '@/lib/data/settings';
+import { keepersWithColonies } from '@/lib/data/reports/yield-report';
+import { getSettings } from '@/lib/data/settings/settings';
 import { HttpError } from '@/lib/http/json';
 import { enqueueMail, kickMail } from '@/lib/mail/outbox';
 import { escapeHtml, mailHtml } from '@/lib/mail/templates';

@@ -34,9 +34,9 @@ async function median(label: string, fn: () => Promise<unknown>): Promise<number
 
 async function main() {
   const { getDb, closeDb } = await import('@/lib/db');
-  const { getSeasonReport, getSeasonHistory } = await import('@/lib/data/yield-report');
-  const { seasonColonyTotals, superEstimatesFrom } = await import('@/lib/data/yield-sql');
-  const { getRecallList, traceInput } = await import('@/lib/data/trace');
+  const { getSeasonReport, getSeasonHistory } = await import('@/lib/data/reports/yield-report');
+  const { seasonColonyTotals, superEstimatesFrom } = await import('@/lib/data/reports/yield-sql');
+  const { getRecallList, traceInput } = await import('@/lib/data/trace/trace');
   const { sequelize } = getDb();
   const [owner] = await sequelize.query<{ id: number }>(`SELECT id FROM users WHERE role = 'owner' LIMIT 1`, { type: 'SELECT' as never });
   const user = { id: owner.id, name: 'Bench Owner', email: 'owner@bench.test', role: 'owner' as const };

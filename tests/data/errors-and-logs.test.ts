@@ -1,7 +1,7 @@
 import { afterAll, afterEach, describe, expect, it, vi } from 'vitest';
 import { DatabaseError } from 'sequelize';
 import { closeDb } from '@/lib/db';
-import { authenticate } from '@/lib/data/sign-in';
+import { authenticate } from '@/lib/data/auth/sign-in';
 import { authorize } from '@/lib/auth/session';
 import { handleRouteError } from '@/lib/http/json';
 import { DEMO, signInAs } from '../support/session';

@@ -1,7 +1,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import { closeDb, getDb } from '@/lib/db';
-import { getOrderDetail } from '@/lib/data/orders-read';
+import { getOrderDetail } from '@/lib/data/orders/read';
 import { orderConfirmationMail } from '@/lib/mail/order-mails';
 import { passwordMail } from '@/lib/mail/templates';
 import { GET as packingSlip } from '@/app/(back-office)/admin/orders/[id]/packing-slip/route';

@@ -2,7 +2,7 @@ import { describe, expect, it, vi } from 'vitest';
 import {
   NoAnswer, answerWithin, changeWaiting, markRefused, notShown, parseWaiting, pullOutcome, readWaiting, toSend, waitingKey, withoutWaiting, withWaiting,
   type WaitingPull,
-} from '@/components/harvest/pull-queue';
+} from '@/components/yards/pull-queue';
 
 const item = (key: string, colonyId = 1, extra: Partial<WaitingPull> = {}): WaitingPull => ({
   entry: { colonyId, pulledOn: '2026-07-14', depth: 'medium', frameCount: 10, weight: null, weightUnit: 'kg', cappedFrames: null, tagCode: null, idempotencyKey: key },

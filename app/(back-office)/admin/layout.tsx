@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { requirePermission } from '@/lib/auth/session';
 import { menuFor } from '@/lib/auth/roles';
-import { getSettings } from '@/lib/data/settings';
+import { getSettings } from '@/lib/data/settings/settings';
 import { AdminNav } from '@/components/layout/admin-nav';
 import { SignOutButton } from '@/components/auth/sign-out-button';
 

@@ -1,10 +1,10 @@
 import Link from 'next/link';
 import { redirect } from 'next/navigation';
 import { currentUser } from '@/lib/auth/session';
-import { listCustomerOrders } from '@/lib/data/orders-read';
+import { listCustomerOrders } from '@/lib/data/orders/read';
 import { formatMoney } from '@/lib/domain/units';
 import { formatDateTime } from '@/lib/domain/order-dates';
-import { getSettings } from '@/lib/data/settings';
+import { getSettings } from '@/lib/data/settings/settings';
 import { SignOutButton } from '@/components/auth/sign-out-button';
 import { OrderStatusChip } from '@/components/orders/order-status-chip';
 

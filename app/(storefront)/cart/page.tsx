@@ -1,4 +1,4 @@
-import { getSettings } from '@/lib/data/settings';
+import { getSettings } from '@/lib/data/settings/settings';
 import { PageHeader } from '@/components/ui/page-header';
 import { CartView } from '@/components/shop/cart-view';
 

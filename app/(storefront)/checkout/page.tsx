@@ -1,4 +1,4 @@
-import { getSettings } from '@/lib/data/settings';
+import { getSettings } from '@/lib/data/settings/settings';
 import { currentUser } from '@/lib/auth/session';
 import { PageHeader } from '@/components/ui/page-header';
 import { CheckoutForm } from '@/components/shop/checkout-form';

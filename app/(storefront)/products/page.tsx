@@ -1,5 +1,5 @@
-import { getSettings } from '@/lib/data/settings';
-import { listCatalogue } from '@/lib/data/catalogue';
+import { getSettings } from '@/lib/data/settings/settings';
+import { listCatalogue } from '@/lib/data/shop/catalogue';
 import { PageHeader } from '@/components/ui/page-header';
 import { Caution, INFANT_CAUTION } from '@/components/ui/caution';
 import { ProductCard } from '@/components/shop/product-card';

@@ -3,7 +3,7 @@ import { assertSameOrigin } from '@/lib/http/origin';
 import { handleRouteError, readJson } from '@/lib/http/json';
 import { currentUser } from '@/lib/auth/session';
 import { checkoutInput } from '@/lib/schemas/checkout';
-import { startCheckout } from '@/lib/data/orders';
+import { startCheckout } from '@/lib/data/shop/checkout';
 
 export const dynamic = 'force-dynamic';
 

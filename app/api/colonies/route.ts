@@ -1,5 +1,5 @@
 import { listRoute } from '@/lib/http/list-route';
-import { listColonies } from '@/lib/data/colonies';
+import { listColonies } from '@/lib/data/colonies/colonies';
 import { colonyListQuery } from '@/lib/schemas/harvest';
 
 export const dynamic = 'force-dynamic';

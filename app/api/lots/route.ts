@@ -1,5 +1,5 @@
 import { authorize } from '@/lib/auth/session';
-import { listLots } from '@/lib/data/lots';
+import { listLots } from '@/lib/data/lots/lots';
 import { lotListQuery } from '@/lib/schemas/lots';
 import { handleRouteError } from '@/lib/http/json';
 

@@ -1,4 +1,4 @@
-import { listCatalogue } from '@/lib/data/catalogue';
+import { listCatalogue } from '@/lib/data/shop/catalogue';
 import { handleRouteError } from '@/lib/http/json';
 
 export const dynamic = 'force-dynamic';

@@ -1,5 +1,5 @@
 import { authorize } from '@/lib/auth/session';
-import { getSettings, updateSettings } from '@/lib/data/settings';
+import { getSettings, updateSettings } from '@/lib/data/settings/settings';
 import { settingsInput } from '@/lib/schemas/settings';
 import { handleRouteError, readJson } from '@/lib/http/json';
 import { assertSameOrigin } from '@/lib/http/origin';

@@ -1,5 +1,5 @@
 import { listRoute } from '@/lib/http/list-route';
-import { listYards } from '@/lib/data/yards';
+import { listYards } from '@/lib/data/yards/yards';
 import { yardListQuery } from '@/lib/schemas/harvest';
 
 export const dynamic = 'force-dynamic';

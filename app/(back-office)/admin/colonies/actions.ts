@@ -6,9 +6,9 @@ import {
   colonyInput, colonyUpdateInput, moveInput, statusInput, splitInput, noteInput,
   feedingInput, feedingEndInput, treatmentInput, treatmentEndInput, superOnInput,
 } from '@/lib/schemas/harvest';
-import { addColonyNote, createColony, moveColony, setColonyStatus, splitColony, updateColony } from '@/lib/data/colonies';
-import { addFeeding, addTreatment, endFeeding, endTreatment } from '@/lib/data/colony-records';
-import { putSuperOn } from '@/lib/data/super-pulls';
+import { addColonyNote, createColony, moveColony, setColonyStatus, splitColony, updateColony } from '@/lib/data/colonies/colonies';
+import { addFeeding, addTreatment, endFeeding, endTreatment } from '@/lib/data/colonies/records';
+import { putSuperOn } from '@/lib/data/supers/pulls';
 
 const touched = (colonyId: number) => {
   revalidatePath(`/admin/colonies/${colonyId}`);

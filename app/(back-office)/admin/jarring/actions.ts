@@ -2,7 +2,7 @@
 import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/action';
 import { jarringRunInput, overrideRunInput } from '@/lib/schemas/jarring';
-import { createJarringRun, MavNeededError, overrideJarringRun, type RunResult } from '@/lib/data/jarring';
+import { createJarringRun, MavNeededError, overrideJarringRun, type RunResult } from '@/lib/data/jarring/runs';
 import { fail } from '@/lib/schemas/result';
 
 export const createJarringRunAction = guardedAction<typeof jarringRunInput, RunResult>('jarring.write', jarringRunInput, async (user, data) => {

@@ -1,9 +1,9 @@
 import Link from 'next/link';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
-import { getSettings } from '@/lib/data/settings';
-import { listJarrableLots, listJarringRuns } from '@/lib/data/jarring';
-import { listProducts } from '@/lib/data/products';
+import { getSettings } from '@/lib/data/settings/settings';
+import { listJarrableLots, listJarringRuns } from '@/lib/data/jarring/runs';
+import { listProducts } from '@/lib/data/products/products';
 import { formatWeight } from '@/lib/domain/units';
 import { declareNetQuantity } from '@/lib/domain/net-quantity';
 import { PageHeader } from '@/components/ui/page-header';

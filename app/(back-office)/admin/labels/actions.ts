@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/action';
 import { labelLayoutInput } from '@/lib/schemas/jarring';
-import { deleteLabelLayout, saveLabelLayout } from '@/lib/data/label-layouts';
+import { deleteLabelLayout, saveLabelLayout } from '@/lib/data/labels/layouts';
 
 export const saveLabelLayoutAction = guardedAction('labels.layouts', labelLayoutInput, async (user, data) => {
   const saved = await saveLabelLayout(user.id, data);

@@ -1,6 +1,6 @@
 import Link from 'next/link';
 import { requirePermission } from '@/lib/auth/session';
-import { listLabelLayouts } from '@/lib/data/label-layouts';
+import { listLabelLayouts } from '@/lib/data/labels/layouts';
 import { BUILT_IN_LAYOUTS } from '@/lib/domain/label-layout';
 import { PageHeader } from '@/components/ui/page-header';
 import { Chip } from '@/components/ui/chip';

@@ -6,12 +6,12 @@ import {
   blendFormInput, containerInput, containerTypeInput, emptyWeightInput, lotDetailsInput, lotInput, pickSupersInput,
   readingInput, removeSuperInput, scanSuperInput, stageInput, voidInput, waxInput,
 } from '@/lib/schemas/lots';
-import { createLot, setCappingsWax, updateLotDetails } from '@/lib/data/lots';
-import { addSuperByTag, addSupersById, removeSuper, setSuperEmptyWeight, type AddedSuper } from '@/lib/data/lot-supers';
-import { addContainer, addReading, voidRecord } from '@/lib/data/lot-records';
-import { changeLotStage } from '@/lib/data/lot-stage';
-import { createBlend } from '@/lib/data/blends';
-import { saveContainerType } from '@/lib/data/container-types';
+import { createLot, setCappingsWax, updateLotDetails } from '@/lib/data/lots/lots';
+import { addSuperByTag, addSupersById, removeSuper, setSuperEmptyWeight, type AddedSuper } from '@/lib/data/lots/supers';
+import { addContainer, addReading, voidRecord } from '@/lib/data/lots/records';
+import { changeLotStage } from '@/lib/data/lots/stage';
+import { createBlend } from '@/lib/data/lots/blends';
+import { saveContainerType } from '@/lib/data/lots/container-types';
 import type { LotStage } from '@/lib/domain/lot-stage';
 
 const touched = (lotId: number) => {

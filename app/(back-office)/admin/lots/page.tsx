@@ -1,8 +1,8 @@
 import Link from 'next/link';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
-import { listLots } from '@/lib/data/lots';
-import { getSettings } from '@/lib/data/settings';
+import { listLots } from '@/lib/data/lots/lots';
+import { getSettings } from '@/lib/data/settings/settings';
 import { lotListQuery } from '@/lib/schemas/lots';
 import { LOT_STAGES } from '@/lib/domain/lot-stage';
 import { PageHeader } from '@/components/ui/page-header';

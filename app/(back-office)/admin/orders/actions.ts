@@ -2,8 +2,8 @@
 import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/action';
 import { orderIdInput, refundInput, shipInput } from '@/lib/schemas/orders';
-import { advanceOrder, cancelUnpaidOrder, refundOrder } from '@/lib/data/orders-desk';
-import { getOrderDetail } from '@/lib/data/orders-read';
+import { advanceOrder, cancelUnpaidOrder, refundOrder } from '@/lib/data/orders/desk';
+import { getOrderDetail } from '@/lib/data/orders/read';
 import { kickMail } from '@/lib/mail/outbox';
 import { fail } from '@/lib/schemas/result';
 import { currencyMinorDigits } from '@/lib/domain/units';

@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { requirePermission } from '@/lib/auth/session';
-import { DESK_PAGE_SIZE, listOrders } from '@/lib/data/orders-read';
-import { getSettings } from '@/lib/data/settings';
+import { DESK_PAGE_SIZE, listOrders } from '@/lib/data/orders/read';
+import { getSettings } from '@/lib/data/settings/settings';
 import { formatMoney } from '@/lib/domain/units';
 import { formatDateTime } from '@/lib/domain/order-dates';
 import { ORDER_STATUSES, type OrderStatus } from '@/models/order';

@@ -2,7 +2,7 @@
 import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/action';
 import { productInput } from '@/lib/schemas/jarring';
-import { saveProduct } from '@/lib/data/products';
+import { saveProduct } from '@/lib/data/products/products';
 
 export const saveProductAction = guardedAction('products.manage', productInput, async (user, data) => {
   const row = await saveProduct(user.id, data);

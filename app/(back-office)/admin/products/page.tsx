@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { requirePermission } from '@/lib/auth/session';
-import { getSettings } from '@/lib/data/settings';
-import { listProducts } from '@/lib/data/products';
+import { getSettings } from '@/lib/data/settings/settings';
+import { listProducts } from '@/lib/data/products/products';
 import { declareNetQuantity } from '@/lib/domain/net-quantity';
 import { formatMoney } from '@/lib/domain/units';
 import { PageHeader } from '@/components/ui/page-header';

@@ -2,7 +2,7 @@
 import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/action';
 import { settingsInput } from '@/lib/schemas/settings';
-import { updateSettings } from '@/lib/data/settings';
+import { updateSettings } from '@/lib/data/settings/settings';
 
 export const saveSettingsAction = guardedAction('settings.manage', settingsInput, async (user, data) => {
   await updateSettings(user.id, data);

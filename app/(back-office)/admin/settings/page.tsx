@@ -1,5 +1,5 @@
 import { requirePermission } from '@/lib/auth/session';
-import { getSettings } from '@/lib/data/settings';
+import { getSettings } from '@/lib/data/settings/settings';
 import { PageHeader } from '@/components/ui/page-header';
 import { Caution } from '@/components/ui/caution';
 import { SettingsForm } from '@/components/settings/settings-form';

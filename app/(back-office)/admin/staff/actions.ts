@@ -2,7 +2,7 @@
 import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/action';
 import { staffInput, staffUpdateInput } from '@/lib/schemas/auth';
-import { createStaff, EmailTakenError, updateStaff } from '@/lib/data/users';
+import { createStaff, EmailTakenError, updateStaff } from '@/lib/data/staff/users';
 import { fail } from '@/lib/schemas/result';
 
 export const createStaffAction = guardedAction('staff.manage', staffInput, async (user, data) => {

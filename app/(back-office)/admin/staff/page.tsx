@@ -1,5 +1,5 @@
 import { requirePermission } from '@/lib/auth/session';
-import { listStaff } from '@/lib/data/users';
+import { listStaff } from '@/lib/data/staff/users';
 import { PageHeader } from '@/components/ui/page-header';
 import { Chip } from '@/components/ui/chip';
 import { StaffForm } from '@/components/staff/staff-form';

@@ -2,7 +2,7 @@
 import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/action';
 import { stockAdjustInput } from '@/lib/schemas/jarring';
-import { adjustStock } from '@/lib/data/stock';
+import { adjustStock } from '@/lib/data/stock/stock';
 
 export const adjustStockAction = guardedAction('stock.adjust', stockAdjustInput, async (user, data) => {
   const level = await adjustStock(user.id, data);

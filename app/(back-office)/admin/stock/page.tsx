@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
-import { listLedger, listStockLevels, stockTotals } from '@/lib/data/stock';
+import { listLedger, listStockLevels, stockTotals } from '@/lib/data/stock/stock';
 import { PageHeader } from '@/components/ui/page-header';
 import { Chip } from '@/components/ui/chip';
 import { AdjustForm } from '@/components/stock/adjust-form';

@@ -2,8 +2,8 @@
 import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/action';
 import { tagBatchInput, voidPullInput } from '@/lib/schemas/harvest';
-import { createTagBatch } from '@/lib/data/super-tags';
-import { voidSuperPull } from '@/lib/data/super-pulls';
+import { createTagBatch } from '@/lib/data/supers/tags';
+import { voidSuperPull } from '@/lib/data/supers/pulls';
 
 export const createTagBatchAction = guardedAction('superTags.print', tagBatchInput, async (user, data) => {
   const r = await createTagBatch(user.id, data);

@@ -1,12 +1,12 @@
 import Link from 'next/link';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
-import { listSuperPulls } from '@/lib/data/super-pulls';
-import { listYardChoices } from '@/lib/data/yards';
-import { getSettings } from '@/lib/data/settings';
+import { listSuperPulls } from '@/lib/data/supers/pulls';
+import { listYardChoices } from '@/lib/data/yards/yards';
+import { getSettings } from '@/lib/data/settings/settings';
 import { pullListQuery, queryRecord } from '@/lib/schemas/harvest';
 import { PageHeader } from '@/components/ui/page-header';
-import { SuperPullTable } from '@/components/harvest/super-pull-table';
+import { SuperPullTable } from '@/components/supers/super-pull-table';
 import { voidSuperPullAction } from './actions';
 
 export const metadata = { title: 'Super pulls' };

@@ -1,6 +1,6 @@
 import { requirePermission } from '@/lib/auth/session';
-import { traceInput } from '@/lib/data/trace';
-import { getSettings } from '@/lib/data/settings';
+import { traceInput } from '@/lib/data/trace/trace';
+import { getSettings } from '@/lib/data/settings/settings';
 import { PageHeader } from '@/components/ui/page-header';
 import { LotTraceView } from '@/components/trace/lot-trace-view';
 

@@ -2,7 +2,7 @@
 import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/action';
 import { treatmentKindInput } from '@/lib/schemas/harvest';
-import { saveTreatmentKind } from '@/lib/data/colony-records';
+import { saveTreatmentKind } from '@/lib/data/colonies/records';
 
 export const saveTreatmentKindAction = guardedAction('treatmentKinds.manage', treatmentKindInput, async (user, data) => {
   const id = await saveTreatmentKind(user.id, data);

@@ -1,8 +1,8 @@
 import { requirePermission } from '@/lib/auth/session';
-import { listTreatmentKinds } from '@/lib/data/colony-records';
+import { listTreatmentKinds } from '@/lib/data/colonies/records';
 import { PageHeader } from '@/components/ui/page-header';
-import { TreatmentCaution } from '@/components/harvest/treatment-caution';
-import { TreatmentKindForm } from '@/components/harvest/treatment-kind-form';
+import { TreatmentCaution } from '@/components/colonies/treatment-caution';
+import { TreatmentKindForm } from '@/components/treatment-kinds/treatment-kind-form';
 import { saveTreatmentKindAction } from './actions';
 
 export const metadata = { title: 'Treatment kinds' };

@@ -2,8 +2,8 @@
 import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/action';
 import { yardInput, yardUpdateInput, pullBatch } from '@/lib/schemas/harvest';
-import { saveYard } from '@/lib/data/yards';
-import { recordPulls } from '@/lib/data/super-pulls';
+import { saveYard } from '@/lib/data/yards/yards';
+import { recordPulls } from '@/lib/data/supers/pulls';
 
 export const createYardAction = guardedAction('yards.manage', yardInput, async (user, data) => {
   const id = await saveYard(user.id, null, data);

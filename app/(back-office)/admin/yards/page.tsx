@@ -2,10 +2,10 @@ import Link from 'next/link';
 import { MapPin } from 'lucide-react';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
-import { listYards } from '@/lib/data/yards';
+import { listYards } from '@/lib/data/yards/yards';
 import { queryRecord, yardListQuery } from '@/lib/schemas/harvest';
 import { PageHeader } from '@/components/ui/page-header';
-import { Pager } from '@/components/harvest/pager';
+import { Pager } from '@/components/yards/pager';
 
 export const metadata = { title: 'Yards' };
 

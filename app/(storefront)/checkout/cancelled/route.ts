@@ -1,6 +1,6 @@
 import { getDb } from '@/lib/db';
 import { checkOrderToken } from '@/lib/payments/order-token';
-import { releaseOrder } from '@/lib/data/orders';
+import { releaseOrder } from '@/lib/data/shop/checkout';
 import { stripe } from '@/lib/payments/stripe';
 
 export const dynamic = 'force-dynamic';

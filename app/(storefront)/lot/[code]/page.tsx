@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
-import { getPublicLot } from '@/lib/data/public-lot';
+import { getPublicLot } from '@/lib/data/trace/public-lot';
 import { Caution, INFANT_CAUTION } from '@/components/ui/caution';
 
 export const dynamic = 'force-dynamic';

@@ -1,8 +1,8 @@
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { currentUser } from '@/lib/auth/session';
-import { getOrderForViewer } from '@/lib/data/orders-read';
-import { getSettings } from '@/lib/data/settings';
+import { getOrderForViewer } from '@/lib/data/orders/read';
+import { getSettings } from '@/lib/data/settings/settings';
 import { OrderStatusChip } from '@/components/orders/order-status-chip';
 import { OrderLines } from '@/components/orders/order-lines';
 import { ClearCart } from '@/components/shop/clear-cart';

@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { getSettings } from '@/lib/data/settings';
-import { getCatalogueItem } from '@/lib/data/catalogue';
+import { getSettings } from '@/lib/data/settings/settings';
+import { getCatalogueItem } from '@/lib/data/shop/catalogue';
 import { formatMoney, formatWeight } from '@/lib/domain/units';
 import { Caution, INFANT_CAUTION } from '@/components/ui/caution';
 import { Chip } from '@/components/ui/chip';

@@ -1,6 +1,6 @@
 import NextAuth from 'next-auth';
 import { authOptions } from '@/lib/auth/options';
-import { isThrottled } from '@/lib/data/sign-in';
+import { isThrottled } from '@/lib/data/auth/sign-in';
 import { clientIp } from '@/lib/http/client-ip';
 
 const handler = NextAuth(authOptions);

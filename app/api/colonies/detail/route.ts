@@ -1,8 +1,8 @@
 import { z } from 'zod';
 import { authorize } from '@/lib/auth/session';
 import { handleRouteError, jsonError } from '@/lib/http/json';
-import { getColony } from '@/lib/data/colonies';
-import { listColonySupers } from '@/lib/data/super-pulls';
+import { getColony } from '@/lib/data/colonies/colonies';
+import { listColonySupers } from '@/lib/data/supers/pulls';
 
 export const dynamic = 'force-dynamic';
 

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { authorize } from '@/lib/auth/session';
-import { canReadLot } from '@/lib/data/lot-access';
-import { getLabFileData } from '@/lib/data/lot-records';
+import { canReadLot } from '@/lib/data/lots/access';
+import { getLabFileData } from '@/lib/data/lots/records';
 import { handleRouteError, HttpError } from '@/lib/http/json';
 
 export const dynamic = 'force-dynamic';

@@ -1,6 +1,6 @@
 import { authorize } from '@/lib/auth/session';
-import { getSeasonReport } from '@/lib/data/yield-report';
-import { getSettings } from '@/lib/data/settings';
+import { getSeasonReport } from '@/lib/data/reports/yield-report';
+import { getSettings } from '@/lib/data/settings/settings';
 import { toCsv } from '@/lib/domain/csv';
 import { handleRouteError, HttpError } from '@/lib/http/json';
 import { seasonTables } from '@/lib/reports/season-tables';

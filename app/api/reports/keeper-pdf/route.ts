@@ -1,6 +1,6 @@
 import { authorize } from '@/lib/auth/session';
 import { getDb } from '@/lib/db';
-import { listSeasons } from '@/lib/data/yield-sql';
+import { listSeasons } from '@/lib/data/reports/yield-sql';
 import { handleRouteError, HttpError } from '@/lib/http/json';
 import { pdfResponse } from '@/lib/pdf/response';
 import { keeperReportPdf } from '@/lib/reports/keeper-pdf';

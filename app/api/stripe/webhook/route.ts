@@ -1,6 +1,6 @@
 import Stripe from 'stripe';
 import { stripe, webhookSecret } from '@/lib/payments/stripe';
-import { applyStripeEvent } from '@/lib/data/orders-payment';
+import { applyStripeEvent } from '@/lib/data/orders/payment';
 import { kickMail } from '@/lib/mail/outbox';
 
 export const dynamic = 'force-dynamic';

@@ -2,8 +2,8 @@ import { authorize } from '@/lib/auth/session';
 import { handleRouteError, HttpError } from '@/lib/http/json';
 import { assertSameOrigin } from '@/lib/http/origin';
 import { readUploadForm, uploadedFile } from '@/lib/http/upload';
-import { getSettings } from '@/lib/data/settings';
-import { commitImport, MAX_IMPORT_BYTES, previewImport } from '@/lib/data/super-pull-import';
+import { getSettings } from '@/lib/data/settings/settings';
+import { commitImport, MAX_IMPORT_BYTES, previewImport } from '@/lib/data/supers/import';
 import { importMapping } from '@/lib/schemas/harvest';
 import { localDate } from '@/lib/domain/local-date';
 

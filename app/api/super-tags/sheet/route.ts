@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { authorize } from '@/lib/auth/session';
 import { handleRouteError, HttpError } from '@/lib/http/json';
-import { listTags } from '@/lib/data/super-tags';
+import { listTags } from '@/lib/data/supers/tags';
 import { renderSuperTagSheet } from '@/lib/pdf/super-tags';
 import { pdfResponse } from '@/lib/pdf/response';
 import { BUILT_IN_LAYOUTS } from '@/lib/domain/label-layout';

@@ -1,6 +1,6 @@
 import { authorize } from '@/lib/auth/session';
-import { getLotCode, getRecallList } from '@/lib/data/trace';
-import { getSettings } from '@/lib/data/settings';
+import { getLotCode, getRecallList } from '@/lib/data/trace/trace';
+import { getSettings } from '@/lib/data/settings/settings';
 import { toCsv } from '@/lib/domain/csv';
 import { handleRouteError, HttpError } from '@/lib/http/json';
 import { pdfResponse } from '@/lib/pdf/response';

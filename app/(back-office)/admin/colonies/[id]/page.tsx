@@ -2,22 +2,22 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
-import { getColony } from '@/lib/data/colonies';
-import { listColonySupers } from '@/lib/data/super-pulls';
-import { colonyTimeline } from '@/lib/data/colony-timeline';
-import { listTreatmentKinds } from '@/lib/data/colony-records';
-import { listYardChoices } from '@/lib/data/yards';
-import { getSettings } from '@/lib/data/settings';
+import { getColony } from '@/lib/data/colonies/colonies';
+import { listColonySupers } from '@/lib/data/supers/pulls';
+import { colonyTimeline } from '@/lib/data/colonies/timeline';
+import { listTreatmentKinds } from '@/lib/data/colonies/records';
+import { listYardChoices } from '@/lib/data/yards/yards';
+import { getSettings } from '@/lib/data/settings/settings';
 import { formatWeight } from '@/lib/domain/units';
 import { localDate } from '@/lib/domain/local-date';
 import { PageHeader } from '@/components/ui/page-header';
 import { Chip } from '@/components/ui/chip';
-import { ColonyStatusChip, FlagCell, QueenColour } from '@/components/harvest/chips';
-import { TreatmentCaution } from '@/components/harvest/treatment-caution';
-import { VoidedNote, VoidPullButton } from '@/components/harvest/void-pull-button';
+import { ColonyStatusChip, FlagCell, QueenColour } from '@/components/colonies/chips';
+import { TreatmentCaution } from '@/components/colonies/treatment-caution';
+import { VoidedNote, VoidPullButton } from '@/components/supers/void-pull-button';
 import {
   EndRecordForm, FeedingForm, MoveForm, NoteForm, SplitForm, StatusForm, SuperOnForm, TreatmentForm,
-} from '@/components/harvest/colony-record-forms';
+} from '@/components/colonies/record-forms';
 import {
   addFeedingAction, addTreatmentAction, colonyNoteAction, colonyStatusAction, endFeedingAction, endTreatmentAction,
   moveColonyAction, splitColonyAction, superOnAction,

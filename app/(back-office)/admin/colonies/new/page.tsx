@@ -1,9 +1,9 @@
 import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
-import { getYard } from '@/lib/data/yards';
-import { listColonies } from '@/lib/data/colonies';
+import { getYard } from '@/lib/data/yards/yards';
+import { listColonies } from '@/lib/data/colonies/colonies';
 import { PageHeader } from '@/components/ui/page-header';
-import { ColonyForm } from '@/components/harvest/colony-form';
+import { ColonyForm } from '@/components/colonies/colony-form';
 import { createColonyAction } from '../actions';
 
 export const metadata = { title: 'New colony' };

@@ -2,10 +2,10 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
-import { getLotDetail } from '@/lib/data/lot-detail';
-import { listPullableSupers, listYardsBrief } from '@/lib/data/lot-supers';
-import { listContainerTypes } from '@/lib/data/container-types';
-import { getSettings } from '@/lib/data/settings';
+import { getLotDetail } from '@/lib/data/lots/detail';
+import { listPullableSupers, listYardsBrief } from '@/lib/data/lots/supers';
+import { listContainerTypes } from '@/lib/data/lots/container-types';
+import { getSettings } from '@/lib/data/settings/settings';
 import { formatWeight } from '@/lib/domain/units';
 import { PageHeader } from '@/components/ui/page-header';
 import { Chip } from '@/components/ui/chip';
@@ -22,7 +22,7 @@ import { EmptyWeightForm, WaxForm } from '@/components/lots/weight-field-form';
 import { LotHistory } from '@/components/lots/lot-history';
 import { RemoveSuperButton } from '@/components/lots/remove-super-button';
 import { LotDetailsForm } from '@/components/lots/lot-details-form';
-import { floralSourceSuggestions } from '@/lib/data/lots';
+import { floralSourceSuggestions } from '@/lib/data/lots/lots';
 import { LotTrace } from '@/components/lots/lot-trace';
 import {
   addContainerAction, addReadingAction, changeStageAction, emptyWeightAction, pickSupersAction, removeSuperAction, scanSuperAction, updateLotAction, voidRecordAction, waxAction,

@@ -1,6 +1,6 @@
 import { requirePermission } from '@/lib/auth/session';
-import { listBlendableLots } from '@/lib/data/blends';
-import { getSettings } from '@/lib/data/settings';
+import { listBlendableLots } from '@/lib/data/lots/blends';
+import { getSettings } from '@/lib/data/settings/settings';
 import { formatWeight } from '@/lib/domain/units';
 import { PageHeader } from '@/components/ui/page-header';
 import { BlendForm } from '@/components/lots/blend-form';

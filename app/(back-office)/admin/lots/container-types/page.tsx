@@ -1,5 +1,5 @@
 import { requirePermission } from '@/lib/auth/session';
-import { listContainerTypes } from '@/lib/data/container-types';
+import { listContainerTypes } from '@/lib/data/lots/container-types';
 import { PageHeader } from '@/components/ui/page-header';
 import { ContainerTypeForm } from '@/components/lots/container-type-form';
 import { saveContainerTypeAction } from '../actions';

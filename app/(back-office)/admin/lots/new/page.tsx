@@ -1,5 +1,5 @@
 import { requirePermission } from '@/lib/auth/session';
-import { floralSourceSuggestions } from '@/lib/data/lots';
+import { floralSourceSuggestions } from '@/lib/data/lots/lots';
 import { PageHeader } from '@/components/ui/page-header';
 import { NewLotForm } from '@/components/lots/new-lot-form';
 import { createLotAction } from '../actions';

@@ -1,8 +1,8 @@
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
-import { getSettings } from '@/lib/data/settings';
-import { getProduct } from '@/lib/data/products';
+import { getSettings } from '@/lib/data/settings/settings';
+import { getProduct } from '@/lib/data/products/products';
 import { PageHeader } from '@/components/ui/page-header';
 import { ProductForm } from '@/components/products/product-form';
 import { PhotoUpload } from '@/components/products/photo-upload';

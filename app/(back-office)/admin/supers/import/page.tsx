@@ -1,6 +1,6 @@
 import { requirePermission } from '@/lib/auth/session';
 import { PageHeader } from '@/components/ui/page-header';
-import { ImportWizard } from '@/components/harvest/import-wizard';
+import { ImportWizard } from '@/components/supers/import-wizard';
 
 export const metadata = { title: 'Import field sheet' };
 

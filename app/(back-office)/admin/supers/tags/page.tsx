@@ -1,8 +1,8 @@
 import { requirePermission } from '@/lib/auth/session';
-import { listTags } from '@/lib/data/super-tags';
+import { listTags } from '@/lib/data/supers/tags';
 import { BUILT_IN_LAYOUTS } from '@/lib/domain/label-layout';
 import { PageHeader } from '@/components/ui/page-header';
-import { TagBatchForm } from '@/components/harvest/tag-batch-form';
+import { TagBatchForm } from '@/components/supers/tag-batch-form';
 import { createTagBatchAction } from '../actions';
 
 export const metadata = { title: 'Super tags' };

@@ -2,10 +2,10 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
-import { getYard } from '@/lib/data/yards';
-import { listColonies } from '@/lib/data/colonies';
+import { getYard } from '@/lib/data/yards/yards';
+import { listColonies } from '@/lib/data/colonies/colonies';
 import { PageHeader } from '@/components/ui/page-header';
-import { ColonyTable } from '@/components/harvest/colony-table';
+import { ColonyTable } from '@/components/colonies/colony-table';
 
 export const metadata = { title: 'Yard' };
 

@@ -1,7 +1,7 @@
 import { requirePermission } from '@/lib/auth/session';
-import { listAssignableKeepers } from '@/lib/data/yards';
+import { listAssignableKeepers } from '@/lib/data/yards/yards';
 import { PageHeader } from '@/components/ui/page-header';
-import { YardForm } from '@/components/harvest/yard-form';
+import { YardForm } from '@/components/yards/yard-form';
 import { createYardAction } from '../actions';
 
 export const metadata = { title: 'New yard' };

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { authorize } from '@/lib/auth/session';
 import { handleRouteError, HttpError } from '@/lib/http/json';
 import { pdfResponse, safePdfFilename } from '@/lib/pdf/response';
-import { renderRunLabels } from '@/lib/data/labels';
+import { renderRunLabels } from '@/lib/data/labels/run-labels';
 
 type Ctx = { params: Promise<{ id: string }> };
 

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { authorize } from '@/lib/auth/session';
-import { addLabFile } from '@/lib/data/lot-records';
+import { addLabFile } from '@/lib/data/lots/records';
 import { LAB_FILE_MAX_BYTES } from '@/lib/domain/file-type';
 import { labResultsFields } from '@/lib/schemas/lots';
 import { handleRouteError } from '@/lib/http/json';

@@ -2,7 +2,7 @@ import { assertSameOrigin } from '@/lib/http/origin';
 import { readUploadForm, uploadedFile } from '@/lib/http/upload';
 import { authorize } from '@/lib/auth/session';
 import { handleRouteError, HttpError, jsonError } from '@/lib/http/json';
-import { getProductPhoto, MAX_PHOTO_BYTES, setProductPhoto } from '@/lib/data/products';
+import { getProductPhoto, MAX_PHOTO_BYTES, setProductPhoto } from '@/lib/data/products/products';
 
 type Ctx = { params: Promise<{ id: string }> };
 

@@ -1,9 +1,9 @@
 import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
-import { getYard } from '@/lib/data/yards';
-import { getColony, listColonies } from '@/lib/data/colonies';
+import { getYard } from '@/lib/data/yards/yards';
+import { getColony, listColonies } from '@/lib/data/colonies/colonies';
 import { PageHeader } from '@/components/ui/page-header';
-import { ColonyForm } from '@/components/harvest/colony-form';
+import { ColonyForm } from '@/components/colonies/colony-form';
 import type { ColonyInput } from '@/lib/schemas/harvest';
 import { updateColonyAction } from '../../actions';
 

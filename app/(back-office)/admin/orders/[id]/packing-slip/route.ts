@@ -1,7 +1,7 @@
 import { authorize } from '@/lib/auth/session';
 import { handleRouteError, HttpError } from '@/lib/http/json';
-import { getOrderDetail } from '@/lib/data/orders-read';
-import { getSettings } from '@/lib/data/settings';
+import { getOrderDetail } from '@/lib/data/orders/read';
+import { getSettings } from '@/lib/data/settings/settings';
 import { renderTableReport } from '@/lib/pdf/table-report';
 import { pdfResponse } from '@/lib/pdf/response';
 import { formatDateTime } from '@/lib/domain/order-dates';

@@ -1,8 +1,8 @@
 import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
-import { getYard, listAssignableKeepers } from '@/lib/data/yards';
+import { getYard, listAssignableKeepers } from '@/lib/data/yards/yards';
 import { PageHeader } from '@/components/ui/page-header';
-import { YardForm } from '@/components/harvest/yard-form';
+import { YardForm } from '@/components/yards/yard-form';
 import type { YardInput } from '@/lib/schemas/harvest';
 import { updateYardAction } from '../../actions';
 

@@ -1,13 +1,13 @@
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
-import { getYard } from '@/lib/data/yards';
-import { listColonies } from '@/lib/data/colonies';
-import { getSettings } from '@/lib/data/settings';
+import { getYard } from '@/lib/data/yards/yards';
+import { listColonies } from '@/lib/data/colonies/colonies';
+import { getSettings } from '@/lib/data/settings/settings';
 import { localDate } from '@/lib/domain/local-date';
 import { PageHeader } from '@/components/ui/page-header';
 import { Caution } from '@/components/ui/caution';
-import { PullPass } from '@/components/harvest/pull-pass';
+import { PullPass } from '@/components/yards/pull-pass';
 import { recordPullsAction } from '../../actions';
 
 export const metadata = { title: 'Record pulls' };

@@ -1,0 +1,185 @@
+'use client';
+import { useState } from 'react';
+import { useRouter } from 'next/navigation';
+import type { z } from 'zod';
+import {
+  feedingInput, treatmentInput, superOnInput, noteInput, splitInput, moveInput, statusInput, SUPER_DEPTHS, FEEDING_KINDS,
+} from '@/lib/schemas/harvest';
+import { TextField } from '@/components/ui/text-field';
+import { FormMessage } from '@/components/ui/form-message';
+import { newEntryKey } from '../ui/entry-key';
+import { useActionForm, type SaveResult } from '../ui/use-action-form';
+import { TreatmentCaution } from './treatment-caution';
+
+type Save<S extends z.ZodType> = (v: z.input<S>) => Promise<SaveResult>;
+type Base = { colonyId: number; today: string };
+
+/** Fresh key after every saved entry: a retry of the same entry reuses it, a new entry never does. */
+function useEntryKey() {
+  const [key, setKey] = useState(newEntryKey);
+  return { key, renew: () => setKey(newEntryKey()) };
+}
+
+function Submit({ busy, label }: { busy: boolean; label: string }) {
+  return <div><button type="submit" className="btn-secondary min-h-11" disabled={busy}>{busy ? 'Saving…' : label}</button></div>;
+}
+
+const FEEDING_NAMES = { sugar_syrup: 'Sugar syrup', fondant: 'Fondant / candy', pollen_substitute: 'Pollen substitute', other: 'Other' } as const;
+
+export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof feedingInput> }) {
+  const router = useRouter();
+  const k = useEntryKey();
+  const { form, submit, message, done } = useActionForm(feedingInput, (v) => onSave({ ...v, idempotencyKey: k.key }), { colonyId, kind: 'sugar_syrup', amount: '', startedOn: today, endedOn: '', note: '', idempotencyKey: k.key }, () => { k.renew(); form.reset(); router.refresh(); });
+  const { register, formState: { errors, isSubmitting } } = form;
+  return (
+    <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a feeding">
+      <label className="field" htmlFor="feed-kind"><span>Feed</span>
+        <select id="feed-kind" className="input min-h-11" {...register('kind')}>{FEEDING_KINDS.map((f) => <option key={f} value={f}>{FEEDING_NAMES[f]}</option>)}</select>
+      </label>
+      <TextField id="feed-amount" label="Amount" hint="e.g. 2 L 1:1, 1 kg" registration={register('amount')} error={errors.amount} />
+      <div className="grid gap-3 sm:grid-cols-2">
+        <TextField id="feed-start" label="Started" type="date" registration={register('startedOn')} error={errors.startedOn} />
+        <TextField id="feed-end" label="Ended (blank if still feeding)" type="date" registration={register('endedOn')} error={errors.endedOn} />
+      </div>
+      <FormMessage error={message} success={done} />
+      <Submit busy={isSubmitting} label="Save feeding" />
+    </form>
+  );
+}
+
+export function TreatmentForm({ colonyId, today, kinds, onSave }: Base & { kinds: { id: number; name: string; supersAllowed: boolean; waitingDays: number }[]; onSave: Save<typeof treatmentInput> }) {
+  const router = useRouter();
+  const k = useEntryKey();
+  const { form, submit, message, done } = useActionForm(treatmentInput, (v) => onSave({ ...v, idempotencyKey: k.key }), { colonyId, treatmentKindId: kinds[0]?.id, productName: '', appliedOn: today, removedOn: '', note: '', idempotencyKey: k.key }, () => { k.renew(); form.reset(); router.refresh(); });
+  const { register, formState: { errors, isSubmitting } } = form;
+  return (
+    <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a mite treatment">
+      <TreatmentCaution />
+      <label className="field" htmlFor="treat-kind"><span>Treatment kind</span>
+        <select id="treat-kind" className="input min-h-11" {...register('treatmentKindId')}>
+          {kinds.map((x) => <option key={x.id} value={x.id}>{x.name} — {x.supersAllowed ? 'supers allowed (per your list)' : `no supers${x.waitingDays ? `, wait ${x.waitingDays} d` : ''}`}</option>)}
+        </select>
+      </label>
+      <TextField id="treat-product" label="Product name" registration={register('productName')} error={errors.productName} />
+      <div className="grid gap-3 sm:grid-cols-2">
+        <TextField id="treat-on" label="Applied" type="date" registration={register('appliedOn')} error={errors.appliedOn} />
+        <TextField id="treat-off" label="Removed (blank if still on)" type="date" registration={register('removedOn')} error={errors.removedOn} />
+      </div>
+      <FormMessage error={message} success={done} />
+      <Submit busy={isSubmitting} label="Save treatment" />
+    </form>
+  );
+}
+
+export function SuperOnForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof superOnInput> }) {
+  const router = useRouter();
+  const k = useEntryKey();
+  const { form, submit, message, done } = useActionForm(superOnInput, (v) => onSave({ ...v, idempotencyKey: k.key }), { colonyId, depth: 'medium', frameCount: 10, tagCode: '', putOnOn: today, idempotencyKey: k.key }, () => { k.renew(); form.reset(); router.refresh(); });
+  const { register, formState: { errors, isSubmitting } } = form;
+  return (
+    <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a super put on">
+      <div className="grid gap-3 sm:grid-cols-2">
+        <label className="field" htmlFor="on-depth"><span>Box depth</span>
+          <select id="on-depth" className="input min-h-11" {...register('depth')}>{SUPER_DEPTHS.map((d) => <option key={d} value={d}>{d}</option>)}</select>
+        </label>
+        <TextField id="on-frames" label="Frames" inputMode="numeric" registration={register('frameCount')} error={errors.frameCount} />
+        <TextField id="on-tag" label="Tag code (optional)" registration={register('tagCode')} error={errors.tagCode} />
+        <TextField id="on-date" label="Put on" type="date" registration={register('putOnOn')} error={errors.putOnOn} />
+      </div>
+      <FormMessage error={message} success={done} />
+      <Submit busy={isSubmitting} label="Save super on" />
+    </form>
+  );
+}
+
+export function NoteForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof noteInput> }) {
+  const router = useRouter();
+  const k = useEntryKey();
+  const { form, submit, message, done } = useActionForm(noteInput, (v) => onSave({ ...v, idempotencyKey: k.key }), { colonyId, occurredOn: today, note: '', idempotencyKey: k.key }, () => { k.renew(); form.reset(); router.refresh(); });
+  const { register, formState: { errors, isSubmitting } } = form;
+  return (
+    <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Add a note">
+      <label className="field" htmlFor="note-text"><span>Note</span><textarea id="note-text" className="input min-h-20" {...register('note')} />
+        {errors.note ? <small className="field-error" role="alert">{errors.note.message}</small> : null}</label>
+      <TextField id="note-date" label="Date" type="date" registration={register('occurredOn')} error={errors.occurredOn} />
+      <FormMessage error={message} success={done} />
+      <Submit busy={isSubmitting} label="Save note" />
+    </form>
+  );
+}
+
+export function SplitForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof splitInput> }) {
+  const router = useRouter();
+  const k = useEntryKey();
+  const { form, submit, message } = useActionForm(splitInput, (v) => onSave({ ...v, idempotencyKey: k.key }), { colonyId, newCode: '', occurredOn: today, queenYear: '', note: '', idempotencyKey: k.key }, (data) => { k.renew(); router.push(`/admin/colonies/${(data as { id: number }).id}`); });
+  const { register, formState: { errors, isSubmitting } } = form;
+  return (
+    <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a split">
+      <div className="grid gap-3 sm:grid-cols-2">
+        <TextField id="split-code" label="New colony code" registration={register('newCode')} error={errors.newCode} />
+        <TextField id="split-date" label="Split on" type="date" registration={register('occurredOn')} error={errors.occurredOn} />
+        <TextField id="split-queen" label="New queen year (optional)" inputMode="numeric" registration={register('queenYear')} error={errors.queenYear} />
+      </div>
+      <FormMessage error={message} />
+      <Submit busy={isSubmitting} label="Save split" />
+    </form>
+  );
+}
+
+export function MoveForm({ colonyId, today, yards, onSave }: Base & { yards: { id: number; name: string }[]; onSave: Save<typeof moveInput> }) {
+  const router = useRouter();
+  const { form, submit, message, done } = useActionForm(moveInput, onSave, { colonyId, yardId: yards[0]?.id, occurredOn: today, note: '' }, () => router.refresh());
+  const { register, formState: { errors, isSubmitting } } = form;
+  if (yards.length === 0) return <p className="hint">No other yard to move to.</p>;
+  return (
+    <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Move to another yard">
+      <label className="field" htmlFor="move-yard"><span>Move to</span>
+        <select id="move-yard" className="input min-h-11" {...register('yardId')}>{yards.map((y) => <option key={y.id} value={y.id}>{y.name}</option>)}</select>
+      </label>
+      <TextField id="move-date" label="Moved on" type="date" registration={register('occurredOn')} error={errors.occurredOn} />
+      <FormMessage error={message} success={done} />
+      <Submit busy={isSubmitting} label="Move colony" />
+    </form>
+  );
+}
+
+export function StatusForm({ colonyId, today, status, onSave }: Base & { status: string; onSave: Save<typeof statusInput> }) {
+  const router = useRouter();
+  const { form, submit, message, done } = useActionForm(statusInput, onSave, { colonyId, status: status as 'active', combinedIntoCode: '', occurredOn: today, note: '' }, () => router.refresh());
+  const { register, watch, formState: { errors, isSubmitting } } = form;
+  return (
+    <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Change status">
+      <label className="field" htmlFor="status-value"><span>Status</span>
+        <select id="status-value" className="input min-h-11" {...register('status')}>
+          <option value="active">active</option><option value="dead_out">dead-out</option><option value="combined">combined into another colony</option><option value="sold">sold</option>
+        </select>
+      </label>
+      {watch('status') === 'combined' ? <TextField id="status-into" label="Combined into (colony code)" registration={register('combinedIntoCode')} error={errors.combinedIntoCode} /> : null}
+      <TextField id="status-date" label="Date" type="date" registration={register('occurredOn')} error={errors.occurredOn} />
+      <TextField id="status-note" label="Note" registration={register('note')} error={errors.note} />
+      <FormMessage error={message} success={done} />
+      <Submit busy={isSubmitting} label="Save status" />
+    </form>
+  );
+}
+
+/** Ends an open feeding or treatment with a date; the colony's supers are re-checked on save. */
+export function EndRecordForm({ label, today, onEnd }: { label: string; today: string; onEnd: (date: string) => Promise<SaveResult> }) {
+  const router = useRouter();
+  const [date, setDate] = useState(today);
+  const [msg, setMsg] = useState<string>();
+  const [busy, setBusy] = useState(false);
+  return (
+    <form className="mt-2 flex flex-wrap items-end gap-2" onSubmit={async (e) => {
+      e.preventDefault();
+      setBusy(true);
+      const r = await onEnd(date).catch(() => ({ ok: false as const, message: 'Could not reach the server.' }));
+      setBusy(false);
+      if (r.ok) router.refresh(); else setMsg(r.message);
+    }}>
+      <label className="field"><span className="text-xs">{label}</span><input type="date" className="input min-h-11" value={date} onChange={(e) => setDate(e.target.value)} /></label>
+      <button type="submit" className="btn-quiet min-h-11" disabled={busy}>{label}</button>
+      {msg ? <small className="field-error" role="alert">{msg}</small> : null}
+    </form>
+  );
+}

@@ -1,0 +1,44 @@
+'use client';
+import { useRouter } from 'next/navigation';
+import { yardInput, type YardInput } from '@/lib/schemas/harvest';
+import type { ActionResult } from '@/lib/schemas/result';
+import { TextField } from '@/components/ui/text-field';
+import { FormMessage } from '@/components/ui/form-message';
+import { useActionForm } from '../ui/use-action-form';
+
+type Props = {
+  initial?: YardInput;
+  keepers: { id: number; name: string; role: string }[];
+  onSave: (v: YardInput) => Promise<ActionResult<{ id: number }>>;
+};
+
+export function YardForm({ initial, keepers, onSave }: Props) {
+  const router = useRouter();
+  const { form, submit, message } = useActionForm(yardInput, onSave, initial ?? { name: '', place: '', forageNotes: '', keeperIds: [] }, (data) => router.push(`/admin/yards/${(data as { id: number }).id}`));
+  const { register, formState: { errors, isSubmitting } } = form;
+  return (
+    <form onSubmit={submit} className="card grid max-w-2xl gap-4" noValidate>
+      <TextField label="Yard name" registration={register('name')} error={errors.name} />
+      <TextField label="Place" hint="How to find it: lane, gate, landmark." registration={register('place')} error={errors.place} />
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField label="Latitude (optional)" inputMode="decimal" registration={register('latitude')} error={errors.latitude} />
+        <TextField label="Longitude (optional)" inputMode="decimal" registration={register('longitude')} error={errors.longitude} />
+      </div>
+      <label className="field" htmlFor="forageNotes">
+        <span>Forage notes</span>
+        <textarea id="forageNotes" className="input min-h-24" {...register('forageNotes')} />
+      </label>
+      <fieldset className="field">
+        <legend className="font-medium">Keepers assigned</legend>
+        {keepers.map((k) => (
+          <label key={k.id} className="flex min-h-11 items-center gap-2">
+            <input type="checkbox" value={k.id} className="h-5 w-5" {...register('keeperIds')} />
+            {k.name}{k.role === 'owner' ? ' (owner)' : ''}
+          </label>
+        ))}
+      </fieldset>
+      <FormMessage error={message} />
+      <div><button type="submit" className="btn-primary min-h-11" disabled={isSubmitting}>{isSubmitting ? 'Saving…' : 'Save yard'}</button></div>
+    </form>
+  );
+}

@@ -1,0 +1,204 @@
+import 'server-only';
+import { UniqueConstraintError, type Transaction } from 'sequelize';
+import { getDb } from '@/lib/db/index';
+import { HttpError } from '@/lib/http/json';
+import type { SessionUser } from '@/lib/auth/session';
+import { assessFill, assessFillUs, maximumAllowableVariation } from '@/lib/domain/fill-check';
+import { bestBeforeDate, honeyUsedByRun, jarsLotCanFill } from '@/lib/domain/jars';
+import { nextStage, type LotRole } from '@/lib/domain/lot-stage';
+import { formatWeight, GRAMS_PER_OUNCE } from '@/lib/domain/units';
+import { parseSampleWeights, type JarringRunData } from '@/lib/schemas/jarring';
+import type { FillReport, FillRuleSet } from '@/models/jarring-run';
+import { recordAudit } from '@/lib/data/audit';
+import { getSettings } from '@/lib/data/settings/settings';
+import { addStockEntry } from '@/lib/data/stock/stock';
+
+/** Raised when the US rule set is chosen and no MAV is encoded for this size (the form asks for it). */
+export class MavNeededError extends HttpError {
+  constructor(nominalGrams: number) {
+    super(422, `Enter the MAV for a ${Math.round(nominalGrams)} g package, in grams, from NIST Handbook 133 (Appendix A, Table 2-5): Combtrace does not hold that table.`);
+  }
+}
+
+type ProductForFill = { netGrams: number; declaredUnit: 'g' | 'oz'; declaredAmount: number };
+
+/** The labelled quantity in grams, unrounded: 12 oz is 340.19 g, not the stored 340 g. */
+export function nominalGrams(p: ProductForFill): number {
+  return p.declaredUnit === 'oz' ? Number(p.declaredAmount) * GRAMS_PER_OUNCE : Number(p.declaredAmount) || p.netGrams;
+}
+
+/** Fill check by the owner's rule set: OIML R 87 / 76/211/EEC (TNE) or NIST Handbook 133 (average + MAV). */
+export function checkFill(ruleSet: FillRuleSet, nominal: number, samples: number[], mavGrams?: number | null): FillReport {
+  if (ruleSet === 'oiml') return assessFill(nominal, samples);
+  const mav = maximumAllowableVariation(nominal) ?? mavGrams ?? null;
+  if (mav === null) throw new MavNeededError(nominal);
+  return assessFillUs(nominal, samples, mav);
+}
+
+export type JarrableLot = {
+  id: number; code: string; floralSource: string; extractedOn: string | null; netGrams: number; usedGrams: number; remainingGrams: number;
+  jars: { productId: number; productName: string; jars: number }[];
+};
+
+/** Released lots with what they can still fill, per active product (after the owner's expected loss). */
+export async function listJarrableLots(): Promise<JarrableLot[]> {
+  const { Lot, Product } = getDb().models;
+  const settings = await getSettings();
+  const [lots, products] = await Promise.all([
+    Lot.findAll({ where: { stage: 'released' }, order: [['extractedOn', 'ASC'], ['code', 'ASC']] }),
+    Product.findAll({ where: { active: true }, order: [['sortOrder', 'ASC'], ['name', 'ASC']] }),
+  ]);
+  return lots.map((l) => {
+    const remainingGrams = Math.max(0, l.netGrams - l.usedGrams);
+    return {
+      id: l.id, code: l.code, floralSource: l.floralSource, extractedOn: l.extractedOn ?? null, netGrams: l.netGrams, usedGrams: l.usedGrams, remainingGrams,
+      jars: products.map((p) => ({ productId: p.id, productName: p.name, jars: jarsLotCanFill(remainingGrams, p.netGrams, Number(settings.expectedLossPct)) })),
+    };
+  });
+}
+
+export type RunResult = { runId: number; pass: boolean; reasons: string[]; stocked: boolean; packedOut: boolean; duplicate: boolean };
+
+async function existingRun(key: string, t?: Transaction): Promise<RunResult | null> {
+  const run = await getDb().models.JarringRun.findOne({ where: { idempotencyKey: key }, transaction: t });
+  if (!run) return null;
+  return { runId: run.id, pass: run.fillPass, reasons: run.fillReport.reasons, stocked: run.fillPass || !!run.overrideReason, packedOut: false, duplicate: true };
+}
+
+/** Net sample weights: as typed, or gross minus the product's empty container. */
+function netSamples(data: JarringRunData, containerGrams: number): number[] {
+  const typed = parseSampleWeights(data.samples);
+  const net = data.sampleMode === 'gross' ? typed.map((g) => g - containerGrams) : typed;
+  if (net.some((g) => g <= 0)) throw new HttpError(422, `A gross weight is not above the empty ${containerGrams} g container: check the weights or choose “net”.`);
+  return net.map((g) => Math.round(g * 10) / 10);
+}
+
+/**
+ * Records a jarring run: locks the lot, refuses to draw more honey than it has left, checks the
+ * fill, and (if it passes) puts the jars into stock. When what is left cannot fill one more jar
+ * of any active product the lot becomes packed out. One idempotency key → one run.
+ */
+export async function createJarringRun(user: SessionUser, data: JarringRunData): Promise<RunResult> {
+  const { sequelize, models } = getDb();
+  const settings = await getSettings();
+  const earlier = await existingRun(data.idempotencyKey);
+  if (earlier) return earlier;
+  try {
+    return await sequelize.transaction(async (t) => {
+      const again = await existingRun(data.idempotencyKey, t);
+      if (again) return again;
+      const lot = await models.Lot.findByPk(data.lotId, { transaction: t, lock: t.LOCK.UPDATE });
+      if (!lot) throw new HttpError(404, 'No such lot.');
+      if (lot.stage !== 'released') throw new HttpError(409, `Lot ${lot.code} is ${lot.stage.replace('_', ' ')}; only a released lot can be jarred.`);
+      const product = await models.Product.findByPk(data.productId, { transaction: t });
+      if (!product) throw new HttpError(404, 'No such product.');
+      if (!product.active) throw new HttpError(409, `${product.name} is not active.`);
+
+      const samples = netSamples(data, product.containerGrams);
+      const nominal = nominalGrams(product);
+      const report = checkFill(settings.fillRuleSet, nominal, samples, data.mavGrams === '' ? null : data.mavGrams);
+      const used = honeyUsedByRun(data.jarCount, nominal, samples);
+      const remaining = lot.netGrams - lot.usedGrams;
+      if (used > remaining) {
+        const system = settings.weightSystem;
+        throw new HttpError(409, `This run takes ${formatWeight(used, system)} of honey; lot ${lot.code} has only ${formatWeight(Math.max(remaining, 0), system)} left.`);
+      }
+
+      const bestBeforeOn = lot.bestBeforeOn ?? bestBeforeDate(lot.extractedOn ?? data.runOn, settings.bestBeforeMonths);
+      const run = await models.JarringRun.create(
+        {
+          lotId: lot.id, productId: product.id, jarCount: data.jarCount, runOn: data.runOn, sampleGrams: samples, ruleSet: settings.fillRuleSet,
+          fillPass: report.pass, fillReport: report, honeyUsedGrams: used, createdBy: user.id, idempotencyKey: data.idempotencyKey,
+        },
+        { transaction: t },
+      );
+      await lot.update({ usedGrams: lot.usedGrams + used, bestBeforeOn }, { transaction: t });
+      if (report.pass) {
+        await addStockEntry({ productId: product.id, lotId: lot.id, delta: data.jarCount, kind: 'jarring', reason: `Jarring run ${run.id}`, jarringRunId: run.id, createdBy: user.id }, t);
+      }
+      const packedOut = await packOutIfEmpty(lot, user, t);
+      await recordAudit(
+        {
+          actorUserId: user.id, action: 'jarring.run', entityType: 'jarring_run', entityId: run.id,
+          after: { lot: lot.code, product: product.name, jarCount: data.jarCount, honeyUsedGrams: used, pass: report.pass, reasons: report.reasons, packedOut },
+        },
+        t,
+      );
+      return { runId: run.id, pass: report.pass, reasons: report.reasons, stocked: report.pass, packedOut, duplicate: false };
+    });
+  } catch (err) {
+    if (err instanceof UniqueConstraintError) {
+      const raced = await existingRun(data.idempotencyKey);
+      if (raced) return raced;
+    }
+    throw err;
+  }
+}
+
+/** Packs the lot out when its remaining honey cannot fill one jar of the smallest active product. */
+async function packOutIfEmpty(lot: InstanceType<ReturnType<typeof getDb>['models']['Lot']>, user: SessionUser, t: Transaction): Promise<boolean> {
+  const { Product } = getDb().models;
+  const settings = await getSettings();
+  const smallest = await Product.findOne({ where: { active: true }, order: [['netGrams', 'ASC']], transaction: t });
+  const remaining = Math.max(0, lot.netGrams - lot.usedGrams);
+  // "Worth jarring": whole jars of the smallest product after the expected loss; the rest is loss in the tank.
+  const worthJarring = smallest ? jarsLotCanFill(remaining, smallest.netGrams, Number(settings.expectedLossPct)) * smallest.netGrams : remaining;
+  const result = nextStage(lot.stage, 'packed_out', {
+    role: user.role as LotRole, hasWeights: true, moistureOk: null, labOk: null, unresolvedFlaggedSupers: 0, remainingGrams: worthJarring,
+  });
+  if (!result.ok) return false;
+  await lot.update({ stage: result.stage }, { transaction: t });
+  await recordAudit(
+    { actorUserId: user.id, action: 'lot.stage', entityType: 'lot', entityId: lot.id, before: { stage: 'released' }, after: { stage: result.stage, leftInTankGrams: remaining }, reason: 'Nothing worth jarring remains' },
+    t,
+  );
+  return true;
+}
+
+/** The owner lets a failing run's jars into stock, with a written reason. */
+export async function overrideJarringRun(user: SessionUser, runId: number, reason: string): Promise<void> {
+  const { sequelize, models } = getDb();
+  await sequelize.transaction(async (t) => {
+    const run = await models.JarringRun.findByPk(runId, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!run) throw new HttpError(404, 'No such jarring run.');
+    if (run.fillPass) throw new HttpError(409, 'This run passed its fill check; its jars are already in stock.');
+    if (run.overrideReason) throw new HttpError(409, 'This run was already overridden.');
+    await run.update({ overrideReason: reason, overrideBy: user.id }, { transaction: t });
+    await addStockEntry({ productId: run.productId, lotId: run.lotId, delta: run.jarCount, kind: 'jarring', reason: `Jarring run ${run.id} (override)`, jarringRunId: run.id, createdBy: user.id }, t);
+    await recordAudit({ actorUserId: user.id, action: 'jarring.override', entityType: 'jarring_run', entityId: run.id, before: { stocked: false }, after: { stocked: true, jarCount: run.jarCount }, reason }, t);
+  });
+}
+
+export type RunRow = {
+  id: number; runOn: string; lotId: number; lotCode: string; floralSource: string; productId: number; productName: string; jarCount: number; honeyUsedGrams: number;
+  ruleSet: FillRuleSet; pass: boolean; reasons: string[]; mean: number; samples: number[]; overrideReason: string | null; stocked: boolean; byName: string | null;
+};
+
+type RunModel = InstanceType<ReturnType<typeof getDb>['models']['JarringRun']> & { createdByUser?: { name: string } };
+function toRunRow(r: RunModel): RunRow {
+  return {
+    id: r.id, runOn: r.runOn, lotId: r.lotId, lotCode: r.lot?.code ?? '', floralSource: r.lot?.floralSource ?? '', productId: r.productId, productName: r.product?.name ?? '',
+    jarCount: r.jarCount, honeyUsedGrams: r.honeyUsedGrams, ruleSet: r.ruleSet, pass: r.fillPass, reasons: r.fillReport?.reasons ?? [], mean: r.fillReport?.mean ?? 0,
+    samples: r.sampleGrams, overrideReason: r.overrideReason ?? null, stocked: r.fillPass || !!r.overrideReason, byName: null,
+  };
+}
+
+export async function listJarringRuns(opts: { lotId?: number; limit?: number } = {}): Promise<RunRow[]> {
+  const { JarringRun, Lot, Product } = getDb().models;
+  const rows = await JarringRun.findAll({
+    where: opts.lotId ? { lotId: opts.lotId } : {},
+    include: [{ model: Lot, as: 'lot', attributes: ['code', 'floralSource'] }, { model: Product, as: 'product', attributes: ['name'] }],
+    order: [['runOn', 'DESC'], ['id', 'DESC']],
+    limit: Math.min(opts.limit ?? 50, 500),
+  });
+  return rows.map(toRunRow);
+}
+
+export async function getJarringRun(id: number): Promise<RunRow | null> {
+  const { JarringRun, Lot, Product, User } = getDb().models;
+  const r = await JarringRun.findByPk(id, { include: [{ model: Lot, as: 'lot', attributes: ['code', 'floralSource'] }, { model: Product, as: 'product', attributes: ['name'] }] });
+  if (!r) return null;
+  const row = toRunRow(r);
+  if (r.createdBy) row.byName = (await User.findByPk(r.createdBy, { attributes: ['name'] }))?.name ?? null;
+  return row;
+}

@@ -1,0 +1,40 @@
+import 'server-only';
+import { getDb } from '@/lib/db/index';
+import type { SessionUser } from '@/lib/auth/session';
+import { HttpError } from '@/lib/http/json';
+import { nextStage, type LotStage } from '@/lib/domain/lot-stage';
+import { recordAudit } from '@/lib/data/audit';
+import { lockLot } from './access';
+import { lotChecks } from './checks';
+import { getSettings } from '@/lib/data/settings/settings';
+
+/**
+ * Moves a lot towards `target`; the one place that applies nextStage (lib/domain/lot-stage.ts).
+ * A release whose checks fail puts the lot in *held* with the reasons; leaving *held* needs the
+ * owner and a written reason. Returns the stage the lot ended in.
+ */
+export async function changeLotStage(actor: SessionUser, lotId: number, target: LotStage, reason?: string): Promise<{ stage: LotStage; holdReasons: string[] }> {
+  const { sequelize } = getDb();
+  const settings = await getSettings();
+  return sequelize.transaction(async (t) => {
+    const lot = await lockLot(lotId, t);
+    const checks = await lotChecks(lot, settings, t);
+    const result = nextStage(lot.stage, target, { ...checks, role: actor.role, reason });
+    if (!result.ok) throw new HttpError(409, result.error);
+    const before = { stage: lot.stage, holdReasons: lot.holdReasons };
+    let holdReasons: string[] = [];
+    if (result.stage === 'held') {
+      // A failed release holds with the specific failures (and any flagged supers); a manual hold with the person's reason.
+      holdReasons = result.holdReasons
+        ? [...checks.failures, ...result.holdReasons.filter((r) => r.includes('flagged'))]
+        : [reason!.trim()];
+      if (holdReasons.length === 0) holdReasons = result.holdReasons ?? [];
+    }
+    const patch: { stage: LotStage; holdReasons: string[]; extractedOn?: string } = { stage: result.stage, holdReasons };
+    if (result.stage === 'extracted' && !lot.extractedOn) patch.extractedOn = new Date().toISOString().slice(0, 10);
+    await lot.update(patch, { transaction: t });
+    const action = before.stage === 'held' ? (result.stage === 'released' ? 'lot.release_override' : 'lot.unhold') : `lot.stage.${result.stage}`;
+    await recordAudit({ actorUserId: actor.id, action, entityType: 'lot', entityId: lot.id, before, after: { stage: result.stage, holdReasons, asked: target }, reason: reason?.trim() || null }, t);
+    return { stage: result.stage, holdReasons };
+  });
+}

@@ -1,0 +1,122 @@
+import 'server-only';
+import { getDb } from '@/lib/db/index';
+import { HttpError } from '@/lib/http/json';
+import { enqueueMail } from '@/lib/mail/outbox';
+import { orderReadyMail, orderRefundMail, orderShippedMail } from '@/lib/mail/order-mails';
+import { appUrl, stripe } from '@/lib/payments/stripe';
+import { orderToken } from '@/lib/payments/order-token';
+import type { OrderStatus } from '@/models/order';
+import { recordAudit } from '@/lib/data/audit';
+import { getSettings } from '@/lib/data/settings/settings';
+import { getOrderDetail } from './read';
+import { releaseReservedLocked } from './release';
+import { orderAllocations, returnSold } from './stock';
+
+/** The order desk's writes (owner, crew). Each locks the order row and records an audit entry. */
+
+const STEP: Record<'packed' | 'shipped' | 'picked_up', { from: OrderStatus[]; stamp: 'packedAt' | 'shippedAt' | 'pickedUpAt' }> = {
+  packed: { from: ['paid'], stamp: 'packedAt' },
+  shipped: { from: ['paid', 'packed'], stamp: 'shippedAt' },
+  picked_up: { from: ['paid', 'packed'], stamp: 'pickedUpAt' },
+};
+
+const link = (number: string) => `${appUrl()}/orders/${number}?t=${orderToken(number)}`;
+
+export async function advanceOrder(actorUserId: number, orderId: number, to: 'packed' | 'shipped' | 'picked_up', tracking = ''): Promise<void> {
+  const { sequelize, models } = getDb();
+  const settings = await getSettings();
+  await sequelize.transaction(async (t) => {
+    const order = await models.Order.findByPk(orderId, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!order) throw new HttpError(404, 'No such order.');
+    const step = STEP[to];
+    if (!step.from.includes(order.status)) throw new HttpError(409, `Order ${order.number} is ${order.status.replace('_', ' ')}; it cannot be marked ${to.replace('_', ' ')}.`);
+    if (to === 'shipped' && order.fulfilment !== 'ship') throw new HttpError(409, 'This order is for pickup; mark it picked up instead.');
+    if (to === 'picked_up' && order.fulfilment !== 'pickup') throw new HttpError(409, 'This order is shipped, not picked up.');
+    const before = { status: order.status };
+    await order.update({ status: to, [step.stamp]: new Date(), ...(to === 'shipped' ? { tracking: tracking || null } : {}) }, { transaction: t });
+    await recordAudit({ actorUserId, action: `order.${to}`, entityType: 'order', entityId: order.id, before, after: { status: to, ...(to === 'shipped' ? { tracking } : {}) } }, t);
+    const detail = await getOrderDetail(order.id, t);
+    if (!detail) return;
+    const ctx = { business: settings.businessName, link: link(order.number), address: settings.address };
+    if (to === 'packed' && order.fulfilment === 'pickup') await enqueueMail(orderReadyMail(detail, ctx), t);
+    if (to === 'shipped') await enqueueMail(orderShippedMail(detail, ctx), t);
+  });
+}
+
+/** Cancels an unpaid order: its jars go back at once and its payment page is closed. */
+export async function cancelUnpaidOrder(actorUserId: number, orderId: number): Promise<void> {
+  const { sequelize, models } = getDb();
+  const sessionId = await sequelize.transaction(async (t) => {
+    const order = await models.Order.findByPk(orderId, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!order) throw new HttpError(404, 'No such order.');
+    if (order.status !== 'awaiting_payment') throw new HttpError(409, 'Only an order still awaiting payment can be cancelled; refund a paid one.');
+    await releaseReservedLocked(t, order, 'cancelled', actorUserId, 'Cancelled at the order desk');
+    return order.stripeSessionId;
+  });
+  // If the buyer pays in the meantime, the webhook sees a cancelled order and takes the jars again or flags a refund.
+  if (sessionId) await stripe().checkout.sessions.expire(sessionId).catch(() => undefined);
+}
+
+export type RefundRequest = { orderId: number; amountCents: number; jars: { lineId: number; quantity: number }[]; restock: boolean; reason: string };
+
+/**
+ * Refunds fully or partly through Stripe. The amount is claimed on the order first (so the
+ * charge.refunded webhook that races back finds it already counted), then Stripe is asked with an
+ * idempotency key per refund row; if Stripe refuses, the claim is undone and nothing else changed.
+ * On success, jars come back to stock or are written off, and the customer is told.
+ */
+export async function refundOrder(actorUserId: number, r: RefundRequest): Promise<{ refundId: number }> {
+  const { sequelize, models } = getDb();
+  if (!Number.isInteger(r.amountCents) || r.amountCents <= 0) throw new HttpError(400, 'Enter an amount to refund.');
+  const claim = await sequelize.transaction(async (t) => {
+    const order = await models.Order.findByPk(r.orderId, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!order) throw new HttpError(404, 'No such order.');
+    if (!order.paidAt) throw new HttpError(409, 'This order was never paid; cancel it instead.');
+    if (!order.paymentIntentId) throw new HttpError(409, 'This order was not paid by card through the shop, so it cannot be refunded here; refund it by hand.');
+    const left = order.totalCents - order.refundedCents;
+    if (r.amountCents > left) throw new HttpError(409, `At most ${left} cents are left to refund on order ${order.number}.`);
+    // Check the jars before any money moves: a refund that Stripe made must not fail afterwards.
+    const sold = await orderAllocations(t, order.id, 'sold');
+    for (const j of r.jars) {
+      const have = sold.filter((a) => a.lineId === j.lineId).reduce((s, a) => s + a.quantity, 0);
+      if (j.quantity > have) throw new HttpError(409, `Only ${have} jar${have === 1 ? '' : 's'} of that line can be returned.`);
+    }
+    const refund = await models.Refund.create({ orderId: order.id, amountCents: r.amountCents, restock: r.restock, reason: r.reason, createdBy: actorUserId }, { transaction: t });
+    await order.update({ refundedCents: order.refundedCents + r.amountCents }, { transaction: t });
+    return { refundId: refund.id, paymentIntentId: order.paymentIntentId };
+  });
+
+  let stripeRefundId: string;
+  try {
+    const refund = await stripe().refunds.create(
+      { payment_intent: claim.paymentIntentId, amount: r.amountCents, reason: 'requested_by_customer', metadata: { orderId: String(r.orderId), refundId: String(claim.refundId) } },
+      { idempotencyKey: `refund-${claim.refundId}-v1` },
+    );
+    stripeRefundId = refund.id;
+  } catch (err) {
+    await sequelize.transaction(async (t) => {
+      const order = await models.Order.findByPk(r.orderId, { transaction: t, lock: t.LOCK.UPDATE });
+      await order?.update({ refundedCents: Math.max(0, order.refundedCents - r.amountCents) }, { transaction: t });
+      await models.Refund.destroy({ where: { id: claim.refundId }, transaction: t });
+    });
+    const message = err instanceof Error && 'type' in err ? `The card payment service refused the refund: ${err.message}` : 'The card payment service could not be reached; nothing was refunded.';
+    throw new HttpError(409, message);
+  }
+
+  const settings = await getSettings();
+  await sequelize.transaction(async (t) => {
+    const order = await models.Order.findByPk(r.orderId, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!order) throw new HttpError(404, 'No such order.');
+    await models.Refund.update({ stripeRefundId }, { where: { id: claim.refundId }, transaction: t });
+    for (const j of r.jars.filter((x) => x.quantity > 0)) {
+      await returnSold(t, { orderId: order.id, orderNumber: order.number, lineId: j.lineId, quantity: j.quantity, restock: r.restock, actorUserId });
+    }
+    const full = order.refundedCents >= order.totalCents;
+    const before = { status: order.status };
+    if (full && !['expired', 'cancelled'].includes(order.status)) await order.update({ status: 'refunded' }, { transaction: t });
+    await recordAudit({ actorUserId, action: 'order.refund', entityType: 'order', entityId: order.id, before, after: { status: order.status, amountCents: r.amountCents, jars: r.jars, restock: r.restock, stripeRefundId }, reason: r.reason || null }, t);
+    const detail = await getOrderDetail(order.id, t);
+    if (detail) await enqueueMail(orderRefundMail(detail, { business: settings.businessName, link: link(order.number), amountCents: r.amountCents, refundId: claim.refundId }), t);
+  });
+  return { refundId: claim.refundId };
+}

@@ -1,0 +1,142 @@
+import 'server-only';
+import { Op, QueryTypes } from 'sequelize';
+import { getDb } from '@/lib/db/index';
+import { HttpError } from '@/lib/http/json';
+import { parcelWeightGrams, shippingCents } from '@/lib/domain/shipping';
+import type { CheckoutData } from '@/lib/schemas/checkout';
+import type { SessionUser } from '@/lib/auth/session';
+import { appUrl, stripe } from '@/lib/payments/stripe';
+import { orderToken } from '@/lib/payments/order-token';
+import { getSettings } from '@/lib/data/settings/settings';
+import { SELLABLE_STAGES } from './catalogue';
+import { reserveLines } from '@/lib/data/orders/stock';
+import { releaseReservedLocked } from '@/lib/data/orders/release';
+
+/** How long a checkout holds its jars; the Checkout Session expires at the same moment. */
+export const RESERVE_MINUTES = 30;
+// Stripe refuses expires_at under 30 min after the session's own creation time, which is a moment
+// after ours: a little slack keeps the request valid (FAKES.md §4).
+const SLACK_SECONDS = 30;
+
+export type StartedCheckout = { orderId: number; number: string; url: string };
+
+/**
+ * Builds the order from OUR prices, reserves the jars (one transaction, row locks), then asks
+ * Stripe for a Checkout Session and returns its URL. If Stripe fails the reservation is released.
+ */
+export async function startCheckout(input: CheckoutData, user: SessionUser | null): Promise<StartedCheckout> {
+  const { sequelize, models } = getDb();
+  const settings = await getSettings();
+  const wanted = new Map<number, number>();
+  for (const i of input.items) wanted.set(i.productId, (wanted.get(i.productId) ?? 0) + i.quantity);
+  const products = await models.Product.findAll({ where: { id: [...wanted.keys()], active: true } });
+  if (products.length !== wanted.size) throw new HttpError(409, 'Something in your cart is no longer sold. Please check your cart.');
+  const lines = products
+    .map((p) => ({ product: p, quantity: wanted.get(p.id) as number }))
+    .sort((a, b) => a.product.id - b.product.id);
+  const subtotal = lines.reduce((s, l) => s + l.quantity * l.product.priceCents, 0);
+  let shipping = 0;
+  if (input.fulfilment === 'ship') {
+    const weight = parcelWeightGrams(lines.map((l) => ({ quantity: l.quantity, netGrams: l.product.netGrams, containerGrams: l.product.containerGrams })));
+    const price = shippingCents(weight, settings.shippingBands ?? []);
+    if (price === null) throw new HttpError(409, 'This parcel is heavier than we ship. Please choose pickup or fewer jars.');
+    shipping = price;
+  }
+  const expiresAt = Math.floor(Date.now() / 1000) + RESERVE_MINUTES * 60 + SLACK_SECONDS;
+  await releaseOverdueReservations();
+
+  const order = await sequelize.transaction(async (t) => {
+    const [{ n }] = await sequelize.query<{ n: number }>(`SELECT nextval('order_number_seq')::int AS n`, { type: QueryTypes.SELECT, transaction: t });
+    const created = await models.Order.create(
+      {
+        number: `C-${n}`,
+        customerId: user?.role === 'customer' ? user.id : null,
+        email: user?.role === 'customer' ? user.email : input.email,
+        name: input.name,
+        phone: input.phone,
+        fulfilment: input.fulfilment,
+        shippingAddress: input.fulfilment === 'ship' && input.address ? { name: input.name, ...input.address } : null,
+        subtotalCents: subtotal,
+        shippingCents: shipping,
+        totalCents: subtotal + shipping,
+        currency: settings.currency,
+        reservedUntil: new Date(expiresAt * 1000),
+      },
+      { transaction: t },
+    );
+    const toReserve = [];
+    for (const l of lines) {
+      const line = await models.OrderLine.create(
+        { orderId: created.id, productId: l.product.id, productName: l.product.name, quantity: l.quantity, unitPriceCents: l.product.priceCents },
+        { transaction: t },
+      );
+      toReserve.push({ lineId: line.id, productId: l.product.id, productName: l.product.name, quantity: l.quantity });
+    }
+    await reserveLines(t, toReserve);
+    return created;
+  });
+
+  const token = orderToken(order.number);
+  try {
+    const session = await stripe().checkout.sessions.create(
+      {
+        mode: 'payment',
+        customer_email: order.email,
+        client_reference_id: order.number,
+        metadata: { orderId: String(order.id), orderNumber: order.number },
+        payment_intent_data: { metadata: { orderId: String(order.id) } },
+        line_items: [
+          ...lines.map((l) => ({
+            quantity: l.quantity,
+            price_data: { currency: settings.currency, unit_amount: l.product.priceCents, product_data: { name: l.product.name } },
+          })),
+          ...(shipping > 0 ? [{ quantity: 1, price_data: { currency: settings.currency, unit_amount: shipping, product_data: { name: 'Shipping' } } }] : []),
+        ],
+        success_url: `${appUrl()}/orders/${order.number}?t=${token}&session_id={CHECKOUT_SESSION_ID}`,
+        cancel_url: `${appUrl()}/checkout/cancelled?order=${order.number}&t=${token}`,
+        expires_at: expiresAt,
+      },
+      { idempotencyKey: `checkout-order-${order.id}-v1` },
+    );
+    await order.update({ stripeSessionId: session.id });
+    if (!session.url) throw new Error('Stripe returned a session without a URL.');
+    return { orderId: order.id, number: order.number, url: session.url };
+  } catch (err) {
+    await releaseOrder(order.id, 'cancelled', null, 'Could not start the card payment');
+    console.error(`[checkout] order ${order.number}: Stripe session not created`, err);
+    throw new HttpError(503, 'The card payment service is not answering. Nothing was charged and your jars are back on the shelf; please try again in a minute.');
+  }
+}
+
+/**
+ * Releases an unpaid order's reservation and closes it (expired session, sweep, cancel).
+ * Does nothing unless the order is still awaiting payment; returns whether it changed.
+ */
+export async function releaseOrder(orderId: number, status: 'expired' | 'cancelled', actorUserId: number | null, reason: string): Promise<boolean> {
+  const { sequelize, models } = getDb();
+  return sequelize.transaction(async (t) => {
+    const order = await models.Order.findByPk(orderId, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!order || order.status !== 'awaiting_payment') return false;
+    await releaseReservedLocked(t, order, status, actorUserId, reason);
+    return true;
+  });
+}
+
+/** The sweep: unpaid orders past their reservation give their jars back. */
+export async function releaseOverdueReservations(now = new Date()): Promise<number> {
+  const { Order } = getDb().models;
+  const overdue = await Order.findAll({ where: { status: 'awaiting_payment', reservedUntil: { [Op.lt]: now } }, attributes: ['id'], limit: 100 });
+  let n = 0;
+  for (const o of overdue) if (await releaseOrder(o.id, 'expired', null, 'Reservation time ran out')) n++;
+  return n;
+}
+
+/** Available jars of one product now (tests and the product JSON). */
+export async function availableJars(productId: number): Promise<number> {
+  const [row] = await getDb().sequelize.query<{ n: number }>(
+    `SELECT COALESCE(SUM(on_hand - reserved), 0)::int AS n FROM stock_levels
+     WHERE product_id = :productId AND lot_id IN (SELECT id FROM lots WHERE stage IN ${SELLABLE_STAGES})`,
+    { type: QueryTypes.SELECT, replacements: { productId } },
+  );
+  return row.n;
+}
