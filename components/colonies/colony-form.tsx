@@ -4,7 +4,7 @@ import { colonyInput, COLONY_ORIGINS, type ColonyInput } from '@/lib/schemas/har
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
-import { useActionForm } from '../ui/use-action-form';
+import { useActionForm } from '@/components/ui/use-action-form';
 
 type Props = {
   initial: ColonyInput;

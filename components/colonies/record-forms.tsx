@@ -7,8 +7,8 @@ import {
 } from '@/lib/schemas/harvest';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
-import { newEntryKey } from '../ui/entry-key';
-import { useActionForm, type SaveResult } from '../ui/use-action-form';
+import { newEntryKey } from '@/components/ui/entry-key';
+import { useActionForm, type SaveResult } from '@/components/ui/use-action-form';
 import { TreatmentCaution } from './treatment-caution';
 
 type Save<S extends z.ZodType> = (v: z.input<S>) => Promise<SaveResult>;

@@ -7,7 +7,7 @@ import { formatWeight, type UnitSystem } from '@/lib/domain/units';
 import { localDate } from '@/lib/domain/local-date';
 import type { Page } from '@/lib/schemas/list-query';
 import type { PullRow, PullVoid } from '@/lib/data/supers/pulls';
-import { FlagCell } from '../colonies/chips';
+import { FlagCell } from '@/components/colonies/chips';
 import { VoidedNote, VoidPullButton, type VoidPull } from './void-pull-button';
 
 /**

@@ -3,7 +3,7 @@ import { useRouter } from 'next/navigation';
 import { tagBatchInput, SUPER_DEPTHS } from '@/lib/schemas/harvest';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
-import { useActionForm, type SaveResult } from '../ui/use-action-form';
+import { useActionForm, type SaveResult } from '@/components/ui/use-action-form';
 import type { z } from 'zod';
 
 export function TagBatchForm({ onSave }: { onSave: (v: z.input<typeof tagBatchInput>) => Promise<SaveResult> }) {

@@ -3,7 +3,7 @@ import { useRouter } from 'next/navigation';
 import { treatmentKindInput, type TreatmentKindInput } from '@/lib/schemas/harvest';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
-import { useActionForm, type SaveResult } from '../ui/use-action-form';
+import { useActionForm, type SaveResult } from '@/components/ui/use-action-form';
 
 /** One treatment kind (new or existing). Values are copied from the product label by the owner. */
 export function TreatmentKindForm({ initial, onSave }: { initial?: TreatmentKindInput; onSave: (v: TreatmentKindInput) => Promise<SaveResult> }) {

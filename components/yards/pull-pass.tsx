@@ -2,7 +2,7 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { Check, CloudOff, RotateCw, TriangleAlert } from 'lucide-react';
 import { SUPER_DEPTHS, type PullEntry } from '@/lib/schemas/harvest';
-import { newEntryKey } from '../ui/entry-key';
+import { newEntryKey } from '@/components/ui/entry-key';
 import {
   ANSWER_WITHIN_MS, NoAnswer, answerWithin, changeWaiting, markRefused, notShown, pullOutcome, readWaiting, toSend, waitingKey, withoutWaiting, withWaiting,
   type PullOutcome, type PullReply, type StoredEntry, type WaitingPull,

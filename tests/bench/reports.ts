@@ -12,7 +12,7 @@
  *   TEST_PGPORT=54355 npx tsx --conditions=react-server tests/bench/reports.ts
  */
 import { performance } from 'node:perf_hooks';
-import { testDbUrl } from '../support/test-env';
+import { testDbUrl } from '@/tests/support/test-env';
 import { BENCH_DB, BENCH_SEASON } from './seed-large';
 
 process.env.DATABASE_URL = testDbUrl(BENCH_DB);

@@ -9,7 +9,7 @@
  */
 import { execFileSync } from 'node:child_process';
 import path from 'node:path';
-import { ROOT, pgEnv, testDbUrl, TEST_PGPORT } from '../support/test-env';
+import { ROOT, pgEnv, testDbUrl, TEST_PGPORT } from '@/tests/support/test-env';
 
 export const BENCH_DB = 'combtrace_bench';
 export const BENCH_SEASON = 2026;

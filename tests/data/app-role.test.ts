@@ -4,8 +4,8 @@ import { closeDb, getDb } from '@/lib/db';
 import { APP_ROLE } from '@/lib/db/config';
 import { listAudit } from '@/lib/data/audit';
 import { addReadingAction, createLotAction, voidRecordAction } from '@/app/(back-office)/admin/lots/actions';
-import { DEMO, signInAs } from '../support/session';
-import { dropDatabase, migrate, recreateDatabase } from '../support/pg';
+import { DEMO, signInAs } from '@/tests/support/session';
+import { dropDatabase, migrate, recreateDatabase } from '@/tests/support/pg';
 
 // Issue 8 §13: lots, readings and audit rows are append-only for the app's own database role.
 // ASVS 4.0.3 V1.2.1 (application components run with low-privilege accounts) and V7.3.3 (security

@@ -5,7 +5,7 @@ import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { Sequelize } from 'sequelize';
 import { closeDb, getDb } from '@/lib/db';
-import { dropDatabase } from '../support/pg';
+import { dropDatabase } from '@/tests/support/pg';
 
 const restored = `combtrace_restore_${process.pid}`;
 afterAll(async () => { await closeDb(); dropDatabase(restored); });

@@ -4,7 +4,7 @@ import { closeDb } from '@/lib/db';
 import { authenticate } from '@/lib/data/auth/sign-in';
 import { authorize } from '@/lib/auth/session';
 import { handleRouteError } from '@/lib/http/json';
-import { DEMO, signInAs } from '../support/session';
+import { DEMO, signInAs } from '@/tests/support/session';
 
 afterAll(closeDb);
 afterEach(() => vi.restoreAllMocks());

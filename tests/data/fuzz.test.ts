@@ -1,8 +1,8 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { closeDb } from '@/lib/db';
-import { signInAs, setRequestHeaders } from '../support/session';
-import { callRoute, type ActionFn, type RouteFn } from '../support/matrix-calls';
-import { dbFingerprint } from '../support/db-fingerprint';
+import { signInAs, setRequestHeaders } from '@/tests/support/session';
+import { callRoute, type ActionFn, type RouteFn } from '@/tests/support/matrix-calls';
+import { dbFingerprint } from '@/tests/support/db-fingerprint';
 
 afterAll(closeDb);
 

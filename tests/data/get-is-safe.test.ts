@@ -3,10 +3,10 @@ import { QueryTypes } from 'sequelize';
 import { closeDb, getDb } from '@/lib/db';
 import { POST as uploadLabFile } from '@/app/api/lots/[id]/lab-files/route';
 import { POST as uploadPhoto } from '@/app/api/products/[id]/photo/route';
-import { DEMO, signInAs, setRequestHeaders } from '../support/session';
-import { dbFingerprint } from '../support/db-fingerprint';
-import { urlFor, type RouteFn } from '../support/matrix-calls';
-import { TINY_PDF, TINY_PNG } from '../support/files';
+import { DEMO, signInAs, setRequestHeaders } from '@/tests/support/session';
+import { dbFingerprint } from '@/tests/support/db-fingerprint';
+import { urlFor, type RouteFn } from '@/tests/support/matrix-calls';
+import { TINY_PDF, TINY_PNG } from '@/tests/support/files';
 
 afterAll(closeDb);
 

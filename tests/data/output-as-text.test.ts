@@ -5,7 +5,7 @@ import { getOrderDetail } from '@/lib/data/orders/read';
 import { orderConfirmationMail } from '@/lib/mail/order-mails';
 import { passwordMail } from '@/lib/mail/templates';
 import { GET as packingSlip } from '@/app/(back-office)/admin/orders/[id]/packing-slip/route';
-import { DEMO, signInAs, setRequestHeaders } from '../support/session';
+import { DEMO, signInAs, setRequestHeaders } from '@/tests/support/session';
 import { hasPoppler, pdfText } from '../pdf/poppler';
 
 afterAll(closeDb);

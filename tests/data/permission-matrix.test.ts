@@ -1,8 +1,8 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { closeDb } from '@/lib/db';
-import { ACTIONS, ROUTES, type Allowed, type Who } from '../support/permission-matrix';
-import { signInAs, setRequestHeaders } from '../support/session';
-import { callRoute, isAuthRefusal, routeRefused, type ActionFn, type RouteFn } from '../support/matrix-calls';
+import { ACTIONS, ROUTES, type Allowed, type Who } from '@/tests/support/permission-matrix';
+import { signInAs, setRequestHeaders } from '@/tests/support/session';
+import { callRoute, isAuthRefusal, routeRefused, type ActionFn, type RouteFn } from '@/tests/support/matrix-calls';
 
 afterAll(closeDb);
 

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
 import { closeDb } from '@/lib/db/index';
 import { BASE, DEMO_LOGINS, DESKTOP, openBrowser, signIn } from './support';
-import { makePulledSupers } from '../support/lot-fixtures';
+import { makePulledSupers } from '@/tests/support/lot-fixtures';
 
 let browser: BrowserContext;
 let page: Page;

@@ -3,7 +3,7 @@ import { closeDb, getDb } from '@/lib/db/index';
 import { DEMO, signInAs } from '@/tests/support/session';
 import { createJarringRunAction, overrideJarringRunAction } from '@/app/(back-office)/admin/jarring/actions';
 import { listJarrableLots } from '@/lib/data/jarring/runs';
-import { key, product, releasedLot, samples } from '../../support/jarring-fixtures';
+import { key, product, releasedLot, samples } from '@/tests/support/jarring-fixtures';
 
 afterAll(closeDb);
 

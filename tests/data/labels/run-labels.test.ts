@@ -8,7 +8,7 @@ import { saveLabelLayoutAction } from '@/app/(back-office)/admin/labels/actions'
 import { parseGs1ElementString } from '@/lib/domain/gs1';
 import { decodePng } from '@/tests/pdf/decode';
 import { hasPoppler, pdfPagePng, pdfText } from '@/tests/pdf/poppler';
-import { key, product, releasedLot, samples } from '../../support/jarring-fixtures';
+import { key, product, releasedLot, samples } from '@/tests/support/jarring-fixtures';
 
 afterAll(closeDb);
 

@@ -10,7 +10,7 @@ import { GET as recallGET } from '@/app/api/trace/recall/route';
 import { seasonRecipientsAction, sendKeeperReportAction } from '@/app/(back-office)/admin/reports/actions';
 import type { SessionUser } from '@/lib/auth/session';
 import { DEMO, signInAs } from '@/tests/support/session';
-import { buildFixture, type Fixture } from '../../support/report-fixtures';
+import { buildFixture, type Fixture } from '@/tests/support/report-fixtures';
 
 const SEASON = 2032;
 let fx: Fixture;

@@ -5,7 +5,7 @@ import { getSeasonReport } from '@/lib/data/reports/yield-report';
 import { seasonColonyTotals, superEstimatesFrom } from '@/lib/data/reports/yield-sql';
 import { allocateLotTree, superHoneyGrams, DEFAULT_SUPER_ESTIMATES, type LotNode, type SuperDepth } from '@/lib/domain/yield-allocation';
 import type { SessionUser } from '@/lib/auth/session';
-import { buildFixture, type Fixture } from '../../support/report-fixtures';
+import { buildFixture, type Fixture } from '@/tests/support/report-fixtures';
 
 const SEASON = 2031;
 let fx: Fixture;

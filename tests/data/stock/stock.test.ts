@@ -3,7 +3,7 @@ import { closeDb, getDb } from '@/lib/db/index';
 import { DEMO, signInAs } from '@/tests/support/session';
 import { adjustStockAction } from '@/app/(back-office)/admin/stock/actions';
 import { addStockEntry, listLedger, stockTotals } from '@/lib/data/stock/stock';
-import { product, releasedLot } from '../../support/jarring-fixtures';
+import { product, releasedLot } from '@/tests/support/jarring-fixtures';
 
 afterAll(closeDb);
 

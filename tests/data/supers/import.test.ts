@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
 import { closeDb, getDb } from '@/lib/db/index';
 import { DEMO, setRequestHeaders, signInAs } from '@/tests/support/session';
-import { harvestFixture } from '../../support/yard-fixtures';
+import { harvestFixture } from '@/tests/support/yard-fixtures';
 import { POST } from '@/app/api/super-pulls/import/route';
 
 afterAll(closeDb);

@@ -3,7 +3,7 @@ import { closeDb, getDb } from '@/lib/db/index';
 import { signInAs } from '@/tests/support/session';
 import PublicLotPage from '@/app/(storefront)/lot/[code]/page';
 import { getPublicLot } from '@/lib/data/trace/public-lot';
-import { releasedLot } from '../../support/jarring-fixtures';
+import { releasedLot } from '@/tests/support/jarring-fixtures';
 
 afterAll(closeDb);
 

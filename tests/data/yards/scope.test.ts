@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/lib/db/index';
 import { DEMO, setRequestHeaders, signInAs } from '@/tests/support/session';
-import { harvestFixture, key } from '../../support/yard-fixtures';
+import { harvestFixture, key } from '@/tests/support/yard-fixtures';
 import {
   addFeedingAction, addTreatmentAction, colonyNoteAction, colonyStatusAction, moveColonyAction,
   splitColonyAction, superOnAction, updateColonyAction, createColonyAction,
