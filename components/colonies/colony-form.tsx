@@ -1,6 +1,6 @@
 'use client';
 import { useRouter } from 'next/navigation';
-import { colonyInput, COLONY_ORIGINS, type ColonyInput } from '@/lib/schemas/harvest';
+import { colonyInput, COLONY_ORIGINS, type ColonyInput } from '@/lib/schemas/colonies';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';

@@ -2,9 +2,8 @@
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import type { z } from 'zod';
-import {
-  feedingInput, treatmentInput, superOnInput, noteInput, splitInput, moveInput, statusInput, SUPER_DEPTHS, FEEDING_KINDS,
-} from '@/lib/schemas/harvest';
+import { feedingInput, treatmentInput, noteInput, splitInput, moveInput, statusInput, FEEDING_KINDS } from '@/lib/schemas/colonies';
+import { superOnInput, SUPER_DEPTHS } from '@/lib/schemas/supers';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { newEntryKey } from '@/components/ui/entry-key';

@@ -1,6 +1,6 @@
 'use client';
 import { useRouter } from 'next/navigation';
-import { tagBatchInput, SUPER_DEPTHS } from '@/lib/schemas/harvest';
+import { tagBatchInput, SUPER_DEPTHS } from '@/lib/schemas/supers';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm, type SaveResult } from '@/components/ui/use-action-form';

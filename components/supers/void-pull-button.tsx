@@ -2,7 +2,7 @@
 import { useId, useState } from 'react';
 import { useRouter } from 'next/navigation';
 import type { ActionResult } from '@/lib/schemas/result';
-import type { VoidPullInput } from '@/lib/schemas/harvest';
+import type { VoidPullInput } from '@/lib/schemas/supers';
 import type { PullVoid, VoidResult } from '@/lib/data/supers/pulls';
 
 export type VoidPull = (v: VoidPullInput) => Promise<ActionResult<VoidResult>>;

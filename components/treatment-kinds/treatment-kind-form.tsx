@@ -1,6 +1,6 @@
 'use client';
 import { useRouter } from 'next/navigation';
-import { treatmentKindInput, type TreatmentKindInput } from '@/lib/schemas/harvest';
+import { treatmentKindInput, type TreatmentKindInput } from '@/lib/schemas/treatment-kinds';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm, type SaveResult } from '@/components/ui/use-action-form';

@@ -1,7 +1,7 @@
 'use client';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { Check, CloudOff, RotateCw, TriangleAlert } from 'lucide-react';
-import { SUPER_DEPTHS, type PullEntry } from '@/lib/schemas/harvest';
+import { SUPER_DEPTHS, type PullEntry } from '@/lib/schemas/supers';
 import { newEntryKey } from '@/components/ui/entry-key';
 import {
   ANSWER_WITHIN_MS, NoAnswer, answerWithin, changeWaiting, markRefused, notShown, pullOutcome, readWaiting, toSend, waitingKey, withoutWaiting, withWaiting,

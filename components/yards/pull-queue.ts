@@ -1,4 +1,4 @@
-import type { PullEntry } from '@/lib/schemas/harvest';
+import type { PullEntry } from '@/lib/schemas/supers';
 
 /**
  * The pull pass's waiting entries: every tap the server has not yet answered is kept in this

@@ -1,6 +1,6 @@
 'use client';
 import { useRouter } from 'next/navigation';
-import { yardInput, type YardInput } from '@/lib/schemas/harvest';
+import { yardInput, type YardInput } from '@/lib/schemas/yards';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';

@@ -1,7 +1,7 @@
 import type { z } from 'zod';
 import { authorize, type SessionUser } from '@/lib/auth/session';
 import type { Permission } from '@/lib/auth/roles';
-import { queryRecord } from '@/lib/schemas/harvest';
+import { queryRecord } from '@/lib/schemas/list-query';
 import { handleRouteError } from './json';
 
 /**

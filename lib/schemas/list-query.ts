@@ -22,3 +22,9 @@ export function searchParamsObject(params: URLSearchParams): Record<string, stri
 }
 
 export type Page<Row> = { rows: Row[]; total: number; page: number; pageSize: number };
+
+/** URLSearchParams or a Next searchParams object → a plain record with blanks dropped. */
+export function queryRecord(params: URLSearchParams | Record<string, string | string[] | undefined>): Record<string, string> {
+  const entries = params instanceof URLSearchParams ? [...params.entries()] : Object.entries(params).map(([k, v]) => [k, Array.isArray(v) ? v[0] : v] as const);
+  return Object.fromEntries(entries.filter((e): e is [string, string] => typeof e[1] === 'string' && e[1] !== ''));
+}

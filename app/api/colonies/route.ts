@@ -1,6 +1,6 @@
 import { listRoute } from '@/lib/http/list-route';
 import { listColonies } from '@/lib/data/colonies/colonies';
-import { colonyListQuery } from '@/lib/schemas/harvest';
+import { colonyListQuery } from '@/lib/schemas/colonies';
 
 export const dynamic = 'force-dynamic';
 

@@ -2,7 +2,7 @@ import { authorize } from '@/lib/auth/session';
 import { handleRouteError, readJson } from '@/lib/http/json';
 import { assertSameOrigin } from '@/lib/http/origin';
 import { listSuperPulls, recordPulls } from '@/lib/data/supers/pulls';
-import { pullBatch, pullListQuery } from '@/lib/schemas/harvest';
+import { pullBatch, pullListQuery } from '@/lib/schemas/supers';
 import { listRoute } from '@/lib/http/list-route';
 
 export const dynamic = 'force-dynamic';

@@ -1,6 +1,6 @@
 import { listRoute } from '@/lib/http/list-route';
 import { listYards } from '@/lib/data/yards/yards';
-import { yardListQuery } from '@/lib/schemas/harvest';
+import { yardListQuery } from '@/lib/schemas/yards';
 
 export const dynamic = 'force-dynamic';
 

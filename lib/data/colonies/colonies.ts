@@ -2,7 +2,7 @@ import 'server-only';
 import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
-import type { ColonyListQuery } from '@/lib/schemas/harvest';
+import type { ColonyListQuery } from '@/lib/schemas/colonies';
 import type { Colony, ColonyOrigin, ColonyStatus } from '@/models/colony';
 import { queenMarkColour, type QueenMarkColour } from '@/lib/domain/queen-colour';
 import { HttpError } from '@/lib/http/json';

@@ -2,7 +2,7 @@ import 'server-only';
 import { Op, UniqueConstraintError, type Transaction, type WhereOptions } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
-import type { PullListQuery } from '@/lib/schemas/harvest';
+import type { PullListQuery } from '@/lib/schemas/supers';
 import type { SuperPull } from '@/models/super-pull';
 import type { SuperDepth } from '@/models/super-tag';
 import { toGrams } from '@/lib/domain/units';

@@ -2,7 +2,7 @@ import 'server-only';
 import { Op, type WhereOptions } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
-import type { YardListQuery } from '@/lib/schemas/harvest';
+import type { YardListQuery } from '@/lib/schemas/yards';
 import type { Yard } from '@/models/yard';
 import { HttpError } from '@/lib/http/json';
 import { recordAudit } from '@/lib/data/audit';

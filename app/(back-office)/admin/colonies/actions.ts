@@ -1,11 +1,9 @@
 'use server';
 import { revalidatePath } from 'next/cache';
 import { z } from 'zod';
-import { guardedAction } from '@/lib/http/action';
-import {
-  colonyInput, colonyUpdateInput, moveInput, statusInput, splitInput, noteInput,
-  feedingInput, feedingEndInput, treatmentInput, treatmentEndInput, superOnInput,
-} from '@/lib/schemas/harvest';
+import { guardedAction } from '@/lib/http/server-action';
+import { colonyInput, colonyUpdateInput, moveInput, statusInput, splitInput, noteInput, feedingInput, feedingEndInput, treatmentInput, treatmentEndInput } from '@/lib/schemas/colonies';
+import { superOnInput } from '@/lib/schemas/supers';
 import { addColonyNote, createColony, moveColony, setColonyStatus, splitColony, updateColony } from '@/lib/data/colonies/colonies';
 import { addFeeding, addTreatment, endFeeding, endTreatment } from '@/lib/data/colonies/records';
 import { putSuperOn } from '@/lib/data/supers/pulls';

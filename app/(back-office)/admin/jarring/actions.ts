@@ -1,6 +1,6 @@
 'use server';
 import { revalidatePath } from 'next/cache';
-import { guardedAction } from '@/lib/http/action';
+import { guardedAction } from '@/lib/http/server-action';
 import { jarringRunInput, overrideRunInput } from '@/lib/schemas/jarring';
 import { createJarringRun, MavNeededError, overrideJarringRun, type RunResult } from '@/lib/data/jarring/runs';
 import { fail } from '@/lib/schemas/result';

@@ -1,7 +1,7 @@
 'use server';
 import { z } from 'zod';
 import { revalidatePath } from 'next/cache';
-import { guardedAction } from '@/lib/http/action';
+import { guardedAction } from '@/lib/http/server-action';
 import { labelLayoutInput } from '@/lib/schemas/jarring';
 import { deleteLabelLayout, saveLabelLayout } from '@/lib/data/labels/layouts';
 

@@ -1,6 +1,6 @@
 'use server';
 import { revalidatePath } from 'next/cache';
-import { guardedAction } from '@/lib/http/action';
+import { guardedAction } from '@/lib/http/server-action';
 import { toGrams } from '@/lib/domain/units';
 import {
   blendFormInput, containerInput, containerTypeInput, emptyWeightInput, lotDetailsInput, lotInput, pickSupersInput,

@@ -1,6 +1,6 @@
 'use server';
 import { revalidatePath } from 'next/cache';
-import { guardedAction } from '@/lib/http/action';
+import { guardedAction } from '@/lib/http/server-action';
 import { orderIdInput, refundInput, shipInput } from '@/lib/schemas/orders';
 import { advanceOrder, cancelUnpaidOrder, refundOrder } from '@/lib/data/orders/desk';
 import { getOrderDetail } from '@/lib/data/orders/read';

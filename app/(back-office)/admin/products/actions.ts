@@ -1,6 +1,6 @@
 'use server';
 import { revalidatePath } from 'next/cache';
-import { guardedAction } from '@/lib/http/action';
+import { guardedAction } from '@/lib/http/server-action';
 import { productInput } from '@/lib/schemas/jarring';
 import { saveProduct } from '@/lib/data/products/products';
 

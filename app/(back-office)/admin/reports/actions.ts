@@ -1,5 +1,5 @@
 'use server';
-import { guardedAction } from '@/lib/http/action';
+import { guardedAction } from '@/lib/http/server-action';
 import { seasonReportRecipients, sendKeeperSeasonReport } from '@/lib/reports/send';
 import { sendKeeperInput, sendSeasonInput } from '@/lib/schemas/reports';
 

@@ -1,6 +1,6 @@
 'use server';
 import { revalidatePath } from 'next/cache';
-import { guardedAction } from '@/lib/http/action';
+import { guardedAction } from '@/lib/http/server-action';
 import { settingsInput } from '@/lib/schemas/settings';
 import { updateSettings } from '@/lib/data/settings/settings';
 

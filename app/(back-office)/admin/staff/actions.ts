@@ -1,6 +1,6 @@
 'use server';
 import { revalidatePath } from 'next/cache';
-import { guardedAction } from '@/lib/http/action';
+import { guardedAction } from '@/lib/http/server-action';
 import { staffInput, staffUpdateInput } from '@/lib/schemas/auth';
 import { createStaff, EmailTakenError, updateStaff } from '@/lib/data/staff/users';
 import { fail } from '@/lib/schemas/result';

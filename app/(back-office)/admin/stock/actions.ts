@@ -1,6 +1,6 @@
 'use server';
 import { revalidatePath } from 'next/cache';
-import { guardedAction } from '@/lib/http/action';
+import { guardedAction } from '@/lib/http/server-action';
 import { stockAdjustInput } from '@/lib/schemas/jarring';
 import { adjustStock } from '@/lib/data/stock/stock';
 

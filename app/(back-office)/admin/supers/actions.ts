@@ -1,7 +1,7 @@
 'use server';
 import { revalidatePath } from 'next/cache';
-import { guardedAction } from '@/lib/http/action';
-import { tagBatchInput, voidPullInput } from '@/lib/schemas/harvest';
+import { guardedAction } from '@/lib/http/server-action';
+import { tagBatchInput, voidPullInput } from '@/lib/schemas/supers';
 import { createTagBatch } from '@/lib/data/supers/tags';
 import { voidSuperPull } from '@/lib/data/supers/pulls';
 

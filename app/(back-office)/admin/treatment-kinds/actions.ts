@@ -1,7 +1,7 @@
 'use server';
 import { revalidatePath } from 'next/cache';
-import { guardedAction } from '@/lib/http/action';
-import { treatmentKindInput } from '@/lib/schemas/harvest';
+import { guardedAction } from '@/lib/http/server-action';
+import { treatmentKindInput } from '@/lib/schemas/treatment-kinds';
 import { saveTreatmentKind } from '@/lib/data/colonies/records';
 
 export const saveTreatmentKindAction = guardedAction('treatmentKinds.manage', treatmentKindInput, async (user, data) => {

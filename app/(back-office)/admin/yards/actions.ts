@@ -1,7 +1,8 @@
 'use server';
 import { revalidatePath } from 'next/cache';
-import { guardedAction } from '@/lib/http/action';
-import { yardInput, yardUpdateInput, pullBatch } from '@/lib/schemas/harvest';
+import { guardedAction } from '@/lib/http/server-action';
+import { yardInput, yardUpdateInput } from '@/lib/schemas/yards';
+import { pullBatch } from '@/lib/schemas/supers';
 import { saveYard } from '@/lib/data/yards/yards';
 import { recordPulls } from '@/lib/data/supers/pulls';
 

@@ -3,7 +3,8 @@ import { MapPin } from 'lucide-react';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
 import { listYards } from '@/lib/data/yards/yards';
-import { queryRecord, yardListQuery } from '@/lib/schemas/harvest';
+import { queryRecord } from '@/lib/schemas/list-query';
+import { yardListQuery } from '@/lib/schemas/yards';
 import { PageHeader } from '@/components/ui/page-header';
 import { Pager } from '@/components/yards/pager';
 

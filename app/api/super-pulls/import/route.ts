@@ -4,7 +4,7 @@ import { assertSameOrigin } from '@/lib/http/origin';
 import { readUploadForm, uploadedFile } from '@/lib/http/upload';
 import { getSettings } from '@/lib/data/settings/settings';
 import { commitImport, MAX_IMPORT_BYTES, previewImport } from '@/lib/data/supers/import';
-import { importMapping } from '@/lib/schemas/harvest';
+import { importMapping } from '@/lib/schemas/supers';
 import { localDate } from '@/lib/domain/local-date';
 
 export const dynamic = 'force-dynamic';

@@ -4,7 +4,7 @@ import { getYard } from '@/lib/data/yards/yards';
 import { getColony, listColonies } from '@/lib/data/colonies/colonies';
 import { PageHeader } from '@/components/ui/page-header';
 import { ColonyForm } from '@/components/colonies/colony-form';
-import type { ColonyInput } from '@/lib/schemas/harvest';
+import type { ColonyInput } from '@/lib/schemas/colonies';
 import { updateColonyAction } from '../../actions';
 
 export const metadata = { title: 'Edit colony' };

@@ -3,7 +3,7 @@ import { requirePermission } from '@/lib/auth/session';
 import { getYard, listAssignableKeepers } from '@/lib/data/yards/yards';
 import { PageHeader } from '@/components/ui/page-header';
 import { YardForm } from '@/components/yards/yard-form';
-import type { YardInput } from '@/lib/schemas/harvest';
+import type { YardInput } from '@/lib/schemas/yards';
 import { updateYardAction } from '../../actions';
 
 export const metadata = { title: 'Edit yard' };

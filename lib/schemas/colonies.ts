@@ -1,0 +1,67 @@
+import { z } from 'zod';
+import { blankToNull, code, id, idempotencyKey, isoDay, optionalDay } from './fields';
+
+const page = z.coerce.number().int().min(1).default(1);
+const pageSize = z.coerce.number().int().min(1).max(100, 'At most 100 per page').default(25);
+const dir = z.enum(['asc', 'desc']).default('asc');
+
+export const colonyListQuery = z.object({
+  page, pageSize, dir,
+  sort: z.enum(['code', 'yard', 'status', 'queenYear']).default('code'),
+  yardId: id.optional(),
+  status: z.enum(['active', 'dead_out', 'combined', 'sold']).optional(),
+  q: z.string().trim().max(30).optional(),
+});
+export type ColonyListQuery = z.output<typeof colonyListQuery>;
+
+export const COLONY_ORIGINS = ['package', 'nucleus', 'swarm', 'purchased', 'split'] as const;
+const queenYear = blankToNull(z.coerce.number().int().min(1990, 'From 1990').max(2100));
+export const colonyInput = z.object({
+  code,
+  yardId: id,
+  keeperId: id.optional(),
+  origin: z.enum(COLONY_ORIGINS),
+  parentColonyId: blankToNull(z.coerce.number().int().positive()),
+  queenYear,
+  startedOn: optionalDay,
+  notes: z.string().trim().max(2000).default(''),
+});
+export type ColonyInput = z.input<typeof colonyInput>;
+export const colonyUpdateInput = colonyInput.omit({ yardId: true }).extend({ colonyId: id });
+
+export const moveInput = z.object({ colonyId: id, yardId: id, occurredOn: isoDay, note: z.string().trim().max(500).default('') });
+export const statusInput = z.object({
+  colonyId: id,
+  status: z.enum(['active', 'dead_out', 'combined', 'sold']),
+  combinedIntoCode: z.string().trim().max(30).optional(),
+  occurredOn: isoDay,
+  note: z.string().trim().max(500).default(''),
+});
+export const splitInput = z.object({ colonyId: id, newCode: code, occurredOn: isoDay, queenYear, note: z.string().trim().max(500).default(''), idempotencyKey });
+export const noteInput = z.object({ colonyId: id, occurredOn: isoDay, note: z.string().trim().min(1, 'Write the note').max(2000), idempotencyKey });
+
+// ---- feedings and treatments ----
+export const FEEDING_KINDS = ['sugar_syrup', 'fondant', 'pollen_substitute', 'other'] as const;
+const endAfterStart = <T extends { startedOn: string; endedOn: string | null }>(v: T) => v.endedOn === null || v.endedOn >= v.startedOn;
+export const feedingInput = z.object({
+  colonyId: id,
+  kind: z.enum(FEEDING_KINDS),
+  amount: z.string().trim().max(60).default(''),
+  startedOn: isoDay,
+  endedOn: optionalDay,
+  note: z.string().trim().max(500).default(''),
+  idempotencyKey,
+}).refine(endAfterStart, { path: ['endedOn'], message: 'Ends before it starts' });
+export const feedingEndInput = z.object({ feedingId: id, endedOn: isoDay });
+
+export const treatmentInput = z.object({
+  colonyId: id,
+  treatmentKindId: id,
+  productName: z.string().trim().max(120).default(''),
+  appliedOn: isoDay,
+  removedOn: optionalDay,
+  note: z.string().trim().max(500).default(''),
+  idempotencyKey,
+}).refine((v) => v.removedOn === null || v.removedOn >= v.appliedOn, { path: ['removedOn'], message: 'Removed before it was applied' });
+export const treatmentEndInput = z.object({ treatmentId: id, removedOn: isoDay });
+

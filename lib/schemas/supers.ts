@@ -1,0 +1,76 @@
+import { z } from 'zod';
+import { blankToNull, id, idempotencyKey, isoDay, tagCode } from './fields';
+
+export const SUPER_DEPTHS = ['deep', 'medium', 'shallow'] as const;
+export const depth = z.enum(SUPER_DEPTHS, 'Choose deep, medium or shallow');
+
+const page = z.coerce.number().int().min(1).default(1);
+const pageSize = z.coerce.number().int().min(1).max(100, 'At most 100 per page').default(25);
+
+export const pullListQuery = z.object({
+  page, pageSize,
+  dir: z.enum(['asc', 'desc']).default('desc'),
+  sort: z.enum(['pulledOn', 'colony', 'fullGrams']).default('pulledOn'),
+  yardId: id.optional(),
+  colonyId: id.optional(),
+  flagged: z.enum(['yes', 'no']).optional(),
+  /** Voided pulls are listed (struck through) unless asked for: no = standing pulls only, yes = voided only. */
+  voided: z.enum(['yes', 'no']).optional(),
+  from: isoDay.optional(),
+  to: isoDay.optional(),
+});
+export type PullListQuery = z.output<typeof pullListQuery>;
+
+export const superOnInput = z.object({
+  colonyId: id,
+  depth,
+  frameCount: z.coerce.number().int().min(1).max(12),
+  tagCode,
+  putOnOn: isoDay,
+  idempotencyKey,
+});
+
+const weight = blankToNull(z.coerce.number().positive('More than 0').max(100, 'Too heavy for a super'));
+export const pullEntry = z.object({
+  colonyId: id,
+  pulledOn: isoDay,
+  depth,
+  frameCount: z.coerce.number().int().min(1, '1 to 12').max(12, '1 to 12'),
+  weight,
+  weightUnit: z.enum(['kg', 'lb']).default('kg'),
+  cappedFrames: blankToNull(z.coerce.number().min(0).max(12)),
+  tagCode,
+  idempotencyKey,
+}).refine((v) => v.cappedFrames === null || v.cappedFrames <= v.frameCount, { path: ['cappedFrames'], message: 'More capped frames than frames' });
+export type PullEntry = z.input<typeof pullEntry>;
+export const pullBatch = z.object({ entries: z.array(pullEntry).min(1, 'Nothing to record').max(100) });
+
+/** A pull recorded by mistake is voided with a reason, never edited or deleted. */
+export const voidPullInput = z.object({
+  superPullId: id,
+  /** What the keeper saw: a recorded pull, or a super still on the hive ("super on" entered by mistake). */
+  record: z.enum(['pull', 'on'], { error: 'Choose a pull or a super-on record.' }).default('pull'),
+  reason: z.string({ error: 'Say why this record is being voided.' }).trim()
+    .min(3, 'Say why this record is being voided (at least 3 characters).')
+    .max(500, 'Keep the reason to 500 characters or fewer.'),
+});
+export type VoidPullInput = z.input<typeof voidPullInput>;
+
+export const tagBatchInput = z.object({
+  prefix: z.string().trim().min(1).max(12).regex(/^[A-Za-z0-9-]+$/, 'Letters, digits and dashes'),
+  from: z.coerce.number().int().min(1).max(99999),
+  count: z.coerce.number().int().min(1).max(500, 'At most 500 at a time'),
+  depth,
+  frameCount: z.coerce.number().int().min(1).max(12).default(10),
+});
+
+export const importMapping = z.object({
+  colonyCode: z.string().min(1, 'Choose the colony column'),
+  pulledOn: z.string().min(1, 'Choose the date column'),
+  depth: z.string().min(1, 'Choose the box depth column'),
+  frameCount: z.string().optional(),
+  fullWeight: z.string().optional(),
+  weightUnit: z.string().optional(),
+  cappedFrames: z.string().optional(),
+  tagCode: z.string().optional(),
+});
