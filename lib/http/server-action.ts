@@ -6,6 +6,7 @@ import type { Permission } from '@/lib/auth/roles';
 import { fail, toFieldErrors, type ActionResult } from '@/lib/schemas/result';
 import { assertSameOrigin, OriginError } from './origin';
 import { HttpError } from './json';
+import { DomainError } from '@/lib/domain/errors';
 
 /**
  * Builds a server action that checks, in order: same origin, the signed-in user's permission
@@ -25,7 +26,7 @@ export function guardedAction<S extends z.ZodType, R = undefined>(
       if (!parsed.success) return fail('Please fix the marked fields.', toFieldErrors(parsed.error));
       return await run(user, parsed.data);
     } catch (err) {
-      if (err instanceof AuthError || err instanceof OriginError || err instanceof HttpError) return fail(err.message);
+      if (err instanceof AuthError || err instanceof OriginError || err instanceof HttpError || err instanceof DomainError) return fail(err.message);
       throw err;
     }
   };

@@ -3,7 +3,7 @@ import type { SessionUser } from '@/lib/auth/session';
 import { getDb } from '@/lib/db';
 import { keepersWithColonies } from '@/lib/data/reports/yield-report';
 import { getSettings } from '@/lib/data/settings/settings';
-import { HttpError } from '@/lib/http/json';
+import { NotFoundError } from '@/lib/domain/errors';
 import { enqueueMail, kickMail } from '@/lib/mail/outbox';
 import { escapeHtml, mailHtml } from '@/lib/mail/templates';
 import { formatWeight } from '@/lib/domain/units';
@@ -25,13 +25,13 @@ export async function seasonReportRecipients(season: number) {
 export async function sendKeeperSeasonReport(owner: SessionUser, season: number, keeperId: number): Promise<{ queued: boolean; name: string }> {
   const recipients = await keepersWithColonies(season);
   const keeper = recipients.find((k) => k.id === keeperId);
-  if (!keeper) throw new HttpError(404, 'That keeper has no colonies in this season.');
+  if (!keeper) throw new NotFoundError('That keeper has no colonies in this season.');
   const { sequelize, models } = getDb();
   const key = seasonReportDedupeKey(season, keeperId);
   // Skip the PDF work when it was already sent.
   if (await models.OutboxMessage.findOne({ where: { dedupeKey: key } })) return { queued: false, name: keeper.name };
   const [pdf, settings] = await Promise.all([keeperReportPdf(owner, keeperId, season, keeper.name), getSettings()]);
-  if (!pdf) throw new HttpError(404, 'There is no such report.');
+  if (!pdf) throw new NotFoundError('There is no such report.');
   const honey = formatWeight(pdf.report.totals.honeyGrams, settings.weightSystem);
   const lead = `Here is the yield report of your ${pdf.report.colonies.length} colonies for the ${season} season: ${honey} of honey in all. `
     + 'The PDF lists every colony with its supers, its share of each lot, water content, revenue and rank in its yard.';

@@ -5,7 +5,7 @@ import type { SessionUser } from '@/lib/auth/session';
 import type { ColonyListQuery } from '@/lib/schemas/colonies';
 import type { Colony, ColonyOrigin, ColonyStatus } from '@/models/colony';
 import { queenMarkColour, type QueenMarkColour } from '@/lib/domain/queen-colour';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { recordAudit } from '@/lib/data/audit';
 import { canWriteColonies, colonyInScope, inScope, yardScope } from '@/lib/data/yards/scope';
 import type { Paged } from '@/lib/data/yards/yards';
@@ -91,7 +91,7 @@ export async function getColony(user: Viewer, colonyId: number): Promise<ColonyD
 /** A colony the user may write, or a 404 (never 403: another keeper's colony is not shown to exist). */
 export async function writableColony(user: Viewer, colonyId: number, transaction?: Parameters<typeof colonyInScope>[2]): Promise<Colony> {
   const colony = canWriteColonies(user) ? await colonyInScope(user, colonyId, transaction) : null;
-  if (!colony) throw new HttpError(404, 'No such colony.');
+  if (!colony) throw new NotFoundError('No such colony.');
   return colony;
 }
 
@@ -101,7 +101,7 @@ async function keeperFor(user: Viewer, yardId: number, requested: number | undef
   const keeperId = requested ?? user.id;
   const assigned = await models.YardKeeper.findOne({ where: { yardId, userId: keeperId } });
   const person = await models.User.findByPk(keeperId);
-  if (!person || (person.role !== 'owner' && !assigned)) throw new HttpError(422, 'The keeper must be assigned to this yard first.');
+  if (!person || (person.role !== 'owner' && !assigned)) throw new InvalidError('The keeper must be assigned to this yard first.');
   return keeperId;
 }
 
@@ -112,16 +112,16 @@ type ColonyData = {
 
 function uniqueCode<T>(p: Promise<T>, code: string): Promise<T> {
   return p.catch((err) => {
-    if (err instanceof UniqueConstraintError) throw new HttpError(409, `Colony code ${code} is already used.`);
+    if (err instanceof UniqueConstraintError) throw new ConflictError(`Colony code ${code} is already used.`);
     throw err;
   });
 }
 
 export async function createColony(user: Viewer, data: ColonyData): Promise<number> {
   const { sequelize, models } = getDb();
-  if (!canWriteColonies(user) || !inScope(await yardScope(user), data.yardId)) throw new HttpError(404, 'No such yard.');
-  if (data.origin === 'split' && !data.parentColonyId) throw new HttpError(422, 'A split needs the colony it was split from.');
-  if (data.parentColonyId && !(await colonyInScope(user, data.parentColonyId))) throw new HttpError(404, 'No such parent colony.');
+  if (!canWriteColonies(user) || !inScope(await yardScope(user), data.yardId)) throw new NotFoundError('No such yard.');
+  if (data.origin === 'split' && !data.parentColonyId) throw new InvalidError('A split needs the colony it was split from.');
+  if (data.parentColonyId && !(await colonyInScope(user, data.parentColonyId))) throw new NotFoundError('No such parent colony.');
   const keeperId = await keeperFor(user, data.yardId, data.keeperId);
   return uniqueCode(sequelize.transaction(async (t) => {
     const colony = await models.Colony.create({ ...data, keeperId, parentColonyId: data.origin === 'split' ? data.parentColonyId : null }, { transaction: t });
@@ -134,9 +134,9 @@ export async function updateColony(user: Viewer, colonyId: number, data: Omit<Co
   const { sequelize } = getDb();
   await uniqueCode(sequelize.transaction(async (t) => {
     const colony = await writableColony(user, colonyId, t);
-    if (data.parentColonyId === colonyId) throw new HttpError(422, 'A colony cannot be its own parent.');
-    if (data.origin === 'split' && !data.parentColonyId) throw new HttpError(422, 'A split needs the colony it was split from.');
-    if (data.parentColonyId && !(await colonyInScope(user, data.parentColonyId, t))) throw new HttpError(404, 'No such parent colony.');
+    if (data.parentColonyId === colonyId) throw new InvalidError('A colony cannot be its own parent.');
+    if (data.origin === 'split' && !data.parentColonyId) throw new InvalidError('A split needs the colony it was split from.');
+    if (data.parentColonyId && !(await colonyInScope(user, data.parentColonyId, t))) throw new NotFoundError('No such parent colony.');
     const keeperId = user.role === 'keeper' ? colony.keeperId : await keeperFor(user, colony.yardId, data.keeperId ?? colony.keeperId);
     const before = colony.get({ plain: true });
     await colony.update({ ...data, keeperId, parentColonyId: data.origin === 'split' ? data.parentColonyId : null }, { transaction: t });
@@ -149,11 +149,11 @@ export async function moveColony(user: Viewer, input: { colonyId: number; yardId
   const { sequelize, models } = getDb();
   await sequelize.transaction(async (t) => {
     const colony = await writableColony(user, input.colonyId, t);
-    if (!inScope(await yardScope(user, t), input.yardId)) throw new HttpError(404, 'No such yard.');
-    if (colony.yardId === input.yardId) throw new HttpError(422, 'The colony is already in that yard.');
+    if (!inScope(await yardScope(user, t), input.yardId)) throw new NotFoundError('No such yard.');
+    if (colony.yardId === input.yardId) throw new InvalidError('The colony is already in that yard.');
     const from = await models.Yard.findByPk(colony.yardId, { transaction: t });
     const to = await models.Yard.findByPk(input.yardId, { transaction: t });
-    if (!to) throw new HttpError(404, 'No such yard.');
+    if (!to) throw new NotFoundError('No such yard.');
     await colony.update({ yardId: input.yardId }, { transaction: t });
     await models.ColonyEvent.create({ colonyId: colony.id, kind: 'move', occurredOn: input.occurredOn, details: { fromYardId: from?.id, fromYard: from?.name, toYardId: to.id, toYard: to.name }, note: input.note, recordedBy: user.id }, { transaction: t });
     await recordAudit({ actorUserId: user.id, action: 'colony.move', entityType: 'colony', entityId: colony.id, before: { yardId: from?.id }, after: { yardId: to.id } }, t);
@@ -167,8 +167,8 @@ export async function setColonyStatus(user: Viewer, input: { colonyId: number; s
     let combinedIntoId: number | null = null;
     if (input.status === 'combined') {
       const target = input.combinedIntoCode ? await models.Colony.findOne({ where: { code: input.combinedIntoCode }, transaction: t }) : null;
-      if (!target || !inScope(await yardScope(user, t), target.yardId)) throw new HttpError(404, 'Name the colony it was combined into (one of your colonies).');
-      if (target.id === colony.id) throw new HttpError(422, 'A colony cannot be combined into itself.');
+      if (!target || !inScope(await yardScope(user, t), target.yardId)) throw new NotFoundError('Name the colony it was combined into (one of your colonies).');
+      if (target.id === colony.id) throw new InvalidError('A colony cannot be combined into itself.');
       combinedIntoId = target.id;
     }
     const before = { status: colony.status, combinedIntoId: colony.combinedIntoId };

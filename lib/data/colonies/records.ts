@@ -2,7 +2,7 @@ import 'server-only';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
 import type { FeedingKind } from '@/lib/domain/conflicts';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { recordAudit } from '@/lib/data/audit';
 import { writableColony } from './colonies';
 import { recomputeColonyFlags } from '@/lib/data/supers/flags';
@@ -25,9 +25,9 @@ export async function endFeeding(user: Viewer, feedingId: number, endedOn: strin
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (t) => {
     const row = await models.Feeding.findByPk(feedingId, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!row) throw new HttpError(404, 'No such feeding.');
+    if (!row) throw new NotFoundError('No such feeding.');
     await writableColony(user, row.colonyId, t);
-    if (endedOn < row.startedOn) throw new HttpError(422, 'The feeding cannot end before it started.');
+    if (endedOn < row.startedOn) throw new InvalidError('The feeding cannot end before it started.');
     const before = { endedOn: row.endedOn };
     await row.update({ endedOn }, { transaction: t });
     await recordAudit({ actorUserId: user.id, action: 'feeding.update', entityType: 'colony', entityId: row.colonyId, before, after: { feedingId, endedOn } }, t);
@@ -42,7 +42,7 @@ export async function addTreatment(user: Viewer, input: { colonyId: number; trea
   return sequelize.transaction(async (t) => {
     const colony = await writableColony(user, input.colonyId, t);
     const kind = await models.TreatmentKind.findByPk(input.treatmentKindId, { transaction: t });
-    if (!kind || !kind.active) throw new HttpError(422, 'Choose a treatment kind from the list.');
+    if (!kind || !kind.active) throw new InvalidError('Choose a treatment kind from the list.');
     const row = await models.Treatment.create({ ...input, colonyId: colony.id, supersAllowed: kind.supersAllowed, waitingDays: kind.waitingDays, recordedBy: user.id }, { transaction: t });
     await recordAudit({ actorUserId: user.id, action: 'treatment.create', entityType: 'colony', entityId: colony.id, after: row.get({ plain: true }) }, t);
     return { reflagged: await recomputeColonyFlags(colony.id, t) };
@@ -53,9 +53,9 @@ export async function endTreatment(user: Viewer, treatmentId: number, removedOn:
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (t) => {
     const row = await models.Treatment.findByPk(treatmentId, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!row) throw new HttpError(404, 'No such treatment.');
+    if (!row) throw new NotFoundError('No such treatment.');
     await writableColony(user, row.colonyId, t);
-    if (removedOn < row.appliedOn) throw new HttpError(422, 'The treatment cannot be removed before it was applied.');
+    if (removedOn < row.appliedOn) throw new InvalidError('The treatment cannot be removed before it was applied.');
     const before = { removedOn: row.removedOn };
     await row.update({ removedOn }, { transaction: t });
     await recordAudit({ actorUserId: user.id, action: 'treatment.update', entityType: 'colony', entityId: row.colonyId, before, after: { treatmentId, removedOn } }, t);
@@ -74,12 +74,12 @@ export async function listTreatmentKinds(activeOnly = false): Promise<TreatmentK
 export async function saveTreatmentKind(actorUserId: number, input: Omit<TreatmentKindRow, 'id'> & { id?: number }): Promise<number> {
   const { sequelize, models } = getDb();
   const clash = await models.TreatmentKind.findOne({ where: { name: input.name } });
-  if (clash && clash.id !== input.id) throw new HttpError(409, `There is already a kind called ${input.name}.`);
+  if (clash && clash.id !== input.id) throw new ConflictError(`There is already a kind called ${input.name}.`);
   return sequelize.transaction(async (t) => {
     const { id, ...fields } = input;
     if (id) {
       const row = await models.TreatmentKind.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
-      if (!row) throw new HttpError(404, 'No such treatment kind.');
+      if (!row) throw new NotFoundError('No such treatment kind.');
       const before = row.get({ plain: true });
       await row.update(fields, { transaction: t });
       await recordAudit({ actorUserId, action: 'treatmentKind.update', entityType: 'treatmentKind', entityId: id, before, after: fields }, t);

@@ -1,7 +1,7 @@
 import 'server-only';
 import { UniqueConstraintError, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import type { SessionUser } from '@/lib/auth/session';
 import { assessFill, assessFillUs, maximumAllowableVariation } from '@/lib/domain/fill-check';
 import { bestBeforeDate, honeyUsedByRun, jarsLotCanFill } from '@/lib/domain/jars';
@@ -14,9 +14,9 @@ import { getSettings } from '@/lib/data/settings/settings';
 import { addStockEntry } from '@/lib/data/stock/stock';
 
 /** Raised when the US rule set is chosen and no MAV is encoded for this size (the form asks for it). */
-export class MavNeededError extends HttpError {
+export class MavNeededError extends InvalidError {
   constructor(nominalGrams: number) {
-    super(422, `Enter the MAV for a ${Math.round(nominalGrams)} g package, in grams, from NIST Handbook 133 (Appendix A, Table 2-5): Combtrace does not hold that table.`);
+    super(`Enter the MAV for a ${Math.round(nominalGrams)} g package, in grams, from NIST Handbook 133 (Appendix A, Table 2-5): Combtrace does not hold that table.`);
   }
 }
 
@@ -69,7 +69,7 @@ async function existingRun(key: string, t?: Transaction): Promise<RunResult | nu
 function netSamples(data: JarringRunData, containerGrams: number): number[] {
   const typed = parseSampleWeights(data.samples);
   const net = data.sampleMode === 'gross' ? typed.map((g) => g - containerGrams) : typed;
-  if (net.some((g) => g <= 0)) throw new HttpError(422, `A gross weight is not above the empty ${containerGrams} g container: check the weights or choose “net”.`);
+  if (net.some((g) => g <= 0)) throw new InvalidError(`A gross weight is not above the empty ${containerGrams} g container: check the weights or choose “net”.`);
   return net.map((g) => Math.round(g * 10) / 10);
 }
 
@@ -88,11 +88,11 @@ export async function createJarringRun(user: SessionUser, data: JarringRunData):
       const again = await existingRun(data.idempotencyKey, t);
       if (again) return again;
       const lot = await models.Lot.findByPk(data.lotId, { transaction: t, lock: t.LOCK.UPDATE });
-      if (!lot) throw new HttpError(404, 'No such lot.');
-      if (lot.stage !== 'released') throw new HttpError(409, `Lot ${lot.code} is ${lot.stage.replace('_', ' ')}; only a released lot can be jarred.`);
+      if (!lot) throw new NotFoundError('No such lot.');
+      if (lot.stage !== 'released') throw new ConflictError(`Lot ${lot.code} is ${lot.stage.replace('_', ' ')}; only a released lot can be jarred.`);
       const product = await models.Product.findByPk(data.productId, { transaction: t });
-      if (!product) throw new HttpError(404, 'No such product.');
-      if (!product.active) throw new HttpError(409, `${product.name} is not active.`);
+      if (!product) throw new NotFoundError('No such product.');
+      if (!product.active) throw new ConflictError(`${product.name} is not active.`);
 
       const samples = netSamples(data, product.containerGrams);
       const nominal = nominalGrams(product);
@@ -101,7 +101,7 @@ export async function createJarringRun(user: SessionUser, data: JarringRunData):
       const remaining = lot.netGrams - lot.usedGrams;
       if (used > remaining) {
         const system = settings.weightSystem;
-        throw new HttpError(409, `This run takes ${formatWeight(used, system)} of honey; lot ${lot.code} has only ${formatWeight(Math.max(remaining, 0), system)} left.`);
+        throw new ConflictError(`This run takes ${formatWeight(used, system)} of honey; lot ${lot.code} has only ${formatWeight(Math.max(remaining, 0), system)} left.`);
       }
 
       const bestBeforeOn = lot.bestBeforeOn ?? bestBeforeDate(lot.extractedOn ?? data.runOn, settings.bestBeforeMonths);
@@ -160,9 +160,9 @@ export async function overrideJarringRun(user: SessionUser, runId: number, reaso
   const { sequelize, models } = getDb();
   await sequelize.transaction(async (t) => {
     const run = await models.JarringRun.findByPk(runId, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!run) throw new HttpError(404, 'No such jarring run.');
-    if (run.fillPass) throw new HttpError(409, 'This run passed its fill check; its jars are already in stock.');
-    if (run.overrideReason) throw new HttpError(409, 'This run was already overridden.');
+    if (!run) throw new NotFoundError('No such jarring run.');
+    if (run.fillPass) throw new ConflictError('This run passed its fill check; its jars are already in stock.');
+    if (run.overrideReason) throw new ConflictError('This run was already overridden.');
     await run.update({ overrideReason: reason, overrideBy: user.id }, { transaction: t });
     await addStockEntry({ productId: run.productId, lotId: run.lotId, delta: run.jarCount, kind: 'jarring', reason: `Jarring run ${run.id} (override)`, jarringRunId: run.id, createdBy: user.id }, t);
     await recordAudit({ actorUserId: user.id, action: 'jarring.override', entityType: 'jarring_run', entityId: run.id, before: { stocked: false }, after: { stocked: true, jarCount: run.jarCount }, reason }, t);

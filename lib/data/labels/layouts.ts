@@ -1,7 +1,7 @@
 import 'server-only';
 import { UniqueConstraintError } from 'sequelize';
 import { getDb } from '@/lib/db/index';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { BUILT_IN_LAYOUTS, validateLayout, type LabelLayout } from '@/lib/domain/label-layout';
 import { recordAudit } from '@/lib/data/audit';
 
@@ -19,7 +19,7 @@ export async function listLabelLayouts(): Promise<LayoutOption[]> {
 export async function getLabelLayout(key: string | null | undefined): Promise<LabelLayout> {
   const all = await listLabelLayouts();
   const hit = all.find((o) => o.key === key) ?? all.find((o) => o.builtIn);
-  if (!hit) throw new HttpError(404, 'No such label layout.');
+  if (!hit) throw new NotFoundError('No such label layout.');
   return hit.layout;
 }
 
@@ -27,14 +27,14 @@ export async function getLabelLayout(key: string | null | undefined): Promise<La
 export async function saveLabelLayout(actorUserId: number, input: LabelLayout & { layoutId?: number }): Promise<{ id: number }> {
   const { layoutId, ...layout } = input;
   const errors = validateLayout(layout);
-  if (errors.length > 0) throw new HttpError(422, errors.join(' '));
-  if (BUILT_IN_LAYOUTS.some((b) => b.name === layout.name)) throw new HttpError(409, 'That name belongs to a built-in layout; choose another.');
+  if (errors.length > 0) throw new InvalidError(errors.join(' '));
+  if (BUILT_IN_LAYOUTS.some((b) => b.name === layout.name)) throw new ConflictError('That name belongs to a built-in layout; choose another.');
   const { sequelize, models } = getDb();
   try {
     return await sequelize.transaction(async (t) => {
       if (layoutId) {
         const row = await models.LabelLayoutRecord.findByPk(layoutId, { transaction: t, lock: t.LOCK.UPDATE });
-        if (!row) throw new HttpError(404, 'No such label layout.');
+        if (!row) throw new NotFoundError('No such label layout.');
         const before = row.layout;
         await row.update({ name: layout.name, layout }, { transaction: t });
         await recordAudit({ actorUserId, action: 'labelLayout.update', entityType: 'label_layout', entityId: row.id, before, after: layout }, t);
@@ -45,7 +45,7 @@ export async function saveLabelLayout(actorUserId: number, input: LabelLayout & 
       return { id: row.id };
     });
   } catch (err) {
-    if (err instanceof UniqueConstraintError) throw new HttpError(409, 'A layout with that name exists already.');
+    if (err instanceof UniqueConstraintError) throw new ConflictError('A layout with that name exists already.');
     throw err;
   }
 }
@@ -54,7 +54,7 @@ export async function deleteLabelLayout(actorUserId: number, id: number): Promis
   const { sequelize, models } = getDb();
   await sequelize.transaction(async (t) => {
     const row = await models.LabelLayoutRecord.findByPk(id, { transaction: t });
-    if (!row) throw new HttpError(404, 'No such label layout.');
+    if (!row) throw new NotFoundError('No such label layout.');
     await recordAudit({ actorUserId, action: 'labelLayout.delete', entityType: 'label_layout', entityId: id, before: row.layout }, t);
     await row.destroy({ transaction: t });
   });

@@ -1,6 +1,6 @@
 import 'server-only';
 import { getDb } from '@/lib/db/index';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { declareNetQuantity } from '@/lib/domain/net-quantity';
 import { labelPositions } from '@/lib/domain/label-layout';
 import { renderLabelSheet, type LabelContent } from '@/lib/pdf/labels';
@@ -22,11 +22,11 @@ export function printedDate(iso: string): string {
 export async function runLabelContent(runId: number): Promise<{ content: LabelContent; jarCount: number; lotCode: string; productName: string }> {
   const { JarringRun, Lot, Product } = getDb().models;
   const run = await JarringRun.findByPk(runId);
-  if (!run) throw new HttpError(404, 'No such jarring run.');
+  if (!run) throw new NotFoundError('No such jarring run.');
   const [lot, product, settings] = await Promise.all([Lot.findByPk(run.lotId), Product.findByPk(run.productId), getSettings()]);
-  if (!lot || !product) throw new HttpError(404, 'The run’s lot or product is missing.');
-  if (!product.gtin) throw new HttpError(409, `${product.name} has no GTIN yet: add one on the product page before printing labels.`);
-  if (!lot.bestBeforeOn) throw new HttpError(409, `Lot ${lot.code} has no best-before date.`);
+  if (!lot || !product) throw new NotFoundError('The run’s lot or product is missing.');
+  if (!product.gtin) throw new ConflictError(`${product.name} has no GTIN yet: add one on the product page before printing labels.`);
+  if (!lot.bestBeforeOn) throw new ConflictError(`Lot ${lot.code} has no best-before date.`);
   const content: LabelContent = {
     productName: product.name,
     floralSource: lot.floralSource,
@@ -57,7 +57,7 @@ export async function renderRunLabels(runId: number, opts: { layoutKey?: string 
     return { bytes, filename: `labels-${lotCode}-${productName}-run-${runId}` };
   } catch (err) {
     // Content the label cannot carry (a lot code outside GS1's characters, too many labels …) is the user's to fix.
-    if (err instanceof RangeError || (err instanceof Error && /^Label \d|layout/i.test(err.message))) throw new HttpError(422, err.message);
+    if (err instanceof RangeError || (err instanceof Error && /^Label \d|layout/i.test(err.message))) throw new InvalidError(err.message);
     throw err;
   }
 }

@@ -2,7 +2,7 @@ import 'server-only';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, NotFoundError } from '@/lib/domain/errors';
 import type { Lot } from '@/models/lot';
 
 /**
@@ -31,7 +31,7 @@ export async function canReadLot(user: SessionUser, lotId: number): Promise<bool
 /** The lot, locked for this transaction; a missing lot is a 404. */
 export async function lockLot(lotId: number, t: Transaction): Promise<Lot> {
   const lot = await getDb().models.Lot.findByPk(lotId, { transaction: t, lock: t.LOCK.UPDATE });
-  if (!lot) throw new HttpError(404, 'No lot with that id.');
+  if (!lot) throw new NotFoundError('No lot with that id.');
   return lot;
 }
 
@@ -40,7 +40,7 @@ const OPEN_STAGES = ['gathering', 'extracted', 'held'];
 /** Refuses a change to the lot's records once it is released (corrections void a record instead). */
 export function assertOpen(lot: Lot, what: string): void {
   if (!OPEN_STAGES.includes(lot.stage)) {
-    throw new HttpError(409, `Lot ${lot.code} is ${lot.stage.replace('_', ' ')}: ${what} is no longer possible. Correct a record by voiding it with a reason.`);
+    throw new ConflictError(`Lot ${lot.code} is ${lot.stage.replace('_', ' ')}: ${what} is no longer possible. Correct a record by voiding it with a reason.`);
   }
 }
 

@@ -2,7 +2,7 @@ import 'server-only';
 import { Op } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { nextStage } from '@/lib/domain/lot-stage';
 import { remainingGrams } from '@/lib/domain/lot-weights';
 import { recordAudit } from '@/lib/data/audit';
@@ -20,16 +20,16 @@ export type BlendPart = { lotId: number; grams: number };
 export async function createBlend(actor: SessionUser, input: { floralSource: string; notes?: string; parts: BlendPart[] }): Promise<{ id: number; code: string }> {
   const { sequelize, models } = getDb();
   const ids = input.parts.map((p) => p.lotId);
-  if (new Set(ids).size !== ids.length) throw new HttpError(422, 'Each parent lot may appear once.');
+  if (new Set(ids).size !== ids.length) throw new InvalidError('Each parent lot may appear once.');
   return sequelize.transaction(async (t) => {
     const parents = await models.Lot.findAll({ where: { id: { [Op.in]: ids } }, order: [['id', 'ASC']], lock: t.LOCK.UPDATE, transaction: t });
-    if (parents.length !== ids.length) throw new HttpError(404, 'One of the parent lots does not exist.');
+    if (parents.length !== ids.length) throw new NotFoundError('One of the parent lots does not exist.');
     const byId = new Map(parents.map((p) => [p.id, p]));
     for (const part of input.parts) {
       const parent = byId.get(part.lotId)!;
-      if (parent.stage !== 'released') throw new HttpError(409, `Lot ${parent.code} is ${parent.stage.replace('_', ' ')}: only released lots can go into a blend.`);
+      if (parent.stage !== 'released') throw new ConflictError(`Lot ${parent.code} is ${parent.stage.replace('_', ' ')}: only released lots can go into a blend.`);
       const left = remainingGrams(parent);
-      if (part.grams > left) throw new HttpError(409, `Lot ${parent.code} has only ${left} g left; ${part.grams} g cannot be taken from it.`);
+      if (part.grams > left) throw new ConflictError(`Lot ${parent.code} has only ${left} g left; ${part.grams} g cannot be taken from it.`);
     }
     const netGrams = input.parts.reduce((sum, p) => sum + p.grams, 0);
     const blend = await createLot(actor, { floralSource: input.floralSource, notes: input.notes ?? '', extractedOn: new Date().toISOString().slice(0, 10) }, { isBlend: true, stage: 'extracted', t });

@@ -2,7 +2,7 @@ import 'server-only';
 import { UniqueConstraintError } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, NotFoundError } from '@/lib/domain/errors';
 import { recordAudit } from '@/lib/data/audit';
 
 export type ContainerTypeRow = { id: number; name: string; usualTareGrams: number; active: boolean };
@@ -19,7 +19,7 @@ export async function saveContainerType(actor: SessionUser, input: { id?: number
     return await sequelize.transaction(async (t) => {
       if (input.id) {
         const row = await models.ContainerType.findByPk(input.id, { lock: t.LOCK.UPDATE, transaction: t });
-        if (!row) throw new HttpError(404, 'No container type with that id.');
+        if (!row) throw new NotFoundError('No container type with that id.');
         const before = { name: row.name, usualTareGrams: row.usualTareGrams, active: row.active };
         await row.update({ name: input.name, usualTareGrams: input.usualTareGrams, active: input.active }, { transaction: t });
         await recordAudit({ actorUserId: actor.id, action: 'container_type.update', entityType: 'container_type', entityId: row.id, before, after: input }, t);
@@ -30,7 +30,7 @@ export async function saveContainerType(actor: SessionUser, input: { id?: number
       return row.id;
     });
   } catch (err) {
-    if (err instanceof UniqueConstraintError) throw new HttpError(409, `There is already a container type called ${input.name}.`);
+    if (err instanceof UniqueConstraintError) throw new ConflictError(`There is already a container type called ${input.name}.`);
     throw err;
   }
 }

@@ -3,7 +3,7 @@ import { createHash } from 'node:crypto';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, DomainError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { labFileRefusal, sniffLabFileType } from '@/lib/domain/file-type';
 import { checkLabResults } from '@/lib/domain/lab-results';
 import { nextStage } from '@/lib/domain/lot-stage';
@@ -21,7 +21,7 @@ async function refreshNet(lot: Lot, t: Transaction): Promise<number> {
     { type: QueryTypes.SELECT, replacements: { lotId: lot.id }, transaction: t },
   );
   const net = Number(row.net);
-  if (net < lot.usedGrams) throw new HttpError(409, `Lot ${lot.code} has already given ${lot.usedGrams} g to jars or blends; its net weight cannot drop below that.`);
+  if (net < lot.usedGrams) throw new ConflictError(`Lot ${lot.code} has already given ${lot.usedGrams} g to jars or blends; its net weight cannot drop below that.`);
   await lot.update({ netGrams: net }, { transaction: t });
   return net;
 }
@@ -30,12 +30,12 @@ export type ContainerWeights = { containerTypeId?: number | null; label: string;
 
 export async function addContainer(actor: SessionUser, lotId: number, c: ContainerWeights): Promise<number> {
   const { sequelize, models } = getDb();
-  if (!(c.grossGrams > c.tareGrams) || c.tareGrams < 0) throw new HttpError(422, 'Gross weight must be more than the tare.');
+  if (!(c.grossGrams > c.tareGrams) || c.tareGrams < 0) throw new InvalidError('Gross weight must be more than the tare.');
   return sequelize.transaction(async (t) => {
     const lot = await lockLot(lotId, t);
-    if (lot.isBlend) throw new HttpError(409, 'A blend’s weight comes from its parent lots.');
+    if (lot.isBlend) throw new ConflictError('A blend’s weight comes from its parent lots.');
     assertOpen(lot, 'adding a container');
-    if (c.containerTypeId && !(await models.ContainerType.findByPk(c.containerTypeId, { transaction: t }))) throw new HttpError(404, 'No container type with that id.');
+    if (c.containerTypeId && !(await models.ContainerType.findByPk(c.containerTypeId, { transaction: t }))) throw new NotFoundError('No container type with that id.');
     const row = await models.LotContainer.create({ lotId, containerTypeId: c.containerTypeId ?? null, label: c.label, grossGrams: c.grossGrams, tareGrams: c.tareGrams, recordedBy: actor.id }, { transaction: t });
     const before = lot.netGrams;
     const net = await refreshNet(lot, t);
@@ -54,7 +54,7 @@ export function readingWater(r: ReadingValues): number {
   try {
     return r.method === 'ri' ? waterFromRefractiveIndex(r.refractiveIndex, r.temperatureC) : waterFromScaleReading(r.scaleWaterPct, r.temperatureC);
   } catch (err) {
-    if (err instanceof RangeError) throw new HttpError(422, err.message);
+    if (err instanceof RangeError) throw new InvalidError(err.message);
     throw err;
   }
 }
@@ -82,7 +82,7 @@ export type LabUpload = { filename: string; bytes: Uint8Array; hmfMgKg?: number 
  */
 export async function addLabFile(actor: SessionUser, lotId: number, f: LabUpload): Promise<{ id: number; sha256: string; held: boolean }> {
   const refusal = labFileRefusal(f.bytes);
-  if (refusal) throw new HttpError(refusal.includes('10 MB') ? 413 : 415, refusal);
+  if (refusal) throw new DomainError(refusal.includes('10 MB') ? 'too-large' : 'unsupported-type', refusal);
   const contentType = sniffLabFileType(f.bytes)!;
   const sha256 = createHash('sha256').update(f.bytes).digest('hex');
   const results = { hmfMgKg: f.hmfMgKg ?? null, diastaseSchade: f.diastaseSchade ?? null, insolubleG100g: f.insolubleG100g ?? null };
@@ -92,7 +92,7 @@ export async function addLabFile(actor: SessionUser, lotId: number, f: LabUpload
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (t) => {
     const lot = await lockLot(lotId, t);
-    if (lot.stage === 'packed_out') throw new HttpError(409, `Lot ${lot.code} is packed out.`);
+    if (lot.stage === 'packed_out') throw new ConflictError(`Lot ${lot.code} is packed out.`);
     const row = await models.LabFile.create({ lotId, filename, contentType, sizeBytes: f.bytes.length, sha256, data: Buffer.from(f.bytes), ...results, uploadedBy: actor.id }, { transaction: t });
     await recordAudit({ actorUserId: actor.id, action: 'lot.labfile.add', entityType: 'lot', entityId: lot.id,
       after: { labFileId: row.id, filename, contentType, sizeBytes: f.bytes.length, sha256, ...results, pass: check.pass } }, t);
@@ -119,8 +119,8 @@ export async function voidRecord(actor: SessionUser, lotId: number, kind: VoidKi
     const lot = await lockLot(lotId, t);
     const model = kind === 'container' ? models.LotContainer : kind === 'reading' ? models.MoistureReading : models.LabFile;
     const row = await (model as typeof models.LotContainer).findOne({ where: { id: recordId, lotId }, lock: t.LOCK.UPDATE, transaction: t });
-    if (!row) throw new HttpError(404, 'No such record on this lot.');
-    if (row.voidedAt) throw new HttpError(409, 'That record is already voided.');
+    if (!row) throw new NotFoundError('No such record on this lot.');
+    if (row.voidedAt) throw new ConflictError('That record is already voided.');
     await row.update({ voidedAt: new Date(), voidedBy: actor.id, voidReason: reason.trim() }, { transaction: t });
     const after: Record<string, unknown> = { kind, recordId };
     if (kind === 'container') {

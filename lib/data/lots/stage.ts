@@ -1,7 +1,7 @@
 import 'server-only';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError } from '@/lib/domain/errors';
 import { nextStage, type LotStage } from '@/lib/domain/lot-stage';
 import { recordAudit } from '@/lib/data/audit';
 import { lockLot } from './access';
@@ -20,7 +20,7 @@ export async function changeLotStage(actor: SessionUser, lotId: number, target: 
     const lot = await lockLot(lotId, t);
     const checks = await lotChecks(lot, settings, t);
     const result = nextStage(lot.stage, target, { ...checks, role: actor.role, reason });
-    if (!result.ok) throw new HttpError(409, result.error);
+    if (!result.ok) throw new ConflictError(result.error);
     const before = { stage: lot.stage, holdReasons: lot.holdReasons };
     let holdReasons: string[] = [];
     if (result.stage === 'held') {

@@ -2,7 +2,7 @@ import 'server-only';
 import { Op, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { recordAudit } from '@/lib/data/audit';
 import { assertOpen, lockLot } from './access';
 import type { Lot } from '@/models/lot';
@@ -25,14 +25,14 @@ async function lotCodeOf(lotId: number, t: Transaction): Promise<string> {
  * stored on the super and in the audit log.
  */
 async function attach(actor: SessionUser, lot: Lot, sp: SuperPull, overrideReason: string | undefined, t: Transaction): Promise<AddedSuper> {
-  if (sp.lotId !== null) throw new HttpError(409, `${superLabel(sp)} is already in lot ${await lotCodeOf(sp.lotId, t)}.`);
-  if (sp.voidedAt) throw new HttpError(409, `${superLabel(sp)} was voided by its keeper (recorded by mistake), so it cannot go into a lot.`);
-  if (!sp.pulledOn) throw new HttpError(409, `${superLabel(sp)} has not been pulled yet.`);
+  if (sp.lotId !== null) throw new ConflictError(`${superLabel(sp)} is already in lot ${await lotCodeOf(sp.lotId, t)}.`);
+  if (sp.voidedAt) throw new ConflictError(`${superLabel(sp)} was voided by its keeper (recorded by mistake), so it cannot go into a lot.`);
+  if (!sp.pulledOn) throw new ConflictError(`${superLabel(sp)} has not been pulled yet.`);
   let overridden = false;
   if (sp.flagged && !sp.overrideReason) {
     const why = (sp.flagReasons ?? []).join('; ') || 'a feeding or treatment conflict';
-    if (actor.role !== 'owner') throw new HttpError(409, `${superLabel(sp)} is flagged (${why}). Only the owner can put it into a lot, with a written reason.`);
-    if (!overrideReason || overrideReason.trim().length < 5) throw new HttpError(409, `${superLabel(sp)} is flagged (${why}). Write an override reason (at least 5 characters) to put it into the lot.`);
+    if (actor.role !== 'owner') throw new ConflictError(`${superLabel(sp)} is flagged (${why}). Only the owner can put it into a lot, with a written reason.`);
+    if (!overrideReason || overrideReason.trim().length < 5) throw new ConflictError(`${superLabel(sp)} is flagged (${why}). Write an override reason (at least 5 characters) to put it into the lot.`);
     await sp.update({ overrideReason: overrideReason.trim(), overrideBy: actor.id }, { transaction: t });
     await recordAudit({ actorUserId: actor.id, action: 'super.override', entityType: 'super_pull', entityId: sp.id, after: { flagReasons: sp.flagReasons, lotId: lot.id }, reason: overrideReason.trim() }, t);
     await recordAudit({ actorUserId: actor.id, action: 'lot.super.override', entityType: 'lot', entityId: lot.id, after: { superPullId: sp.id, tagCode: sp.tagCode }, reason: overrideReason.trim() }, t);
@@ -46,9 +46,9 @@ async function attach(actor: SessionUser, lot: Lot, sp: SuperPull, overrideReaso
 
 async function openLotForSupers(lotId: number, t: Transaction): Promise<Lot> {
   const lot = await lockLot(lotId, t);
-  if (lot.isBlend) throw new HttpError(409, 'A blend is made from lots, not supers.');
+  if (lot.isBlend) throw new ConflictError('A blend is made from lots, not supers.');
   if (lot.stage !== 'gathering' && lot.stage !== 'extracted') {
-    throw new HttpError(409, `Lot ${lot.code} is ${lot.stage.replace('_', ' ')}: supers go in only while it is gathering or extracted.`);
+    throw new ConflictError(`Lot ${lot.code} is ${lot.stage.replace('_', ' ')}: supers go in only while it is gathering or extracted.`);
   }
   return lot;
 }
@@ -67,11 +67,11 @@ export async function addSuperByTag(actor: SessionUser, lotId: number, tagCode: 
     });
     if (!sp) {
       const any = await models.SuperPull.findOne({ where: tagWhere, order: [['id', 'DESC']], transaction: t });
-      if (!any) throw new HttpError(404, `No super with tag ${code}.`);
-      if (any.voidedAt) throw new HttpError(409, `The last ${any.pulledOn ? 'pull' : 'super-on record'} of super ${code} was voided by its keeper (recorded by mistake): nothing to put in.`);
-      if (!any.pulledOn) throw new HttpError(409, `Super ${code} is still on a hive: record its pull first.`);
-      if (any.lotId === lot.id) throw new HttpError(409, `Super ${code} is already in this lot.`);
-      throw new HttpError(409, `Super ${code} is already in lot ${await lotCodeOf(any.lotId!, t)}.`);
+      if (!any) throw new NotFoundError(`No super with tag ${code}.`);
+      if (any.voidedAt) throw new ConflictError(`The last ${any.pulledOn ? 'pull' : 'super-on record'} of super ${code} was voided by its keeper (recorded by mistake): nothing to put in.`);
+      if (!any.pulledOn) throw new ConflictError(`Super ${code} is still on a hive: record its pull first.`);
+      if (any.lotId === lot.id) throw new ConflictError(`Super ${code} is already in this lot.`);
+      throw new ConflictError(`Super ${code} is already in lot ${await lotCodeOf(any.lotId!, t)}.`);
     }
     return attach(actor, lot, sp, overrideReason, t);
   });
@@ -83,7 +83,7 @@ export async function addSupersById(actor: SessionUser, lotId: number, superPull
   return sequelize.transaction(async (t) => {
     const lot = await openLotForSupers(lotId, t);
     const rows = await models.SuperPull.findAll({ where: { id: [...new Set(superPullIds)] }, order: [['id', 'ASC']], lock: t.LOCK.UPDATE, transaction: t });
-    if (rows.length !== new Set(superPullIds).size) throw new HttpError(404, 'One of the supers no longer exists.');
+    if (rows.length !== new Set(superPullIds).size) throw new NotFoundError('One of the supers no longer exists.');
     const added: AddedSuper[] = [];
     for (const sp of rows) added.push(await attach(actor, lot, sp, undefined, t));
     return added;
@@ -95,9 +95,9 @@ export async function removeSuper(actor: SessionUser, lotId: number, superPullId
   const { sequelize, models } = getDb();
   await sequelize.transaction(async (t) => {
     const lot = await lockLot(lotId, t);
-    if (lot.stage !== 'gathering') throw new HttpError(409, 'Supers can only be taken out while the lot is gathering.');
+    if (lot.stage !== 'gathering') throw new ConflictError('Supers can only be taken out while the lot is gathering.');
     const sp = await models.SuperPull.findOne({ where: { id: superPullId, lotId }, lock: t.LOCK.UPDATE, transaction: t });
-    if (!sp) throw new HttpError(404, 'That super is not in this lot.');
+    if (!sp) throw new NotFoundError('That super is not in this lot.');
     await sp.update({ lotId: null }, { transaction: t });
     await recordAudit({ actorUserId: actor.id, action: 'lot.super.remove', entityType: 'lot', entityId: lot.id, before: { superPullId: sp.id, tagCode: sp.tagCode }, after: null, reason }, t);
   });
@@ -110,8 +110,8 @@ export async function setSuperEmptyWeight(actor: SessionUser, lotId: number, sup
     const lot = await lockLot(lotId, t);
     assertOpen(lot, 'changing a super’s empty weight');
     const sp = await models.SuperPull.findOne({ where: { id: superPullId, lotId }, lock: t.LOCK.UPDATE, transaction: t });
-    if (!sp) throw new HttpError(404, 'That super is not in this lot.');
-    if (sp.fullGrams !== null && emptyGrams >= sp.fullGrams) throw new HttpError(422, 'The empty weight must be less than the full weight.');
+    if (!sp) throw new NotFoundError('That super is not in this lot.');
+    if (sp.fullGrams !== null && emptyGrams >= sp.fullGrams) throw new InvalidError('The empty weight must be less than the full weight.');
     const before = { emptyGrams: sp.emptyGrams };
     await sp.update({ emptyGrams }, { transaction: t });
     await recordAudit({ actorUserId: actor.id, action: 'lot.super.empty', entityType: 'lot', entityId: lot.id, before: { superPullId: sp.id, ...before }, after: { superPullId: sp.id, emptyGrams } }, t);

@@ -1,6 +1,6 @@
 import 'server-only';
 import { getDb } from '@/lib/db/index';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { orderReadyMail, orderRefundMail, orderShippedMail } from '@/lib/mail/order-mails';
 import { appUrl, stripe } from '@/lib/payments/stripe';
@@ -27,11 +27,11 @@ export async function advanceOrder(actorUserId: number, orderId: number, to: 'pa
   const settings = await getSettings();
   await sequelize.transaction(async (t) => {
     const order = await models.Order.findByPk(orderId, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!order) throw new HttpError(404, 'No such order.');
+    if (!order) throw new NotFoundError('No such order.');
     const step = STEP[to];
-    if (!step.from.includes(order.status)) throw new HttpError(409, `Order ${order.number} is ${order.status.replace('_', ' ')}; it cannot be marked ${to.replace('_', ' ')}.`);
-    if (to === 'shipped' && order.fulfilment !== 'ship') throw new HttpError(409, 'This order is for pickup; mark it picked up instead.');
-    if (to === 'picked_up' && order.fulfilment !== 'pickup') throw new HttpError(409, 'This order is shipped, not picked up.');
+    if (!step.from.includes(order.status)) throw new ConflictError(`Order ${order.number} is ${order.status.replace('_', ' ')}; it cannot be marked ${to.replace('_', ' ')}.`);
+    if (to === 'shipped' && order.fulfilment !== 'ship') throw new ConflictError('This order is for pickup; mark it picked up instead.');
+    if (to === 'picked_up' && order.fulfilment !== 'pickup') throw new ConflictError('This order is shipped, not picked up.');
     const before = { status: order.status };
     await order.update({ status: to, [step.stamp]: new Date(), ...(to === 'shipped' ? { tracking: tracking || null } : {}) }, { transaction: t });
     await recordAudit({ actorUserId, action: `order.${to}`, entityType: 'order', entityId: order.id, before, after: { status: to, ...(to === 'shipped' ? { tracking } : {}) } }, t);
@@ -48,8 +48,8 @@ export async function cancelUnpaidOrder(actorUserId: number, orderId: number): P
   const { sequelize, models } = getDb();
   const sessionId = await sequelize.transaction(async (t) => {
     const order = await models.Order.findByPk(orderId, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!order) throw new HttpError(404, 'No such order.');
-    if (order.status !== 'awaiting_payment') throw new HttpError(409, 'Only an order still awaiting payment can be cancelled; refund a paid one.');
+    if (!order) throw new NotFoundError('No such order.');
+    if (order.status !== 'awaiting_payment') throw new ConflictError('Only an order still awaiting payment can be cancelled; refund a paid one.');
     await releaseReservedLocked(t, order, 'cancelled', actorUserId, 'Cancelled at the order desk');
     return order.stripeSessionId;
   });
@@ -67,19 +67,19 @@ export type RefundRequest = { orderId: number; amountCents: number; jars: { line
  */
 export async function refundOrder(actorUserId: number, r: RefundRequest): Promise<{ refundId: number }> {
   const { sequelize, models } = getDb();
-  if (!Number.isInteger(r.amountCents) || r.amountCents <= 0) throw new HttpError(400, 'Enter an amount to refund.');
+  if (!Number.isInteger(r.amountCents) || r.amountCents <= 0) throw new InvalidError('Enter an amount to refund.');
   const claim = await sequelize.transaction(async (t) => {
     const order = await models.Order.findByPk(r.orderId, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!order) throw new HttpError(404, 'No such order.');
-    if (!order.paidAt) throw new HttpError(409, 'This order was never paid; cancel it instead.');
-    if (!order.paymentIntentId) throw new HttpError(409, 'This order was not paid by card through the shop, so it cannot be refunded here; refund it by hand.');
+    if (!order) throw new NotFoundError('No such order.');
+    if (!order.paidAt) throw new ConflictError('This order was never paid; cancel it instead.');
+    if (!order.paymentIntentId) throw new ConflictError('This order was not paid by card through the shop, so it cannot be refunded here; refund it by hand.');
     const left = order.totalCents - order.refundedCents;
-    if (r.amountCents > left) throw new HttpError(409, `At most ${left} cents are left to refund on order ${order.number}.`);
+    if (r.amountCents > left) throw new ConflictError(`At most ${left} cents are left to refund on order ${order.number}.`);
     // Check the jars before any money moves: a refund that Stripe made must not fail afterwards.
     const sold = await orderAllocations(t, order.id, 'sold');
     for (const j of r.jars) {
       const have = sold.filter((a) => a.lineId === j.lineId).reduce((s, a) => s + a.quantity, 0);
-      if (j.quantity > have) throw new HttpError(409, `Only ${have} jar${have === 1 ? '' : 's'} of that line can be returned.`);
+      if (j.quantity > have) throw new ConflictError(`Only ${have} jar${have === 1 ? '' : 's'} of that line can be returned.`);
     }
     const refund = await models.Refund.create({ orderId: order.id, amountCents: r.amountCents, restock: r.restock, reason: r.reason, createdBy: actorUserId }, { transaction: t });
     await order.update({ refundedCents: order.refundedCents + r.amountCents }, { transaction: t });
@@ -100,13 +100,13 @@ export async function refundOrder(actorUserId: number, r: RefundRequest): Promis
       await models.Refund.destroy({ where: { id: claim.refundId }, transaction: t });
     });
     const message = err instanceof Error && 'type' in err ? `The card payment service refused the refund: ${err.message}` : 'The card payment service could not be reached; nothing was refunded.';
-    throw new HttpError(409, message);
+    throw new ConflictError(message);
   }
 
   const settings = await getSettings();
   await sequelize.transaction(async (t) => {
     const order = await models.Order.findByPk(r.orderId, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!order) throw new HttpError(404, 'No such order.');
+    if (!order) throw new NotFoundError('No such order.');
     await models.Refund.update({ stripeRefundId }, { where: { id: claim.refundId }, transaction: t });
     for (const j of r.jars.filter((x) => x.quantity > 0)) {
       await returnSold(t, { orderId: order.id, orderNumber: order.number, lineId: j.lineId, quantity: j.quantity, restock: r.restock, actorUserId });

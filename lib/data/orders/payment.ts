@@ -2,7 +2,7 @@ import 'server-only';
 import type Stripe from 'stripe';
 import type { Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
-import { HttpError } from '@/lib/http/json';
+import { DomainError } from '@/lib/domain/errors';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { orderConfirmationMail, paidAfterReleaseMail } from '@/lib/mail/order-mails';
 import { appUrl } from '@/lib/payments/stripe';
@@ -74,7 +74,7 @@ async function sessionCompleted(t: Transaction, session: Stripe.Checkout.Session
         await reserveLines(sp, lines.map((l) => ({ lineId: l.id, productId: l.productId, productName: l.productName, quantity: l.quantity })));
         return true;
       } catch (err) {
-        if (err instanceof HttpError) return false;
+        if (err instanceof DomainError) return false;
         throw err;
       }
     });

@@ -1,7 +1,7 @@
 import 'server-only';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError } from '@/lib/domain/errors';
 import { SELLABLE_STAGES } from '@/lib/data/shop/catalogue';
 
 /**
@@ -73,7 +73,7 @@ export async function reserveLines(t: Transaction, lines: LineToReserve[]): Prom
       if (need === 0) break;
     }
   }
-  if (short.length) throw new HttpError(409, short.join(' '));
+  if (short.length) throw new ConflictError(short.join(' '));
   for (const p of plan) {
     await bump(t, p.line.productId, p.lotId, 0, p.quantity);
     await OrderAllocation.create({ orderLineId: p.line.lineId, lotId: p.lotId, quantity: p.quantity, state: 'reserved' }, { transaction: t });
@@ -131,7 +131,7 @@ export async function returnSold(
   const { OrderAllocation, StockEntry } = getDb().models;
   const sold = (await orderAllocations(t, p.orderId, 'sold')).filter((a) => a.lineId === p.lineId).reverse();
   const have = sold.reduce((s, a) => s + a.quantity, 0);
-  if (have < p.quantity) throw new HttpError(409, `Only ${jars(have)} of that line can still be returned.`);
+  if (have < p.quantity) throw new ConflictError(`Only ${jars(have)} of that line can still be returned.`);
   await lockPairs(t, sold);
   let need = p.quantity;
   for (const a of sold) {

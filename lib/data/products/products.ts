@@ -2,7 +2,7 @@ import 'server-only';
 import { createHash } from 'node:crypto';
 import { UniqueConstraintError } from 'sequelize';
 import { getDb } from '@/lib/db/index';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, DomainError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { isValidGtin, makeGtin } from '@/lib/domain/gs1';
 import { toGrams } from '@/lib/domain/units';
 import type { ProductData } from '@/lib/schemas/jarring';
@@ -42,15 +42,15 @@ export async function getProduct(id: number): Promise<ProductRow | null> {
 async function resolveGtin(data: ProductData): Promise<string | null> {
   if (data.gtinMode === 'none') return null;
   if (data.gtinMode === 'typed') {
-    if (!isValidGtin(data.gtin)) throw new HttpError(422, 'That GTIN has a wrong check digit or length.');
+    if (!isValidGtin(data.gtin)) throw new InvalidError('That GTIN has a wrong check digit or length.');
     return data.gtin;
   }
   const { gs1CompanyPrefix } = await getSettings();
-  if (!gs1CompanyPrefix) throw new HttpError(422, 'Set your GS1 company prefix in Settings first, or type the GTIN.');
+  if (!gs1CompanyPrefix) throw new InvalidError('Set your GS1 company prefix in Settings first, or type the GTIN.');
   try {
     return makeGtin(gs1CompanyPrefix, data.itemReference);
   } catch (err) {
-    throw new HttpError(422, `${(err as Error).message}.`);
+    throw new InvalidError(`${(err as Error).message}.`);
   }
 }
 
@@ -88,14 +88,14 @@ export async function saveProduct(actorUserId: number, data: ProductData): Promi
         return toRow(p);
       }
       const p = await models.Product.findByPk(data.productId, { transaction: t, lock: t.LOCK.UPDATE });
-      if (!p) throw new HttpError(404, 'No such product.');
+      if (!p) throw new NotFoundError('No such product.');
       const before = toRow(p);
       await p.update(attrs, { transaction: t });
       await recordAudit({ actorUserId, action: 'product.update', entityType: 'product', entityId: p.id, before, after: attrs }, t);
       return toRow(p);
     });
   } catch (err) {
-    if (err instanceof UniqueConstraintError) throw new HttpError(409, uniqueMessage(err));
+    if (err instanceof UniqueConstraintError) throw new ConflictError(uniqueMessage(err));
     throw err;
   }
 }
@@ -104,14 +104,14 @@ export const MAX_PHOTO_BYTES = 5 * 1024 * 1024;
 
 /** Stores an uploaded photo (JPEG/PNG/WebP by content, ≤ 5 MB) and attaches it to the product. */
 export async function setProductPhoto(actorUserId: number, productId: number, file: { name: string; bytes: Uint8Array }): Promise<{ photoId: number }> {
-  if (file.bytes.byteLength === 0) throw new HttpError(400, 'The file is empty.');
-  if (file.bytes.byteLength > MAX_PHOTO_BYTES) throw new HttpError(413, 'The photo is larger than 5 MB.');
+  if (file.bytes.byteLength === 0) throw new InvalidError('The file is empty.');
+  if (file.bytes.byteLength > MAX_PHOTO_BYTES) throw new DomainError('too-large', 'The photo is larger than 5 MB.');
   const contentType = sniffImageType(file.bytes);
-  if (!contentType) throw new HttpError(415, 'Upload a JPEG, PNG or WebP image.');
+  if (!contentType) throw new DomainError('unsupported-type', 'Upload a JPEG, PNG or WebP image.');
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (t) => {
     const product = await models.Product.findByPk(productId, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!product) throw new HttpError(404, 'No such product.');
+    if (!product) throw new NotFoundError('No such product.');
     const stored = await models.StoredFile.create(
       {
         filename: file.name.replace(/[^\w.\- ]+/g, '_').slice(0, 200) || 'photo',

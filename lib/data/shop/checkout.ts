@@ -1,7 +1,7 @@
 import 'server-only';
 import { Op, QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/db/index';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, DomainError } from '@/lib/domain/errors';
 import { parcelWeightGrams, shippingCents } from '@/lib/domain/shipping';
 import type { CheckoutData } from '@/lib/schemas/checkout';
 import type { SessionUser } from '@/lib/auth/session';
@@ -30,7 +30,7 @@ export async function startCheckout(input: CheckoutData, user: SessionUser | nul
   const wanted = new Map<number, number>();
   for (const i of input.items) wanted.set(i.productId, (wanted.get(i.productId) ?? 0) + i.quantity);
   const products = await models.Product.findAll({ where: { id: [...wanted.keys()], active: true } });
-  if (products.length !== wanted.size) throw new HttpError(409, 'Something in your cart is no longer sold. Please check your cart.');
+  if (products.length !== wanted.size) throw new ConflictError('Something in your cart is no longer sold. Please check your cart.');
   const lines = products
     .map((p) => ({ product: p, quantity: wanted.get(p.id) as number }))
     .sort((a, b) => a.product.id - b.product.id);
@@ -39,7 +39,7 @@ export async function startCheckout(input: CheckoutData, user: SessionUser | nul
   if (input.fulfilment === 'ship') {
     const weight = parcelWeightGrams(lines.map((l) => ({ quantity: l.quantity, netGrams: l.product.netGrams, containerGrams: l.product.containerGrams })));
     const price = shippingCents(weight, settings.shippingBands ?? []);
-    if (price === null) throw new HttpError(409, 'This parcel is heavier than we ship. Please choose pickup or fewer jars.');
+    if (price === null) throw new ConflictError('This parcel is heavier than we ship. Please choose pickup or fewer jars.');
     shipping = price;
   }
   const expiresAt = Math.floor(Date.now() / 1000) + RESERVE_MINUTES * 60 + SLACK_SECONDS;
@@ -104,7 +104,7 @@ export async function startCheckout(input: CheckoutData, user: SessionUser | nul
   } catch (err) {
     await releaseOrder(order.id, 'cancelled', null, 'Could not start the card payment');
     console.error(`[checkout] order ${order.number}: Stripe session not created`, err);
-    throw new HttpError(503, 'The card payment service is not answering. Nothing was charged and your jars are back on the shelf; please try again in a minute.');
+    throw new DomainError('unavailable', 'The card payment service is not answering. Nothing was charged and your jars are back on the shelf; please try again in a minute.');
   }
 }
 

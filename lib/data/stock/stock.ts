@@ -1,7 +1,7 @@
 import 'server-only';
 import { Op, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { bestBeforeDate } from '@/lib/domain/jars';
 import type { StockEntryKind } from '@/models/stock-entry';
 import { recordAudit } from '@/lib/data/audit';
@@ -26,7 +26,7 @@ export type StockLevelRow = { productId: number; lotId: number; onHand: number; 
 /** Best-before of a lot's jars: the lot's own date, else extraction (or today) + the owner's months. */
 async function lotBestBefore(lotId: number, t: Transaction): Promise<string> {
   const lot = await getDb().models.Lot.findByPk(lotId, { transaction: t });
-  if (!lot) throw new HttpError(404, 'No such lot.');
+  if (!lot) throw new NotFoundError('No such lot.');
   if (lot.bestBeforeOn) return lot.bestBeforeOn;
   const { bestBeforeMonths } = await getSettings();
   return bestBeforeDate(lot.extractedOn ?? new Date().toISOString().slice(0, 10), bestBeforeMonths);
@@ -39,12 +39,12 @@ async function lotBestBefore(lotId: number, t: Transaction): Promise<string> {
  */
 export async function addStockEntry(input: StockEntryInput, transaction: Transaction): Promise<StockLevelRow> {
   const { StockLevel, StockEntry } = getDb().models;
-  if (!Number.isInteger(input.delta)) throw new HttpError(400, 'Stock changes are whole jars.');
+  if (!Number.isInteger(input.delta)) throw new InvalidError('Stock changes are whole jars.');
   const reservedDelta = input.reservedDelta ?? 0;
   const where = { productId: input.productId, lotId: input.lotId };
   let level = await StockLevel.findOne({ where, transaction, lock: transaction.LOCK.UPDATE });
   if (!level) {
-    if (input.delta < 0 || reservedDelta !== 0) throw new HttpError(409, 'There are no jars of this product from this lot in stock.');
+    if (input.delta < 0 || reservedDelta !== 0) throw new ConflictError('There are no jars of this product from this lot in stock.');
     const bestBeforeOn = await lotBestBefore(input.lotId, transaction);
     // Two first entries at once: the loser's insert waits on the key, then finds the row.
     await StockLevel.bulkCreate([{ ...where, onHand: 0, reserved: 0, bestBeforeOn }], { transaction, ignoreDuplicates: true });
@@ -54,11 +54,11 @@ export async function addStockEntry(input: StockEntryInput, transaction: Transac
   const onHand = level.onHand + input.delta;
   const reserved = level.reserved + reservedDelta;
   if (onHand < 0) {
-    throw new HttpError(409, `Only ${level.onHand} jar${level.onHand === 1 ? '' : 's'} on hand; stock cannot go below 0.`);
+    throw new ConflictError(`Only ${level.onHand} jar${level.onHand === 1 ? '' : 's'} on hand; stock cannot go below 0.`);
   }
-  if (reserved < 0) throw new HttpError(409, 'Fewer jars are reserved than that.');
+  if (reserved < 0) throw new ConflictError('Fewer jars are reserved than that.');
   if (reserved > onHand) {
-    throw new HttpError(409, `${level.reserved} of the ${level.onHand} jars on hand are reserved for orders; on-hand cannot go below the reserved jars.`);
+    throw new ConflictError(`${level.reserved} of the ${level.onHand} jars on hand are reserved for orders; on-hand cannot go below the reserved jars.`);
   }
   await level.update({ onHand, reserved }, { transaction });
   await StockEntry.create(

@@ -4,7 +4,7 @@ import { Op } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
 import { validatePullRows, type PullMapping, type PullRowError, type ValidPullRow } from '@/lib/domain/super-pull-import';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, DomainError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { recordAudit } from '@/lib/data/audit';
 import { canWriteColonies, yardScope } from '@/lib/data/yards/scope';
 import { colonyRecords, flagsWith, type ColonyRecords } from './flags';
@@ -19,9 +19,9 @@ export type ParsedSheet = { headers: string[]; rows: Record<string, string>[] };
 export function parseSheet(text: string): ParsedSheet {
   const result = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: false, transformHeader: (h) => h.trim() });
   const headers = (result.meta.fields ?? []).filter((h) => h !== '');
-  if (headers.length === 0) throw new HttpError(422, 'The file has no header row. The first line must name the columns.');
+  if (headers.length === 0) throw new InvalidError('The file has no header row. The first line must name the columns.');
   const rows = result.data.filter((r, i) => !(i === result.data.length - 1 && Object.values(r).every((v) => !v?.trim())));
-  if (rows.length > MAX_IMPORT_ROWS) throw new HttpError(413, `At most ${MAX_IMPORT_ROWS} rows per file.`);
+  if (rows.length > MAX_IMPORT_ROWS) throw new DomainError('too-large', `At most ${MAX_IMPORT_ROWS} rows per file.`);
   return { headers, rows: rows.map((r) => Object.fromEntries(headers.map((h) => [h, String(r[h] ?? '')]))) };
 }
 
@@ -52,7 +52,7 @@ export async function previewImport(user: Viewer, text: string, mapping: PullMap
   const ready = use.colonyCode && use.pulledOn && use.depth;
   if (!ready) return { headers: sheet.headers, mapping: use, valid: [], errors: [], total: sheet.rows.length };
   for (const column of Object.values(use)) {
-    if (column && !sheet.headers.includes(column)) throw new HttpError(422, `The file has no column "${column}".`);
+    if (column && !sheet.headers.includes(column)) throw new InvalidError(`The file has no column "${column}".`);
   }
   const k = await known(user);
   const { valid, errors } = validatePullRows(sheet.rows, use as PullMapping, k, { today });
@@ -64,13 +64,13 @@ export async function previewImport(user: Viewer, text: string, mapping: PullMap
  * Rejected rows are not imported; the caller offers them back as a CSV to fix.
  */
 export async function commitImport(user: Viewer, text: string, mapping: PullMapping, today: string, expectedValid?: number): Promise<{ imported: number; flagged: number; errors: PullRowError[] }> {
-  if (!canWriteColonies(user)) throw new HttpError(404, 'No such colony.');
+  if (!canWriteColonies(user)) throw new NotFoundError('No such colony.');
   const { sequelize, models } = getDb();
   const sheet = parseSheet(text);
   const k = await known(user);
   const { valid, errors } = validatePullRows(sheet.rows, mapping, k, { today });
-  if (valid.length === 0) throw new HttpError(422, 'No valid rows to import.');
-  if (expectedValid !== undefined && expectedValid !== valid.length) throw new HttpError(409, 'The records changed since the preview. Check the preview again.');
+  if (valid.length === 0) throw new InvalidError('No valid rows to import.');
+  if (expectedValid !== undefined && expectedValid !== valid.length) throw new ConflictError('The records changed since the preview. Check the preview again.');
   let flagged = 0;
   await sequelize.transaction(async (t) => {
     // Each colony's feedings, treatments and pulls are read once; rows of this sheet join its pulls as they go in.

@@ -6,7 +6,7 @@ import type { PullListQuery } from '@/lib/schemas/supers';
 import type { SuperPull } from '@/models/super-pull';
 import type { SuperDepth } from '@/models/super-tag';
 import { toGrams } from '@/lib/domain/units';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, DomainError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { canWriteColonies, colonyInScope, yardScope } from '@/lib/data/yards/scope';
 import { writableColony } from '@/lib/data/colonies/colonies';
 import { flagsForPull, recomputeColonyFlags } from './flags';
@@ -94,7 +94,7 @@ async function idempotent<T>(find: () => Promise<T | null>, run: () => Promise<T
     // Two copies of the same entry raced: the unique index on idempotency_key let only one through.
     const again = await find();
     if (again) return { value: again, created: false };
-    throw new HttpError(409, 'That tag is already on a hive; pull it there first, or check the tag code.');
+    throw new ConflictError('That tag is already on a hive; pull it there first, or check the tag code.');
   }
 }
 
@@ -142,7 +142,7 @@ export async function recordPull(user: Viewer, input: PullInput, outer?: Transac
     return models.SuperPull.create({ ...fields, idempotencyKey: input.idempotencyKey, colonyId: colony.id }, { transaction: t });
   };
   const { value, created } = await idempotent(find, () => (outer ? work(outer) : sequelize.transaction(work)));
-  if (!created && value.colonyId !== input.colonyId) throw new HttpError(409, 'This entry key was already used for another colony.');
+  if (!created && value.colonyId !== input.colonyId) throw new ConflictError('This entry key was already used for another colony.');
   return { id: value.id, colonyId: value.colonyId, created, flagged: value.flagged, flagReasons: value.flagReasons };
 }
 
@@ -153,7 +153,7 @@ export async function recordPulls(user: Viewer, entries: PullInput[]): Promise<(
     try {
       out.push({ ok: true as const, key: entry.idempotencyKey, ...(await recordPull(user, entry)) });
     } catch (err) {
-      if (!(err instanceof HttpError)) throw err;
+      if (!(err instanceof DomainError)) throw err;
       out.push({ ok: false as const, key: entry.idempotencyKey, colonyId: entry.colonyId, message: err.message });
     }
   }
@@ -182,8 +182,8 @@ export async function voidSuperPull(user: Viewer, superPullId: number, reason: s
   const { sequelize, models } = getDb();
   const why = reason.trim();
   const noun = target === 'on' ? 'super-on record' : 'pull';
-  if (why.length < 3) throw new HttpError(422, `Say why this ${noun} is being voided (at least 3 characters).`);
-  const notFound = () => new HttpError(404, target === 'on' ? 'No such super-on record.' : 'No such super pull.');
+  if (why.length < 3) throw new InvalidError(`Say why this ${noun} is being voided (at least 3 characters).`);
+  const notFound = () => new NotFoundError(target === 'on' ? 'No such super-on record.' : 'No such super pull.');
   if (!Number.isInteger(superPullId) || superPullId <= 0) throw notFound();
   return sequelize.transaction(async (t) => {
     const found = await models.SuperPull.findByPk(superPullId, { attributes: ['id', 'colonyId'], transaction: t });
@@ -196,12 +196,12 @@ export async function voidSuperPull(user: Viewer, superPullId: number, reason: s
     const sp = supers.find((s) => s.id === superPullId);
     if (!sp) throw notFound();
     const label = sp.tagCode ? `Super ${sp.tagCode}` : 'This super';
-    if (sp.voidedAt) throw new HttpError(409, `This ${noun} is already voided.`);
-    if (target === 'pull' && !sp.pulledOn) throw new HttpError(409, `${label} is still on the hive: only a recorded pull can be voided. To void it as put on by mistake, use “Void this super-on record…”.`);
-    if (target === 'on' && sp.pulledOn) throw new HttpError(409, `${label} was pulled on ${sp.pulledOn}, so it is no longer on the hive. Reload the page; if that pull is the mistake, void the pull.`);
+    if (sp.voidedAt) throw new ConflictError(`This ${noun} is already voided.`);
+    if (target === 'pull' && !sp.pulledOn) throw new ConflictError(`${label} is still on the hive: only a recorded pull can be voided. To void it as put on by mistake, use “Void this super-on record…”.`);
+    if (target === 'on' && sp.pulledOn) throw new ConflictError(`${label} was pulled on ${sp.pulledOn}, so it is no longer on the hive. Reload the page; if that pull is the mistake, void the pull.`);
     if (sp.lotId !== null) {
       const lot = await models.Lot.findByPk(sp.lotId, { attributes: ['code'], transaction: t });
-      throw new HttpError(409, `${label} is already in lot ${lot?.code ?? `#${sp.lotId}`}, so its pull cannot be voided. Ask the honey house to take it out of the lot first (they can while the lot is still gathering).`);
+      throw new ConflictError(`${label} is already in lot ${lot?.code ?? `#${sp.lotId}`}, so its pull cannot be voided. Ask the honey house to take it out of the lot first (they can while the lot is still gathering).`);
     }
     const voidedAt = new Date();
     await sp.update({ voidedAt, voidedByUserId: user.id, voidReason: why }, { transaction: t });

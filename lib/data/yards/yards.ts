@@ -4,7 +4,7 @@ import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
 import type { YardListQuery } from '@/lib/schemas/yards';
 import type { Yard } from '@/models/yard';
-import { HttpError } from '@/lib/http/json';
+import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { recordAudit } from '@/lib/data/audit';
 import { inScope, yardScope } from './scope';
 
@@ -78,7 +78,7 @@ type YardData = { name: string; place: string; latitude: number | null; longitud
 async function checkKeepers(keeperIds: number[]): Promise<void> {
   if (keeperIds.length === 0) return;
   const found = await getDb().models.User.count({ where: { id: keeperIds, role: ['keeper', 'owner'], disabledAt: null } });
-  if (found !== new Set(keeperIds).size) throw new HttpError(422, 'Only active keepers (or the owner) can be assigned to a yard.');
+  if (found !== new Set(keeperIds).size) throw new InvalidError('Only active keepers (or the owner) can be assigned to a yard.');
 }
 
 /** Owner only (the caller checks yards.manage). */
@@ -86,14 +86,14 @@ export async function saveYard(actorUserId: number, yardId: number | null, data:
   const { sequelize, models } = getDb();
   await checkKeepers(data.keeperIds);
   const taken = await models.Yard.findOne({ where: { name: { [Op.iLike]: data.name }, ...(yardId ? { id: { [Op.ne]: yardId } } : {}) } });
-  if (taken) throw new HttpError(409, `There is already a yard called ${taken.name}.`);
+  if (taken) throw new ConflictError(`There is already a yard called ${taken.name}.`);
   return sequelize.transaction(async (t) => {
     const { keeperIds, ...fields } = data;
     let yard: Yard | null;
     let before: Record<string, unknown> | null = null;
     if (yardId) {
       yard = await models.Yard.findByPk(yardId, { transaction: t, lock: t.LOCK.UPDATE });
-      if (!yard) throw new HttpError(404, 'No such yard.');
+      if (!yard) throw new NotFoundError('No such yard.');
       const keepers = await models.YardKeeper.findAll({ where: { yardId }, transaction: t });
       before = { ...yard.get({ plain: true }), keeperIds: keepers.map((k) => k.userId).sort() };
       await yard.update(fields, { transaction: t });
