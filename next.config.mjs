@@ -1,6 +1,6 @@
 /** @type {import('next').NextConfig} */
 const nextConfig = {
-  // Sequelize loads its dialect at run time; bundling it breaks that (STACK.md §5).
+  // Sequelize loads its dialect at run time; bundling it breaks that (the build passes, then "Please install pg package manually").
   serverExternalPackages: ['sequelize', 'pg', 'pg-hstore', 'bwip-js', 'pdf-lib', '@pdf-lib/fontkit', 'nodemailer', 'stripe'],
   poweredByHeader: false,
   typedRoutes: false,

@@ -1,5 +1,5 @@
 // Starts both local fakes for development and e2e runs: `npx tsx fakes/run.ts`.
-// Defaults match what the app reads from env (FAKES.md §1, §7); every value can be overridden.
+// Defaults match what the app reads from env (its defaults: README.md, "Configuration"); every value can be overridden.
 import { startMailFake } from './mail/server';
 import { startStripeFake } from './stripe/server';
 

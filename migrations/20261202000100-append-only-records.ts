@@ -1,6 +1,6 @@
 import type { QueryInterface } from 'sequelize';
 
-// Issue 8 §13: the records a food-safety question depends on are append-only in the database
+// The records a food-safety question depends on are append-only in the database
 // itself, whatever the app does: the audit log and the stock ledger never change; lots and their
 // containers, readings and lab files are corrected by voiding, never deleted.
 const NO_CHANGE = ['audit_entries', 'stock_entries'];

@@ -1,6 +1,6 @@
 import { QueryTypes, type QueryInterface } from 'sequelize';
 
-// Issue 8 §13: the running app has its own database role, combtrace_app. It reads and writes rows
+// The running app has its own database role, combtrace_app. It reads and writes rows
 // and nothing else: it owns no table, so it cannot ALTER TABLE … DISABLE TRIGGER, drop the
 // append-only triggers or change the schema, and it is no superuser, so it cannot SET
 // session_replication_role = replica either. On top of the triggers, the privileges themselves
@@ -67,7 +67,7 @@ export async function up({ context: q }: { context: QueryInterface }) {
   await sql(`GRANT SELECT, INSERT, UPDATE, DELETE ON ALL TABLES IN SCHEMA public TO ${ROLE}`);
   await sql(`GRANT USAGE, SELECT ON ALL SEQUENCES IN SCHEMA public TO ${ROLE}`);
   // Tables and sequences that later migrations create (as this same owner) get the same grants;
-  // a later append-only table must revoke explicitly, as below (DEVELOPERS.md).
+  // a later append-only table must revoke explicitly, as below (docs/architecture.md, "Database roles").
   await sql(`ALTER DEFAULT PRIVILEGES IN SCHEMA public GRANT SELECT, INSERT, UPDATE, DELETE ON TABLES TO ${ROLE}`);
   await sql(`ALTER DEFAULT PRIVILEGES IN SCHEMA public GRANT USAGE, SELECT ON SEQUENCES TO ${ROLE}`);
 

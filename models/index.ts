@@ -42,7 +42,7 @@ export function initModels(sequelize: Sequelize) {
     AuditEntry: initAuditEntry(sequelize),
     OutboxMessage: initOutboxMessage(sequelize),
     SignInAttempt: initSignInAttempt(sequelize),
-    // Harvest
+    // Yards, colonies and supers
     Yard: initYard(sequelize),
     YardKeeper: initYardKeeper(sequelize),
     TreatmentKind: initTreatmentKind(sequelize),
@@ -85,7 +85,7 @@ export function initModels(sequelize: Sequelize) {
   PasswordToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
   AuditEntry.belongsTo(User, { foreignKey: 'actorUserId', as: 'actor' });
 
-  // Harvest
+  // Yards, colonies and supers
   Yard.belongsToMany(User, { through: YardKeeper, as: 'keepers', foreignKey: 'yardId', otherKey: 'userId' });
   User.belongsToMany(Yard, { through: YardKeeper, as: 'yards', foreignKey: 'userId', otherKey: 'yardId' });
   Yard.hasMany(Colony, { foreignKey: 'yardId', as: 'colonies' });

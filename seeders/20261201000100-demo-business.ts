@@ -2,7 +2,7 @@ import type { QueryInterface } from 'sequelize';
 import { hashPassword } from '../lib/auth/password';
 import { DEMO_ACCOUNTS } from './demo-accounts';
 
-// Hollowmere Apiaries in the fictional Marrow Valley: invented for the demo (PRODUCT.md).
+// Hollowmere Apiaries in the fictional Marrow Valley: invented for the demo; no real business.
 export async function up({ context: q }: { context: QueryInterface }) {
   const now = new Date();
   await q.bulkInsert('business_settings', [{

@@ -8,7 +8,7 @@ import { makeGtin } from '../lib/domain/gs1';
 import { DEFAULT_SUPER_ESTIMATES } from '../lib/domain/yield-allocation';
 
 /**
- * One invented season of Hollowmere Apiaries (PRODUCT.md's demo scenario): four yards, about forty
+ * One invented season of Hollowmere Apiaries (the demo business; all of it made up): four yards, about forty
  * colonies with a few splits and a dead-out, super pulls (two of them flagged, one voided as entered twice), feedings, treatments,
  * lots (a blend, one held for high moisture), products, jarring runs, stock and paid orders.
  * Deterministic: the same data on every machine. Derived values use the same domain functions as the app.

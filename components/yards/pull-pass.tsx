@@ -95,7 +95,7 @@ function Details({ colony, value, onChange }: { colony: Colony; value: Partial<P
 /**
  * The keeper's pass through a yard: pick the pull date, box depth and frames once (remembered
  * on this device), then one tap per colony. Each tap is one super with its own idempotency key.
- * Every tap is kept in this browser until the server answers (components/harvest/pull-queue.ts):
+ * Every tap is kept in this browser until the server answers (components/yards/pull-queue.ts):
  * with no signal, after a reload or a flat battery, it is shown again and sent when there is a
  * connection; the key makes a second send harmless.
  */

@@ -1,5 +1,5 @@
 // Inbox pages for the mail catcher. Mail content is untrusted (mailparser does not sanitise HTML,
-// FAKES.md §7), so every value is escaped and mail HTML is shown only inside `<iframe sandbox srcdoc>`.
+// nodemailer.com/extras/mailparser), so every value is escaped and mail HTML is shown only inside `<iframe sandbox srcdoc>`.
 import { escapeHtml, page } from '../shared/http';
 import type { StoredMessage } from './store';
 

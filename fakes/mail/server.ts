@@ -1,4 +1,4 @@
-// Local mail catcher (FAKES.md §7, STACK.md §10): SMTP in, inbox page and JSON API out, loopback only.
+// Local mail catcher (smtp-server and mailparser; nodemailer.com/extras/smtp-server): SMTP in, inbox page and JSON API out, loopback only.
 import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
 import { SMTPServer } from 'smtp-server';
 import { simpleParser } from 'mailparser';
@@ -11,7 +11,7 @@ export type MailFake = { smtpPort: number; webPort: number; webUrl: string; clos
 
 function createSmtp(inbox: Inbox): SMTPServer {
   return new SMTPServer({
-    // smtp-server's bundled certificate expired in Feb 2025 (STACK.md §10), so no STARTTLS.
+    // smtp-server's bundled certificate expired in Feb 2025 ("ESOCKET certificate has expired"), so no STARTTLS.
     disabledCommands: ['STARTTLS'],
     authOptional: true,
     // Accept any credentials on plain text so an app configured with SMTP auth works offline too.

@@ -1,4 +1,4 @@
-// In-memory inbox for the mail catcher (FAKES.md §7): only what tests and the inbox page need.
+// In-memory inbox for the mail catcher: only what tests and the inbox page need.
 import type { ParsedMail, AddressObject } from 'mailparser';
 
 export type StoredAttachment = { filename: string | null; contentType: string; size: number; content: Buffer };

@@ -1,8 +1,8 @@
-// Small helpers shared by the local fakes (FAKES.md §1, §7): plain Node `http`, no framework.
+// Small helpers shared by the local Stripe and mail fakes: plain Node `http`, no framework.
 import type { IncomingMessage, Server, ServerResponse } from 'node:http';
 import type { AddressInfo, Server as NetServer } from 'node:net';
 
-/** Both fakes bind to loopback only (FAKES.md §7): nothing here is meant to be reachable from outside. */
+/** Both fakes bind to loopback only: nothing here is meant to be reachable from outside. */
 export const LOOPBACK = '127.0.0.1';
 
 export class BodyTooLargeError extends Error {}

@@ -1,4 +1,4 @@
-// HTTP plumbing for `/v1` (FAKES.md §1, §4, §5): auth header, form bodies, `failNext`, idempotency.
+// HTTP plumbing for `/v1`: auth header, form bodies, `failNext`, idempotency.
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import { readBody, sendJson } from '../shared/http';
 import { ApiError, newId } from './errors';
@@ -25,7 +25,7 @@ export async function handleApi(ctx: ApiContext, req: IncomingMessage, res: Serv
     if (!apiKey) throw new ApiError(401, 'authentication_error', 'You did not provide an API key.');
     const method = req.method ?? 'GET';
     const body = await readBody(req);
-    // The SDK sends GET parameters in the query string and POST parameters as a form body (FAKES.md §3).
+    // The SDK sends GET parameters in the query string and POST parameters as a form body (as SDK 23.1.0 was seen to do).
     const params = parseForm(method === 'POST' ? body : url.search.slice(1));
     ctx.state.sweepExpired();
     const { config } = ctx.state;

@@ -1,4 +1,4 @@
-// Error bodies the SDK turns into typed errors (FAKES.md §4; SDK src/Error.ts `generateV1Error`):
+// Error bodies the SDK turns into typed errors (SDK src/Error.ts `generateV1Error`):
 // 400/404 → StripeInvalidRequestError (or StripeIdempotencyError by `type`), 402 → StripeCardError,
 // 409/5xx → StripeAPIError.
 import { randomBytes } from 'node:crypto';

@@ -1,6 +1,6 @@
-// Idempotent POSTs (FAKES.md §5; docs.stripe.com/api/idempotent_requests): the first result for
+// Idempotent POSTs (docs.stripe.com/api/idempotent_requests): the first result for
 // (key, path, parameters) is saved and replayed; other parameters → 400 idempotency_error; a request
-// with the same key still running → 409. Nothing is saved when validation fails (our 400/404s).
+// with the same key still running → 409 (from memory). Nothing is saved when validation fails (our 400/404s).
 import { createHash } from 'node:crypto';
 import { ApiError } from './errors';
 import { canonical, type Params } from './params';

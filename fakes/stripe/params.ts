@@ -1,4 +1,4 @@
-// Reading form parameters (FAKES.md §3): the SDK sends `a[b][0][c]=…`, which `qs.parse` turns into
+// Reading form parameters (SDK src/utils.ts `stringifyRequestData`): the SDK sends `a[b][0][c]=…`, which `qs.parse` turns into
 // nested objects and arrays. Every leaf is a string, so numbers are parsed and checked here.
 import qs from 'qs';
 import { invalid, missingParam } from './errors';
@@ -60,7 +60,7 @@ export function expandList(params: Params): string[] {
   return list(params.expand, 'expand').map((v, i) => str(v, `expand[${i}]`) ?? '');
 }
 
-/** Stable text of the parameters, so the same request encoded in another key order still matches (FAKES.md §5). */
+/** Stable text of the parameters, so the same request encoded in another key order still matches (idempotency.ts). */
 export function canonical(value: unknown): string {
   if (Array.isArray(value)) return `[${value.map(canonical).join(',')}]`;
   if (value && typeof value === 'object') {

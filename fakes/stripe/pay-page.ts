@@ -1,4 +1,4 @@
-// The hosted payment page behind a session's `url` (FAKES.md §2): a plain, accessible card form.
+// The hosted payment page behind a session's `url`: a plain, accessible card form.
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import { escapeHtml, page, readBody, redirect, sendHtml } from '../shared/http';
 import { ApiError } from './errors';

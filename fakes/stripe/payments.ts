@@ -1,4 +1,4 @@
-// Paying a session on the hosted page or through the test hook (FAKES.md §2, §6), with Stripe's
+// Paying a session on the hosted page or through the test hook (test-hooks.ts), with Stripe's
 // documented test cards (docs.stripe.com/testing): 4242… succeeds, 4000 0000 0000 0002 is declined.
 import { ApiError, declined, invalid, newId, nowSeconds } from './errors';
 import type { StripeState } from './state';
@@ -17,7 +17,7 @@ function notOpen(session: CheckoutSession): ApiError {
   return invalid(`This Checkout Session is ${session.status} and can no longer be paid.`, undefined, 'checkout_session_not_open');
 }
 
-/** The success URL Stripe redirects to, with `{CHECKOUT_SESSION_ID}` filled in (FAKES.md §2). */
+/** The success URL Stripe redirects to, with `{CHECKOUT_SESSION_ID}` filled in (docs.stripe.com/api/checkout/sessions/create, success_url). */
 export function successUrl(session: CheckoutSession): string | null {
   return session.success_url?.replaceAll('{CHECKOUT_SESSION_ID}', session.id) ?? null;
 }

@@ -1,4 +1,4 @@
-// Refunds (FAKES.md §4, §6; docs.stripe.com/api/refunds/create): partial or full, never more than
+// Refunds (docs.stripe.com/api/refunds/create): partial or full, never more than
 // what is left; each one sends `refund.created` and `charge.refunded` with the updated Charge.
 import { ApiError, invalid, missingParam, newId, noSuch, nowSeconds } from './errors';
 import { int, metadata, str, type Params } from './params';
@@ -59,7 +59,7 @@ export function createRefund(state: StripeState, params: Params, request: Reques
     created: nowSeconds(),
   };
   charge.amount_refunded += amount;
-  // `refunded` is true only once the whole charge is refunded (FAKES.md §6).
+  // `refunded` is true only once the whole charge is refunded (Stripe's Charge object).
   charge.refunded = charge.amount_refunded === charge.amount;
   state.refunds.set(refund.id, refund);
   const sessionId = state.sessionIdForPaymentIntent(charge.payment_intent);

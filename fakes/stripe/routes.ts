@@ -1,4 +1,4 @@
-// `/v1` endpoints the SDK calls (FAKES.md §2) plus a few read-only ones that help when debugging.
+// `/v1` endpoints the SDK calls plus a few read-only ones that help when debugging.
 import { invalid, noSuch } from './errors';
 import { expandList, int, str, type Params } from './params';
 import { createRefund } from './refunds';
@@ -12,7 +12,7 @@ type Route = {
   run(state: StripeState, params: Params, ids: string[], request: RequestRef, publicUrl: string): unknown;
 };
 
-/** Lists as the SDK's auto-pagination expects: `data`, `has_more`, `starting_after=<last id>` (FAKES.md §4). */
+/** Lists as the SDK's auto-pagination expects: `data`, `has_more`, `starting_after=<last id>` (SDK src/autoPagination.ts). */
 function page<T extends { id: string }>(items: T[], params: Params, url: string) {
   const limit = Math.min(int(params.limit, 'limit', 1) ?? 10, 100);
   const after = str(params.starting_after, 'starting_after');

@@ -1,4 +1,4 @@
-// Local Stripe fake for the real `stripe` SDK (FAKES.md §1–§6): `/v1` API, hosted pay page,
+// Local Stripe fake for the real `stripe` SDK: `/v1` API, hosted pay page,
 // signed webhooks, `/_fake` test hooks and a dashboard at `/`. Loopback only, in memory only.
 import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
 import { closeServer, listen, LOOPBACK, page, sendHtml, sendJson } from '../shared/http';
@@ -16,7 +16,7 @@ export type StripeFakeOptions = {
   webhookSecret: string;
   /** Base of session `url`s; defaults to http://127.0.0.1:<port>. */
   publicUrl?: string;
-  /** Retry delays are 1, 2, 4, 8, 16 × this (default 1000 ms, FAKES.md §6). */
+  /** Retry delays are 1, 2, 4, 8, 16 × this (default 1000 ms). */
   retryBaseMs?: number;
   /** How long `reverseOrder` holds one session's events (default 500 ms). */
   reverseHoldMs?: number;

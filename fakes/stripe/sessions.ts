@@ -1,4 +1,4 @@
-// Checkout Sessions (FAKES.md §2, §4; docs.stripe.com/api/checkout/sessions/create and /object).
+// Checkout Sessions (docs.stripe.com/api/checkout/sessions/create and /object).
 import { invalid, missingParam, newId, noSuch, nowSeconds } from './errors';
 import { expandList, int, list, metadata, obj, requiredStr, str, type Params } from './params';
 import type { StripeState } from './state';
@@ -27,7 +27,7 @@ function lineItem(raw: Params[string], i: number): LineItem {
   const productId = str(priceData.product, `${at}[price_data][product]`);
   if (productId) throw noSuch('product', productId, `${at}[price_data][product]`);
   const name = requiredStr(product?.name, `${at}[price_data][product_data][name]`);
-  // Amounts are integer minor units (FAKES.md §3); a decimal unit price is rounded once, per line.
+  // Amounts are integer minor units, as in Stripe's API; a decimal unit price is rounded once, per line.
   const total = Math.round(unitAmount * quantity);
   return {
     id: newId('li_'),

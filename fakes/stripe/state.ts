@@ -19,13 +19,13 @@ export class StripeState {
 
   constructor(private readonly onEvent: (record: EventRecord) => void) {}
 
-  /** Events carry a snapshot: later changes to the object must not rewrite what was sent (FAKES.md §6). */
+  /** Events carry a snapshot: later changes to the object must not rewrite what was sent. */
   emit(type: string, object: StripeObject, request: RequestRef, sessionId: string | null): EventRecord {
     const record: EventRecord = {
       event: {
         id: newId('evt_'),
         object: 'event',
-        // The version the pinned SDK sends (STACK.md §9), so `constructEvent` users see matching shapes.
+        // The version the pinned SDK sends (its Stripe-Version header), so `constructEvent` users see matching shapes.
         api_version: Stripe.API_VERSION,
         created: nowSeconds(),
         livemode: false,
@@ -49,7 +49,7 @@ export class StripeState {
     return null;
   }
 
-  /** Stripe expires open sessions at `expires_at` and sends `checkout.session.expired` (FAKES.md §6). */
+  /** Stripe expires open sessions at `expires_at` and sends `checkout.session.expired`. */
   sweepExpired(now = nowSeconds()): void {
     for (const s of this.sessions.values()) {
       if (s.status === 'open' && s.expires_at <= now) this.expire(s, { id: null, idempotency_key: null });

@@ -1,4 +1,4 @@
-// `/_fake/*`: switches and shortcuts for tests, so no browser is needed (FAKES.md §2, §6).
+// `/_fake/*`: switches and shortcuts for tests, so no browser is needed.
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import { readBody, sendJson } from '../shared/http';
 import { ApiError, invalid, noSuch } from './errors';

@@ -1,4 +1,4 @@
-// Object shapes the fake returns, trimmed to the fields FAKES.md §4 and §6 list
+// Object shapes the fake returns, trimmed to the fields the app and the SDK read
 // (docs.stripe.com/api/checkout/sessions/object, /api/events/object, /api/refunds/object).
 export type Metadata = Record<string, string>;
 

@@ -1,4 +1,4 @@
-// Webhook delivery (FAKES.md §6): signed like Stripe (`t=…,v1=…`, docs.stripe.com/webhooks/signature),
+// Webhook delivery: signed like Stripe (`t=…,v1=…`, docs.stripe.com/webhooks/signature),
 // retried on non-2xx or connection errors after 1, 2, 4, 8, 16 × `retryBaseMs`, optionally sent twice
 // or, per Checkout Session, held briefly and sent newest first.
 import Stripe from 'stripe';

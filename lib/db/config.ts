@@ -1,4 +1,4 @@
-/** The role the running app connects as on the local cluster: rows only, no schema (DEVELOPERS.md, "Database roles"). */
+/** The role the running app connects as on the local cluster: rows only, no schema (docs/architecture.md, "Database roles"). */
 export const APP_ROLE = 'combtrace_app';
 
 function localUrl(user: string): string {

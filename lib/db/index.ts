@@ -36,7 +36,7 @@ const holder = globalThis as unknown as { __combtraceDb?: Db };
  * The one Sequelize instance with its models, connected as the app's own role (appDatabaseUrl).
  * Instance and models are cached together on globalThis: Next bundles route handlers and server
  * components separately, and a model class initialised in one bundle is not initialised in the
- * other (STACK.md §5).
+ * other ("TypeError: Cannot convert undefined or null to object" when only the instance was cached).
  */
 export function getDb(): Db {
   holder.__combtraceDb ??= createDb(appDatabaseUrl());

@@ -32,7 +32,7 @@ export function seeder(sequelize: Sequelize) {
 
 /**
  * schema_seeds appears with the first seed, after the app-role migration, so it got the app role's
- * default row grants; umzug's bookkeeping is not the app's business (DEVELOPERS.md, "Database roles").
+ * default row grants; umzug's bookkeeping is not the app's business (docs/architecture.md, "Database roles").
  */
 async function keepSeedBookkeepingFromApp(sequelize: Sequelize): Promise<void> {
   await sequelize.query(`DO $$ BEGIN

@@ -40,7 +40,7 @@ case "$cmd" in
     install_server
     mkdir -p "$RUNDIR"
     [ "$(id -u)" = 0 ] && chown "$PGUSER_OS:" "$RUNDIR"
-    # Every parent must be traversable by the postgres user (STACK.md §6).
+    # Every parent must be traversable by the postgres user, or initdb cannot reach $PGDATA ("Permission denied").
     d=$RUNDIR; while [ "$d" != / ]; do [ "$(id -u)" = 0 ] && chmod o+x "$d" 2>/dev/null || true; d=$(dirname "$d"); done
     if [ ! -s "$PGDATA/PG_VERSION" ]; then
       "${AS[@]}" "$PGBIN/initdb" -D "$PGDATA" -U postgres --auth=trust -E UTF8 --locale=C.UTF-8 >/dev/null

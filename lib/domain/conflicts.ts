@@ -2,7 +2,7 @@
  * Super conflicts: a honey super that was on a colony while sugar was fed, or while
  * a treatment whose product label does not allow honey supers was on (its window
  * runs from application to removal plus the label's waiting period). The label
- * governs (US EPA advisory under FIFRA; REFERENCES.md, Food safety).
+ * governs (US EPA advisory under FIFRA: use a registered product only as its label directs).
  * Dates are 'YYYY-MM-DD' calendar days compared as UTC day numbers; all ranges
  * include both ends. An open end (null) means still ongoing: it runs through the
  * super's pull date.

@@ -1,7 +1,7 @@
 /**
  * GS1 identifiers and element strings for jar labels and the trace search.
- * Sources: GS1 General Specifications §7.9.1 (check digit) and REFERENCES.md "GS1
- * identifiers"; the other section numbers cited below are from memory: §3 (AI
+ * Source: GS1 General Specifications — §7.9.1 (check digit) and its Application
+ * Identifiers; the other section numbers cited below are from memory: §3 (AI
  * definitions 01, 10, 15), §7.11 (character set 82), §7.8.5 (predefined lengths).
  */
 
@@ -72,7 +72,7 @@ function yymmdd(date: Date | string): string {
 }
 
 export function assertGs1Lot(lot: string): void {
-  // AI (10): 1–20 characters of character set 82 (REFERENCES.md; GS1 General Specifications §3, from memory).
+  // AI (10): 1–20 characters of character set 82 (GS1 General Specifications §3, section from memory).
   if (lot.length < 1 || lot.length > 20 || !isGs1Cset82(lot)) {
     throw new Error(`Lot "${lot}" must be 1–20 characters of GS1 character set 82 (no spaces)`);
   }
@@ -81,7 +81,7 @@ export function assertGs1Lot(lot: string): void {
 /**
  * Human-readable element string `(01)…(15)YYMMDD(10)lot`. Fixed-length AIs go first so
  * the variable-length (10) ends the symbol and needs no FNC1 separator (GS1 General
- * Specifications §7.8, concatenation — from memory; REFERENCES.md "GS1 identifiers").
+ * Specifications §7.8, concatenation — section from memory).
  * A Date contributes its UTC year, month and day.
  */
 export function gs1HumanReadable({ gtin, bestBefore, lot }: { gtin: string; bestBefore: Date | string; lot: string }): string {
@@ -106,7 +106,7 @@ const PREDEFINED_LENGTH: Record<string, number> = {
 const GS = '\x1d';
 
 /** YYMMDD → YYYY-MM-DD. Century 20xx (fine until 2099; GS1 General Specifications §7.12 has a sliding window — from memory).
- * DD = 00 means the last day of the month (REFERENCES.md, AI 15). */
+ * DD = 00 means the last day of the month (GS1 General Specifications, AI (15) best before date). */
 function isoFromYymmdd(v: string): string | undefined {
   if (!/^\d{6}$/.test(v)) return undefined;
   const year = 2000 + Number(v.slice(0, 2));

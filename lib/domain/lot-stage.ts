@@ -1,5 +1,5 @@
 /**
- * Extraction lot stages (PRODUCT.md, "extraction lot") and who may move a lot.
+ * Extraction lot stages and who may move a lot (docs/trade-rules.md, "Lot stages").
  *
  *   from → to              who           needs
  *   gathering → extracted  owner, crew   container weights recorded

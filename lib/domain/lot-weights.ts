@@ -1,7 +1,7 @@
 /**
  * Lot weights: net honey from containers, extraction yield and blend water content.
- * Net = Σ (gross − tare) over the containers that are not voided (PRODUCT.md, "extraction lot").
- * A blend's water content is the weight-weighted mean of its parents' water (issue 4, Blends).
+ * Net = Σ (gross − tare) over the containers that are not voided.
+ * A blend's water content is the weight-weighted mean of its parents' water (docs/trade-rules.md, "Lot weights and blends").
  */
 
 export type ContainerWeight = { grossGrams: number; tareGrams: number; voided?: boolean };

@@ -3,7 +3,7 @@
  * Rounding: largest-remainder (Hamilton) method — whole units that add up exactly to
  * the total, each within 1 unit of its exact proportional share; equal remainders go
  * to the smaller id (plain string order, not locale order).
- * Super estimates (common practice, REFERENCES.md trade rules of thumb): extracted
+ * Super estimates (common practice, trade rules of thumb; docs/trade-rules.md): extracted
  * honey per full 10-frame super — shallow 25–30 lb, medium 35–40 lb, deep 60–70 lb;
  * the midpoints are used, in grams.
  */

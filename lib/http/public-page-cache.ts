@@ -1,7 +1,7 @@
 import { contentSecurityPolicy, nonceOf } from './csp';
 
 /**
- * A few seconds of memory for the public pages that signed-out visitors see (issue 8 §14).
+ * A few seconds of memory for the public pages that signed-out visitors see (docs/architecture.md, "The public page cache").
  *
  * Every page carries its own CSP nonce, so Next renders every page per request — about five times the
  * cost of a JSON route. The signed-out views of the shop home, the catalogue, a product page and a

@@ -3,7 +3,7 @@ import nodemailer, { type Transporter } from 'nodemailer';
 
 const holder = globalThis as unknown as { __combtraceMail?: Transporter };
 
-/** SMTP from env; defaults to the local mail catcher in fakes/ (FAKES.md §7). */
+/** SMTP from env; defaults to the local mail catcher in fakes/mail (plain SMTP on loopback, no TLS). */
 export function mailTransport(): Transporter {
   holder.__combtraceMail ??= nodemailer.createTransport({
     host: process.env.SMTP_HOST ?? '127.0.0.1',

@@ -4,7 +4,7 @@ import Stripe from 'stripe';
 /**
  * The one Stripe client. With STRIPE_API_HOST set (lib/ops/up.sh, the e2e set-up) it talks to the
  * local fake in fakes/stripe; without it, to the real service — only configuration changes
- * (FAKES.md §1). Telemetry is off. The client is rebuilt when the settings change (tests start
+ * (the SDK's documented host, port and protocol options). Telemetry is off. The client is rebuilt when the settings change (tests start
  * the fake on a free port per file).
  */
 const holder = globalThis as unknown as { __combtraceStripe?: { key: string; client: Stripe } };

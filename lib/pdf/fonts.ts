@@ -6,7 +6,7 @@ import type { PDFDocument, PDFFont } from 'pdf-lib';
 
 /**
  * Lora for PDFs. The @expo-google-fonts TTFs embed cleanly with subsetting; the
- * @fontsource WOFF/WOFF2 files do not (STACK.md §3). Paths assume cwd = project root.
+ * @fontsource WOFF/WOFF2 files do not (a blank page, a crash, or Latin only). Paths assume cwd = project root.
  */
 const FILES = {
   400: 'node_modules/@expo-google-fonts/lora/400Regular/Lora_400Regular.ttf',

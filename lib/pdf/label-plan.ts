@@ -11,7 +11,7 @@ import type { TextBlock } from './text';
 
 /** Where text, barcodes and the QR code go on one jar label. */
 
-// Infant botulism advice (CDC; American Academy of Pediatrics) — REFERENCES.md "Food safety".
+// Infant botulism advice: honey is not for infants under 12 months (CDC; American Academy of Pediatrics).
 export const INFANT_CAUTION = 'Not for infants under 12 months.';
 
 export const INK = rgb(0, 0, 0);

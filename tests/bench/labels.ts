@@ -27,7 +27,7 @@ const { renderLabelSheet } = await import('@/lib/pdf/labels');
 const layout = BUILT_IN_LAYOUTS.find((l) => l.paper === 'a4' && l.columns === 3 && l.rows === 7);
 if (!layout) throw new Error('A4 3×7 layout missing');
 
-// Invented demo data (PRODUCT.md, Demo scenario); GS1 prefix 952 is for demonstrations.
+// Invented demo data, like the demo seed; GS1 prefix 952 is for demonstrations.
 const sources = ['Spring blossom', 'Linden', 'Late-summer wildflower', 'Clover', 'Heather'];
 const jars = [8, 12, 24];
 const labels = Array.from({ length: 50 }, (_, i) => ({

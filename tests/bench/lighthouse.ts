@@ -1,5 +1,5 @@
 /**
- * Lighthouse scores (issue 8 §15): shop home, catalogue, a product page, cart, the back-office
+ * Lighthouse scores (targets: performance ≥ 90, accessibility ≥ 95): shop home, catalogue, a product page, cart, the back-office
  * dashboard and a lot page, median of 3 runs each, performance and accessibility.
  *
  *   BASE=http://127.0.0.1:3100 npx tsx tests/bench/lighthouse.ts

@@ -7,7 +7,7 @@
  *   recursive walk through blends, lot own weights and revenue) without rounding, ranks or tables;
  * - trace of a lot code (traceInput: resolve + 8 queries for one step back/forward)
  *   vs. the recall aggregate alone (order_allocations → orders for the lot and its blends).
- * Targets (issue 7): report < 1 s and ≤ 2× its SQL baseline; trace < 200 ms.
+ * Targets: report < 1 s and ≤ 2× its SQL baseline; trace < 200 ms.
  *
  *   TEST_PGPORT=54355 npx tsx --conditions=react-server tests/bench/reports.ts
  */

@@ -1,5 +1,5 @@
 /**
- * npm run bench — one command, one table (issue 8 §14), against a production build and the large
+ * npm run bench — one command, one table of the speed targets, against a production build and the large
  * synthetic dataset (tests/bench/seed-large.ts: ~2,000 colonies, 15,000 super pulls, 500 lots,
  * 20,000 orders) in its own PostgreSQL cluster:
  *   - the catalogue page, the product JSON route and a back-office list route, each against the

@@ -7,7 +7,7 @@ import { addReadingAction, createLotAction, voidRecordAction } from '@/app/(back
 import { DEMO, signInAs } from '@/tests/support/session';
 import { dropDatabase, migrate, recreateDatabase } from '@/tests/support/pg';
 
-// Issue 8 §13: lots, readings and audit rows are append-only for the app's own database role.
+// Lots, readings and audit rows are append-only for the app's own database role.
 // ASVS 4.0.3 V1.2.1 (application components run with low-privilege accounts) and V7.3.3 (security
 // logs are protected from modification) — requirement numbers from memory.
 //

@@ -4,7 +4,7 @@ import { closeDb, getDb } from '@/lib/db';
 afterAll(closeDb);
 const q = (sql: string) => getDb().sequelize.query(sql);
 
-describe('append-only records (issue 8 §13)', () => {
+describe('append-only records', () => {
   it('the audit log and the stock ledger cannot be changed or deleted', async () => {
     await expect(q(`UPDATE audit_entries SET reason = 'rewritten' WHERE id = (SELECT min(id) FROM audit_entries)`)).rejects.toThrow(/append-only/);
     await expect(q(`DELETE FROM audit_entries`)).rejects.toThrow(/append-only/);

@@ -18,7 +18,7 @@ async function logsOf(run: () => Promise<unknown>): Promise<string[]> {
   return lines;
 }
 
-describe('errors and logs (issue 8 §10, ASVS 16)', () => {
+describe('errors and logs (ASVS 16)', () => {
   it('an unexpected failure answers a plain 500 with a reference; the SQL and stack stay in the log under that reference', async () => {
     const sqlError = new DatabaseError(Object.assign(new Error('column "secret_col" does not exist'), { sql: 'SELECT secret_col FROM users WHERE id = 1' }));
     let res: Response | undefined;

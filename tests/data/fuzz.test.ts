@@ -6,7 +6,7 @@ import { dbFingerprint } from '@/tests/support/db-fingerprint';
 
 afterAll(closeDb);
 
-// Issue 8 §5 (ASVS 2.2.1, 15.3.3): hostile input to every action and route handler, as the owner
+// Input validation (ASVS 2.2.1, 15.3.3): hostile input to every action and route handler, as the owner
 // (who may call everything): always a readable refusal, never a crash, never a change in the database.
 const actionModules = import.meta.glob<Record<string, unknown>>(['/app/**/actions.ts']);
 const routeModules = import.meta.glob<Record<string, unknown>>(['/app/**/route.ts']);

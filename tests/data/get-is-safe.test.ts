@@ -10,14 +10,14 @@ import { TINY_PDF, TINY_PNG } from '@/tests/support/files';
 
 afterAll(closeDb);
 
-// Issue 8 §9: no GET changes state. Every GET route handler is called for real (a real record, the
+// No GET changes state. Every GET route handler is called for real (a real record, the
 // owner signed in, the body read to its end) and the database must be exactly as before.
 const routeModules = import.meta.glob<Record<string, unknown>>(['/app/**/route.ts']);
 
 /** GETs that change something by design, and why; nothing else may. */
 const WRITES_BY_DESIGN: Record<string, string> = {
   'app/(storefront)/checkout/cancelled/route.ts':
-    "Stripe's cancel_url is a browser navigation; it releases the jars held for the order its HMAC token names (tests/data/shop-checkout.test.ts)",
+    "Stripe's cancel_url is a browser navigation; it releases the jars held for the order its HMAC token names (tests/data/shop/checkout.test.ts)",
   'app/api/auth/[...nextauth]/route.ts': "next-auth's own session/csrf/providers endpoints; sign-in and sign-out are POSTs",
 };
 
@@ -81,7 +81,7 @@ async function call(file: string, fn: RouteFn, c: Call): Promise<number> {
   }
 }
 
-describe('GET never changes state (issue 8 §9)', () => {
+describe('GET never changes state', () => {
   it('every GET route handler is either called here with a real record or listed with its reason', async () => {
     const gets: string[] = [];
     for (const [file, load] of Object.entries(routeModules)) if (typeof (await load()).GET === 'function') gets.push(file.slice(1));

@@ -25,7 +25,7 @@ afterAll(closeDb);
 
 const inbox = async (to: string) => (await (await fetch(`http://127.0.0.1:${webPort}/api/messages?to=${encodeURIComponent(to)}`)).json()) as { subject: string }[];
 
-describe('mail outbox (issue 8 §12)', () => {
+describe('mail outbox', () => {
   it('queues while the mail server is down and delivers each message exactly once when it is back', async () => {
     const { OutboxMessage } = getDb().models;
     const to = `queue-${Date.now()}@example.test`;

@@ -10,8 +10,8 @@ import { hasPoppler, pdfText } from '../pdf/poppler';
 
 afterAll(closeDb);
 
-// Issue 8 §6 (ASVS 1.2.1): what people type is shown as text everywhere it goes out. (Pages: React
-// escapes; tests/e2e/foundation.test.ts checks a product description with markup in the browser.)
+// Output encoding (ASVS 1.2.1): what people type is shown as text everywhere it goes out. (Pages: React
+// escapes; tests/e2e/auth.test.ts checks a product description with markup in the browser.)
 const MARKUP = '<img src=x onerror="alert(1)">Ada & <b>Bee</b>';
 
 async function paidOrderId(): Promise<number> {

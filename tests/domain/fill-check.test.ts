@@ -3,11 +3,11 @@ import { assessFill, assessFillUs, maximumAllowableVariation, tolerableNegativeE
 
 describe('tolerableNegativeError', () => {
   it('matches the published worked values', () => {
-    expect(tolerableNegativeError(1000)).toBe(15); // REFERENCES.md: OIML R 87 / 76/211/EEC worked value, Qn 1000 g → 15 g
-    expect(tolerableNegativeError(200)).toBe(9); // REFERENCES.md: OIML R 87 / 76/211/EEC worked value, Qn 200 g → 9 g
+    expect(tolerableNegativeError(1000)).toBe(15); // OIML R 87 / 76/211/EEC worked value, Qn 1000 g → 15 g
+    expect(tolerableNegativeError(200)).toBe(9); // OIML R 87 / 76/211/EEC worked value, Qn 200 g → 9 g
   });
 
-  // REFERENCES.md: OIML R 87 and 76/211/EEC Annex I TNE table; each band edge, where the bands meet
+  // OIML R 87 and 76/211/EEC Annex I TNE table; each band edge, where the bands meet
   const edges: [number, number, string][] = [
     [5, 0.5, '9 % of 5 g = 0.45, rounded up to 0.5'],
     [50, 4.5, '9 % of 50 = 4.5 = fixed 4.5 g'],
@@ -21,7 +21,7 @@ describe('tolerableNegativeError', () => {
   ];
   it.each(edges)('band edge Qn %i g → %f g (%s)', (qn, tne) => expect(tolerableNegativeError(qn)).toBe(tne));
 
-  // REFERENCES.md: same table, inside each band, percentages rounded up to the next 0.1 g
+  // OIML R 87 and 76/211/EEC Annex I, same table: inside each band, percentages rounded up to the next 0.1 g
   const inside: [number, number, string][] = [
     [20, 1.8, '9 % band: 1.8 exactly, not pushed to 1.9 by float noise'],
     [30, 2.7, '9 % band'],
@@ -40,14 +40,14 @@ describe('tolerableNegativeError', () => {
   it.each(inside)('Qn %i g → %f g (%s)', (qn, tne) => expect(tolerableNegativeError(qn)).toBe(tne));
 
   it('throws below 5 g', () => {
-    // REFERENCES.md: the TNE table starts at 5 g
+    // OIML R 87 and 76/211/EEC Annex I: the TNE table starts at 5 g
     expect(() => tolerableNegativeError(4.9)).toThrow(RangeError);
     expect(() => tolerableNegativeError(Number.NaN)).toThrow(RangeError);
   });
 });
 
 describe('assessFill (EU/OIML rules)', () => {
-  const qn = 500; // TNE 15 g (REFERENCES.md TNE table: 500–1000 g → 15 g): T1 485, T2 470
+  const qn = 500; // TNE 15 g (OIML R 87 / 76/211/EEC Annex I TNE table: 500–1000 g → 15 g): T1 485, T2 470
 
   it('passes a good run', () => {
     const result = assessFill(qn, [502, 505, 498, 501, 503, 499, 500, 504]);
@@ -67,7 +67,7 @@ describe('assessFill (EU/OIML rules)', () => {
   });
 
   it('allows floor(2.5 %) of the samples below T1: none under 40 samples', () => {
-    // REFERENCES.md: at most 2.5 % of a batch below T1; floor(39 × 2.5 %) = 0, floor(40 × 2.5 %) = 1
+    // OIML R 87 / 76/211/EEC Annex I: at most 2.5 % of a batch below T1; floor(39 × 2.5 %) = 0, floor(40 × 2.5 %) = 1
     const thirtyNine = [484, ...Array.from({ length: 38 }, () => 505)];
     expect(assessFill(qn, thirtyNine)).toMatchObject({ pass: false, belowT1: 1, allowedBelowT1: 0 });
     const forty = [484, ...Array.from({ length: 39 }, () => 505)];
@@ -87,7 +87,7 @@ describe('assessFill (EU/OIML rules)', () => {
 });
 
 describe('assessFillUs (NIST Handbook 133 rules, MAV given)', () => {
-  // REFERENCES.md: NIST HB 133 example, 113 g (¼ lb) → MAV 7.2 g
+  // NIST Handbook 133 example, 113 g (¼ lb) → MAV 7.2 g
   it('passes when the average meets the label and no jar is short by more than the MAV', () => {
     const result = assessFillUs(113, [114, 113, 106, 119], 7.2);
     expect(result).toMatchObject({ pass: true, mav: 7.2, shortBeyondMav: 0 });

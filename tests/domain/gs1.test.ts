@@ -8,9 +8,9 @@ const GS = '\x1d';
 
 describe('check digit', () => {
   it('matches published worked examples', () => {
-    expect(gs1CheckDigit('629104150021')).toBe(3); // GS1 General Specifications §7.9.1 worked example (REFERENCES.md)
-    expect(gs1CheckDigit('0952123454321')).toBe(3); // REFERENCES.md element string example (01)09521234543213
-    expect(gs1CheckDigit('0950110153000')).toBe(3); // STACK.md §11 example GTIN 09501101530003
+    expect(gs1CheckDigit('629104150021')).toBe(3); // GS1 General Specifications §7.9.1 worked example
+    expect(gs1CheckDigit('0952123454321')).toBe(3); // demonstration GTIN (01)09521234543213 (GS1 prefix 952 is for examples)
+    expect(gs1CheckDigit('0950110153000')).toBe(3); // example GTIN 09501101530003, as in the scanner-output test below
     expect(gs1CheckDigit('03600029145')).toBe(2); // UPC-A 036000291452 (from memory)
     expect(gs1CheckDigit('9638507')).toBe(4); // EAN-8 96385074 (from memory)
   });
@@ -25,8 +25,8 @@ describe('GTIN validity', () => {
   it('accepts GTIN-8, -12, -13 and -14 with a right check digit', () => {
     expect(isValidGtin('96385074')).toBe(true); // from memory, as above
     expect(isValidGtin('036000291452')).toBe(true); // from memory, as above
-    expect(isValidGtin('9521234543213')).toBe(true); // REFERENCES.md example without its leading 0
-    expect(isValidGtin('09521234543213')).toBe(true); // REFERENCES.md
+    expect(isValidGtin('9521234543213')).toBe(true); // the demonstration GTIN without its leading 0
+    expect(isValidGtin('09521234543213')).toBe(true); // the demonstration GTIN, 14 digits
   });
   it('rejects wrong check digits, lengths and characters', () => {
     expect(isValidGtin('09521234543214')).toBe(false);
@@ -43,7 +43,7 @@ describe('GTIN validity', () => {
 });
 
 describe('makeGtin', () => {
-  it('builds the REFERENCES.md example from a 9-digit prefix and item reference', () => {
+  it('builds the demonstration GTIN from a 9-digit prefix and item reference', () => {
     expect(makeGtin('952123454', '321')).toBe('9521234543213');
   });
   it('zero-pads the item reference and can add an indicator digit', () => {
@@ -63,20 +63,20 @@ describe('makeGtin', () => {
 
 describe('character set 82', () => {
   it('has exactly 82 printable ASCII characters', () => {
-    // "character set 82" (REFERENCES.md): 82 characters; GS1 General Specifications §7.11 (section from memory)
+    // "character set 82": 82 characters; GS1 General Specifications §7.11 (section from memory)
     const printable = Array.from({ length: 0x7f - 0x20 }, (_, i) => String.fromCharCode(0x20 + i));
     expect(printable.filter(isGs1Cset82)).toHaveLength(82);
   });
-  it('excludes space, #, $ and @ (REFERENCES.md, GS1 identifiers)', () => {
+  it('excludes space, #, $ and @ (GS1 General Specifications, character set 82)', () => {
     for (const ch of [' ', '#', '$', '@', '[', '~', 'é']) expect(isGs1Cset82(`A${ch}`)).toBe(false);
     expect(isGs1Cset82('HH26-014')).toBe(true);
   });
 });
 
 describe('human-readable element string', () => {
-  it('matches the REFERENCES.md example, fixed-length AIs first', () => {
+  it('matches the GS1 human-readable form, fixed-length AIs first', () => {
     expect(gs1HumanReadable({ gtin: '09521234543213', bestBefore: '2027-12-31', lot: 'HH26-014' }))
-      .toBe('(01)09521234543213(15)271231(10)HH26-014'); // REFERENCES.md, GS1 identifiers
+      .toBe('(01)09521234543213(15)271231(10)HH26-014'); // GS1 General Specifications: AIs in parentheses, fixed-length (01) and (15) before (10)
   });
   it('pads shorter GTINs and reads a Date in UTC', () => {
     expect(gs1HumanReadable({ gtin: '9521234543213', bestBefore: new Date('2027-12-31T23:30:00Z'), lot: 'A1' }))
@@ -86,7 +86,7 @@ describe('human-readable element string', () => {
     const ok = { gtin: '09521234543213', bestBefore: '2027-12-31', lot: 'HH26-014' };
     expect(() => gs1HumanReadable({ ...ok, gtin: '09521234543214' })).toThrow(/GTIN/);
     expect(() => gs1HumanReadable({ ...ok, lot: '' })).toThrow(/Lot/);
-    expect(() => gs1HumanReadable({ ...ok, lot: 'X'.repeat(21) })).toThrow(/1–20/); // AI (10): up to 20 (REFERENCES.md)
+    expect(() => gs1HumanReadable({ ...ok, lot: 'X'.repeat(21) })).toThrow(/1–20/); // AI (10): up to 20 (GS1 General Specifications)
     expect(() => gs1HumanReadable({ ...ok, lot: 'HH 26' })).toThrow(/character set 82/);
     expect(() => gs1HumanReadable({ ...ok, bestBefore: '2027-02-30' })).toThrow(/calendar/);
     expect(() => gs1HumanReadable({ ...ok, bestBefore: '31/12/2027' })).toThrow(/YYYY-MM-DD/);
@@ -103,19 +103,19 @@ describe('parsing scanned and typed element strings', () => {
   it('reads the bracketed form', () => {
     expect(parseGs1ElementString('(01)09521234543213(15)271231(10)HH26-014')).toEqual(expected);
   });
-  it('reads GS1-128 scanner output with ]C1 (STACK.md §11 decoder output shape)', () => {
+  it('reads GS1-128 scanner output with ]C1 (as @zxing/library decodes it with ASSUME_GS1)', () => {
     expect(parseGs1ElementString(']C101095212345432131527123110HH26-014')).toEqual(expected);
   });
-  it('reads GS1 DataMatrix output with ]d2 or a leading GS (STACK.md §11)', () => {
+  it('reads GS1 DataMatrix output with ]d2 or a leading GS (as @zxing/library decodes it)', () => {
     expect(parseGs1ElementString(']d201095212345432131527123110HH26-014')).toEqual(expected);
     expect(parseGs1ElementString(`${GS}01095212345432131527123110HH26-014`)).toEqual(expected);
   });
   it('uses GS to end a variable-length lot that is not last', () => {
-    // STACK.md §11: "]C1…10LOT-24-017\x1d15261231"
+    // @zxing/library Code128 output with ASSUME_GS1: "]C1…10LOT-24-017\x1d15261231"
     expect(parseGs1ElementString(`]C1010950110153000310LOT-24-017${GS}15261231`))
       .toEqual({ gtin: '09501101530003', lot: 'LOT-24-017', bestBefore: '2026-12-31' });
   });
-  it('treats DD = 00 as the last day of the month (REFERENCES.md, AI 15)', () => {
+  it('treats DD = 00 as the last day of the month (GS1 General Specifications, AI (15))', () => {
     expect(parseGs1ElementString('(15)270200').bestBefore).toBe('2027-02-28');
     expect(parseGs1ElementString('(15)280200').bestBefore).toBe('2028-02-29'); // leap year
   });

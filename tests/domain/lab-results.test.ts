@@ -3,14 +3,14 @@ import { DEFAULT_LAB_LIMITS, checkLabResults } from '@/lib/domain/lab-results';
 
 describe('DEFAULT_LAB_LIMITS', () => {
   it('carries the EU Annex II limits', () => {
-    // REFERENCES.md: EU 2001/110/EC Annex II: HMF ≤ 40 mg/kg, diastase ≥ 8 Schade, insoluble ≤ 0.1 g/100 g
+    // EU Council Directive 2001/110/EC Annex II: HMF ≤ 40 mg/kg, diastase ≥ 8 Schade, insoluble ≤ 0.1 g/100 g
     expect(DEFAULT_LAB_LIMITS).toEqual({ hmfMaxMgKg: 40, diastaseMinSchade: 8, insolubleMaxG100g: 0.1 });
   });
 });
 
 describe('checkLabResults', () => {
   it('passes values on the limits', () => {
-    // REFERENCES.md: EU 2001/110/EC Annex II: HMF ≤ 40, diastase ≥ 8, insoluble ≤ 0.1 — the limit itself passes
+    // EU Council Directive 2001/110/EC Annex II: HMF ≤ 40, diastase ≥ 8, insoluble ≤ 0.1 — the limit itself passes
     expect(checkLabResults({ hmfMgKg: 40, diastaseSchade: 8, insolubleG100g: 0.1 }, DEFAULT_LAB_LIMITS)).toEqual({ pass: true, failures: [] });
   });
 
@@ -31,7 +31,7 @@ describe('checkLabResults', () => {
   });
 
   it('uses owner limits, e.g. declared tropical origin', () => {
-    // REFERENCES.md: EU 2001/110/EC Annex II, HMF ≤ 80 mg/kg for declared tropical origin
+    // EU Council Directive 2001/110/EC Annex II, HMF ≤ 80 mg/kg for declared tropical origin
     const tropical = { ...DEFAULT_LAB_LIMITS, hmfMaxMgKg: 80 };
     expect(checkLabResults({ hmfMgKg: 60 }, tropical).pass).toBe(true);
     expect(checkLabResults({ hmfMgKg: 60 }, DEFAULT_LAB_LIMITS).pass).toBe(false);

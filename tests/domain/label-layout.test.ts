@@ -21,7 +21,7 @@ describe('built-in layouts', () => {
     for (const layout of BUILT_IN_LAYOUTS) expect(validateLayout(layout), layout.name).toEqual([]);
     expect(BUILT_IN_LAYOUTS.map((l) => labelPositions(l).slots.length)).toEqual([21, 14, 30, 10, 1]);
   });
-  it('includes the generic sizes named in the brief', () => {
+  it('includes the generic sizes: A4 3 × 7, Letter 3 × 10, a 60 × 40 mm roll', () => {
     expect(a4x21).toMatchObject({ labelWidthMm: 63.5, labelHeightMm: 38.1 });
     expect(BUILT_IN_LAYOUTS.some((l) => l.paper === 'letter' && l.columns * l.rows === 30 && l.labelHeightMm === 25.4)).toBe(true);
     expect(BUILT_IN_LAYOUTS.some((l) => l.paper === 'roll' && l.labelWidthMm === 60 && l.labelHeightMm === 40)).toBe(true);

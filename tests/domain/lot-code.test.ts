@@ -3,7 +3,7 @@ import { lotCode, parseLotCode } from '@/lib/domain/lot-code';
 
 describe('lotCode', () => {
   it('pads year and sequence', () => {
-    expect(lotCode('HH', 2026, 14)).toBe('HH26-014'); // PRODUCT.md: lot code example HH26-014
+    expect(lotCode('HH', 2026, 14)).toBe('HH26-014'); // prefix, two-digit year, sequence (docs/trade-rules.md, "Lot codes")
     expect(lotCode('HH', 2005, 1)).toBe('HH05-001');
   });
 
@@ -18,7 +18,7 @@ describe('lotCode', () => {
   });
 
   it('rejects prefixes unsafe for GS1 AI (10) and bad numbers', () => {
-    // REFERENCES.md: GS1 AI (10) uses character set 82 — no space, #, $, @
+    // GS1 General Specifications: AI (10) uses character set 82 — no space, #, $, @
     expect(() => lotCode('H H', 2026, 1)).toThrow(RangeError);
     expect(() => lotCode('HH#', 2026, 1)).toThrow(RangeError);
     expect(() => lotCode('ABCDEFGHI', 2026, 1)).toThrow(RangeError);
@@ -27,7 +27,7 @@ describe('lotCode', () => {
   });
 
   it('fits GS1 AI (10), at most 20 characters', () => {
-    // REFERENCES.md: AI (10) batch/lot, 1–20 characters
+    // GS1 General Specifications: AI (10) batch/lot, 1–20 characters
     expect(lotCode('ABCDEFGH', 2026, 999_999).length).toBeLessThanOrEqual(20);
   });
 });

@@ -8,7 +8,7 @@ const ctx = (over: Partial<StageContext>): StageContext => ({ ...good, ...over }
 
 describe('nextStage: the stages', () => {
   it('lists the stages in order', () => {
-    expect(LOT_STAGES).toEqual(['gathering', 'extracted', 'released', 'packed_out', 'held']); // PRODUCT.md: extraction lot stages
+    expect(LOT_STAGES).toEqual(['gathering', 'extracted', 'released', 'packed_out', 'held']); // docs/trade-rules.md, "Lot stages"
   });
 });
 
@@ -31,7 +31,7 @@ describe('extracted → released', () => {
   });
 
   it('holds the lot for each failed check, listing every reason', () => {
-    // PRODUCT.md: held whenever a check fails (moisture over the limit, a treatment or feeding conflict)
+    // a lot is held whenever a check fails (moisture over the limit, a treatment or feeding conflict)
     expect(nextStage('extracted', 'released', ctx({ moistureOk: false }))).toEqual({ ok: true, stage: 'held', holdReasons: ['Moisture is over the limit'] });
     expect(nextStage('extracted', 'released', ctx({ labOk: false }))).toEqual({ ok: true, stage: 'held', holdReasons: ['Lab results fail the limits'] });
     expect(nextStage('extracted', 'released', ctx({ unresolvedFlaggedSupers: 1 }))).toEqual({
@@ -44,7 +44,7 @@ describe('extracted → released', () => {
 
 describe('leaving held', () => {
   it('lets only the owner out, with a written reason', () => {
-    // PRODUCT.md: leaving held needs the owner and a reason
+    // leaving held needs the owner and a written reason
     const reason = 'Re-tested at 18.2 %';
     expect(nextStage('held', 'released', ctx({ role: 'owner', reason }))).toEqual({ ok: true, stage: 'released' });
     expect(nextStage('held', 'extracted', ctx({ role: 'owner', reason }))).toEqual({ ok: true, stage: 'extracted' });

@@ -4,19 +4,19 @@ import {
   waterFromRefractiveIndex, waterFromScaleReading,
 } from '@/lib/domain/moisture';
 
-// REFERENCES.md: the Wedmore formula reproduces the table to within about 0.02 % water;
+// The Wedmore formula reproduces the Chataway/Wedmore table to within about 0.02 % water;
 // the table's 4-decimal refractive index adds up to ±0.00005 (≈ 0.02 %), hence 0.03.
 const TABLE_TOLERANCE = 0.03;
 const near = (actual: number, expected: number) => expect(Math.abs(actual - expected)).toBeLessThanOrEqual(TABLE_TOLERANCE);
 
 describe('waterFromRefractiveIndex at 20 °C against the Chataway/Wedmore table', () => {
   const published: [number, number, string][] = [
-    [1.5044, 13.0, 'REFERENCES.md: Chataway/Wedmore table, AOAC 969.38 B'],
-    [1.4992, 15.0, 'REFERENCES.md: Chataway/Wedmore table, AOAC 969.38 B'],
-    [1.4966, 16.0, 'REFERENCES.md: Chataway/Wedmore table, AOAC 969.38 B'],
-    [1.4890, 19.0, 'REFERENCES.md: Chataway/Wedmore table, AOAC 969.38 B'],
-    [1.4865, 20.0, 'REFERENCES.md: Chataway/Wedmore table, AOAC 969.38 B'],
-    [1.4815, 22.0, 'REFERENCES.md: Chataway/Wedmore table, AOAC 969.38 B'],
+    [1.5044, 13.0, 'Chataway/Wedmore table, AOAC 969.38 B'],
+    [1.4992, 15.0, 'Chataway/Wedmore table, AOAC 969.38 B'],
+    [1.4966, 16.0, 'Chataway/Wedmore table, AOAC 969.38 B'],
+    [1.4890, 19.0, 'Chataway/Wedmore table, AOAC 969.38 B'],
+    [1.4865, 20.0, 'Chataway/Wedmore table, AOAC 969.38 B'],
+    [1.4815, 22.0, 'Chataway/Wedmore table, AOAC 969.38 B'],
   ];
   it.each(published)('%f → %f %% (%s)', (ri, water) => near(waterFromRefractiveIndex(ri), water));
 
@@ -38,20 +38,20 @@ describe('waterFromRefractiveIndex at 20 °C against the Chataway/Wedmore table'
   });
 
   it('is not the misprinted formula with +0.2681 (hundreds of per cent)', () => {
-    // REFERENCES.md: beware the sign misprint
+    // a misprint of the formula in circulation flips the sign of 0.2681
     expect(waterFromRefractiveIndex(1.4865)).toBeLessThan(30);
   });
 });
 
 describe('temperature correction', () => {
   it('adds 0.00023 per °C above 20 °C', () => {
-    // REFERENCES.md, Temperature: +0.00023 per °C above 20 → 1.4842 at 30 °C reads as 1.4865 (20.0 %)
+    // Refractometer temperature correction (AOAC 969.38 B; IHC Harmonised methods): +0.00023 per °C above 20 → 1.4842 at 30 °C reads as 1.4865 (20.0 %)
     near(waterFromRefractiveIndex(1.4842, 30), 20.0);
     expect(waterFromRefractiveIndex(1.4842, 30)).toBeCloseTo(waterFromRefractiveIndex(1.4865, 20), 10);
   });
 
   it('subtracts 0.00023 per °C below 20 °C', () => {
-    // REFERENCES.md, Temperature: −0.00023 per °C below 20 → 1.4913 at 10 °C reads as 1.4890 (19.0 %)
+    // Refractometer temperature correction (AOAC 969.38 B; IHC Harmonised methods): −0.00023 per °C below 20 → 1.4913 at 10 °C reads as 1.4890 (19.0 %)
     near(waterFromRefractiveIndex(1.4913, 10), 19.0);
     expect(waterFromRefractiveIndex(1.4913, 10)).toBeCloseTo(waterFromRefractiveIndex(1.4890), 10);
   });
@@ -76,7 +76,7 @@ describe('inverse and scale readings', () => {
   });
 
   it('gives table refractive indices back', () => {
-    // REFERENCES.md: Chataway/Wedmore table, AOAC 969.38 B: 20.0 % → 1.4865, 13.0 % → 1.5044
+    // Chataway/Wedmore table, AOAC 969.38 B: 20.0 % → 1.4865, 13.0 % → 1.5044
     expect(Math.abs(refractiveIndexFromWater(20) - 1.4865)).toBeLessThan(0.0001);
     expect(Math.abs(refractiveIndexFromWater(13) - 1.5044)).toBeLessThan(0.0001);
   });
@@ -87,7 +87,7 @@ describe('inverse and scale readings', () => {
   });
 
   it('corrects an uncompensated scale reading through the refractive index', () => {
-    // REFERENCES.md, Temperature rule: 10 °C above 20 adds 0.0023 to the index, i.e. the honey is drier
+    // Refractometer temperature correction (AOAC 969.38 B; IHC Harmonised methods): 10 °C above 20 adds 0.0023 to the index, i.e. the honey is drier
     const expected = waterFromRefractiveIndex(refractiveIndexFromWater(20) + 0.0023);
     expect(waterFromScaleReading(20, 30)).toBeCloseTo(expected, 10);
     expect(waterFromScaleReading(20, 30)).toBeLessThan(20);
@@ -106,7 +106,7 @@ describe('moistureSummary', () => {
 
 describe('gradeMoisture', () => {
   it('uses the EU and USDA defaults', () => {
-    // REFERENCES.md: EU 2001/110/EC Annex II ≤ 20 % (heather ≤ 23 %); USDA grades (1985) A/B ≤ 18.6 %
+    // EU Council Directive 2001/110/EC Annex II ≤ 20 % (heather ≤ 23 %); USDA grades (1985) A/B ≤ 18.6 %
     expect(DEFAULT_MOISTURE_LIMITS).toEqual({ generalPct: 20, heatherPct: 23, gradeAPct: 18.6 });
   });
 
@@ -119,13 +119,13 @@ describe('gradeMoisture', () => {
   });
 
   it('uses the heather limit when asked', () => {
-    // REFERENCES.md: EU 2001/110/EC Annex II, heather (Calluna) ≤ 23 %
+    // EU Council Directive 2001/110/EC Annex II, heather (Calluna) ≤ 23 %
     expect(gradeMoisture(22.5, DEFAULT_MOISTURE_LIMITS, { heather: true })).toMatchObject({ withinLimit: true, limitPct: 23 });
     expect(gradeMoisture(23.2, DEFAULT_MOISTURE_LIMITS, { heather: true }).withinLimit).toBe(false);
   });
 
   it('marks US Grade A/B at 18.6 % and below', () => {
-    // REFERENCES.md: USDA U.S. Standards for Grades of Extracted Honey (1985), Grade A and B ≤ 18.6 %
+    // USDA U.S. Standards for Grades of Extracted Honey (1985), Grade A and B ≤ 18.6 %
     expect(gradeMoisture(18.6, DEFAULT_MOISTURE_LIMITS).usGradeAB).toBe(true);
     expect(gradeMoisture(18.6, DEFAULT_MOISTURE_LIMITS).label).toContain('meets US Grade A/B');
     expect(gradeMoisture(18.7, DEFAULT_MOISTURE_LIMITS).usGradeAB).toBe(false);
@@ -137,7 +137,7 @@ describe('gradeMoisture', () => {
 });
 
 describe('fermentationRisk', () => {
-  // REFERENCES.md: USDA Agriculture Handbook 335 after Lochhead (common practice):
+  // USDA Agriculture Handbook 335 after Lochhead (common practice):
   // < 17.1 low; 17.1–18.0 yeast ≤ 1000/g; 18.1–19.0 yeast ≤ 10/g; > 19 likely
   const cases: [number, string][] = [
     [13, 'low'], [17.0, 'low'], [17.1, 'yeast-dependent'], [18.0, 'yeast-dependent'],

@@ -1,11 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { declareNetQuantity, declareNetWeightMetric, declareNetWeightUS } from '@/lib/domain/net-quantity';
 
-const OZ = 28.349523125; // REFERENCES.md: 1 oz = 28.349523125 g exactly
+const OZ = 28.349523125; // 1 oz = 28.349523125 g exactly (international yard and pound agreement, 1959)
 
 describe('US dual declaration', () => {
   it("matches FDA's example for 24 oz", () => {
-    // FDA Food Labeling Guide: "Net wt 1 lb 8 oz (680g)" (REFERENCES.md, Net quantity)
+    // FDA Food Labeling Guide: "Net wt 1 lb 8 oz (680g)"
     expect(declareNetWeightUS(24)).toBe('NET WT 1 LB 8 OZ (680 g)');
   });
   it('rounds the metric figure down, never up (NIST Handbook 130)', () => {
@@ -19,7 +19,7 @@ describe('US dual declaration', () => {
     expect(declareNetWeightUS(80)).toBe('NET WT 5 LB (2.26 kg)'); // 2267.96 g → 3 significant figures, down
     expect(declareNetWeightUS(40)).toBe('NET WT 2 LB 8 OZ (1.13 kg)'); // 1133.98 g → 1.13 kg
   });
-  it('keeps two significant figures below 100 g (REFERENCES.md, Net quantity)', () => {
+  it('keeps two significant figures below 100 g (NIST Handbook 130)', () => {
     expect(declareNetWeightUS(1.5)).toBe('NET WT 1.5 OZ (42 g)'); // 42.52 g → 42 g
     expect(declareNetWeightUS(2)).toBe('NET WT 2 OZ (56 g)'); // 56.70 g → 56 g
     expect(declareNetWeightUS(3.5)).toBe('NET WT 3.5 OZ (99 g)'); // 99.22 g → 99 g
@@ -36,7 +36,7 @@ describe('US dual declaration', () => {
       expect(metric).not.toBeNull();
       const grams = Number(metric?.[1]) * (metric?.[2] === 'kg' ? 1000 : 1);
       expect(grams).toBeLessThanOrEqual(exact + 1e-9);
-      // REFERENCES.md: two significant figures below 100 g, three from 100 g
+      // NIST Handbook 130: two significant figures below 100 g, three from 100 g
       const step = exact < 10 ? 0.1 : exact < 100 ? 1 : 10 ** (Math.floor(Math.log10(exact)) - 2);
       expect(grams).toBeGreaterThan(exact - step);
     }

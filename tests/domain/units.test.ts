@@ -6,8 +6,8 @@ import {
 
 describe('exact factors', () => {
   it('uses the defined pound and ounce', () => {
-    expect(GRAMS_PER_POUND).toBe(453.59237); // REFERENCES.md, Net quantity: 1 lb = 453.59237 g (exact)
-    expect(GRAMS_PER_OUNCE).toBe(28.349523125); // REFERENCES.md, Net quantity: 1 oz = 28.349523125 g (exact)
+    expect(GRAMS_PER_POUND).toBe(453.59237); // 1 lb = 453.59237 g exactly (international yard and pound agreement, 1959)
+    expect(GRAMS_PER_OUNCE).toBe(28.349523125); // 1 oz = 1/16 lb = 28.349523125 g exactly (same agreement)
     expect(GRAMS_PER_OUNCE * 16).toBeCloseTo(GRAMS_PER_POUND, 12); // 16 oz = 1 lb avoirdupois
   });
 });
@@ -16,9 +16,9 @@ describe('to grams (rounded)', () => {
   it('converts and rounds to whole grams', () => {
     expect(kgToGrams(12.3456)).toBe(12346);
     expect(lbToGrams(1)).toBe(454); // 453.59237 rounds to 454
-    expect(lbToGrams(1.5)).toBe(680); // FDA example in REFERENCES.md: "Net wt 1 lb 8 oz (680g)"
+    expect(lbToGrams(1.5)).toBe(680); // FDA Food Labeling Guide example: "Net wt 1 lb 8 oz (680g)"
     expect(ozToGrams(24)).toBe(680); // same FDA example, 24 oz
-    expect(ozToGrams(4)).toBe(113); // REFERENCES.md NIST HB 133 example: 113 g (¼ lb)
+    expect(ozToGrams(4)).toBe(113); // NIST Handbook 133 example: 113 g (¼ lb)
   });
 
   it('dispatches by unit', () => {
@@ -54,7 +54,7 @@ describe('formatWeight', () => {
   it('shows jars and drums in US units', () => {
     expect(formatWeight(340, 'us')).toBe('12 oz'); // 11.99 oz to 0.1
     expect(formatWeight(250, 'us')).toBe('8.8 oz');
-    expect(formatWeight(680, 'us')).toBe('1 lb 8 oz'); // REFERENCES.md FDA example "1 lb 8 oz (680g)"
+    expect(formatWeight(680, 'us')).toBe('1 lb 8 oz'); // FDA Food Labeling Guide example "1 lb 8 oz (680g)"
     expect(formatWeight(lbToGrams(27) + ozToGrams(3), 'us')).toBe('27 lb 3 oz');
     expect(formatWeight(lbToGrams(60), 'us')).toBe('60 lb');
     expect(formatWeight(454, 'us')).toBe('1 lb');

@@ -56,8 +56,8 @@ describe('allocateByWeight', () => {
 });
 
 describe('superHoneyGrams', () => {
-  it('uses the REFERENCES.md midpoints for the estimates', () => {
-    // common practice, REFERENCES.md: per full super shallow 25–30 lb, medium 35–40 lb, deep 60–70 lb
+  it('uses the midpoints of the common-practice ranges for the estimates', () => {
+    // common practice (trade rules of thumb): per full super shallow 25–30 lb, medium 35–40 lb, deep 60–70 lb
     expect(DEFAULT_SUPER_ESTIMATES.shallow).toEqual({ gramsPerBox: Math.round(27.5 * GRAMS_PER_POUND), framesPerBox: 10 });
     expect(DEFAULT_SUPER_ESTIMATES.medium).toEqual({ gramsPerBox: Math.round(37.5 * GRAMS_PER_POUND), framesPerBox: 10 });
     expect(DEFAULT_SUPER_ESTIMATES.deep).toEqual({ gramsPerBox: Math.round(65 * GRAMS_PER_POUND), framesPerBox: 10 });

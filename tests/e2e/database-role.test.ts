@@ -7,7 +7,7 @@ let browser: BrowserContext;
 beforeAll(async () => { browser = await openBrowser(); });
 afterAll(async () => { await browser?.close(); });
 
-// Issue 8 §13: the server runs as the app's own role (tests/support/e2e-setup.ts gives it only
+// The server runs as the app's own role (tests/support/e2e-setup.ts gives it only
 // APP_DATABASE_URL); every other e2e file then shows the whole app works under that role.
 describe("the server's database role", () => {
   it('every connection the server holds is combtrace_app, none is the owner', async () => {

@@ -20,8 +20,8 @@ async function open(pathname: string) {
   expect(await page.getByText('Something went wrong').count(), pathname).toBe(0);
 }
 
-describe('owner harvest screens on the demo season', () => {
-  it('every harvest page renders', async () => {
+describe('owner yard, colony and super screens on the demo season', () => {
+  it('every yards, colonies and supers page renders', async () => {
     for (const p of ['/admin/yards', '/admin/yards/new', '/admin/supers', '/admin/supers/import', '/admin/supers/tags', '/admin/treatment-kinds']) await open(p);
     await open('/admin/yards');
     await page.getByRole('link', { name: /Orchard Terrace/ }).click();

@@ -10,7 +10,7 @@ export const STRIPE = () => process.env.E2E_STRIPE_URL ?? 'http://127.0.0.1:1219
 export const PHONE = { width: 360, height: 740 };
 export const DESKTOP = { width: 1280, height: 900 };
 
-/** Debian's Chromium, headless, with a fresh profile (STACK.md §8). */
+/** Debian's Chromium, headless, with a fresh profile (a new temporary user-data directory). */
 export async function openBrowser(viewport = DESKTOP): Promise<BrowserContext> {
   return chromium.launchPersistentContext(mkdtempSync(path.join(tmpdir(), 'combtrace-e2e-')), {
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',

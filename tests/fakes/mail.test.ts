@@ -1,4 +1,4 @@
-// The mail catcher with real nodemailer (FAKES.md §7, STACK.md §10).
+// The mail catcher (fakes/mail/server.ts) with real nodemailer.
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { createTransport, type Transporter } from 'nodemailer';
 import { startMailFake, type MailFake } from '@/fakes/mail/server';

@@ -1,4 +1,4 @@
-// Paying (hosted page and hook), declines and refunds against the fake (FAKES.md §2, §4, §6).
+// Paying (hosted page and hook), declines and refunds against the fake (fakes/stripe/payments.ts, refunds.ts).
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import Stripe from 'stripe';
 import type { StripeFake } from '@/fakes/stripe/server';

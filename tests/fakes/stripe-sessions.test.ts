@@ -1,4 +1,4 @@
-// Checkout Sessions through the real SDK against the fake (FAKES.md §2, §4, §5).
+// Checkout Sessions through the real SDK against the fake (fakes/stripe/sessions.ts, idempotency.ts).
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import Stripe from 'stripe';
 import type { StripeFake } from '@/fakes/stripe/server';

@@ -1,4 +1,4 @@
-// Webhook delivery from the fake (FAKES.md §6): signatures the SDK accepts, retries, duplicates, order.
+// Webhook delivery from the fake (fakes/stripe/webhooks.ts): signatures the SDK accepts, retries, duplicates, order.
 import { afterEach, describe, expect, it } from 'vitest';
 import Stripe from 'stripe';
 import type { StripeFake } from '@/fakes/stripe/server';

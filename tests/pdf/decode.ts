@@ -1,7 +1,7 @@
 import zxing from '@zxing/library';
 import { PNG } from 'pngjs';
 
-/** Decodes a PNG with @zxing/library (recipe: STACK.md §11). */
+/** Decodes a PNG with @zxing/library: RGBA → luminance → HybridBinarizer → the reader for the symbology. */
 export function decodePng(png: Buffer, kind: 'code128' | 'datamatrix' | 'qr'): string {
   const image = PNG.sync.read(png);
   const luminance = new Uint8ClampedArray(image.width * image.height);

@@ -13,7 +13,7 @@ import { hasPoppler, pdfPagePng, pdfText } from './poppler';
 const a4x21 = BUILT_IN_LAYOUTS.find((l) => l.paper === 'a4' && l.columns * l.rows === 21) as LabelLayout;
 const roll = BUILT_IN_LAYOUTS.find((l) => l.paper === 'roll') as LabelLayout;
 
-// Invented demo business (PRODUCT.md, Demo scenario).
+// Invented demo business (the same as the demo seed).
 const linden: LabelContent = {
   productName: 'Linden Honey',
   floralSource: 'Linden',
@@ -23,7 +23,7 @@ const linden: LabelContent = {
   lotCode: 'HH26-014',
   bestBefore: '2027-12-31',
   bestBeforeText: '31 Dec 2027',
-  gtin: '09521234543213', // REFERENCES.md example GTIN
+  gtin: '09521234543213', // demonstration GTIN (GS1 prefix 952 is for examples)
   publicUrl: 'https://hollowmere.example/t/HH26-014',
 };
 const wildflower: LabelContent = { ...linden, productName: 'Late-Summer Wildflower Honey', floralSource: 'Wildflower', lotCode: 'HH26-021', bestBefore: '2028-06-30', bestBeforeText: '30 Jun 2028', publicUrl: 'https://hollowmere.example/t/HH26-021' };
@@ -35,12 +35,12 @@ function imageCount(doc: PDFDocument): number {
 }
 
 describe('barcode images decode back to the element string', () => {
-  it('GS1-128 reads as ]C1 + AIs (STACK.md §11: Code128Reader with ASSUME_GS1)', async () => {
+  it('GS1-128 reads as ]C1 + AIs (@zxing/library Code128Reader with ASSUME_GS1)', async () => {
     const text = decodePng(await gs1BarcodePng(element, 'gs1-128'), 'code128');
     expect(text).toBe(']C101095212345432131527123110HH26-014');
     expect(parseGs1ElementString(text)).toEqual({ gtin: '09521234543213', bestBefore: '2027-12-31', lot: 'HH26-014' });
   });
-  it('GS1 DataMatrix reads as GS + AIs (STACK.md §11)', async () => {
+  it('GS1 DataMatrix reads as GS + AIs (@zxing/library DataMatrixReader)', async () => {
     const text = decodePng(await gs1BarcodePng(element, 'gs1datamatrix'), 'datamatrix');
     expect(text).toBe('\x1d01095212345432131527123110HH26-014');
     expect(parseGs1ElementString(text).lot).toBe('HH26-014');
@@ -91,8 +91,8 @@ describe('label sheet PDF', () => {
       expect(text).toContain('Lot HH26-014');
       expect(text).toContain('NET WT 12 OZ (340 g)'); // 16 CFR 500.19 dual declaration, as declareNetWeightUS(12)
       expect(text).toContain('Best before 31 Dec 2027');
-      expect(text).toContain('Not for infants under 12 months.'); // CDC / AAP advice (REFERENCES.md, Food safety)
-      expect(text).toContain('(01)09521234543213(15)271231(10)HH26-014'); // REFERENCES.md HRI form
+      expect(text).toContain('Not for infants under 12 months.'); // infant botulism advice (CDC; American Academy of Pediatrics)
+      expect(text).toContain('(01)09521234543213(15)271231(10)HH26-014'); // GS1 human-readable interpretation: AIs in parentheses
       expect(text).toContain('Honey — Wildflower');
       expect(text).toContain('Lot HH26-021');
     });

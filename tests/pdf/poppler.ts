@@ -3,7 +3,7 @@ import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 
-/** poppler-utils present? (apt-get install -y poppler-utils; STACK.md §3.) */
+/** poppler-utils present? (apt-get install -y poppler-utils.) */
 export const hasPoppler = !spawnSync('pdftotext', ['-v']).error && !spawnSync('pdftoppm', ['-v']).error;
 if (!hasPoppler) console.warn('poppler-utils (pdftotext, pdftoppm) not found: PDF text and raster checks are skipped. Install with apt-get install -y poppler-utils.');
 

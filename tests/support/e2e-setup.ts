@@ -11,7 +11,7 @@ function startDetached(name: string, cmd: string, args: string[], env: NodeJS.Pr
   const logDir = path.join(ROOT, 'tests/.artifacts');
   mkdirSync(logDir, { recursive: true });
   const log = openSync(path.join(logDir, `${name}.log`), 'w');
-  // Own process group, so teardown stops the whole tree (STACK.md §1: npx leaves next-server behind).
+  // Own process group, so teardown stops the whole tree (killing npx leaves next-server behind).
   const child = spawn(cmd, args, { cwd: ROOT, env, detached: true, stdio: ['ignore', log, log] });
   children.push(child);
   return child;

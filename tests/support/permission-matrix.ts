@@ -1,7 +1,7 @@
 import type { Role } from '@/lib/auth/roles';
 
 /**
- * THE committed permission matrix (issue 8, ASVS 8.1.1): every server action and route handler of
+ * THE committed permission matrix (ASVS 8.1.1): every server action and route handler of
  * the app × anonymous, customer, keeper, crew, owner. `tests/data/permission-matrix.test.ts` finds
  * every export itself and fails when one is missing here, or when a role not listed gets through.
  * 'anyone' = no sign-in needed (the handler then guards itself: signature, token, public data).
@@ -26,7 +26,7 @@ export const ACTIONS: Record<string, Allowed> = {
     'waxAction', 'addReadingAction', 'voidRecordAction', 'changeStageAction', 'createBlendAction',
   ].map((name) => [`app/(back-office)/admin/lots/actions.ts#${name}`, HOUSE])),
   'app/(back-office)/admin/lots/actions.ts#saveContainerTypeAction': OWNER,
-  // Harvest (issue 3). Scope (a keeper's own yards) is checked in lib/data: tests/data/harvest-scope.test.ts.
+  // Yards, colonies and supers. Scope (a keeper's own yards) is checked in lib/data: tests/data/yards/scope.test.ts.
   'app/(back-office)/admin/yards/actions.ts#createYardAction': OWNER,
   'app/(back-office)/admin/yards/actions.ts#updateYardAction': OWNER,
   'app/(back-office)/admin/yards/actions.ts#recordPullsAction': HARVEST_WRITE,
@@ -43,7 +43,7 @@ export const ACTIONS: Record<string, Allowed> = {
   'app/(back-office)/admin/colonies/actions.ts#superOnAction': HARVEST_WRITE,
   'app/(back-office)/admin/treatment-kinds/actions.ts#saveTreatmentKindAction': OWNER,
   'app/(back-office)/admin/supers/actions.ts#createTagBatchAction': OWNER,
-  'app/(back-office)/admin/supers/actions.ts#voidSuperPullAction': HARVEST_WRITE, // scope: tests/data/harvest-void.test.ts
+  'app/(back-office)/admin/supers/actions.ts#voidSuperPullAction': HARVEST_WRITE, // scope: tests/data/supers/void.test.ts
   'app/(back-office)/admin/products/actions.ts#saveProductAction': OWNER,
   'app/(back-office)/admin/jarring/actions.ts#createJarringRunAction': HOUSE,
   'app/(back-office)/admin/jarring/actions.ts#overrideJarringRunAction': OWNER,

@@ -15,7 +15,7 @@ import { releaseReservedLocked } from '@/lib/data/orders/release';
 /** How long a checkout holds its jars; the Checkout Session expires at the same moment. */
 export const RESERVE_MINUTES = 30;
 // Stripe refuses expires_at under 30 min after the session's own creation time, which is a moment
-// after ours: a little slack keeps the request valid (FAKES.md §4).
+// after ours: a little slack keeps the request valid (docs.stripe.com/api/checkout/sessions/create, expires_at).
 const SLACK_SECONDS = 30;
 
 export type StartedCheckout = { orderId: number; number: string; url: string };

@@ -62,7 +62,7 @@ describe('weights', () => {
     const detail = await getLotDetail((await currentUser())!, lot.id);
     expect(detail!.supers[0]).toMatchObject({ measured: true, honeyGrams: 27_000 - 9_000 });
     expect(detail!.yield.measuredCount).toBe(1);
-    // the other two are estimated from the medium-super default (37.5 lb per 10 frames, REFERENCES.md rules of thumb)
+    // the other two are estimated from the medium-super default (37.5 lb per 10 frames, common practice)
     expect(detail!.supers[1]).toMatchObject({ measured: false, honeyGrams: Math.round(37.5 * 453.59237) });
     expect(detail!.yield.expectedGrams).toBe(18_000 + 2 * Math.round(37.5 * 453.59237));
   });
@@ -72,7 +72,7 @@ describe('moisture and release', () => {
   it('a refractive index is converted at its temperature (Chataway/Wedmore, AOAC 969.38 B: 1.4865 at 20 °C = 20.0 %)', async () => {
     const lot = await extractedLot();
     const r = ok(await addReadingAction({ lotId: lot.id, method: 'ri', refractiveIndex: 1.4842, temperatureC: 30, takenOn: '2026-08-01' })) as { waterPct: number };
-    // +0.00023 per °C above 20 (REFERENCES.md): 1.4842 at 30 °C reads as 1.4865 → 20.0 %
+    // +0.00023 per °C above 20 (temperature correction, AOAC 969.38 B): 1.4842 at 30 °C reads as 1.4865 → 20.0 %
     expect(Math.abs(r.waterPct - 20.0)).toBeLessThanOrEqual(0.03);
     expect(await addReadingAction({ lotId: lot.id, method: 'ri', refractiveIndex: 1.40, temperatureC: 20, takenOn: '2026-08-01' })).toMatchObject({ ok: false, message: /not a honey reading/ });
   });

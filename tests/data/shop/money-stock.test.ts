@@ -7,7 +7,7 @@ import { POST as webhookPOST } from '@/app/api/stripe/webhook/route';
 import { signInAs, setRequestHeaders } from '@/tests/support/session';
 import { guest, hook, makeProduct, orderOf, SHOP_WEBHOOK_SECRET, startOrder, startShopFake, stockOf, waitUntil, type ShopFake } from '@/tests/support/shop';
 
-// Issue 8 §11 "Money and stock": multi-line checkouts under contention, and a webhook whose
+// Money and stock: multi-line checkouts under contention, and a webhook whose
 // handling fails once and is redelivered. Each story ends with exactly one effect.
 
 let shop: ShopFake;

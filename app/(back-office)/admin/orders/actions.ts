@@ -38,7 +38,7 @@ export const cancelOrderAction = guardedAction('orders.desk', orderIdInput, asyn
 export const refundOrderAction = guardedAction('orders.refund', refundInput, async (user, data) => {
   const order = await getOrderDetail(data.orderId);
   if (!order) return fail('No such order.');
-  // Money typed in the major unit becomes integer minor units once (STYLE.md: Math.round).
+  // Money typed in the major unit becomes integer minor units once, with Math.round (DEVELOPERS.md, "Money and weights").
   const amountCents = Math.round(data.amount * 10 ** currencyMinorDigits(order.currency));
   await refundOrder(user.id, { orderId: data.orderId, amountCents, jars: data.jars, restock: data.restock, reason: data.reason });
   return done(data.orderId);

@@ -8,7 +8,7 @@ export const dynamic = 'force-dynamic';
 /**
  * Stripe's webhook. Only a request signed with our endpoint secret is read (constructEvent checks
  * the HMAC and the 5-minute tolerance on the raw body); anything else is a 400 and changes nothing.
- * Each event id is applied once (lib/data/orders-payment.ts); a failure answers 500 so Stripe retries.
+ * Each event id is applied once (lib/data/orders/payment.ts); a failure answers 500 so Stripe retries.
  */
 export async function POST(req: Request): Promise<Response> {
   const body = await req.text();
