@@ -24,7 +24,7 @@ export default defineConfig({
         test: {
           env,
           name: 'db',
-          include: ['tests/data/**/*.test.ts', 'tests/api/**/*.test.ts'],
+          include: ['tests/data/**/*.test.ts'],
           globalSetup: ['tests/support/db-setup.ts'],
           setupFiles: ['tests/support/next-mocks.ts'],
           fileParallelism: false,

@@ -2,9 +2,8 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 import type { User } from './user';
 import type { OrderLine } from './order-line';
 import type { Refund } from './refund';
+import { ORDER_STATUSES, type OrderStatus } from '@/lib/domain/order-status';
 
-export const ORDER_STATUSES = ['awaiting_payment', 'paid', 'packed', 'shipped', 'picked_up', 'cancelled', 'expired', 'refunded'] as const;
-export type OrderStatus = (typeof ORDER_STATUSES)[number];
 export const FULFILMENTS = ['pickup', 'ship'] as const;
 export type Fulfilment = (typeof FULFILMENTS)[number];
 /** Postal address of a 'ship' order, as the customer entered it. */

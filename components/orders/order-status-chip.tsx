@@ -1,5 +1,5 @@
 import { Chip, type ChipTone } from '@/components/ui/chip';
-import type { OrderStatus } from '@/models/order';
+import type { OrderStatus } from '@/lib/domain/order-status';
 
 const LOOK: Record<OrderStatus, { label: string; tone: ChipTone }> = {
   awaiting_payment: { label: 'Awaiting payment', tone: 'warn' },

@@ -5,7 +5,6 @@
  */
 export const ROLES = ['owner', 'keeper', 'crew', 'customer'] as const;
 export type Role = (typeof ROLES)[number];
-export const STAFF_ROLES: readonly Role[] = ['owner', 'keeper', 'crew'];
 
 const O = 'owner', K = 'keeper', C = 'crew', U = 'customer';
 

@@ -74,8 +74,3 @@ export function qrPng(text: string, options: Pick<BarcodeOptions, 'scale'> = {})
 export function code128Png(text: string, options: BarcodeOptions = {}): Promise<Buffer> {
   return cached(`c128\0${JSON.stringify(options)}\0${text}`, () => bwipjs.toBuffer({ ...common, ...linear(options), bcid: 'code128', text }));
 }
-
-/** For tests and long-running servers that want the memory back. */
-export function clearBarcodeCache(): void {
-  cache.clear();
-}

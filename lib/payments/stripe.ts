@@ -31,8 +31,3 @@ export function webhookSecret(): string {
   if (!secret) throw new Error('STRIPE_WEBHOOK_SECRET is not set.');
   return secret;
 }
-
-/** The app's public base URL for links in Stripe redirects and e-mails. */
-export function appUrl(): string {
-  return (process.env.APP_URL || process.env.NEXTAUTH_URL || 'http://127.0.0.1:3100').replace(/\/$/, '');
-}

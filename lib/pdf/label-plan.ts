@@ -5,14 +5,14 @@ import { gs1BarcodePng, qrPng } from '@/lib/barcode';
 import type { Gs1BarcodeKind } from '@/lib/barcode';
 import { gs1HumanReadable } from '@/lib/domain/gs1';
 import { cleanText } from './fonts';
-import type { LabelContent } from './labels';
+import type { LabelContent } from './label-content';
 import { LINE_HEIGHT, fitBlocks, textWidth } from './text';
 import type { TextBlock } from './text';
 
 /** Where text, barcodes and the QR code go on one jar label. */
 
 // Infant botulism advice: honey is not for infants under 12 months (CDC; American Academy of Pediatrics).
-export const INFANT_CAUTION = 'Not for infants under 12 months.';
+const INFANT_CAUTION = 'Not for infants under 12 months.';
 
 export const INK = rgb(0, 0, 0);
 // Pixels per module of 2D symbols embedded in PDFs: exact at any size when the viewer

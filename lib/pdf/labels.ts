@@ -10,27 +10,12 @@ import type { LabelLayout } from '@/lib/domain/label-layout';
 import { embedLora } from './fonts';
 import { INK, planLabel } from './label-plan';
 import type { LabelFonts, LabelPlan, PlacedImage } from './label-plan';
-
-export type LabelContent = {
-  productName: string;
-  floralSource: string;
-  netQuantity: string;
-  businessName: string;
-  businessAddress: string;
-  lotCode: string;
-  bestBefore: string; // YYYY-MM-DD, carried in AI (15)
-  bestBeforeText: string; // as printed, e.g. "31 Dec 2027"
-  gtin: string;
-  publicUrl: string;
-  copies?: number;
-};
+import type { LabelContent } from './label-content';
 
 export type LabelSheetInput = { layout: LabelLayout; labels: LabelContent[]; barcodeKind: Gs1BarcodeKind; startSlot?: number };
 
 /** A sheet request larger than this is refused (about 480 A4 sheets of 21). */
 export const MAX_LABELS_PER_DOCUMENT = 10_000;
-
-export { INFANT_CAUTION } from './label-plan';
 
 function countCopies(labels: LabelContent[]): number {
   let total = 0;

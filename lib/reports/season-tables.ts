@@ -1,5 +1,5 @@
 import { currencyMinorDigits, formatMoney, formatWeight, type UnitSystem } from '@/lib/domain/units';
-import type { SeasonReport } from '@/lib/data/reports/yield-report';
+import type { SeasonReport } from '@/lib/data/reports/build-report';
 
 /**
  * The season report's tables, defined once for the page, the CSV export and the PDF:

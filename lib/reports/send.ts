@@ -1,7 +1,7 @@
 import 'server-only';
 import type { SessionUser } from '@/lib/auth/session';
 import { getDb } from '@/lib/db';
-import { keepersWithColonies } from '@/lib/data/reports/yield-report';
+import { keepersWithColonies } from '@/lib/data/reports/scope';
 import { getSettings } from '@/lib/data/settings/settings';
 import { NotFoundError } from '@/lib/domain/errors';
 import { enqueueMail, kickMail } from '@/lib/mail/outbox';

@@ -6,7 +6,7 @@ import { BUILT_IN_LAYOUTS } from '@/lib/domain/label-layout';
 import type { LabelLayout } from '@/lib/domain/label-layout';
 import { declareNetWeightUS } from '@/lib/domain/net-quantity';
 import { renderLabelSheet } from '@/lib/pdf/labels';
-import type { LabelContent } from '@/lib/pdf/labels';
+import type { LabelContent } from '@/lib/pdf/label-content';
 import { cropPng, decodePng } from './decode';
 import { hasPoppler, pdfPagePng, pdfText } from './poppler';
 

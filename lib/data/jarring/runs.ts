@@ -23,38 +23,16 @@ export class MavNeededError extends InvalidError {
 type ProductForFill = { netGrams: number; declaredUnit: 'g' | 'oz'; declaredAmount: number };
 
 /** The labelled quantity in grams, unrounded: 12 oz is 340.19 g, not the stored 340 g. */
-export function nominalGrams(p: ProductForFill): number {
+function nominalGrams(p: ProductForFill): number {
   return p.declaredUnit === 'oz' ? Number(p.declaredAmount) * GRAMS_PER_OUNCE : Number(p.declaredAmount) || p.netGrams;
 }
 
 /** Fill check by the owner's rule set: OIML R 87 / 76/211/EEC (TNE) or NIST Handbook 133 (average + MAV). */
-export function checkFill(ruleSet: FillRuleSet, nominal: number, samples: number[], mavGrams?: number | null): FillReport {
+function checkFill(ruleSet: FillRuleSet, nominal: number, samples: number[], mavGrams?: number | null): FillReport {
   if (ruleSet === 'oiml') return assessFill(nominal, samples);
   const mav = maximumAllowableVariation(nominal) ?? mavGrams ?? null;
   if (mav === null) throw new MavNeededError(nominal);
   return assessFillUs(nominal, samples, mav);
-}
-
-export type JarrableLot = {
-  id: number; code: string; floralSource: string; extractedOn: string | null; netGrams: number; usedGrams: number; remainingGrams: number;
-  jars: { productId: number; productName: string; jars: number }[];
-};
-
-/** Released lots with what they can still fill, per active product (after the owner's expected loss). */
-export async function listJarrableLots(): Promise<JarrableLot[]> {
-  const { Lot, Product } = getDb().models;
-  const settings = await getSettings();
-  const [lots, products] = await Promise.all([
-    Lot.findAll({ where: { stage: 'released' }, order: [['extractedOn', 'ASC'], ['code', 'ASC']] }),
-    Product.findAll({ where: { active: true }, order: [['sortOrder', 'ASC'], ['name', 'ASC']] }),
-  ]);
-  return lots.map((l) => {
-    const remainingGrams = Math.max(0, l.netGrams - l.usedGrams);
-    return {
-      id: l.id, code: l.code, floralSource: l.floralSource, extractedOn: l.extractedOn ?? null, netGrams: l.netGrams, usedGrams: l.usedGrams, remainingGrams,
-      jars: products.map((p) => ({ productId: p.id, productName: p.name, jars: jarsLotCanFill(remainingGrams, p.netGrams, Number(settings.expectedLossPct)) })),
-    };
-  });
 }
 
 export type RunResult = { runId: number; pass: boolean; reasons: string[]; stocked: boolean; packedOut: boolean; duplicate: boolean };
@@ -167,38 +145,4 @@ export async function overrideJarringRun(user: SessionUser, runId: number, reaso
     await addStockEntry({ productId: run.productId, lotId: run.lotId, delta: run.jarCount, kind: 'jarring', reason: `Jarring run ${run.id} (override)`, jarringRunId: run.id, createdBy: user.id }, t);
     await recordAudit({ actorUserId: user.id, action: 'jarring.override', entityType: 'jarring_run', entityId: run.id, before: { stocked: false }, after: { stocked: true, jarCount: run.jarCount }, reason }, t);
   });
-}
-
-export type RunRow = {
-  id: number; runOn: string; lotId: number; lotCode: string; floralSource: string; productId: number; productName: string; jarCount: number; honeyUsedGrams: number;
-  ruleSet: FillRuleSet; pass: boolean; reasons: string[]; mean: number; samples: number[]; overrideReason: string | null; stocked: boolean; byName: string | null;
-};
-
-type RunModel = InstanceType<ReturnType<typeof getDb>['models']['JarringRun']> & { createdByUser?: { name: string } };
-function toRunRow(r: RunModel): RunRow {
-  return {
-    id: r.id, runOn: r.runOn, lotId: r.lotId, lotCode: r.lot?.code ?? '', floralSource: r.lot?.floralSource ?? '', productId: r.productId, productName: r.product?.name ?? '',
-    jarCount: r.jarCount, honeyUsedGrams: r.honeyUsedGrams, ruleSet: r.ruleSet, pass: r.fillPass, reasons: r.fillReport?.reasons ?? [], mean: r.fillReport?.mean ?? 0,
-    samples: r.sampleGrams, overrideReason: r.overrideReason ?? null, stocked: r.fillPass || !!r.overrideReason, byName: null,
-  };
-}
-
-export async function listJarringRuns(opts: { lotId?: number; limit?: number } = {}): Promise<RunRow[]> {
-  const { JarringRun, Lot, Product } = getDb().models;
-  const rows = await JarringRun.findAll({
-    where: opts.lotId ? { lotId: opts.lotId } : {},
-    include: [{ model: Lot, as: 'lot', attributes: ['code', 'floralSource'] }, { model: Product, as: 'product', attributes: ['name'] }],
-    order: [['runOn', 'DESC'], ['id', 'DESC']],
-    limit: Math.min(opts.limit ?? 50, 500),
-  });
-  return rows.map(toRunRow);
-}
-
-export async function getJarringRun(id: number): Promise<RunRow | null> {
-  const { JarringRun, Lot, Product, User } = getDb().models;
-  const r = await JarringRun.findByPk(id, { include: [{ model: Lot, as: 'lot', attributes: ['code', 'floralSource'] }, { model: Product, as: 'product', attributes: ['name'] }] });
-  if (!r) return null;
-  const row = toRunRow(r);
-  if (r.createdBy) row.byName = (await User.findByPk(r.createdBy, { attributes: ['name'] }))?.name ?? null;
-  return row;
 }

@@ -1,15 +1,13 @@
 import 'server-only';
 import { getDb } from '@/lib/db/index';
+import { appUrl } from '@/lib/config/app-url';
 import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { declareNetQuantity } from '@/lib/domain/net-quantity';
 import { labelPositions } from '@/lib/domain/label-layout';
-import { renderLabelSheet, type LabelContent } from '@/lib/pdf/labels';
+import { renderLabelSheet } from '@/lib/pdf/labels';
+import type { LabelContent } from '@/lib/pdf/label-content';
 import { getSettings } from '@/lib/data/settings/settings';
 import { getLabelLayout } from './layouts';
-
-export function appUrl(): string {
-  return (process.env.APP_URL ?? process.env.NEXTAUTH_URL ?? 'http://127.0.0.1:3100').replace(/\/$/, '');
-}
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 /** "2027-12-31" → "31 Dec 2027": day, month word, year — unambiguous on both sides of the Atlantic. */

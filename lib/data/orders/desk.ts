@@ -3,14 +3,14 @@ import { getDb } from '@/lib/db/index';
 import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { orderReadyMail, orderRefundMail, orderShippedMail } from '@/lib/mail/order-mails';
-import { appUrl, stripe } from '@/lib/payments/stripe';
+import { stripe } from '@/lib/payments/stripe';
+import { appUrl } from '@/lib/config/app-url';
 import { orderToken } from '@/lib/payments/order-token';
-import type { OrderStatus } from '@/models/order';
+import type { OrderStatus } from '@/lib/domain/order-status';
 import { recordAudit } from '@/lib/data/audit';
 import { getSettings } from '@/lib/data/settings/settings';
 import { getOrderDetail } from './read';
-import { releaseReservedLocked } from './release';
-import { orderAllocations, returnSold } from './stock';
+import { orderAllocations, releaseReservedLocked, returnSold } from './stock';
 
 /** The order desk's writes (owner, crew). Each locks the order row and records an audit entry. */
 

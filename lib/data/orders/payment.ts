@@ -5,14 +5,13 @@ import { getDb } from '@/lib/db/index';
 import { DomainError } from '@/lib/domain/errors';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { orderConfirmationMail, paidAfterReleaseMail } from '@/lib/mail/order-mails';
-import { appUrl } from '@/lib/payments/stripe';
+import { appUrl } from '@/lib/config/app-url';
 import { orderToken } from '@/lib/payments/order-token';
 import type { Order } from '@/models/order';
 import { recordAudit } from '@/lib/data/audit';
 import { getSettings } from '@/lib/data/settings/settings';
 import { getOrderDetail } from './read';
-import { orderAllocations, reserveLines, sellReserved } from './stock';
-import { releaseReservedLocked } from './release';
+import { orderAllocations, releaseReservedLocked, reserveLines, sellReserved } from './stock';
 
 export type EventOutcome = 'duplicate' | 'ignored' | 'paid' | 'paid-needs-refund' | 'released' | 'refund-recorded';
 

@@ -4,7 +4,8 @@ import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
 import { checkOrderToken } from '@/lib/payments/order-token';
-import type { Order, OrderStatus, ShippingAddress } from '@/models/order';
+import type { Order, ShippingAddress } from '@/models/order';
+import type { OrderStatus } from '@/lib/domain/order-status';
 import { orderAllocations } from './stock';
 
 export type OrderLineDetail = {

@@ -3,6 +3,8 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import { ConflictError } from '@/lib/domain/errors';
 import { SELLABLE_STAGES } from '@/lib/data/shop/catalogue';
+import { recordAudit } from '@/lib/data/audit';
+import type { Order } from '@/models/order';
 
 /**
  * Stock moves made by orders. Every function here runs inside the caller's transaction and locks
@@ -109,7 +111,7 @@ export async function sellReserved(t: Transaction, orderId: number, orderNumber:
 }
 
 /** Reserved → released: the jars are free for other customers again. */
-export async function releaseReserved(t: Transaction, orderId: number): Promise<number> {
+async function releaseReserved(t: Transaction, orderId: number): Promise<number> {
   const { OrderAllocation } = getDb().models;
   const allocations = await orderAllocations(t, orderId, 'reserved');
   await lockPairs(t, allocations);
@@ -118,6 +120,14 @@ export async function releaseReserved(t: Transaction, orderId: number): Promise<
     await OrderAllocation.update({ state: 'released' }, { where: { id: a.id }, transaction: t });
   }
   return allocations.reduce((s, a) => s + a.quantity, 0);
+}
+
+/** Releases a locked, unpaid order's reservation and closes it, inside the caller's transaction. */
+export async function releaseReservedLocked(t: Transaction, order: Order, status: 'expired' | 'cancelled', actorUserId: number | null, reason: string): Promise<number> {
+  const jars = await releaseReserved(t, order.id);
+  await order.update({ status, reservedUntil: null }, { transaction: t });
+  await recordAudit({ actorUserId, action: `order.${status}`, entityType: 'order', entityId: order.id, before: { status: 'awaiting_payment' }, after: { status, jarsReleased: jars }, reason }, t);
+  return jars;
 }
 
 /**

@@ -5,12 +5,12 @@ import { ConflictError, DomainError } from '@/lib/domain/errors';
 import { parcelWeightGrams, shippingCents } from '@/lib/domain/shipping';
 import type { CheckoutData } from '@/lib/schemas/checkout';
 import type { SessionUser } from '@/lib/auth/session';
-import { appUrl, stripe } from '@/lib/payments/stripe';
+import { stripe } from '@/lib/payments/stripe';
+import { appUrl } from '@/lib/config/app-url';
 import { orderToken } from '@/lib/payments/order-token';
 import { getSettings } from '@/lib/data/settings/settings';
-import { SELLABLE_STAGES } from './catalogue';
 import { reserveLines } from '@/lib/data/orders/stock';
-import { releaseReservedLocked } from '@/lib/data/orders/release';
+import { releaseReservedLocked } from '@/lib/data/orders/stock';
 
 /** How long a checkout holds its jars; the Checkout Session expires at the same moment. */
 export const RESERVE_MINUTES = 30;
@@ -122,6 +122,17 @@ export async function releaseOrder(orderId: number, status: 'expired' | 'cancell
   });
 }
 
+/**
+ * The buyer left Stripe's payment page (its cancel_url, checked by the caller): the jars go back at
+ * once instead of after 30 minutes, and the Checkout Session is closed. Only an unpaid order changes.
+ */
+export async function cancelCheckout(orderNumber: string): Promise<void> {
+  const order = await getDb().models.Order.findOne({ where: { number: orderNumber } });
+  if (!order || order.status !== 'awaiting_payment') return;
+  if (order.stripeSessionId) await stripe().checkout.sessions.expire(order.stripeSessionId).catch(() => undefined);
+  await releaseOrder(order.id, 'cancelled', null, 'The customer left the payment page');
+}
+
 /** The sweep: unpaid orders past their reservation give their jars back. */
 export async function releaseOverdueReservations(now = new Date()): Promise<number> {
   const { Order } = getDb().models;
@@ -129,14 +140,4 @@ export async function releaseOverdueReservations(now = new Date()): Promise<numb
   let n = 0;
   for (const o of overdue) if (await releaseOrder(o.id, 'expired', null, 'Reservation time ran out')) n++;
   return n;
-}
-
-/** Available jars of one product now (tests and the product JSON). */
-export async function availableJars(productId: number): Promise<number> {
-  const [row] = await getDb().sequelize.query<{ n: number }>(
-    `SELECT COALESCE(SUM(on_hand - reserved), 0)::int AS n FROM stock_levels
-     WHERE product_id = :productId AND lot_id IN (SELECT id FROM lots WHERE stage IN ${SELLABLE_STAGES})`,
-    { type: QueryTypes.SELECT, replacements: { productId } },
-  );
-  return row.n;
 }

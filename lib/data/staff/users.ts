@@ -1,6 +1,7 @@
 import 'server-only';
 import { Op, UniqueConstraintError } from 'sequelize';
 import { getDb } from '@/lib/db/index';
+import { appUrl } from '@/lib/config/app-url';
 import { hashPassword, newToken, sha256 } from '@/lib/auth/password';
 import type { Role } from '@/lib/auth/roles';
 import { enqueueMail, kickMail } from '@/lib/mail/outbox';
@@ -46,10 +47,6 @@ export async function createCustomer(input: { email: string; name: string; passw
     if (err instanceof UniqueConstraintError) throw new EmailTakenError();
     throw err;
   }
-}
-
-function appUrl(): string {
-  return process.env.APP_URL ?? process.env.NEXTAUTH_URL ?? 'http://127.0.0.1:3100';
 }
 
 /** Owner creates a staff account; the staff member gets a link to set a password (valid 72 h). */

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/lib/db/index';
 import { DEMO, signInAs } from '@/tests/support/session';
 import { createJarringRunAction, overrideJarringRunAction } from '@/app/(back-office)/admin/jarring/actions';
-import { listJarrableLots } from '@/lib/data/jarring/runs';
+import { listJarrableLots } from '@/lib/data/jarring/read';
 import { key, product, releasedLot, samples } from '@/tests/support/jarring-fixtures';
 
 afterAll(closeDb);

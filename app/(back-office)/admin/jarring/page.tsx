@@ -2,7 +2,7 @@ import Link from 'next/link';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
 import { getSettings } from '@/lib/data/settings/settings';
-import { listJarrableLots, listJarringRuns } from '@/lib/data/jarring/runs';
+import { listJarrableLots, listJarringRuns } from '@/lib/data/jarring/read';
 import { listProducts } from '@/lib/data/products/products';
 import { formatWeight } from '@/lib/domain/units';
 import { declareNetQuantity } from '@/lib/domain/net-quantity';

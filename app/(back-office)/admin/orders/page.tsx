@@ -4,7 +4,7 @@ import { DESK_PAGE_SIZE, listOrders } from '@/lib/data/orders/read';
 import { getSettings } from '@/lib/data/settings/settings';
 import { formatMoney } from '@/lib/domain/units';
 import { formatDateTime } from '@/lib/domain/order-dates';
-import { ORDER_STATUSES, type OrderStatus } from '@/models/order';
+import { ORDER_STATUSES, type OrderStatus } from '@/lib/domain/order-status';
 import { PageHeader } from '@/components/ui/page-header';
 import { OrderStatusChip, STATUS_LABEL } from '@/components/orders/order-status-chip';
 

@@ -1,7 +1,8 @@
 import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
-import { getSeasonHistory, getSeasonReport, reportFilterChoices } from '@/lib/data/reports/yield-report';
+import { getSeasonHistory, getSeasonReport } from '@/lib/data/reports/yield-report';
+import { reportFilterChoices } from '@/lib/data/reports/scope';
 import { getSettings } from '@/lib/data/settings/settings';
 import { formatMoney, formatWeight, gramsToKg, gramsToLb } from '@/lib/domain/units';
 import { seasonTables, type TableKey } from '@/lib/reports/season-tables';

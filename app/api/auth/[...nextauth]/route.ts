@@ -1,5 +1,6 @@
 import NextAuth from 'next-auth';
 import { authOptions } from '@/lib/auth/options';
+import { appUrl } from '@/lib/config/app-url';
 import { isThrottled } from '@/lib/data/auth/sign-in';
 import { clientIp } from '@/lib/http/client-ip';
 
@@ -20,8 +21,7 @@ export async function POST(req: Request, ctx: Ctx) {
     const form = await req.clone().formData().catch(() => null);
     const email = String(form?.get('email') ?? '').trim().toLowerCase().slice(0, 254);
     if (await isThrottled(email, clientIp(req.headers))) {
-      const base = process.env.NEXTAUTH_URL ?? new URL(req.url).origin;
-      return Response.json({ url: `${base}/sign-in?error=Throttled`, error: 'Too many attempts. Wait a few minutes, then try again.' }, { status: 429 });
+      return Response.json({ url: `${appUrl()}/sign-in?error=Throttled`, error: 'Too many attempts. Wait a few minutes, then try again.' }, { status: 429 });
     }
   }
   return handler(req, ctx);

@@ -1,5 +1,5 @@
 import { authorize } from '@/lib/auth/session';
-import { getDb } from '@/lib/db';
+import { reportKeeper } from '@/lib/data/reports/scope';
 import { listSeasons } from '@/lib/data/reports/yield-sql';
 import { handleRouteError, HttpError } from '@/lib/http/json';
 import { pdfResponse } from '@/lib/pdf/response';
@@ -20,8 +20,8 @@ export async function GET(req: Request) {
     const keeperId = query.keeperId ?? (user.role === 'keeper' ? user.id : undefined);
     if (keeperId === undefined) throw new HttpError(400, params.has('keeper') ? 'The keeper is not valid.' : 'Say which keeper\'s report you want.');
     if (user.role !== 'owner' && user.id !== keeperId) throw new HttpError(404, 'There is no such report.');
-    const keeper = await getDb().models.User.findByPk(keeperId);
-    if (!keeper || keeper.role !== 'keeper') throw new HttpError(404, 'There is no such report.');
+    const keeper = await reportKeeper(keeperId);
+    if (!keeper) throw new HttpError(404, 'There is no such report.');
     const season = query.season ?? (await listSeasons())[0] ?? new Date().getUTCFullYear();
     const pdf = await keeperReportPdf(user, keeper.id, season, keeper.name);
     if (!pdf) throw new HttpError(404, 'There is no such report.');

@@ -3,7 +3,7 @@ import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
 import { getSettings } from '@/lib/data/settings/settings';
-import { getJarringRun } from '@/lib/data/jarring/runs';
+import { getJarringRun } from '@/lib/data/jarring/read';
 import { listLabelLayouts } from '@/lib/data/labels/layouts';
 import { labelPositions } from '@/lib/domain/label-layout';
 import { formatWeight } from '@/lib/domain/units';

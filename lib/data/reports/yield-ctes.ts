@@ -1,0 +1,84 @@
+import 'server-only';
+import type { SuperEstimates } from '@/lib/domain/yield-allocation';
+
+/**
+ * The SQL pieces shared by the season queries (yield-sql.ts): a super's honey, a lot's season,
+ * revenue kept, and the walk from each lot down to the colonies that made it.
+ *
+ * How a lot's weight reaches the colonies (the same rules as lib/domain/yield-allocation.ts):
+ * - A super's honey is full − empty when both are weighed (> 0, full > empty), else the
+ *   estimate per frame of its depth × capped frames (or frame count), capped at its frame count.
+ * - A lot's sources are its supers (by honey) and, for a blend, its parent lots (by the grams
+ *   taken). A walk down lot_parents multiplies the fractions, so each root lot ends with the
+ *   exact fraction of it that each colony made.
+ * - A lot's own weight is net_grams minus what it gave to blends, so no gram is counted twice:
+ *   the given grams are counted in the blend, which passes them back through this lot.
+ * - A voided pull (recorded by mistake) is never in a lot (super_pulls_void_state_ck), so the lot
+ *   walks below need no test for it; the per-colony pull counts and seasons leave it out.
+ */
+
+/** The per-frame estimates as the :perFrame… replacements HONEY_SQL reads. */
+export function estimateParams(est: SuperEstimates) {
+  return {
+    perFrameDeep: est.deep.gramsPerBox / est.deep.framesPerBox,
+    perFrameMedium: est.medium.gramsPerBox / est.medium.framesPerBox,
+    perFrameShallow: est.shallow.gramsPerBox / est.shallow.framesPerBox,
+  };
+}
+
+/** A super's honey in grams, as superHoneyGrams computes it. */
+const HONEY_SQL = (sp: string) => `(CASE
+  WHEN ${sp}.full_grams > 0 AND ${sp}.empty_grams > 0 AND ${sp}.full_grams > ${sp}.empty_grams THEN (${sp}.full_grams - ${sp}.empty_grams)::numeric
+  ELSE ROUND((CASE ${sp}.depth WHEN 'deep' THEN :perFrameDeep WHEN 'medium' THEN :perFrameMedium ELSE :perFrameShallow END)::numeric
+    * LEAST(GREATEST(COALESCE(${sp}.capped_frames, ${sp}.frame_count), 0), ${sp}.frame_count))
+END)`;
+
+/** A lot's season: the year it was extracted (or, still gathering, the year it was opened). */
+export const LOT_SEASON_SQL = (l: string) => `EXTRACT(YEAR FROM COALESCE(${l}.extracted_on, (${l}.created_at AT TIME ZONE 'UTC')::date))::int`;
+
+/** Revenue kept from an allocation: jars × unit price, less the order's refunds pro rata. */
+const REVENUE_SQL = `oa.quantity * ol.unit_price_cents
+  * COALESCE(1 - o.refunded_cents::numeric / NULLIF(o.total_cents, 0), 1)`;
+const SOLD_WHERE = `oa.state = 'sold' AND o.status NOT IN ('awaiting_payment', 'cancelled', 'expired')`;
+export const revCte = `rev AS (
+  SELECT oa.lot_id, ROUND(SUM(${REVENUE_SQL}))::bigint AS cents
+  FROM order_allocations oa JOIN order_lines ol ON ol.id = oa.order_line_id JOIN orders o ON o.id = ol.order_id
+  WHERE oa.lot_id IN (SELECT id FROM roots) AND ${SOLD_WHERE}
+  GROUP BY oa.lot_id
+)`;
+
+/** The same test as LOT_SEASON_SQL = :season, written as date ranges so the planner can estimate it (and use lots_extracted_on). */
+const LOT_IN_SEASON = (l: string) => `((${l}.extracted_on >= :seasonFrom AND ${l}.extracted_on < :seasonTo)
+  OR (${l}.extracted_on IS NULL AND (${l}.created_at AT TIME ZONE 'UTC')::date >= :seasonFrom AND (${l}.created_at AT TIME ZONE 'UTC')::date < :seasonTo))`;
+export const seasonRange = (season: number) => ({ season, seasonFrom: `${season}-01-01`, seasonTo: `${season + 1}-01-01` });
+
+export const rootsCte = `given AS (SELECT parent_lot_id AS lot_id, SUM(grams) AS g FROM lot_parents GROUP BY parent_lot_id),
+roots AS (
+  SELECT l.id, GREATEST(l.net_grams - COALESCE(gv.g, 0), 0)::bigint AS own
+  FROM lots l LEFT JOIN given gv ON gv.lot_id = l.id
+  WHERE ${LOT_IN_SEASON('l')}
+)`;
+
+// Each super's honey computed once (MATERIALIZED): the weights of every lot's sources, and the walk
+// from each root lot down through blend parents, multiplying the fractions.
+export const walkCte = `sp_h AS MATERIALIZED (
+  SELECT sp.id, sp.lot_id, sp.colony_id, ${HONEY_SQL('sp')}::float8 AS honey FROM super_pulls sp WHERE sp.lot_id IS NOT NULL
+),
+lot_w AS (
+  SELECT lot_id, SUM(w)::float8 AS w FROM (
+    SELECT lot_id, honey AS w FROM sp_h
+    UNION ALL SELECT child_lot_id, grams FROM lot_parents
+  ) s GROUP BY lot_id
+),
+walk AS (
+  SELECT r.id AS root_id, r.id AS lot_id, 1::float8 AS frac, 0 AS depth FROM roots r
+  UNION ALL
+  SELECT w.root_id, lp.parent_lot_id, w.frac * lp.grams / lw.w, w.depth + 1
+  FROM walk w JOIN lot_w lw ON lw.lot_id = w.lot_id AND lw.w > 0 JOIN lot_parents lp ON lp.child_lot_id = w.lot_id
+  WHERE w.depth < 16
+),
+fracs AS (
+  SELECT w.root_id, sp.colony_id, SUM(w.frac * sp.honey / lw.w) AS frac
+  FROM walk w JOIN lot_w lw ON lw.lot_id = w.lot_id AND lw.w > 0 JOIN sp_h sp ON sp.lot_id = w.lot_id
+  GROUP BY 1, 2
+)`;
