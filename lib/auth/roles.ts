@@ -55,7 +55,7 @@ export function isRole(value: unknown): value is Role {
 }
 
 /** The back-office menu each staff role sees. */
-export const MENU: { href: string; label: string; permission: Permission }[] = [
+const MENU: { href: string; label: string; permission: Permission }[] = [
   { href: '/admin', label: 'Today', permission: 'backoffice.enter' },
   { href: '/admin/yards', label: 'Yards', permission: 'yards.read' },
   { href: '/admin/supers', label: 'Super pulls', permission: 'supers.read' },

@@ -15,7 +15,7 @@ import type { LabelContent } from './label-content';
 export type LabelSheetInput = { layout: LabelLayout; labels: LabelContent[]; barcodeKind: Gs1BarcodeKind; startSlot?: number };
 
 /** A sheet request larger than this is refused (about 480 A4 sheets of 21). */
-export const MAX_LABELS_PER_DOCUMENT = 10_000;
+const MAX_LABELS_PER_DOCUMENT = 10_000;
 
 function countCopies(labels: LabelContent[]): number {
   let total = 0;

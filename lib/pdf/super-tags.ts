@@ -9,7 +9,7 @@ import { ellipsize, textWidth } from './text';
 
 export type SuperTag = { code: string; caption?: string };
 
-export const MAX_TAGS_PER_DOCUMENT = 5_000;
+const MAX_TAGS_PER_DOCUMENT = 5_000;
 
 const INK = rgb(0, 0, 0);
 

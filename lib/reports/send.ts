@@ -11,7 +11,7 @@ import { safePdfFilename } from '@/lib/pdf/response';
 import { recordAudit } from '@/lib/data/audit';
 import { keeperReportPdf } from './keeper-pdf';
 
-export const seasonReportDedupeKey = (season: number, keeperId: number) => `season-report-${season}-${keeperId}`;
+const seasonReportDedupeKey = (season: number, keeperId: number) => `season-report-${season}-${keeperId}`;
 
 /** The keepers who get a report for the season: those with colonies that had supers or honey in it. */
 export async function seasonReportRecipients(season: number) {

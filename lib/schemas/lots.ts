@@ -61,13 +61,6 @@ export type VoidInput = z.input<typeof voidInput>;
 export const stageInput = z.object({ lotId: id, target: z.enum(['extracted', 'released', 'held']), reason: z.string().trim().max(1000).optional() });
 export type StageInput = z.input<typeof stageInput>;
 
-export const blendInput = z.object({
-  floralSource: z.string().trim().max(80),
-  notes: z.string().trim().max(2000).default(''),
-  parts: z.array(z.object({ lotId: id, grams: z.coerce.number().int().positive('Take more than 0 g.') })).min(1, 'Add at least one parent lot.').max(20),
-}).refine((v) => new Set(v.parts.map((p) => p.lotId)).size === v.parts.length, { path: ['parts'], message: 'Each parent lot once only.' });
-export type BlendInput = z.input<typeof blendInput>;
-
 export const blendFormInput = z.object({
   floralSource: z.string().trim().max(80),
   notes: z.string().trim().max(2000).default(''),

@@ -7,7 +7,7 @@ import type { Role } from '@/lib/auth/roles';
 // ASVS 6.1.1 / 6.3.1: limits on failed sign-ins within a window. The account limit keys on the
 // e-mail *and* the address, so an attacker elsewhere cannot lock the real user out; the address
 // limit stops one address from spraying many accounts.
-export const THROTTLE = { windowMinutes: 15, perAccountAndAddress: 5, perAddress: 30 };
+const THROTTLE = { windowMinutes: 15, perAccountAndAddress: 5, perAddress: 30 };
 
 export type AuthResult =
   | { status: 'ok'; user: { id: number; email: string; name: string; role: Role; sessionVersion: number } }

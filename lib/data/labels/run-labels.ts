@@ -11,13 +11,13 @@ import { getLabelLayout } from './layouts';
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 /** "2027-12-31" → "31 Dec 2027": day, month word, year — unambiguous on both sides of the Atlantic. */
-export function printedDate(iso: string): string {
+function printedDate(iso: string): string {
   const [y, m, d] = iso.split('-').map(Number);
   return `${d} ${MONTHS[m - 1]} ${y}`;
 }
 
 /** What one jar label of a run says. */
-export async function runLabelContent(runId: number): Promise<{ content: LabelContent; jarCount: number; lotCode: string; productName: string }> {
+async function runLabelContent(runId: number): Promise<{ content: LabelContent; jarCount: number; lotCode: string; productName: string }> {
   const { JarringRun, Lot, Product } = getDb().models;
   const run = await JarringRun.findByPk(runId);
   if (!run) throw new NotFoundError('No such jarring run.');

@@ -95,7 +95,7 @@ export async function getOrderDetail(orderId: number, t?: Transaction): Promise<
   };
 }
 
-export function needsRefund(o: Pick<Order, 'status' | 'paidAt' | 'refundedCents' | 'totalCents'>): boolean {
+function needsRefund(o: Pick<Order, 'status' | 'paidAt' | 'refundedCents' | 'totalCents'>): boolean {
   return (o.status === 'expired' || o.status === 'cancelled') && Boolean(o.paidAt) && o.refundedCents < o.totalCents;
 }
 

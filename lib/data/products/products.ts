@@ -24,7 +24,7 @@ function toRow(p: ProductModel): ProductRow {
   };
 }
 
-export function slugify(name: string): string {
+function slugify(name: string): string {
   return name.normalize('NFKD').replace(/[\u0300-\u036f]/g, '').toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 80) || 'product';
 }
 

@@ -13,7 +13,7 @@ import { reserveLines } from '@/lib/data/orders/stock';
 import { releaseReservedLocked } from '@/lib/data/orders/stock';
 
 /** How long a checkout holds its jars; the Checkout Session expires at the same moment. */
-export const RESERVE_MINUTES = 30;
+const RESERVE_MINUTES = 30;
 // Stripe refuses expires_at under 30 min after the session's own creation time, which is a moment
 // after ours: a little slack keeps the request valid (docs.stripe.com/api/checkout/sessions/create, expires_at).
 const SLACK_SECONDS = 30;
@@ -112,7 +112,7 @@ export async function startCheckout(input: CheckoutData, user: SessionUser | nul
  * Releases an unpaid order's reservation and closes it (expired session, sweep, cancel).
  * Does nothing unless the order is still awaiting payment; returns whether it changed.
  */
-export async function releaseOrder(orderId: number, status: 'expired' | 'cancelled', actorUserId: number | null, reason: string): Promise<boolean> {
+async function releaseOrder(orderId: number, status: 'expired' | 'cancelled', actorUserId: number | null, reason: string): Promise<boolean> {
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (t) => {
     const order = await models.Order.findByPk(orderId, { transaction: t, lock: t.LOCK.UPDATE });

@@ -20,7 +20,7 @@ export async function getActiveUser(id: number): Promise<UserRow | null> {
   return u && !u.disabledAt ? toRow(u) : null;
 }
 
-export async function getUserByEmail(email: string) {
+async function getUserByEmail(email: string) {
   return getDb().models.User.findOne({ where: { email: email.toLowerCase() } });
 }
 

@@ -67,7 +67,7 @@ export async function getRecallList(lotId: number): Promise<RecallRow[]> {
   return rows.map((r) => ({ ...r, address: addressText(r.address) }));
 }
 
-export async function traceLot(lotId: number): Promise<LotTrace | null> {
+async function traceLot(lotId: number): Promise<LotTrace | null> {
   const { sequelize } = getDb();
   const r = { ...sel, replacements: { lotId } };
   const [lots, supers, events, parents, children, jarringRuns, stock, recall] = await Promise.all([
@@ -123,7 +123,7 @@ export async function traceLot(lotId: number): Promise<LotTrace | null> {
 }
 
 /** Which lots an input names, and what it was (lot, jar barcode, super tag or order). */
-export async function resolveTraceInput(raw: string): Promise<{ match: TraceMatch | null; lotIds: number[] }> {
+async function resolveTraceInput(raw: string): Promise<{ match: TraceMatch | null; lotIds: number[] }> {
   const { sequelize } = getDb();
   const input = raw.trim();
   if (!input) return { match: null, lotIds: [] };

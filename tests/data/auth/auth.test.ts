@@ -108,3 +108,20 @@ describe('sessions end at once (ASVS 7.4.2, 8.3.2)', () => {
     expect(await resetPasswordAction({ token: 'x'.repeat(40), password: 'brand new phrase' })).toMatchObject({ ok: false, message: /expired/ });
   });
 });
+
+describe('links in password e-mails', () => {
+  it('a reset link has no double slash when APP_URL ends with /', async () => {
+    const saved = process.env.APP_URL;
+    process.env.APP_URL = 'https://honey.example/';
+    try {
+      await signInAs(null);
+      expect(await forgotPasswordAction({ email: DEMO.customer })).toEqual({ ok: true });
+    } finally {
+      if (saved === undefined) delete process.env.APP_URL;
+      else process.env.APP_URL = saved;
+    }
+    const mail = await getDb().models.OutboxMessage.findOne({ where: { toAddress: DEMO.customer }, order: [['id', 'DESC']] });
+    expect(mail?.textBody).toContain('https://honey.example/reset-password?token=');
+    expect(mail?.textBody).not.toMatch(/example\/\/reset-password/);
+  });
+});

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/lib/db/index';
 import { POST as checkoutPOST } from '@/app/api/checkout/route';
+import { GET as cancelledGET } from '@/app/(storefront)/checkout/cancelled/route';
 import { releaseOverdueReservations } from '@/lib/data/shop/checkout';
 import { signInAs, setRequestHeaders } from '@/tests/support/session';
 import { guest, hook, makeProduct, orderOf, startShopFake, stockOf, waitUntil, type ShopFake } from '@/tests/support/shop';
@@ -136,5 +137,31 @@ describe('checkout', () => {
     const res = await post(guest([{ productId: p.productId, quantity: 1 }]));
     expect(res.status).toBe(403);
     expect((await stockOf(p.productId))[0].reserved).toBe(0);
+  });
+});
+
+describe('leaving the payment page', () => {
+  it('the cancelled checkout releases the jars and redirects to APP_URL, not the host the request came in on', async () => {
+    const p = await makeProduct('leave', [3]);
+    const { number } = (await (await post(guest([{ productId: p.productId, quantity: 2 }]))).json()) as { number: string };
+    const order = await orderOf(number);
+    const session = await fetch(`${shop.fake.url}/v1/checkout/sessions/${order?.stripeSessionId}`, { headers: { authorization: 'Bearer sk_test_shop' } }).then((r) => r.json());
+    const cancelUrl = new URL(session.cancel_url as string);
+    expect(cancelUrl.origin).toBe('http://127.0.0.1:3999');
+    // The proxy in front of the app hands the request on to an internal address.
+    const internal = new URL(`${cancelUrl.pathname}${cancelUrl.search}`, 'http://10.0.0.7:3000');
+    const forged = new URL(internal);
+    forged.searchParams.set('t', 'x'.repeat(22));
+    const refused = await cancelledGET(new Request(forged));
+    expect(refused.status).toBe(303);
+    expect(refused.headers.get('location')).toBe('http://127.0.0.1:3999/cart?cancelled=1');
+    expect((await orderOf(number))?.status).toBe('awaiting_payment');
+
+    const res = await cancelledGET(new Request(internal));
+    expect(res.status).toBe(303);
+    expect(res.headers.get('location')).toBe('http://127.0.0.1:3999/cart?cancelled=1');
+    // Closing the session makes the fake send checkout.session.expired at once; whichever lands first closes the order.
+    expect(['cancelled', 'expired']).toContain((await orderOf(number))?.status);
+    expect((await stockOf(p.productId))[0]).toMatchObject({ onHand: 3, reserved: 0 });
   });
 });
