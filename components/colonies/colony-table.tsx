@@ -3,7 +3,7 @@ import Link from 'next/link';
 import { DataTable, type DataColumn } from '@/components/ui/data-table';
 import { Chip } from '@/components/ui/chip';
 import type { Page } from '@/lib/schemas/list-query';
-import type { ColonyRow } from '@/lib/data/colonies/colonies';
+import type { ColonyRow } from '@/lib/data/colonies/read';
 import { ColonyStatusChip, QueenColour } from './chips';
 
 /** Colonies from /api/colonies (scoped to the user's yards on the server). */

@@ -3,7 +3,7 @@ import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
 import { getYard } from '@/lib/data/yards/yards';
-import { listColonies } from '@/lib/data/colonies/colonies';
+import { listColonies } from '@/lib/data/colonies/read';
 import { PageHeader } from '@/components/ui/page-header';
 import { ColonyTable } from '@/components/colonies/colony-table';
 
