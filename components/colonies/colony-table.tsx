@@ -16,5 +16,5 @@ export function ColonyTable({ initial, filters, caption }: { initial: Page<Colon
     { id: 'lastPull', header: 'Last pull', numeric: true, cell: (c) => c.lastPulledOn ?? '—' },
     { id: 'flags', header: 'Flags', cell: (c) => (c.flaggedSupers > 0 ? <Chip tone="bad">{c.flaggedSupers} flagged</Chip> : <span className="hint">none</span>) },
   ];
-  return <DataTable endpoint="/api/colonies" columns={columns} caption={caption} filters={filters} initial={initial} initialSort={{ id: 'code', desc: false }} pageSize={initial.pageSize} empty="No colonies here yet." />;
+  return <DataTable endpoint="/api/colonies" columns={columns} caption={caption} filters={filters} initial={initial} initialSort={{ id: 'code', desc: false }} empty="No colonies here yet." />;
 }
