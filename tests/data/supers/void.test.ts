@@ -179,7 +179,7 @@ describe('refusals change nothing', () => {
     ]);
     expect([picked.status, voided.status].filter((s) => s === 'fulfilled')).toHaveLength(1);
     const loser = [picked, voided].find((r) => r.status === 'rejected') as PromiseRejectedResult;
-    expect(loser.reason).toMatchObject({ status: 409 });
+    expect(loser.reason).toMatchObject({ kind: 'conflict' }); // a 409 at the edge
     const final = await row(id);
     expect(final?.voidedAt !== null && final?.lotId !== null).toBe(false);
     expect(final?.voidedAt !== null || final?.lotId !== null).toBe(true);
