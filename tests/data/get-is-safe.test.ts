@@ -51,8 +51,8 @@ beforeAll(async () => {
   const labFileId = await one(`SELECT id FROM lab_files ORDER BY id DESC LIMIT 1`);
   calls = {
     'app/(back-office)/admin/orders/[id]/packing-slip/route.ts': [{ params: { id: String(orderId) }, expect: 200 }],
-    'app/api/colonies/detail/route.ts': [{ query: `?id=${colonyId}`, expect: 200 }],
     'app/api/account/orders/route.ts': [{ query: '?page=1&pageSize=25', expect: 200, as: DEMO.customer }],
+    'app/api/colonies/detail/route.ts': [{ query: `?id=${colonyId}`, expect: 200 }],
     'app/api/colonies/route.ts': [{ query: '?page=1&pageSize=25', expect: 200 }],
     'app/api/health/route.ts': [{ expect: 200 }],
     'app/api/jarring/[id]/labels/route.ts': [{ params: { id: String(runId) }, query: '?preview=1', expect: 200 }, { params: { id: String(runId) }, expect: 200 }],
