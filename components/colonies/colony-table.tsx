@@ -3,7 +3,7 @@ import Link from 'next/link';
 import { DataTable, type DataColumn } from '@/components/ui/data-table';
 import { Chip } from '@/components/ui/chip';
 import type { Page } from '@/lib/schemas/list-query';
-import type { ColonyRow } from '@/lib/data/colonies/colonies';
+import type { ColonyRow } from '@/lib/data/colonies/read';
 import { ColonyStatusChip, QueenColour } from './chips';
 
 /** Colonies from /api/colonies (scoped to the user's yards on the server). */
@@ -16,5 +16,5 @@ export function ColonyTable({ initial, filters, caption }: { initial: Page<Colon
     { id: 'lastPull', header: 'Last pull', numeric: true, cell: (c) => c.lastPulledOn ?? '—' },
     { id: 'flags', header: 'Flags', cell: (c) => (c.flaggedSupers > 0 ? <Chip tone="bad">{c.flaggedSupers} flagged</Chip> : <span className="hint">none</span>) },
   ];
-  return <DataTable endpoint="/api/colonies" columns={columns} caption={caption} filters={filters} initial={initial} initialSort={{ id: 'code', desc: false }} pageSize={initial.pageSize} empty="No colonies here yet." />;
+  return <DataTable endpoint="/api/colonies" columns={columns} caption={caption} filters={filters} initial={initial} initialSort={{ id: 'code', desc: false }} empty="No colonies here yet." />;
 }

@@ -20,6 +20,6 @@ export function LotsTable({ initial, filters, weightSystem }: { initial: Page<Lo
   ];
   return (
     <DataTable<LotListRow> key={JSON.stringify(filters)} endpoint="/api/lots" columns={columns} caption="Extraction lots" filters={filters}
-      initial={initial} initialSort={{ id: 'createdAt', desc: true }} pageSize={initial.pageSize} empty="No lots match." />
+      initial={initial} initialSort={{ id: 'createdAt', desc: true }} empty="No lots match." />
   );
 }

@@ -45,5 +45,5 @@ export function SuperPullTable({ initial, filters, weightSystem, timeZone, onVoi
       },
     },
   ];
-  return <DataTable endpoint="/api/super-pulls" columns={columns} caption="Super pulls" filters={filters} initial={initial} initialSort={{ id: 'pulledOn', desc: true }} pageSize={initial.pageSize} empty="No super pulls match." />;
+  return <DataTable endpoint="/api/super-pulls" columns={columns} caption="Super pulls" filters={filters} initial={initial} initialSort={{ id: 'pulledOn', desc: true }} empty="No super pulls match." />;
 }

@@ -3,7 +3,8 @@ import { useId, useState } from 'react';
 import { useRouter } from 'next/navigation';
 import type { ActionResult } from '@/lib/schemas/result';
 import type { VoidPullInput } from '@/lib/schemas/supers';
-import type { PullVoid, VoidResult } from '@/lib/data/supers/pulls';
+import type { PullVoid } from '@/lib/data/supers/pulls';
+import type { VoidResult } from '@/lib/data/supers/void';
 
 export type VoidPull = (v: VoidPullInput) => Promise<ActionResult<VoidResult>>;
 

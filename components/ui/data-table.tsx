@@ -17,11 +17,12 @@ const features = tableFeatures({ rowSortingFeature });
 
 /**
  * A server-paginated, server-sorted table (@tanstack/react-table v9 for the header/sort model).
- * Rows come from a JSON route answering `{ rows, total, page, pageSize }`; the first page can be
- * rendered on the server and passed in as `initial`, so nothing is fetched until the user pages or sorts.
+ * Rows come from a JSON route answering a `Page` (`{ rows, total, page, pageSize }`, a `listRoute`);
+ * the first page is rendered on the server and passed in as `initial` (its page and page size are
+ * kept), so nothing is fetched until the user pages or sorts. New filters start again at page 1.
  */
 export function DataTable<Row extends { id: number | string }>({
-  endpoint, columns, caption, filters = {}, initial, initialSort, pageSize = 25, empty = 'Nothing here yet.',
+  endpoint, columns, caption, filters = {}, initial, initialSort, pageSize = initial?.pageSize ?? 25, empty = 'Nothing here yet.',
 }: {
   endpoint: string;
   columns: DataColumn<Row>[];
@@ -33,14 +34,19 @@ export function DataTable<Row extends { id: number | string }>({
   empty?: string;
 }) {
   const [sorting, setSorting] = useState<SortingState>(initialSort ? [initialSort] : []);
-  const [page, setPage] = useState(1);
+  const [page, setPage] = useState(initial?.page ?? 1);
   const [data, setData] = useState<Page<Row> | undefined>(initial);
   const [error, setError] = useState<string>();
   const [loading, setLoading] = useState(false);
   const first = useRef(Boolean(initial));
   const filterKey = JSON.stringify(filters);
+  const shownFilters = useRef(filterKey);
 
-  useEffect(() => setPage(1), [filterKey]);
+  useEffect(() => {
+    if (shownFilters.current === filterKey) return;
+    shownFilters.current = filterKey;
+    setPage(1);
+  }, [filterKey]);
   useEffect(() => {
     if (first.current) { first.current = false; return; }
     const ctrl = new AbortController();

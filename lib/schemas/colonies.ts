@@ -1,17 +1,12 @@
 import { z } from 'zod';
 import { blankToNull, code, id, idempotencyKey, isoDay, optionalDay } from './fields';
+import { listQuery } from './list-query';
 
-const page = z.coerce.number().int().min(1).default(1);
-const pageSize = z.coerce.number().int().min(1).max(100, 'At most 100 per page').default(25);
-const dir = z.enum(['asc', 'desc']).default('asc');
-
-export const colonyListQuery = z.object({
-  page, pageSize, dir,
-  sort: z.enum(['code', 'yard', 'status', 'queenYear']).default('code'),
+export const colonyListQuery = listQuery(['code', 'yard', 'status', 'queenYear'], {
   yardId: id.optional(),
   status: z.enum(['active', 'dead_out', 'combined', 'sold']).optional(),
   q: z.string().trim().max(30).optional(),
-});
+}, 'code');
 export type ColonyListQuery = z.output<typeof colonyListQuery>;
 
 export const COLONY_ORIGINS = ['package', 'nucleus', 'swarm', 'purchased', 'split'] as const;

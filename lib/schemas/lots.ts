@@ -90,5 +90,5 @@ export const lotListQuery = listQuery(LOT_SORTS, {
   stage: z.enum(['gathering', 'extracted', 'released', 'packed_out', 'held']).optional().catch(undefined),
   year: z.coerce.number().int().min(2000).max(2100).optional().catch(undefined),
   floral: z.string().trim().max(80).optional(),
-}, 'createdAt').extend({ dir: z.enum(['asc', 'desc']).default('desc') });
+}, 'createdAt', { defaultDir: 'desc' });
 export type LotListQuery = z.output<typeof lotListQuery>;

@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import type { OrderStatus } from '@/lib/domain/order-status';
+import { listQuery } from './list-query';
 
 export const orderIdInput = z.object({ orderId: z.number().int().positive() });
 
@@ -19,3 +21,17 @@ export const refundInput = z.object({
   reason: z.string().trim().max(500).default(''),
 });
 export type RefundInput = z.input<typeof refundInput>;
+
+/** The order desk's filters: the orders still to pack and send (paid or packed), all, or one status. */
+export const ORDER_DESK_FILTERS = ['open', 'all', 'awaiting_payment', 'paid', 'packed', 'shipped', 'picked_up', 'cancelled', 'expired', 'refunded'] as const satisfies readonly (OrderStatus | 'open' | 'all')[];
+export type OrderDeskFilter = (typeof ORDER_DESK_FILTERS)[number];
+
+export const orderListQuery = listQuery(['createdAt', 'totalCents'], {
+  status: z.enum(ORDER_DESK_FILTERS).default('open'),
+  q: z.string().trim().max(80).optional(),
+}, 'createdAt', { defaultDir: 'desc' });
+export type OrderListQuery = z.output<typeof orderListQuery>;
+
+/** A customer's own orders, newest first. */
+export const customerOrderListQuery = listQuery(['createdAt'], {}, 'createdAt', { defaultDir: 'desc' });
+export type CustomerOrderListQuery = z.output<typeof customerOrderListQuery>;

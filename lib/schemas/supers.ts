@@ -1,16 +1,11 @@
 import { z } from 'zod';
 import { blankToNull, id, idempotencyKey, isoDay, tagCode } from './fields';
+import { listQuery } from './list-query';
 
 export const SUPER_DEPTHS = ['deep', 'medium', 'shallow'] as const;
 export const depth = z.enum(SUPER_DEPTHS, 'Choose deep, medium or shallow');
 
-const page = z.coerce.number().int().min(1).default(1);
-const pageSize = z.coerce.number().int().min(1).max(100, 'At most 100 per page').default(25);
-
-export const pullListQuery = z.object({
-  page, pageSize,
-  dir: z.enum(['asc', 'desc']).default('desc'),
-  sort: z.enum(['pulledOn', 'colony', 'fullGrams']).default('pulledOn'),
+export const pullListQuery = listQuery(['pulledOn', 'colony', 'fullGrams'], {
   yardId: id.optional(),
   colonyId: id.optional(),
   flagged: z.enum(['yes', 'no']).optional(),
@@ -18,7 +13,7 @@ export const pullListQuery = z.object({
   voided: z.enum(['yes', 'no']).optional(),
   from: isoDay.optional(),
   to: isoDay.optional(),
-});
+}, 'pulledOn', { defaultDir: 'desc' });
 export type PullListQuery = z.output<typeof pullListQuery>;
 
 export const superOnInput = z.object({

@@ -1,15 +1,10 @@
 import { z } from 'zod';
 import { blankToNull, id } from './fields';
+import { listQuery } from './list-query';
 
-const page = z.coerce.number().int().min(1).default(1);
-const pageSize = z.coerce.number().int().min(1).max(100, 'At most 100 per page').default(25);
-const dir = z.enum(['asc', 'desc']).default('asc');
-
-export const yardListQuery = z.object({
-  page, pageSize, dir,
-  sort: z.enum(['name', 'colonies']).default('name'),
+export const yardListQuery = listQuery(['name', 'colonies'], {
   q: z.string().trim().max(80).optional(),
-});
+}, 'name');
 export type YardListQuery = z.output<typeof yardListQuery>;
 
 const coordinate = (max: number) => blankToNull(z.coerce.number().min(-max).max(max, `Between -${max} and ${max}`));

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
 import { closeDb, getDb } from '@/lib/db/index';
 import { saveYard } from '@/lib/data/yards/yards';
-import { createColony } from '@/lib/data/colonies/colonies';
+import { createColony } from '@/lib/data/colonies/write';
 import { addFeeding } from '@/lib/data/colonies/records';
 import { BASE, DEMO_LOGINS, openBrowser, PHONE, signIn } from './support';
 
@@ -18,10 +18,10 @@ beforeAll(async () => {
   if (!owner || !keeper) throw new Error('demo users missing');
   const yardId = await saveYard(owner.id, null, { name: 'Hawthorn Gate (e2e)', place: 'Marrow Valley, top field', latitude: null, longitude: null, forageNotes: '', keeperIds: [keeper.id] });
   for (const code of codes) {
-    ids.push(await createColony({ id: owner.id, role: 'owner' }, { code, yardId, keeperId: keeper.id, origin: 'nucleus', parentColonyId: null, queenYear: 2026, startedOn: null, notes: '' }));
+    ids.push(await createColony(owner, { code, yardId, keeperId: keeper.id, origin: 'nucleus', parentColonyId: null, queenYear: 2026, startedOn: null, notes: '' }));
   }
   const started = new Date(Date.now() - 10 * 86_400_000).toISOString().slice(0, 10);
-  await addFeeding({ id: keeper.id, role: 'keeper' }, { colonyId: ids[2], kind: 'sugar_syrup', amount: '2 L', startedOn: started, endedOn: null, note: '', idempotencyKey: crypto.randomUUID() });
+  await addFeeding(keeper, { colonyId: ids[2], kind: 'sugar_syrup', amount: '2 L', startedOn: started, endedOn: null, note: '', idempotencyKey: crypto.randomUUID() });
   browser = await openBrowser(PHONE);
 });
 afterAll(async () => {

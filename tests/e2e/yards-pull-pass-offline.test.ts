@@ -2,7 +2,7 @@ import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
 import { closeDb, getDb } from '@/lib/db/index';
 import { saveYard } from '@/lib/data/yards/yards';
-import { createColony } from '@/lib/data/colonies/colonies';
+import { createColony } from '@/lib/data/colonies/write';
 import { waitingKey, type WaitingPull } from '@/components/yards/pull-queue';
 import { BASE, DEMO_LOGINS, openBrowser, PHONE, signIn } from './support';
 
@@ -34,11 +34,11 @@ beforeAll(async () => {
   keeperId = keeper.id;
   yardId = await saveYard(owner.id, null, { name: 'Sloe Hedge (e2e)', place: 'Marrow Valley, lower lane', latitude: null, longitude: null, forageNotes: '', keeperIds: [keeper.id] });
   for (const code of codes) {
-    ids.push(await createColony({ id: owner.id, role: 'owner' }, { code, yardId, keeperId: keeper.id, origin: 'nucleus', parentColonyId: null, queenYear: 2026, startedOn: null, notes: '' }));
+    ids.push(await createColony(owner, { code, yardId, keeperId: keeper.id, origin: 'nucleus', parentColonyId: null, queenYear: 2026, startedOn: null, notes: '' }));
   }
   // A yard the demo keeper is not assigned to: a pull kept for its colony is refused as "No such colony."
   const otherYard = await saveYard(owner.id, null, { name: 'Owner only (e2e)', place: '', latitude: null, longitude: null, forageNotes: '', keeperIds: [] });
-  elsewhereId = await createColony({ id: owner.id, role: 'owner' }, { code: 'OF-X1', yardId: otherYard, keeperId: owner.id, origin: 'swarm', parentColonyId: null, queenYear: null, startedOn: null, notes: '' });
+  elsewhereId = await createColony(owner, { code: 'OF-X1', yardId: otherYard, keeperId: owner.id, origin: 'swarm', parentColonyId: null, queenYear: null, startedOn: null, notes: '' });
   browser = await openBrowser(PHONE);
   const page = await browser.newPage();
   await signIn(page, DEMO_LOGINS.keeper.email, DEMO_LOGINS.keeper.password);

@@ -1,6 +1,6 @@
 import { getDb } from '@/lib/db/index';
 import { saveYard } from '@/lib/data/yards/yards';
-import { createColony } from '@/lib/data/colonies/colonies';
+import { createColony } from '@/lib/data/colonies/write';
 import { DEMO } from './session';
 
 /** Own yards and colonies per test file, with unique names, so files do not depend on each other. */
@@ -8,11 +8,10 @@ export async function harvestFixture(tag: string) {
   const { User, TreatmentKind } = getDb().models;
   const [owner, keeperA, keeperB] = await Promise.all([DEMO.owner, DEMO.keeper, DEMO.keeper2].map((email) => User.findOne({ where: { email } })));
   if (!owner || !keeperA || !keeperB) throw new Error('demo users missing');
-  const ownerView = { id: owner.id, role: 'owner' as const };
   const yardA = await saveYard(owner.id, null, { name: `Test A ${tag}`, place: '', latitude: null, longitude: null, forageNotes: '', keeperIds: [keeperA.id] });
   const yardB = await saveYard(owner.id, null, { name: `Test B ${tag}`, place: '', latitude: null, longitude: null, forageNotes: '', keeperIds: [keeperB.id] });
   const colony = (code: string, yardId: number, keeperId: number) =>
-    createColony(ownerView, { code, yardId, keeperId, origin: 'nucleus', parentColonyId: null, queenYear: 2025, startedOn: '2026-04-01', notes: '' });
+    createColony(owner, { code, yardId, keeperId, origin: 'nucleus', parentColonyId: null, queenYear: 2025, startedOn: '2026-04-01', notes: '' });
   // The owner assigns colonies to keepers of the yard: they must be assigned first.
   const a1 = await colony(`${tag}-A1`, yardA, keeperA.id);
   const a2 = await colony(`${tag}-A2`, yardA, keeperA.id);

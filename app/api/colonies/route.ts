@@ -1,5 +1,5 @@
 import { listRoute } from '@/lib/http/list-route';
-import { listColonies } from '@/lib/data/colonies/colonies';
+import { listColonies } from '@/lib/data/colonies/read';
 import { colonyListQuery } from '@/lib/schemas/colonies';
 
 export const dynamic = 'force-dynamic';

@@ -1,18 +1,8 @@
-import { authorize } from '@/lib/auth/session';
+import { listRoute } from '@/lib/http/list-route';
 import { listLots } from '@/lib/data/lots/lots';
 import { lotListQuery } from '@/lib/schemas/lots';
-import { handleRouteError } from '@/lib/http/json';
 
 export const dynamic = 'force-dynamic';
 
-/** One page of lots as JSON (?page, pageSize, stage, year, floral); keepers get only their own. */
-export async function GET(req: Request) {
-  try {
-    const user = await authorize('lots.read');
-    const params = Object.fromEntries(new URL(req.url).searchParams);
-    const q = lotListQuery.parse(params);
-    return Response.json(await listLots(user, q), { headers: { 'Cache-Control': 'no-store' } });
-  } catch (err) {
-    return handleRouteError(err);
-  }
-}
+/** One page of lots as JSON (?page, pageSize, sort, dir, stage, year, floral); keepers get only their own. */
+export const GET = listRoute('lots.read', lotListQuery, listLots);

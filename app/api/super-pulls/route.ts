@@ -1,7 +1,8 @@
 import { authorize } from '@/lib/auth/session';
 import { handleRouteError, readJson } from '@/lib/http/json';
 import { assertSameOrigin } from '@/lib/http/origin';
-import { listSuperPulls, recordPulls } from '@/lib/data/supers/pulls';
+import { listSuperPulls } from '@/lib/data/supers/pulls';
+import { recordPulls } from '@/lib/data/supers/record';
 import { pullBatch, pullListQuery } from '@/lib/schemas/supers';
 import { listRoute } from '@/lib/http/list-route';
 

@@ -4,13 +4,11 @@ import type { SessionUser } from '@/lib/auth/session';
 import type { FeedingKind } from '@/lib/domain/conflicts';
 import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { recordAudit } from '@/lib/data/audit';
-import { writableColony } from './colonies';
+import { writableColony } from './write';
 import { recomputeColonyFlags } from '@/lib/data/supers/flags';
 
-type Viewer = Pick<SessionUser, 'id' | 'role'>;
-
 /** Adds a feeding (idempotent by key) and re-checks the colony's pulled supers. */
-export async function addFeeding(user: Viewer, input: { colonyId: number; kind: FeedingKind; amount: string; startedOn: string; endedOn: string | null; note: string; idempotencyKey: string }): Promise<{ reflagged: number }> {
+export async function addFeeding(user: SessionUser, input: { colonyId: number; kind: FeedingKind; amount: string; startedOn: string; endedOn: string | null; note: string; idempotencyKey: string }): Promise<{ reflagged: number }> {
   const { sequelize, models } = getDb();
   if (await models.Feeding.findOne({ where: { idempotencyKey: input.idempotencyKey } })) return { reflagged: 0 };
   return sequelize.transaction(async (t) => {
@@ -21,7 +19,7 @@ export async function addFeeding(user: Viewer, input: { colonyId: number; kind: 
   });
 }
 
-export async function endFeeding(user: Viewer, feedingId: number, endedOn: string): Promise<{ reflagged: number }> {
+export async function endFeeding(user: SessionUser, feedingId: number, endedOn: string): Promise<{ reflagged: number }> {
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (t) => {
     const row = await models.Feeding.findByPk(feedingId, { transaction: t, lock: t.LOCK.UPDATE });
@@ -36,7 +34,7 @@ export async function endFeeding(user: Viewer, feedingId: number, endedOn: strin
 }
 
 /** Copies the kind's supers-allowed and waiting days onto the record, so later edits of the list do not rewrite history. */
-export async function addTreatment(user: Viewer, input: { colonyId: number; treatmentKindId: number; productName: string; appliedOn: string; removedOn: string | null; note: string; idempotencyKey: string }): Promise<{ reflagged: number }> {
+export async function addTreatment(user: SessionUser, input: { colonyId: number; treatmentKindId: number; productName: string; appliedOn: string; removedOn: string | null; note: string; idempotencyKey: string }): Promise<{ reflagged: number }> {
   const { sequelize, models } = getDb();
   if (await models.Treatment.findOne({ where: { idempotencyKey: input.idempotencyKey } })) return { reflagged: 0 };
   return sequelize.transaction(async (t) => {
@@ -49,7 +47,7 @@ export async function addTreatment(user: Viewer, input: { colonyId: number; trea
   });
 }
 
-export async function endTreatment(user: Viewer, treatmentId: number, removedOn: string): Promise<{ reflagged: number }> {
+export async function endTreatment(user: SessionUser, treatmentId: number, removedOn: string): Promise<{ reflagged: number }> {
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (t) => {
     const row = await models.Treatment.findByPk(treatmentId, { transaction: t, lock: t.LOCK.UPDATE });

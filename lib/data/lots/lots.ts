@@ -6,6 +6,7 @@ import { lotCode } from '@/lib/domain/lot-code';
 import type { LotStage } from '@/lib/domain/lot-stage';
 import { remainingGrams } from '@/lib/domain/lot-weights';
 import type { LotListQuery } from '@/lib/schemas/lots';
+import type { Page } from '@/lib/schemas/list-query';
 import { recordAudit } from '@/lib/data/audit';
 import { getSettings } from '@/lib/data/settings/settings';
 import { assertOpen, KEEPER_LOTS_SQL, lockLot, lotSnapshot } from './access';
@@ -88,7 +89,8 @@ export type LotListRow = {
   id: number; code: string; floralSource: string; stage: LotStage; isBlend: boolean; extractedOn: string | null;
   netGrams: number; remainingGrams: number; superCount: number; createdAt: string;
 };
-export type LotList = { rows: LotListRow[]; total: number; page: number; pageSize: number; years: number[] };
+/** A page of lots, with every year that has lots (for the year filter). */
+export type LotList = Page<LotListRow> & { years: number[] };
 
 /** One page of lots, filtered; a keeper sees only lots holding their colonies' supers. */
 export async function listLots(user: SessionUser, q: LotListQuery): Promise<LotList> {

@@ -1,5 +1,5 @@
 import 'server-only';
-import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import type { Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
@@ -95,7 +95,7 @@ export async function getOrderDetail(orderId: number, t?: Transaction): Promise<
   };
 }
 
-function needsRefund(o: Pick<Order, 'status' | 'paidAt' | 'refundedCents' | 'totalCents'>): boolean {
+export function needsRefund(o: Pick<Order, 'status' | 'paidAt' | 'refundedCents' | 'totalCents'>): boolean {
   return (o.status === 'expired' || o.status === 'cancelled') && Boolean(o.paidAt) && o.refundedCents < o.totalCents;
 }
 
@@ -111,41 +111,4 @@ export async function getOrderForViewer(number: string, user: SessionUser | null
   const own = user?.role === 'customer' && row.customerId === user.id;
   if (!staff && !own && !checkOrderToken(number, token)) return null;
   return getOrderDetail(row.id);
-}
-
-export type OrderListRow = { id: number; number: string; status: OrderStatus; fulfilment: string; name: string; email: string; totalCents: number; refundedCents: number; currency: string; createdAt: Date; jars: number; needsRefund: boolean };
-
-function listRow(o: Order): OrderListRow {
-  return {
-    id: o.id, number: o.number, status: o.status, fulfilment: o.fulfilment, name: o.name, email: o.email,
-    totalCents: o.totalCents, refundedCents: o.refundedCents, currency: o.currency, createdAt: o.createdAt,
-    jars: (o.lines ?? []).reduce((s, l) => s + l.quantity, 0), needsRefund: needsRefund(o),
-  };
-}
-
-export async function listCustomerOrders(customerId: number): Promise<OrderListRow[]> {
-  const { Order, OrderLine } = getDb().models;
-  const rows = await Order.findAll({ where: { customerId }, include: [{ model: OrderLine, as: 'lines', attributes: ['quantity'] }], order: [['createdAt', 'DESC']], limit: 100 });
-  return rows.map(listRow);
-}
-
-export const DESK_PAGE_SIZE = 25;
-
-export async function listOrders(p: { status?: OrderStatus | 'open' | 'all'; page: number; q?: string }): Promise<{ rows: OrderListRow[]; total: number }> {
-  const { Order, OrderLine } = getDb().models;
-  const where: WhereOptions<Order> = {};
-  const and: WhereOptions<Order>[] = [];
-  if (p.status === 'open') and.push({ status: ['paid', 'packed'] });
-  else if (p.status && p.status !== 'all') and.push({ status: p.status });
-  if (p.q) and.push({ [Op.or]: [{ number: { [Op.iLike]: `%${p.q}%` } }, { email: { [Op.iLike]: `%${p.q}%` } }, { name: { [Op.iLike]: `%${p.q}%` } }] });
-  if (and.length) Object.assign(where, { [Op.and]: and });
-  const total = await Order.count({ where });
-  const rows = await Order.findAll({
-    where,
-    include: [{ model: OrderLine, as: 'lines', attributes: ['quantity'] }],
-    order: [['createdAt', 'DESC'], ['id', 'DESC']],
-    limit: DESK_PAGE_SIZE,
-    offset: Math.max(0, p.page - 1) * DESK_PAGE_SIZE,
-  });
-  return { rows: rows.map(listRow), total };
 }

@@ -1,6 +1,9 @@
 import 'server-only';
 import { Op, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
+import type { SessionUser } from '@/lib/auth/session';
+import type { Page } from '@/lib/schemas/list-query';
+import type { LedgerListQuery } from '@/lib/schemas/stock';
 import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { bestBeforeDate } from '@/lib/domain/jars';
 import type { StockEntryKind } from '@/models/stock-entry';
@@ -122,19 +125,19 @@ export async function stockTotals(): Promise<StockProductTotal[]> {
   });
 }
 
-export type LedgerRow = { id: number; createdAt: Date; productName: string; lotCode: string; delta: number; kind: StockEntryKind; reason: string; jarringRunId: number | null; orderId: number | null; byName: string | null };
+export type LedgerRow = { id: number; createdAt: string; productName: string; lotCode: string; delta: number; kind: StockEntryKind; reason: string; jarringRunId: number | null; orderId: number | null; byName: string | null };
 
-export async function listLedger(opts: { page?: number; pageSize?: number; productId?: number; lotId?: number } = {}): Promise<{ rows: LedgerRow[]; total: number; page: number; pageSize: number }> {
+/** One page of the stock ledger (every staff member reads all of it). Entries are numbered in the order they were written. */
+export async function listLedger(_user: SessionUser, query: LedgerListQuery): Promise<Page<LedgerRow>> {
   const { StockEntry, Product, Lot, User } = getDb().models;
-  const pageSize = Math.min(Math.max(opts.pageSize ?? 25, 1), 200);
-  const page = Math.max(Math.floor(opts.page ?? 1), 1);
+  const { page, pageSize } = query;
   const where: Record<string, unknown> = {};
-  if (opts.productId) where.productId = opts.productId;
-  if (opts.lotId) where.lotId = opts.lotId;
+  if (query.productId) where.productId = query.productId;
+  if (query.lotId) where.lotId = query.lotId;
   const [total, entries] = await Promise.all([
     StockEntry.count({ where }),
     StockEntry.findAll({
-      where, order: [['id', 'DESC']], limit: pageSize, offset: (page - 1) * pageSize,
+      where, order: [['id', query.dir === 'asc' ? 'ASC' : 'DESC']], limit: pageSize, offset: (page - 1) * pageSize,
       include: [{ model: Product, as: 'product', attributes: ['name'] }, { model: Lot, as: 'lot', attributes: ['code'] }],
     }),
   ]);
@@ -144,7 +147,7 @@ export async function listLedger(opts: { page?: number; pageSize?: number; produ
   return {
     total, page, pageSize,
     rows: entries.map((e) => ({
-      id: Number(e.id), createdAt: e.createdAt, productName: e.product?.name ?? '', lotCode: e.lot?.code ?? '', delta: e.delta, kind: e.kind,
+      id: Number(e.id), createdAt: new Date(e.createdAt).toISOString(), productName: e.product?.name ?? '', lotCode: e.lot?.code ?? '', delta: e.delta, kind: e.kind,
       reason: e.reason, jarringRunId: e.jarringRunId ?? null, orderId: e.orderId ?? null, byName: e.createdBy ? names.get(e.createdBy) ?? null : null,
     })),
   };

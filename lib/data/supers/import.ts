@@ -9,7 +9,6 @@ import { recordAudit } from '@/lib/data/audit';
 import { canWriteColonies, yardScope } from '@/lib/data/yards/scope';
 import { colonyRecords, flagsWith, type ColonyRecords } from './flags';
 
-type Viewer = Pick<SessionUser, 'id' | 'role'>;
 export const MAX_IMPORT_BYTES = 5 * 1024 * 1024;
 export const MAX_IMPORT_ROWS = 5000;
 
@@ -34,7 +33,7 @@ export function guessMapping(headers: string[]): Partial<PullMapping> {
   };
 }
 
-async function known(user: Viewer) {
+async function known(user: SessionUser) {
   const { models } = getDb();
   const scope = await yardScope(user);
   // Only the user's own colonies count as known: another keeper's colony is an unknown colony.
@@ -46,7 +45,7 @@ async function known(user: Viewer) {
 
 export type ImportPreview = { headers: string[]; mapping: Partial<PullMapping>; valid: ValidPullRow[]; errors: PullRowError[]; total: number };
 
-export async function previewImport(user: Viewer, text: string, mapping: PullMapping | null, today: string): Promise<ImportPreview> {
+export async function previewImport(user: SessionUser, text: string, mapping: PullMapping | null, today: string): Promise<ImportPreview> {
   const sheet = parseSheet(text);
   const use = mapping ?? guessMapping(sheet.headers);
   const ready = use.colonyCode && use.pulledOn && use.depth;
@@ -63,7 +62,7 @@ export async function previewImport(user: Viewer, text: string, mapping: PullMap
  * Imports every valid row in one transaction: if any row fails to store, none is stored.
  * Rejected rows are not imported; the caller offers them back as a CSV to fix.
  */
-export async function commitImport(user: Viewer, text: string, mapping: PullMapping, today: string, expectedValid?: number): Promise<{ imported: number; flagged: number; errors: PullRowError[] }> {
+export async function commitImport(user: SessionUser, text: string, mapping: PullMapping, today: string, expectedValid?: number): Promise<{ imported: number; flagged: number; errors: PullRowError[] }> {
   if (!canWriteColonies(user)) throw new NotFoundError('No such colony.');
   const { sequelize, models } = getDb();
   const sheet = parseSheet(text);

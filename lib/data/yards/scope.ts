@@ -10,7 +10,7 @@ import type { Colony } from '@/models/colony';
  */
 export type YardScope = { all: true } | { all: false; yardIds: number[] };
 
-export async function yardScope(user: Pick<SessionUser, 'id' | 'role'>, transaction?: Transaction): Promise<YardScope> {
+export async function yardScope(user: SessionUser, transaction?: Transaction): Promise<YardScope> {
   if (user.role === 'owner' || user.role === 'crew') return { all: true };
   if (user.role !== 'keeper') return { all: false, yardIds: [] };
   const rows = await getDb().models.YardKeeper.findAll({ where: { userId: user.id }, attributes: ['yardId'], transaction });
@@ -23,7 +23,7 @@ export function inScope(scope: YardScope, yardId: number): boolean {
 
 /** A colony the user may see, or null (another keeper's colony looks like no colony at all → 404). */
 export async function colonyInScope(
-  user: Pick<SessionUser, 'id' | 'role'>,
+  user: SessionUser,
   colonyId: number,
   transaction?: Transaction,
 ): Promise<Colony | null> {
@@ -34,6 +34,6 @@ export async function colonyInScope(
 }
 
 /** For writes: crew and customers never write colony records, whatever the caller checked before. */
-export function canWriteColonies(user: Pick<SessionUser, 'role'>): boolean {
+export function canWriteColonies(user: SessionUser): boolean {
   return user.role === 'owner' || user.role === 'keeper';
 }

@@ -3,17 +3,16 @@ import { Op, type WhereOptions } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
 import type { YardListQuery } from '@/lib/schemas/yards';
+import type { Page } from '@/lib/schemas/list-query';
 import type { Yard } from '@/models/yard';
 import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { recordAudit } from '@/lib/data/audit';
 import { inScope, yardScope } from './scope';
 
-type Viewer = Pick<SessionUser, 'id' | 'role'>;
 export type YardRow = {
   id: number; name: string; place: string; latitude: number | null; longitude: number | null; forageNotes: string;
   keepers: { id: number; name: string }[]; activeColonies: number;
 };
-export type Paged<T> = { rows: T[]; total: number; page: number; pageSize: number };
 
 // The main table's alias is the model's class name, which a production build minifies: ask the class.
 const colonyCount = () => `(SELECT count(*)::int FROM colonies c WHERE c.yard_id = "${getDb().models.Yard.name}"."id" AND c.status = 'active')`;
@@ -26,7 +25,7 @@ function toRow(y: Yard): YardRow {
   };
 }
 
-export async function listYards(user: Viewer, query: YardListQuery): Promise<Paged<YardRow>> {
+export async function listYards(user: SessionUser, query: YardListQuery): Promise<Page<YardRow>> {
   const { sequelize, models } = getDb();
   const scope = await yardScope(user);
   const where: WhereOptions = { archivedAt: null };
@@ -56,7 +55,7 @@ export async function listYards(user: Viewer, query: YardListQuery): Promise<Pag
 }
 
 /** One yard, or null when it does not exist or is not the keeper's. */
-export async function getYard(user: Viewer, yardId: number): Promise<YardRow | null> {
+export async function getYard(user: SessionUser, yardId: number): Promise<YardRow | null> {
   const { sequelize, models } = getDb();
   if (!Number.isInteger(yardId) || yardId <= 0) return null;
   if (!inScope(await yardScope(user), yardId)) return null;
@@ -108,7 +107,7 @@ export async function saveYard(actorUserId: number, yardId: number | null, data:
 }
 
 /** Yards the user may put colonies in (for move and create forms). */
-export async function listYardChoices(user: Viewer): Promise<{ id: number; name: string }[]> {
+export async function listYardChoices(user: SessionUser): Promise<{ id: number; name: string }[]> {
   const scope = await yardScope(user);
   const yards = await getDb().models.Yard.findAll({ where: { archivedAt: null, ...(scope.all ? {} : { id: scope.yardIds }) }, order: [['name', 'ASC']] });
   return yards.map((y) => ({ id: y.id, name: y.name }));

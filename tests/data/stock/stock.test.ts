@@ -2,7 +2,8 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/lib/db/index';
 import { DEMO, signInAs } from '@/tests/support/session';
 import { adjustStockAction } from '@/app/(back-office)/admin/stock/actions';
-import { addStockEntry, listLedger, stockTotals } from '@/lib/data/stock/stock';
+import { GET as ledgerRoute } from '@/app/api/stock/ledger/route';
+import { addStockEntry, stockTotals, type LedgerRow } from '@/lib/data/stock/stock';
 import { product, releasedLot } from '@/tests/support/jarring-fixtures';
 
 afterAll(closeDb);
@@ -21,7 +22,7 @@ describe('stock', () => {
     const { lot, jar } = await stocked(6);
     const res = await adjustStockAction({ productId: jar.id, lotId: lot.id, kind: 'breakage', delta: -2, reason: 'Dropped a case' });
     expect(res).toMatchObject({ ok: true, data: { onHand: 4 } });
-    const ledger = await listLedger({ productId: jar.id });
+    const ledger = (await (await ledgerRoute(new Request(`http://127.0.0.1:3100/api/stock/ledger?productId=${jar.id}`))).json()) as { rows: LedgerRow[] };
     expect(ledger.rows.map((r) => [r.kind, r.delta, r.reason])).toEqual([['breakage', -2, 'Dropped a case'], ['jarring', 6, '']]);
     expect(ledger.rows[0].byName).toBeTruthy();
   });

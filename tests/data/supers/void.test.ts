@@ -8,10 +8,12 @@ import { voidSuperPullAction } from '@/app/(back-office)/admin/supers/actions';
 import { createLotAction, pickSupersAction, scanSuperAction } from '@/app/(back-office)/admin/lots/actions';
 import { GET as listPullsRoute } from '@/app/api/super-pulls/route';
 import { addSupersById, listPullableSupers } from '@/lib/data/lots/supers';
-import { createColony, getColony } from '@/lib/data/colonies/colonies';
+import { getColony } from '@/lib/data/colonies/read';
+import { createColony } from '@/lib/data/colonies/write';
 import { colonyTimeline } from '@/lib/data/colonies/timeline';
 import { getSeasonReport } from '@/lib/data/reports/yield-report';
-import { listColonySupers, voidSuperPull, type PullRow } from '@/lib/data/supers/pulls';
+import { listColonySupers, type PullRow } from '@/lib/data/supers/pulls';
+import { voidSuperPull } from '@/lib/data/supers/void';
 import { down as undoVoidPutOn } from '@/migrations/20261203000500-void-put-on';
 
 afterAll(closeDb);
@@ -173,11 +175,11 @@ describe('refusals change nothing', () => {
     const crew = (await getDb().models.User.findOne({ where: { email: DEMO.crew } }))!;
     const [picked, voided] = await Promise.allSettled([
       addSupersById({ id: crew.id, name: crew.name, email: crew.email, role: 'crew' }, lot.data.id, [id]),
-      voidSuperPull({ id: f.keeperA.id, role: 'keeper' }, id, 'Raced the honey house'),
+      voidSuperPull(f.keeperA, id, 'Raced the honey house'),
     ]);
     expect([picked.status, voided.status].filter((s) => s === 'fulfilled')).toHaveLength(1);
     const loser = [picked, voided].find((r) => r.status === 'rejected') as PromiseRejectedResult;
-    expect(loser.reason).toMatchObject({ status: 409 });
+    expect(loser.reason).toMatchObject({ kind: 'conflict' }); // a 409 at the edge
     const final = await row(id);
     expect(final?.voidedAt !== null && final?.lotId !== null).toBe(false);
     expect(final?.voidedAt !== null || final?.lotId !== null).toBe(true);
@@ -226,7 +228,7 @@ describe('the database holds the rules whatever the app does', () => {
 describe('a super-on record entered by mistake can be voided too', () => {
   /** A fresh colony in yard A (keeper A) per test: no other supers on it. */
   let n = 0;
-  const freshColony = () => createColony({ id: f.owner.id, role: 'owner' }, {
+  const freshColony = () => createColony(f.owner, {
     code: `VOI-ON${++n}`, yardId: f.yardA, keeperId: f.keeperA.id, origin: 'nucleus', parentColonyId: null, queenYear: 2025, startedOn: '2026-04-01', notes: '',
   });
   async function putOn(colonyId: number, putOnOn: string, extra: Record<string, unknown> = {}): Promise<number> {

@@ -4,9 +4,9 @@ import { z } from 'zod';
 import { guardedAction } from '@/lib/http/server-action';
 import { colonyInput, colonyUpdateInput, moveInput, statusInput, splitInput, noteInput, feedingInput, feedingEndInput, treatmentInput, treatmentEndInput } from '@/lib/schemas/colonies';
 import { superOnInput } from '@/lib/schemas/supers';
-import { addColonyNote, createColony, moveColony, setColonyStatus, splitColony, updateColony } from '@/lib/data/colonies/colonies';
+import { addColonyNote, createColony, moveColony, setColonyStatus, splitColony, updateColony } from '@/lib/data/colonies/write';
 import { addFeeding, addTreatment, endFeeding, endTreatment } from '@/lib/data/colonies/records';
-import { putSuperOn } from '@/lib/data/supers/pulls';
+import { putSuperOn } from '@/lib/data/supers/record';
 
 const touched = (colonyId: number) => {
   revalidatePath(`/admin/colonies/${colonyId}`);

@@ -1,15 +1,15 @@
-import Link from 'next/link';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
 import { listLedger, listStockLevels, stockTotals } from '@/lib/data/stock/stock';
+import { queryRecord } from '@/lib/schemas/list-query';
+import { ledgerListQuery } from '@/lib/schemas/stock';
 import { PageHeader } from '@/components/ui/page-header';
 import { Chip } from '@/components/ui/chip';
 import { AdjustForm } from '@/components/stock/adjust-form';
+import { LedgerTable } from '@/components/stock/ledger-table';
 import { adjustStockAction } from './actions';
 
 export const metadata = { title: 'Stock' };
-
-const KIND_NAMES = { jarring: 'jarring run', order: 'order', breakage: 'breakage', adjustment: 'adjustment', return: 'return' } as const;
 
 function monthsUntil(iso: string): number {
   const [y, m] = iso.split('-').map(Number);
@@ -22,11 +22,12 @@ function BestBefore({ iso }: { iso: string }) {
   return <span className="whitespace-nowrap">{iso} {months < 0 ? <Chip tone="bad">past</Chip> : months < 3 ? <Chip tone="warn">soon</Chip> : null}</span>;
 }
 
-export default async function StockPage({ searchParams }: { searchParams: Promise<{ page?: string }> }) {
+export default async function StockPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const user = await requirePermission('stock.read', '/admin/stock');
-  const page = Math.max(1, Number((await searchParams).page) || 1);
-  const [totals, levels, ledger] = await Promise.all([stockTotals(), listStockLevels(), listLedger({ page, pageSize: 25 })]);
-  const pages = Math.max(1, Math.ceil(ledger.total / ledger.pageSize));
+  const parsed = ledgerListQuery.safeParse(queryRecord(await searchParams));
+  const query = parsed.success ? parsed.data : ledgerListQuery.parse({});
+  const [totals, levels, ledger] = await Promise.all([stockTotals(), listStockLevels(), listLedger(user, query)]);
+  const filters = Object.fromEntries(Object.entries({ productId: query.productId, lotId: query.lotId }).filter(([, v]) => v !== undefined).map(([k, v]) => [k, String(v)]));
   return (
     <>
       <PageHeader title="Stock" lead="Jars on hand per product and per lot. Every change is a line in the ledger below." />
@@ -60,28 +61,9 @@ export default async function StockPage({ searchParams }: { searchParams: Promis
               </tbody>
             </table>
           </section>
-          <section className="card overflow-x-auto p-0" aria-labelledby="ledger-h">
-            <h2 id="ledger-h" className="px-4 pt-4">Ledger</h2>
-            <table className="data-table">
-              <thead><tr><th scope="col">When</th><th scope="col">Product</th><th scope="col">Lot</th><th scope="col" className="num">Change</th><th scope="col">Kind</th><th scope="col">Reason</th><th scope="col">By</th></tr></thead>
-              <tbody>
-                {ledger.rows.length === 0 ? <tr><td colSpan={7} className="hint">No entries.</td></tr> : null}
-                {ledger.rows.map((r) => (
-                  <tr key={r.id}>
-                    <td className="whitespace-nowrap">{r.createdAt.toISOString().slice(0, 16).replace('T', ' ')}</td>
-                    <td>{r.productName}</td><td className="whitespace-nowrap">{r.lotCode}</td>
-                    <td className="num">{r.delta > 0 ? `+${r.delta}` : r.delta}</td>
-                    <td className="whitespace-nowrap">{r.jarringRunId ? <Link href={`/admin/jarring/${r.jarringRunId}`}>{KIND_NAMES[r.kind]}</Link> : r.orderId ? `${KIND_NAMES[r.kind]} #${r.orderId}` : KIND_NAMES[r.kind]}</td>
-                    <td>{r.reason}</td><td>{r.byName ?? '—'}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-            <nav aria-label="Ledger pages" className="flex items-center justify-between gap-2 p-3 text-sm">
-              {page > 1 ? <Link className="btn-quiet" href={`/admin/stock?page=${page - 1}`}>Newer</Link> : <span />}
-              <span>Page {page} of {pages} · {ledger.total} entries</span>
-              {page < pages ? <Link className="btn-quiet" href={`/admin/stock?page=${page + 1}`}>Older</Link> : <span />}
-            </nav>
+          <section aria-labelledby="ledger-h">
+            <h2 id="ledger-h" className="mb-2">Ledger</h2>
+            <LedgerTable initial={ledger} filters={filters} initialSort={{ id: query.sort, desc: query.dir === 'desc' }} />
           </section>
         </div>
         {can(user.role, 'stock.adjust') ? (

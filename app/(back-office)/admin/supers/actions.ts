@@ -3,7 +3,7 @@ import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/server-action';
 import { tagBatchInput, voidPullInput } from '@/lib/schemas/supers';
 import { createTagBatch } from '@/lib/data/supers/tags';
-import { voidSuperPull } from '@/lib/data/supers/pulls';
+import { voidSuperPull } from '@/lib/data/supers/void';
 
 export const createTagBatchAction = guardedAction('superTags.print', tagBatchInput, async (user, data) => {
   const r = await createTagBatch(user.id, data);

@@ -4,7 +4,7 @@ import { guardedAction } from '@/lib/http/server-action';
 import { yardInput, yardUpdateInput } from '@/lib/schemas/yards';
 import { pullBatch } from '@/lib/schemas/supers';
 import { saveYard } from '@/lib/data/yards/yards';
-import { recordPulls } from '@/lib/data/supers/pulls';
+import { recordPulls } from '@/lib/data/supers/record';
 
 export const createYardAction = guardedAction('yards.manage', yardInput, async (user, data) => {
   const id = await saveYard(user.id, null, data);

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { authorize } from '@/lib/auth/session';
 import { handleRouteError, jsonError } from '@/lib/http/json';
-import { getColony } from '@/lib/data/colonies/colonies';
+import { getColony } from '@/lib/data/colonies/read';
 import { listColonySupers } from '@/lib/data/supers/pulls';
 
 export const dynamic = 'force-dynamic';

@@ -2,7 +2,7 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
-import { getColony } from '@/lib/data/colonies/colonies';
+import { getColony } from '@/lib/data/colonies/read';
 import { listColonySupers } from '@/lib/data/supers/pulls';
 import { colonyTimeline } from '@/lib/data/colonies/timeline';
 import { listTreatmentKinds } from '@/lib/data/colonies/records';

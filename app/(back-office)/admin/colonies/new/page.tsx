@@ -1,7 +1,7 @@
 import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
 import { getYard } from '@/lib/data/yards/yards';
-import { listColonies } from '@/lib/data/colonies/colonies';
+import { listColonies } from '@/lib/data/colonies/read';
 import { PageHeader } from '@/components/ui/page-header';
 import { ColonyForm } from '@/components/colonies/colony-form';
 import { createColonyAction } from '../actions';

@@ -3,7 +3,8 @@ import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
 import { getYard } from '@/lib/data/yards/yards';
-import { listColonies } from '@/lib/data/colonies/colonies';
+import { listColonies } from '@/lib/data/colonies/read';
+import { colonyListQuery } from '@/lib/schemas/colonies';
 import { PageHeader } from '@/components/ui/page-header';
 import { ColonyTable } from '@/components/colonies/colony-table';
 
@@ -14,7 +15,7 @@ export default async function YardPage({ params }: { params: Promise<{ id: strin
   const user = await requirePermission('yards.read', `/admin/yards/${id}`);
   const yard = await getYard(user, Number(id));
   if (!yard) notFound();
-  const first = await listColonies(user, { page: 1, pageSize: 25, sort: 'code', dir: 'asc', yardId: yard.id });
+  const first = await listColonies(user, colonyListQuery.parse({ yardId: yard.id }));
   const write = can(user.role, 'colonies.write');
   return (
     <>

@@ -2,7 +2,7 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
 import { getYard } from '@/lib/data/yards/yards';
-import { listColonies } from '@/lib/data/colonies/colonies';
+import { listColonies } from '@/lib/data/colonies/read';
 import { getSettings } from '@/lib/data/settings/settings';
 import { localDate } from '@/lib/domain/local-date';
 import { PageHeader } from '@/components/ui/page-header';

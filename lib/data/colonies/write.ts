@@ -1,101 +1,20 @@
 import 'server-only';
-import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
+import { UniqueConstraintError } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
-import type { ColonyListQuery } from '@/lib/schemas/colonies';
 import type { Colony, ColonyOrigin, ColonyStatus } from '@/models/colony';
-import { queenMarkColour, type QueenMarkColour } from '@/lib/domain/queen-colour';
 import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { recordAudit } from '@/lib/data/audit';
 import { canWriteColonies, colonyInScope, inScope, yardScope } from '@/lib/data/yards/scope';
-import type { Paged } from '@/lib/data/yards/yards';
-
-type Viewer = Pick<SessionUser, 'id' | 'role'>;
-export type ColonyRow = {
-  id: number; code: string; yardId: number; yardName: string; keeperId: number; keeperName: string;
-  origin: ColonyOrigin; status: ColonyStatus; queenYear: number | null; queenColour: QueenMarkColour | null;
-  startedOn: string | null; lastPulledOn: string | null; flaggedSupers: number;
-};
-export type ColonyDetail = ColonyRow & {
-  notes: string;
-  parent: { id: number; code: string } | null;
-  splits: { id: number; code: string; status: ColonyStatus }[];
-  combinedInto: { id: number; code: string } | null;
-};
-
-// The main table's alias is the model's class name, which a production build minifies: ask the class.
-const alias = () => getDb().models.Colony.name;
-// A voided pull (recorded by mistake) counts for nothing here.
-const lastPull = () => `(SELECT max(p.pulled_on) FROM super_pulls p WHERE p.colony_id = "${alias()}"."id" AND p.voided_at IS NULL)`;
-const flaggedCount = () => `(SELECT count(*)::int FROM super_pulls p WHERE p.colony_id = "${alias()}"."id" AND p.flagged AND p.voided_at IS NULL)`;
-const SORTS = { code: 'code', yard: '$yard.name$', status: 'status', queenYear: 'queenYear' } as const;
-
-function toRow(c: Colony): ColonyRow {
-  return {
-    id: c.id, code: c.code, yardId: c.yardId, yardName: c.yard?.name ?? '', keeperId: c.keeperId, keeperName: c.keeper?.name ?? '',
-    origin: c.origin, status: c.status, queenYear: c.queenYear ?? null, queenColour: c.queenYear ? queenMarkColour(c.queenYear) : null,
-    startedOn: c.startedOn ?? null, lastPulledOn: (c.get('lastPulledOn') as string | null) ?? null, flaggedSupers: Number(c.get('flaggedSupers') ?? 0),
-  };
-}
-
-const baseInclude = [
-  { association: 'yard', attributes: ['id', 'name'] },
-  { association: 'keeper', attributes: ['id', 'name'] },
-];
-
-export async function listColonies(user: Viewer, query: ColonyListQuery): Promise<Paged<ColonyRow>> {
-  const { sequelize, models } = getDb();
-  const scope = await yardScope(user);
-  const and: WhereOptions[] = [];
-  if (!scope.all) and.push({ yardId: scope.yardIds });
-  if (query.yardId) and.push({ yardId: query.yardId });
-  if (query.status) and.push({ status: query.status });
-  if (query.q) and.push({ code: { [Op.iLike]: `%${query.q.replace(/[%_\\]/g, '\\$&')}%` } });
-  const sortKey = SORTS[query.sort];
-  const { rows, count } = await models.Colony.findAndCountAll({
-    where: { [Op.and]: and },
-    attributes: { include: [[sequelize.literal(lastPull()), 'lastPulledOn'], [sequelize.literal(flaggedCount()), 'flaggedSupers']] },
-    include: baseInclude,
-    order: sortKey === '$yard.name$'
-      ? [[{ model: models.Yard, as: 'yard' }, 'name', query.dir], ['code', 'ASC']]
-      : [[sortKey, query.dir], ['code', 'ASC']],
-    limit: query.pageSize,
-    offset: (query.page - 1) * query.pageSize,
-  });
-  return { rows: rows.map(toRow), total: count, page: query.page, pageSize: query.pageSize };
-}
-
-/** A colony with its line, or null when missing or outside the user's yards. */
-export async function getColony(user: Viewer, colonyId: number): Promise<ColonyDetail | null> {
-  const { sequelize, models } = getDb();
-  const scoped = await colonyInScope(user, colonyId);
-  if (!scoped) return null;
-  const c = await models.Colony.findByPk(colonyId, {
-    attributes: { include: [[sequelize.literal(lastPull()), 'lastPulledOn'], [sequelize.literal(flaggedCount()), 'flaggedSupers']] },
-    include: [
-      ...baseInclude,
-      { association: 'parent', attributes: ['id', 'code'] },
-      { association: 'splits', attributes: ['id', 'code', 'status'] },
-      { association: 'combinedInto', attributes: ['id', 'code'] },
-    ],
-  });
-  if (!c) return null;
-  return {
-    ...toRow(c), notes: c.notes,
-    parent: c.parent ? { id: c.parent.id, code: c.parent.code } : null,
-    splits: (c.splits ?? []).map((s) => ({ id: s.id, code: s.code, status: s.status })).sort((a, b) => a.code.localeCompare(b.code)),
-    combinedInto: c.combinedInto ? { id: c.combinedInto.id, code: c.combinedInto.code } : null,
-  };
-}
 
 /** A colony the user may write, or a 404 (never 403: another keeper's colony is not shown to exist). */
-export async function writableColony(user: Viewer, colonyId: number, transaction?: Parameters<typeof colonyInScope>[2]): Promise<Colony> {
+export async function writableColony(user: SessionUser, colonyId: number, transaction?: Parameters<typeof colonyInScope>[2]): Promise<Colony> {
   const colony = canWriteColonies(user) ? await colonyInScope(user, colonyId, transaction) : null;
   if (!colony) throw new NotFoundError('No such colony.');
   return colony;
 }
 
-async function keeperFor(user: Viewer, yardId: number, requested: number | undefined): Promise<number> {
+async function keeperFor(user: SessionUser, yardId: number, requested: number | undefined): Promise<number> {
   const { models } = getDb();
   if (user.role === 'keeper') return user.id; // a keeper records colonies as their own
   const keeperId = requested ?? user.id;
@@ -117,7 +36,7 @@ function uniqueCode<T>(p: Promise<T>, code: string): Promise<T> {
   });
 }
 
-export async function createColony(user: Viewer, data: ColonyData): Promise<number> {
+export async function createColony(user: SessionUser, data: ColonyData): Promise<number> {
   const { sequelize, models } = getDb();
   if (!canWriteColonies(user) || !inScope(await yardScope(user), data.yardId)) throw new NotFoundError('No such yard.');
   if (data.origin === 'split' && !data.parentColonyId) throw new InvalidError('A split needs the colony it was split from.');
@@ -130,7 +49,7 @@ export async function createColony(user: Viewer, data: ColonyData): Promise<numb
   }), data.code);
 }
 
-export async function updateColony(user: Viewer, colonyId: number, data: Omit<ColonyData, 'yardId'>): Promise<void> {
+export async function updateColony(user: SessionUser, colonyId: number, data: Omit<ColonyData, 'yardId'>): Promise<void> {
   const { sequelize } = getDb();
   await uniqueCode(sequelize.transaction(async (t) => {
     const colony = await writableColony(user, colonyId, t);
@@ -145,7 +64,7 @@ export async function updateColony(user: Viewer, colonyId: number, data: Omit<Co
 }
 
 /** Moves keep the colony's history: only the yard changes, and a move event records from and to. */
-export async function moveColony(user: Viewer, input: { colonyId: number; yardId: number; occurredOn: string; note: string }): Promise<void> {
+export async function moveColony(user: SessionUser, input: { colonyId: number; yardId: number; occurredOn: string; note: string }): Promise<void> {
   const { sequelize, models } = getDb();
   await sequelize.transaction(async (t) => {
     const colony = await writableColony(user, input.colonyId, t);
@@ -160,7 +79,7 @@ export async function moveColony(user: Viewer, input: { colonyId: number; yardId
   });
 }
 
-export async function setColonyStatus(user: Viewer, input: { colonyId: number; status: ColonyStatus; combinedIntoCode?: string; occurredOn: string; note: string }): Promise<void> {
+export async function setColonyStatus(user: SessionUser, input: { colonyId: number; status: ColonyStatus; combinedIntoCode?: string; occurredOn: string; note: string }): Promise<void> {
   const { sequelize, models } = getDb();
   await sequelize.transaction(async (t) => {
     const colony = await writableColony(user, input.colonyId, t);
@@ -179,7 +98,7 @@ export async function setColonyStatus(user: Viewer, input: { colonyId: number; s
 }
 
 /** A split makes the new colony (origin split, parent link) and a split event on the parent. Idempotent by key. */
-export async function splitColony(user: Viewer, input: { colonyId: number; newCode: string; occurredOn: string; queenYear: number | null; note: string; idempotencyKey: string }): Promise<number> {
+export async function splitColony(user: SessionUser, input: { colonyId: number; newCode: string; occurredOn: string; queenYear: number | null; note: string; idempotencyKey: string }): Promise<number> {
   const { sequelize, models } = getDb();
   const done = await models.ColonyEvent.findOne({ where: { idempotencyKey: input.idempotencyKey } });
   if (done) return Number(done.details.childId);
@@ -195,7 +114,7 @@ export async function splitColony(user: Viewer, input: { colonyId: number; newCo
   }), input.newCode);
 }
 
-export async function addColonyNote(user: Viewer, input: { colonyId: number; occurredOn: string; note: string; idempotencyKey: string }): Promise<void> {
+export async function addColonyNote(user: SessionUser, input: { colonyId: number; occurredOn: string; note: string; idempotencyKey: string }): Promise<void> {
   const { models } = getDb();
   const colony = await writableColony(user, input.colonyId);
   await models.ColonyEvent.findOrCreate({
