@@ -1,34 +1,35 @@
 'use client';
-import { useState } from 'react';
 import Link from 'next/link';
-import { FormMessage } from '@/components/ui/form-message';
+import { resetPasswordInput, type ResetPasswordInput } from '@/lib/schemas/auth';
 import type { ActionResult } from '@/lib/schemas/result';
-import type { ResetPasswordInput } from '@/lib/schemas/auth';
+import { TextField } from '@/components/ui/text-field';
+import { FormMessage } from '@/components/ui/form-message';
+import { useActionForm } from '@/components/ui/use-action-form';
+
+// The token comes from the link, not from the person: the server checks it and says so if it is not valid.
+const passwordOnly = resetPasswordInput.pick({ password: true });
 
 export function ResetPasswordForm({ token, onReset }: { token: string; onReset: (v: ResetPasswordInput) => Promise<ActionResult> }) {
-  const [state, setState] = useState<{ error?: string; done?: boolean; busy?: boolean }>({});
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    setState({ busy: true });
-    const result = await onReset({ token, password: String(new FormData(e.currentTarget).get('password') ?? '') });
-    setState(result.ok ? { done: true } : { error: result.fieldErrors?.password ?? result.message });
-  }
-  if (state.done) {
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: passwordOnly,
+    defaultValues: { password: '' },
+    action: ({ password }) => onReset({ token, password }),
+    successMessage: 'Your password is set.',
+  });
+  if (message.success) {
     return (
       <div className="card space-y-3">
-        <FormMessage success="Your password is set." />
+        <FormMessage {...message} />
         <Link className="btn-primary no-underline" href="/sign-in">Sign in</Link>
       </div>
     );
   }
   return (
-    <form onSubmit={onSubmit} className="card space-y-4" noValidate>
-      <label className="field" htmlFor="password"><span>New password</span>
-        <input id="password" name="password" type="password" autoComplete="new-password" required className="input" aria-describedby="password-hint" />
-        <small id="password-hint" className="hint">At least 8 characters. A long phrase is best.</small>
-      </label>
-      <FormMessage error={state.error} />
-      <button type="submit" className="btn-primary w-full" disabled={state.busy}>Save password</button>
+    <form onSubmit={submit} className="card space-y-4" noValidate>
+      <TextField label="New password" type="password" registration={form.register('password')} error={errors.password} autoComplete="new-password" required
+        hint="At least 8 characters. A long phrase is best." />
+      <FormMessage {...message} />
+      <button type="submit" className="btn-primary w-full" disabled={pending}>Save password</button>
     </form>
   );
 }

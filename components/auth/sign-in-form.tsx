@@ -1,8 +1,11 @@
 'use client';
-import { useState } from 'react';
 import { signIn } from 'next-auth/react';
 import Link from 'next/link';
+import { signInInput } from '@/lib/schemas/auth';
+import { fail, type ActionResult } from '@/lib/schemas/result';
+import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
+import { useActionForm } from '@/components/ui/use-action-form';
 
 const MESSAGES: Record<string, string> = {
   CredentialsSignin: 'That e-mail and password do not match an account.',
@@ -10,32 +13,26 @@ const MESSAGES: Record<string, string> = {
 };
 
 export function SignInForm({ next }: { next?: string }) {
-  const [error, setError] = useState<string>();
-  const [busy, setBusy] = useState(false);
-
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const form = new FormData(e.currentTarget);
-    setBusy(true);
-    setError(undefined);
-    const res = await signIn('credentials', { redirect: false, email: String(form.get('email') ?? ''), password: String(form.get('password') ?? '') });
-    setBusy(false);
-    if (!res || res.error) return setError(MESSAGES[res?.error ?? ''] ?? MESSAGES.CredentialsSignin);
-    // Only same-site paths are followed after sign-in.
-    const target = next && next.startsWith('/') && !next.startsWith('//') ? next : '/welcome';
-    window.location.assign(target);
-  }
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: signInInput,
+    defaultValues: { email: '', password: '' },
+    action: async ({ email, password }): Promise<ActionResult> => {
+      const res = await signIn('credentials', { redirect: false, email, password });
+      return !res || res.error ? fail(MESSAGES[res?.error ?? ''] ?? MESSAGES.CredentialsSignin) : { ok: true };
+    },
+    onSuccess: () => {
+      // Only same-site paths are followed after sign-in.
+      const target = next && next.startsWith('/') && !next.startsWith('//') ? next : '/welcome';
+      window.location.assign(target);
+    },
+  });
 
   return (
-    <form onSubmit={onSubmit} className="card space-y-4" noValidate>
-      <label className="field" htmlFor="email"><span>E-mail</span>
-        <input id="email" name="email" type="email" autoComplete="email" required className="input" />
-      </label>
-      <label className="field" htmlFor="password"><span>Password</span>
-        <input id="password" name="password" type="password" autoComplete="current-password" required className="input" />
-      </label>
-      <FormMessage error={error} />
-      <button type="submit" className="btn-primary w-full" disabled={busy}>{busy ? 'Signing in…' : 'Sign in'}</button>
+    <form onSubmit={submit} className="card space-y-4" noValidate>
+      <TextField label="E-mail" type="email" registration={form.register('email')} error={errors.email} autoComplete="email" required />
+      <TextField label="Password" type="password" registration={form.register('password')} error={errors.password} autoComplete="current-password" required />
+      <FormMessage {...message} />
+      <button type="submit" className="btn-primary w-full" disabled={pending}>{pending ? 'Signing in…' : 'Sign in'}</button>
       <p className="flex justify-between text-sm">
         <Link href="/forgot-password">Forgot your password?</Link>
         <Link href="/sign-up">New here? Create an account</Link>

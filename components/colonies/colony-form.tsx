@@ -18,8 +18,13 @@ const ORIGIN_NAMES: Record<(typeof COLONY_ORIGINS)[number], string> = { package:
 
 export function ColonyForm({ initial, keepers, parents, onSave, submitLabel }: Props) {
   const router = useRouter();
-  const { form, submit, message } = useActionForm(colonyInput, onSave, initial, (data) => router.push(`/admin/colonies/${(data as { id: number }).id}`));
-  const { register, watch, formState: { errors, isSubmitting } } = form;
+  const { form, submit, pending: isSubmitting, errors, message } = useActionForm({
+    schema: colonyInput,
+    action: onSave,
+    defaultValues: initial,
+    onSuccess: (data) => router.push(`/admin/colonies/${data.id}`),
+  });
+  const { register, watch } = form;
   const origin = watch('origin');
   return (
     <form onSubmit={submit} className="card grid max-w-2xl gap-4" noValidate>
@@ -56,7 +61,7 @@ export function ColonyForm({ initial, keepers, parents, onSave, submitLabel }: P
         <span>Notes</span>
         <textarea id="notes" className="input min-h-20" {...register('notes')} />
       </label>
-      <FormMessage error={message} />
+      <FormMessage {...message} />
       <div><button type="submit" className="btn-primary min-h-11" disabled={isSubmitting}>{isSubmitting ? 'Saving…' : submitLabel}</button></div>
     </form>
   );

@@ -2,15 +2,16 @@
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import type { z } from 'zod';
-import { feedingInput, treatmentInput, noteInput, splitInput, moveInput, statusInput, FEEDING_KINDS } from '@/lib/schemas/colonies';
+import { feedingInput, feedingEndInput, treatmentInput, noteInput, splitInput, moveInput, statusInput, FEEDING_KINDS } from '@/lib/schemas/colonies';
 import { superOnInput, SUPER_DEPTHS } from '@/lib/schemas/supers';
+import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { newEntryKey } from '@/components/ui/entry-key';
-import { useActionForm, type SaveResult } from '@/components/ui/use-action-form';
+import { useActionForm, type AnyResult } from '@/components/ui/use-action-form';
 import { TreatmentCaution } from './treatment-caution';
 
-type Save<S extends z.ZodType> = (v: z.input<S>) => Promise<SaveResult>;
+type Save<S extends z.ZodType, Res extends AnyResult = AnyResult> = (v: z.input<S>) => Promise<Res>;
 type Base = { colonyId: number; today: string };
 
 /** Fresh key after every saved entry: a retry of the same entry reuses it, a new entry never does. */
@@ -28,8 +29,15 @@ const FEEDING_NAMES = { sugar_syrup: 'Sugar syrup', fondant: 'Fondant / candy', 
 export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof feedingInput> }) {
   const router = useRouter();
   const k = useEntryKey();
-  const { form, submit, message, done } = useActionForm(feedingInput, (v) => onSave({ ...v, idempotencyKey: k.key }), { colonyId, kind: 'sugar_syrup', amount: '', startedOn: today, endedOn: '', note: '', idempotencyKey: k.key }, () => { k.renew(); form.reset(); router.refresh(); });
-  const { register, formState: { errors, isSubmitting } } = form;
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: feedingInput,
+    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
+    defaultValues: { colonyId, kind: 'sugar_syrup', amount: '', startedOn: today, endedOn: '', note: '', idempotencyKey: k.key },
+    successMessage: 'Saved.',
+    resetOnSuccess: true,
+    onSuccess: () => { k.renew(); router.refresh(); },
+  });
+  const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a feeding">
       <label className="field" htmlFor="feed-kind"><span>Feed</span>
@@ -40,8 +48,8 @@ export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<t
         <TextField id="feed-start" label="Started" type="date" registration={register('startedOn')} error={errors.startedOn} />
         <TextField id="feed-end" label="Ended (blank if still feeding)" type="date" registration={register('endedOn')} error={errors.endedOn} />
       </div>
-      <FormMessage error={message} success={done} />
-      <Submit busy={isSubmitting} label="Save feeding" />
+      <FormMessage {...message} />
+      <Submit busy={pending} label="Save feeding" />
     </form>
   );
 }
@@ -49,8 +57,15 @@ export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<t
 export function TreatmentForm({ colonyId, today, kinds, onSave }: Base & { kinds: { id: number; name: string; supersAllowed: boolean; waitingDays: number }[]; onSave: Save<typeof treatmentInput> }) {
   const router = useRouter();
   const k = useEntryKey();
-  const { form, submit, message, done } = useActionForm(treatmentInput, (v) => onSave({ ...v, idempotencyKey: k.key }), { colonyId, treatmentKindId: kinds[0]?.id, productName: '', appliedOn: today, removedOn: '', note: '', idempotencyKey: k.key }, () => { k.renew(); form.reset(); router.refresh(); });
-  const { register, formState: { errors, isSubmitting } } = form;
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: treatmentInput,
+    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
+    defaultValues: { colonyId, treatmentKindId: kinds[0]?.id, productName: '', appliedOn: today, removedOn: '', note: '', idempotencyKey: k.key },
+    successMessage: 'Saved.',
+    resetOnSuccess: true,
+    onSuccess: () => { k.renew(); router.refresh(); },
+  });
+  const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a mite treatment">
       <TreatmentCaution />
@@ -64,8 +79,8 @@ export function TreatmentForm({ colonyId, today, kinds, onSave }: Base & { kinds
         <TextField id="treat-on" label="Applied" type="date" registration={register('appliedOn')} error={errors.appliedOn} />
         <TextField id="treat-off" label="Removed (blank if still on)" type="date" registration={register('removedOn')} error={errors.removedOn} />
       </div>
-      <FormMessage error={message} success={done} />
-      <Submit busy={isSubmitting} label="Save treatment" />
+      <FormMessage {...message} />
+      <Submit busy={pending} label="Save treatment" />
     </form>
   );
 }
@@ -73,8 +88,15 @@ export function TreatmentForm({ colonyId, today, kinds, onSave }: Base & { kinds
 export function SuperOnForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof superOnInput> }) {
   const router = useRouter();
   const k = useEntryKey();
-  const { form, submit, message, done } = useActionForm(superOnInput, (v) => onSave({ ...v, idempotencyKey: k.key }), { colonyId, depth: 'medium', frameCount: 10, tagCode: '', putOnOn: today, idempotencyKey: k.key }, () => { k.renew(); form.reset(); router.refresh(); });
-  const { register, formState: { errors, isSubmitting } } = form;
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: superOnInput,
+    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
+    defaultValues: { colonyId, depth: 'medium', frameCount: 10, tagCode: '', putOnOn: today, idempotencyKey: k.key },
+    successMessage: 'Saved.',
+    resetOnSuccess: true,
+    onSuccess: () => { k.renew(); router.refresh(); },
+  });
+  const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a super put on">
       <div className="grid gap-3 sm:grid-cols-2">
@@ -85,8 +107,8 @@ export function SuperOnForm({ colonyId, today, onSave }: Base & { onSave: Save<t
         <TextField id="on-tag" label="Tag code (optional)" registration={register('tagCode')} error={errors.tagCode} />
         <TextField id="on-date" label="Put on" type="date" registration={register('putOnOn')} error={errors.putOnOn} />
       </div>
-      <FormMessage error={message} success={done} />
-      <Submit busy={isSubmitting} label="Save super on" />
+      <FormMessage {...message} />
+      <Submit busy={pending} label="Save super on" />
     </form>
   );
 }
@@ -94,24 +116,36 @@ export function SuperOnForm({ colonyId, today, onSave }: Base & { onSave: Save<t
 export function NoteForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof noteInput> }) {
   const router = useRouter();
   const k = useEntryKey();
-  const { form, submit, message, done } = useActionForm(noteInput, (v) => onSave({ ...v, idempotencyKey: k.key }), { colonyId, occurredOn: today, note: '', idempotencyKey: k.key }, () => { k.renew(); form.reset(); router.refresh(); });
-  const { register, formState: { errors, isSubmitting } } = form;
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: noteInput,
+    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
+    defaultValues: { colonyId, occurredOn: today, note: '', idempotencyKey: k.key },
+    successMessage: 'Saved.',
+    resetOnSuccess: true,
+    onSuccess: () => { k.renew(); router.refresh(); },
+  });
+  const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Add a note">
       <label className="field" htmlFor="note-text"><span>Note</span><textarea id="note-text" className="input min-h-20" {...register('note')} />
         {errors.note ? <small className="field-error" role="alert">{errors.note.message}</small> : null}</label>
       <TextField id="note-date" label="Date" type="date" registration={register('occurredOn')} error={errors.occurredOn} />
-      <FormMessage error={message} success={done} />
-      <Submit busy={isSubmitting} label="Save note" />
+      <FormMessage {...message} />
+      <Submit busy={pending} label="Save note" />
     </form>
   );
 }
 
-export function SplitForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof splitInput> }) {
+export function SplitForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof splitInput, ActionResult<{ id: number }>> }) {
   const router = useRouter();
   const k = useEntryKey();
-  const { form, submit, message } = useActionForm(splitInput, (v) => onSave({ ...v, idempotencyKey: k.key }), { colonyId, newCode: '', occurredOn: today, queenYear: '', note: '', idempotencyKey: k.key }, (data) => { k.renew(); router.push(`/admin/colonies/${(data as { id: number }).id}`); });
-  const { register, formState: { errors, isSubmitting } } = form;
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: splitInput,
+    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
+    defaultValues: { colonyId, newCode: '', occurredOn: today, queenYear: '', note: '', idempotencyKey: k.key },
+    onSuccess: (data) => { k.renew(); router.push(`/admin/colonies/${data.id}`); },
+  });
+  const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a split">
       <div className="grid gap-3 sm:grid-cols-2">
@@ -119,16 +153,22 @@ export function SplitForm({ colonyId, today, onSave }: Base & { onSave: Save<typ
         <TextField id="split-date" label="Split on" type="date" registration={register('occurredOn')} error={errors.occurredOn} />
         <TextField id="split-queen" label="New queen year (optional)" inputMode="numeric" registration={register('queenYear')} error={errors.queenYear} />
       </div>
-      <FormMessage error={message} />
-      <Submit busy={isSubmitting} label="Save split" />
+      <FormMessage {...message} />
+      <Submit busy={pending} label="Save split" />
     </form>
   );
 }
 
 export function MoveForm({ colonyId, today, yards, onSave }: Base & { yards: { id: number; name: string }[]; onSave: Save<typeof moveInput> }) {
   const router = useRouter();
-  const { form, submit, message, done } = useActionForm(moveInput, onSave, { colonyId, yardId: yards[0]?.id, occurredOn: today, note: '' }, () => router.refresh());
-  const { register, formState: { errors, isSubmitting } } = form;
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: moveInput,
+    action: onSave,
+    defaultValues: { colonyId, yardId: yards[0]?.id, occurredOn: today, note: '' },
+    successMessage: 'Saved.',
+    onSuccess: () => router.refresh(),
+  });
+  const { register } = form;
   if (yards.length === 0) return <p className="hint">No other yard to move to.</p>;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Move to another yard">
@@ -136,16 +176,22 @@ export function MoveForm({ colonyId, today, yards, onSave }: Base & { yards: { i
         <select id="move-yard" className="input min-h-11" {...register('yardId')}>{yards.map((y) => <option key={y.id} value={y.id}>{y.name}</option>)}</select>
       </label>
       <TextField id="move-date" label="Moved on" type="date" registration={register('occurredOn')} error={errors.occurredOn} />
-      <FormMessage error={message} success={done} />
-      <Submit busy={isSubmitting} label="Move colony" />
+      <FormMessage {...message} />
+      <Submit busy={pending} label="Move colony" />
     </form>
   );
 }
 
 export function StatusForm({ colonyId, today, status, onSave }: Base & { status: string; onSave: Save<typeof statusInput> }) {
   const router = useRouter();
-  const { form, submit, message, done } = useActionForm(statusInput, onSave, { colonyId, status: status as 'active', combinedIntoCode: '', occurredOn: today, note: '' }, () => router.refresh());
-  const { register, watch, formState: { errors, isSubmitting } } = form;
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: statusInput,
+    action: onSave,
+    defaultValues: { colonyId, status: status as 'active', combinedIntoCode: '', occurredOn: today, note: '' },
+    successMessage: 'Saved.',
+    onSuccess: () => router.refresh(),
+  });
+  const { register, watch } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Change status">
       <label className="field" htmlFor="status-value"><span>Status</span>
@@ -156,29 +202,27 @@ export function StatusForm({ colonyId, today, status, onSave }: Base & { status:
       {watch('status') === 'combined' ? <TextField id="status-into" label="Combined into (colony code)" registration={register('combinedIntoCode')} error={errors.combinedIntoCode} /> : null}
       <TextField id="status-date" label="Date" type="date" registration={register('occurredOn')} error={errors.occurredOn} />
       <TextField id="status-note" label="Note" registration={register('note')} error={errors.note} />
-      <FormMessage error={message} success={done} />
-      <Submit busy={isSubmitting} label="Save status" />
+      <FormMessage {...message} />
+      <Submit busy={pending} label="Save status" />
     </form>
   );
 }
 
 /** Ends an open feeding or treatment with a date; the colony's supers are re-checked on save. */
-export function EndRecordForm({ label, today, onEnd }: { label: string; today: string; onEnd: (date: string) => Promise<SaveResult> }) {
+export function EndRecordForm({ label, today, onEnd }: { label: string; today: string; onEnd: (date: string) => Promise<AnyResult> }) {
   const router = useRouter();
-  const [date, setDate] = useState(today);
-  const [msg, setMsg] = useState<string>();
-  const [busy, setBusy] = useState(false);
+  // A feeding's end date and a treatment's removal date follow the same rule.
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: feedingEndInput.pick({ endedOn: true }),
+    action: ({ endedOn }) => onEnd(endedOn),
+    defaultValues: { endedOn: today },
+    onSuccess: () => router.refresh(),
+  });
   return (
-    <form className="mt-2 flex flex-wrap items-end gap-2" onSubmit={async (e) => {
-      e.preventDefault();
-      setBusy(true);
-      const r = await onEnd(date).catch(() => ({ ok: false as const, message: 'Could not reach the server.' }));
-      setBusy(false);
-      if (r.ok) router.refresh(); else setMsg(r.message);
-    }}>
-      <label className="field"><span className="text-xs">{label}</span><input type="date" className="input min-h-11" value={date} onChange={(e) => setDate(e.target.value)} /></label>
-      <button type="submit" className="btn-quiet min-h-11" disabled={busy}>{label}</button>
-      {msg ? <small className="field-error" role="alert">{msg}</small> : null}
+    <form className="mt-2 flex flex-wrap items-end gap-2" onSubmit={submit} noValidate>
+      <label className="field"><span className="text-xs">{label}</span><input type="date" className="input min-h-11" aria-invalid={errors.endedOn ? true : undefined} {...form.register('endedOn')} /></label>
+      <button type="submit" className="btn-quiet min-h-11" disabled={pending}>{label}</button>
+      <div className="w-full"><FormMessage error={message.error ?? errors.endedOn?.message} /></div>
     </form>
   );
 }

@@ -3,13 +3,20 @@ import { useRouter } from 'next/navigation';
 import { treatmentKindInput, type TreatmentKindInput } from '@/lib/schemas/treatment-kinds';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
-import { useActionForm, type SaveResult } from '@/components/ui/use-action-form';
+import { useActionForm, type AnyResult } from '@/components/ui/use-action-form';
 
 /** One treatment kind (new or existing). Values are copied from the product label by the owner. */
-export function TreatmentKindForm({ initial, onSave }: { initial?: TreatmentKindInput; onSave: (v: TreatmentKindInput) => Promise<SaveResult> }) {
+export function TreatmentKindForm({ initial, onSave }: { initial?: TreatmentKindInput; onSave: (v: TreatmentKindInput) => Promise<AnyResult> }) {
   const router = useRouter();
-  const { form, submit, message, done } = useActionForm(treatmentKindInput, onSave, initial ?? { name: '', supersAllowed: false, waitingDays: 0, notes: '', active: true }, () => { if (!initial) form.reset(); router.refresh(); });
-  const { register, formState: { errors, isSubmitting } } = form;
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: treatmentKindInput,
+    action: onSave,
+    defaultValues: initial ?? { name: '', supersAllowed: false, waitingDays: 0, notes: '', active: true },
+    successMessage: 'Saved.',
+    resetOnSuccess: !initial,
+    onSuccess: () => router.refresh(),
+  });
+  const { register } = form;
   const p = initial?.id ? `k${initial.id}` : 'new';
   return (
     <form onSubmit={submit} className="grid gap-3 sm:grid-cols-[2fr_auto_1fr_2fr_auto_auto] sm:items-end" noValidate aria-label={initial ? `Edit ${initial.name}` : 'New treatment kind'}>
@@ -18,8 +25,8 @@ export function TreatmentKindForm({ initial, onSave }: { initial?: TreatmentKind
       <TextField id={`${p}-wait`} label="Waiting days after removal" inputMode="numeric" registration={register('waitingDays')} error={errors.waitingDays} />
       <TextField id={`${p}-notes`} label="Notes" registration={register('notes')} error={errors.notes} />
       <label className="flex min-h-11 items-center gap-2" htmlFor={`${p}-active`}><input id={`${p}-active`} type="checkbox" className="h-5 w-5" {...register('active')} />In use</label>
-      <button type="submit" className="btn-secondary min-h-11" disabled={isSubmitting}>{initial ? 'Save' : 'Add kind'}</button>
-      <div className="sm:col-span-6"><FormMessage error={message} success={done} /></div>
+      <button type="submit" className="btn-secondary min-h-11" disabled={pending}>{initial ? 'Save' : 'Add kind'}</button>
+      <div className="sm:col-span-6"><FormMessage {...message} /></div>
     </form>
   );
 }

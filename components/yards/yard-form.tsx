@@ -14,8 +14,13 @@ type Props = {
 
 export function YardForm({ initial, keepers, onSave }: Props) {
   const router = useRouter();
-  const { form, submit, message } = useActionForm(yardInput, onSave, initial ?? { name: '', place: '', forageNotes: '', keeperIds: [] }, (data) => router.push(`/admin/yards/${(data as { id: number }).id}`));
-  const { register, formState: { errors, isSubmitting } } = form;
+  const { form, submit, pending: isSubmitting, errors, message } = useActionForm({
+    schema: yardInput,
+    action: onSave,
+    defaultValues: initial ?? { name: '', place: '', forageNotes: '', keeperIds: [] },
+    onSuccess: (data) => router.push(`/admin/yards/${data.id}`),
+  });
+  const { register } = form;
   return (
     <form onSubmit={submit} className="card grid max-w-2xl gap-4" noValidate>
       <TextField label="Yard name" registration={register('name')} error={errors.name} />
@@ -37,7 +42,7 @@ export function YardForm({ initial, keepers, onSave }: Props) {
           </label>
         ))}
       </fieldset>
-      <FormMessage error={message} />
+      <FormMessage {...message} />
       <div><button type="submit" className="btn-primary min-h-11" disabled={isSubmitting}>{isSubmitting ? 'Saving…' : 'Save yard'}</button></div>
     </form>
   );

@@ -1,10 +1,10 @@
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
-import { z } from 'zod';
 import { authenticate } from '@/lib/data/auth/sign-in';
 import { bumpSessionVersion } from '@/lib/data/staff/users';
 import { isRole, type Role } from './roles';
 import { clientIp } from '@/lib/http/client-ip';
+import { signInInput } from '@/lib/schemas/auth';
 
 declare module 'next-auth' {
   interface Session {
@@ -22,8 +22,6 @@ declare module 'next-auth/jwt' {
     sv?: number;
   }
 }
-
-const credentials = z.object({ email: z.string().trim().toLowerCase().email().max(254), password: z.string().min(1).max(1024) });
 
 /**
  * The session cookie, stated here rather than left to defaults (ASVS 3.3.1–3.3.4): never readable by
@@ -48,7 +46,7 @@ export const authOptions: NextAuthOptions = {
       name: 'E-mail and password',
       credentials: { email: { label: 'E-mail', type: 'email' }, password: { label: 'Password', type: 'password' } },
       async authorize(raw, req) {
-        const parsed = credentials.safeParse(raw);
+        const parsed = signInInput.safeParse(raw);
         if (!parsed.success) return null;
         const result = await authenticate(parsed.data.email, parsed.data.password, clientIp(req?.headers as Record<string, unknown> | undefined));
         if (result.status === 'throttled') throw new Error('Throttled');

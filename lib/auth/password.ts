@@ -1,5 +1,4 @@
 import { randomBytes, scrypt as scryptCb, timingSafeEqual, createHash, type ScryptOptions } from 'node:crypto';
-import { COMMON_PASSWORDS } from './common-passwords';
 
 function scrypt(password: string, salt: Buffer, keylen: number, opts: ScryptOptions): Promise<Buffer> {
   return new Promise((resolve, reject) =>
@@ -35,16 +34,6 @@ export async function verifyPassword(password: string, stored: string | null): P
 }
 
 const DUMMY = `scrypt$${LOG_N}$8$1$${Buffer.alloc(16).toString('base64')}$${Buffer.alloc(32).toString('base64')}`;
-
-const COMMON = new Set(COMMON_PASSWORDS.map((p) => p.toLowerCase()));
-
-/** ASVS 6.2: at least 8 characters, no composition rules, common passwords refused. */
-export function passwordProblem(password: string): string | null {
-  if ([...password].length < 8) return 'Use at least 8 characters.';
-  if ([...password].length > 128) return 'Use at most 128 characters.';
-  if (COMMON.has(password.toLowerCase())) return 'That password is too common. Pick something less guessable.';
-  return null;
-}
 
 export function newToken(): { token: string; tokenHash: string } {
   const token = randomBytes(32).toString('base64url');

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { passwordProblem } from '@/lib/auth/password';
+import { passwordProblem } from '@/lib/domain/password-rules';
 
 export const email = z.string().trim().toLowerCase().max(254, 'That e-mail address is too long.').email('Enter a valid e-mail address.');
 export const personName = z.string().trim().min(1, 'Enter a name.').max(120, 'Keep the name under 120 characters.');
@@ -8,6 +8,10 @@ export const password = z.string().superRefine((value, ctx) => {
   const problem = passwordProblem(value);
   if (problem) ctx.addIssue({ code: 'custom', message: problem });
 });
+
+/** What the sign-in form sends to next-auth's credentials provider, which parses it again. */
+export const signInInput = z.object({ email, password: z.string().min(1, 'Enter your password.').max(1024) });
+export type SignInInput = z.input<typeof signInInput>;
 
 // .strict() is not used: extra fields such as `role` are dropped by zod, never trusted.
 export const signUpInput = z.object({ name: personName, email, password });

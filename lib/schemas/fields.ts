@@ -12,3 +12,10 @@ export const blankToNull = (schema: z.ZodType<number, unknown>) =>
   z.union([z.literal(''), z.null(), z.nan(), schema]).optional()
     .transform((v): number | null => (typeof v === 'number' && !Number.isNaN(v) ? v : null));
 
+/**
+ * One file picked in an `<input type="file">` (a FileList, so browser forms only), at most
+ * `maxBytes`. The route handler that receives it checks size and type again, by content.
+ */
+export const chosenFile = (maxBytes: number, messages: { missing: string; tooLarge: string }) =>
+  z.custom<FileList>((v) => typeof FileList !== 'undefined' && v instanceof FileList && v.length === 1 && v[0].size > 0, messages.missing)
+    .refine((v) => !v?.[0] || v[0].size <= maxBytes, messages.tooLarge);

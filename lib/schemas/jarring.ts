@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { isValidGtin } from '@/lib/domain/gs1';
+import { chosenFile } from './fields';
 
 const money = z.coerce.number({ error: 'Enter a price.' }).min(0, 'A price cannot be negative.').max(100_000, 'That price is too high.');
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Pick a date.');
@@ -31,6 +32,12 @@ export const productInput = z
   });
 export type ProductInput = z.input<typeof productInput>;
 export type ProductData = z.output<typeof productInput>;
+
+/** The product photo form (JPEG, PNG or WebP, at most 5 MB); the route handler checks the type by content. */
+export const productPhotoInput = z.object({
+  photo: chosenFile(5 * 1024 * 1024, { missing: 'Choose a photo first.', tooLarge: 'The photo is larger than 5 MB.' }),
+});
+export type ProductPhotoInput = z.input<typeof productPhotoInput>;
 
 /** Sample weights typed as "452, 455 449": commas, spaces or new lines between them. */
 export function parseSampleWeights(text: string): number[] {

@@ -1,5 +1,7 @@
 import { z } from 'zod';
 import { listQuery } from './list-query';
+import { chosenFile } from './fields';
+import { LAB_FILE_MAX_BYTES } from '@/lib/domain/file-type';
 
 const id = z.coerce.number().int().positive();
 const reason = (what: string) => z.string().trim().min(5, `Write a reason for ${what} (at least 5 characters).`).max(1000);
@@ -55,6 +57,22 @@ export const readingInput = z.discriminatedUnion('method', [
 ]);
 export type ReadingInput = z.input<typeof readingInput>;
 
+/** The reading form: one flat form for both kinds of refractometer, sent as a `readingInput` of the chosen kind. */
+export const readingFormInput = z.object({
+  lotId: id,
+  method: z.enum(['ri', 'scale']),
+  refractiveIndex: z.string().trim(),
+  scaleWaterPct: z.string().trim(),
+  temperatureC: z.string().trim(),
+  takenOn: day,
+}).superRefine((v, ctx) => {
+  if (v.method === 'ri' && !/^1\.\d{3,5}$/.test(v.refractiveIndex)) ctx.addIssue({ code: 'custom', path: ['refractiveIndex'], message: 'Enter the refractive index, e.g. 1.4900.' });
+  if (v.method === 'ri' && v.temperatureC === '') ctx.addIssue({ code: 'custom', path: ['temperatureC'], message: 'Enter the sample temperature.' });
+  if (v.method === 'scale' && !(Number(v.scaleWaterPct) > 0)) ctx.addIssue({ code: 'custom', path: ['scaleWaterPct'], message: 'Enter the % water read on the scale.' });
+}).transform((v): ReadingInput => (v.method === 'ri'
+  ? { lotId: v.lotId, method: 'ri', refractiveIndex: Number(v.refractiveIndex), temperatureC: Number(v.temperatureC), takenOn: v.takenOn }
+  : { lotId: v.lotId, method: 'scale', scaleWaterPct: Number(v.scaleWaterPct), temperatureC: v.temperatureC === '' ? undefined : Number(v.temperatureC), takenOn: v.takenOn }));
+
 export const voidInput = z.object({ lotId: id, kind: z.enum(['container', 'reading', 'labFile']), recordId: id, reason: reason('the correction') });
 export type VoidInput = z.input<typeof voidInput>;
 
@@ -83,6 +101,17 @@ export const labResultsFields = z.object({
   diastaseSchade: optionalNumber.pipe(z.number().min(0).max(100).optional()),
   insolubleG100g: optionalNumber.pipe(z.number().min(0).max(100).optional()),
 });
+
+const decimalText = z.string().trim().regex(/^(\d+([.,]\d+)?)?$/, 'A number, or leave empty.').transform((s) => s.replace(',', '.'));
+
+/** The lab report upload form: the file and the results as typed (empty = not measured); the route handler parses them again. */
+export const labUploadFormInput = z.object({
+  file: chosenFile(LAB_FILE_MAX_BYTES, { missing: 'Choose a file.', tooLarge: 'The file is larger than 10 MB.' }),
+  hmfMgKg: decimalText,
+  diastaseSchade: decimalText,
+  insolubleG100g: decimalText,
+});
+export type LabUploadFormInput = z.input<typeof labUploadFormInput>;
 
 /** The lot list's query (page, pageSize, sort, dir and filters); sort fields come from an allow-list. */
 export const LOT_SORTS = ['createdAt', 'code', 'extractedOn', 'netGrams'] as const;

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { hashPassword, passwordProblem, verifyPassword, newToken, sha256 } from '@/lib/auth/password';
+import { hashPassword, verifyPassword, newToken, sha256 } from '@/lib/auth/password';
+import { passwordProblem } from '@/lib/domain/password-rules';
 
 describe('passwords (ASVS 6.2)', () => {
   it('accepts 8+ characters with no composition rules, long ones too', () => {

@@ -1,3 +1,9 @@
+/**
+ * The password rules, pure so that forms in the browser and the server check the same thing
+ * (hashing stays in lib/auth/password.ts). ASVS 6.2: at least 8 characters, no composition
+ * rules, commonly breached passwords refused.
+ */
+
 /** Commonly breached passwords refused at sign-up and reset (ASVS 6.2.4); a short shipped list, extend as needed. */
 export const COMMON_PASSWORDS: readonly string[] = [
   "00000000", "11111111", "12121212", "123123123", "12341234", "12345678", "123456789", "1234567890",
@@ -13,3 +19,13 @@ export const COMMON_PASSWORDS: readonly string[] = [
   "shadow12", "starwars", "sunshine", "superman", "sweethoney", "trustno1", "welcome1", "welcome123",
   "whatever", "whatever1", "zaq12wsx", "zxcvbnm1",
 ];
+
+const COMMON = new Set(COMMON_PASSWORDS.map((p) => p.toLowerCase()));
+
+/** ASVS 6.2: at least 8 characters, no composition rules, common passwords refused. */
+export function passwordProblem(password: string): string | null {
+  if ([...password].length < 8) return 'Use at least 8 characters.';
+  if ([...password].length > 128) return 'Use at most 128 characters.';
+  if (COMMON.has(password.toLowerCase())) return 'That password is too common. Pick something less guessable.';
+  return null;
+}
