@@ -1,15 +1,11 @@
 'use client';
 import { useState } from 'react';
 import Link from 'next/link';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
 import { jarringRunInput, type JarringRunInput } from '@/lib/schemas/jarring';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
-
-type Values = z.input<typeof jarringRunInput>;
+import { useActionForm } from '@/components/ui/use-action-form';
 export type RunFormLot = { id: number; code: string; floralSource: string; remainingText: string; jars: { productId: number; jars: number }[] };
 export type RunFormProduct = { id: number; name: string; containerGrams: number; netText: string };
 type RunResult = { runId: number; pass: boolean; reasons: string[]; stocked: boolean; packedOut: boolean; duplicate: boolean };
@@ -21,13 +17,19 @@ export function RunForm({ lots, products, ruleSet, today, onSave }: {
   lots: RunFormLot[]; products: RunFormProduct[]; ruleSet: 'oiml' | 'nist'; today: string;
   onSave: (v: JarringRunInput) => Promise<ActionResult<RunResult>>;
 }) {
-  const form = useForm<Values, unknown, z.output<typeof jarringRunInput>>({
-    resolver: zodResolver(jarringRunInput),
-    defaultValues: { lotId: lots[0]?.id ?? 0, productId: products[0]?.id ?? 0, runOn: today, sampleMode: 'net', samples: '', mavGrams: '', idempotencyKey: newKey() },
-  });
-  const [msg, setMsg] = useState<{ error?: string }>({});
+  // The run's outcome (passed, or failed with reasons) is shown in its own panel, not as a message.
   const [result, setResult] = useState<RunResult | null>(null);
-  const e = form.formState.errors;
+  const { form, submit, pending, errors: e, message } = useActionForm({
+    schema: jarringRunInput,
+    action: (values) => {
+      setResult(null);
+      return onSave(values);
+    },
+    defaultValues: { lotId: lots[0]?.id ?? 0, productId: products[0]?.id ?? 0, runOn: today, sampleMode: 'net', samples: '', mavGrams: '', idempotencyKey: newKey() },
+    // A new run needs a new key; a retry of this one (no answer) keeps it.
+    resetOnSuccess: (typed) => ({ ...typed, jarCount: undefined, samples: '', idempotencyKey: newKey() }),
+    onSuccess: (data) => setResult(data),
+  });
   const lotId = Number(form.watch('lotId'));
   const productId = Number(form.watch('productId'));
   const mode = form.watch('sampleMode');
@@ -35,24 +37,11 @@ export function RunForm({ lots, products, ruleSet, today, onSave }: {
   const product = products.find((p) => p.id === productId);
   const canFill = lot?.jars.find((j) => j.productId === productId)?.jars;
 
-  async function submit(values: z.output<typeof jarringRunInput>) {
-    setMsg({});
-    setResult(null);
-    const res = await onSave(values);
-    if (res.ok) {
-      setResult(res.data);
-      form.reset({ ...values, jarCount: undefined, samples: '', idempotencyKey: newKey() } as Values);
-      return;
-    }
-    for (const [name, message] of Object.entries(res.fieldErrors ?? {})) form.setError(name as keyof Values, { message });
-    setMsg({ error: res.message });
-  }
-
   if (lots.length === 0) return <p className="hint">No released lot has honey left. Release a lot in the honey house first.</p>;
   if (products.length === 0) return <p className="hint">No active product. The owner adds jar sizes under Products.</p>;
 
   return (
-    <form onSubmit={form.handleSubmit(submit)} className="space-y-4" noValidate aria-label="New jarring run">
+    <form onSubmit={submit} className="space-y-4" noValidate aria-label="New jarring run">
       <div className="grid gap-4 sm:grid-cols-2">
         <label className="field" htmlFor="lotId"><span>Lot (released)</span>
           <select id="lotId" className="input" {...form.register('lotId')}>
@@ -90,7 +79,7 @@ export function RunForm({ lots, products, ruleSet, today, onSave }: {
           hint="US rules (NIST Handbook 133): Combtrace does not hold the handbook's MAV table. Look up the maximum allowable variation for this labelled weight in Appendix A, Table 2-5, and enter it in grams." />
       ) : null}
       <input type="hidden" {...form.register('idempotencyKey')} />
-      <FormMessage error={msg.error} />
+      <FormMessage {...message} />
       {result ? (
         result.pass ? (
           <div role="status" className="rounded-lg bg-ok-bg px-3 py-2 text-sm font-medium text-ok-fg">
@@ -104,7 +93,7 @@ export function RunForm({ lots, products, ruleSet, today, onSave }: {
           </div>
         )
       ) : null}
-      <button type="submit" className="btn-primary w-full sm:w-auto" disabled={form.formState.isSubmitting}>Record jarring run</button>
+      <button type="submit" className="btn-primary w-full sm:w-auto" disabled={pending}>Record jarring run</button>
     </form>
   );
 }

@@ -1,19 +1,17 @@
 'use client';
-import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import type { ActionResult } from '@/lib/schemas/result';
+import { labelLayoutIdInput, type LabelLayoutIdInput } from '@/lib/schemas/jarring';
+import { FormMessage } from '@/components/ui/form-message';
+import { useActionForm } from '@/components/ui/use-action-form';
 
-export function DeleteLayoutButton({ layoutId, onDelete }: { layoutId: number; onDelete: (v: { layoutId: number }) => Promise<ActionResult> }) {
+export function DeleteLayoutButton({ layoutId, onDelete }: { layoutId: number; onDelete: (v: LabelLayoutIdInput) => Promise<ActionResult> }) {
   const router = useRouter();
-  const [error, setError] = useState<string | null>(null);
+  const { run, pending, message } = useActionForm({ schema: labelLayoutIdInput, action: onDelete, onSuccess: () => router.refresh() });
   return (
     <>
-      <button type="button" className="btn-quiet" onClick={async () => {
-        const res = await onDelete({ layoutId });
-        if (res.ok) router.refresh();
-        else setError(res.message ?? 'Could not delete.');
-      }}>Delete</button>
-      {error ? <span role="alert" className="field-error">{error}</span> : null}
+      <button type="button" className="btn-quiet" disabled={pending} onClick={() => run({ layoutId })}>Delete</button>
+      <FormMessage {...message} />
     </>
   );
 }

@@ -1,31 +1,28 @@
 'use client';
 import { useRouter } from 'next/navigation';
-import { useFieldArray, useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
+import { useFieldArray } from 'react-hook-form';
 import { blendFormInput, type BlendFormInput } from '@/lib/schemas/lots';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
-import { useResult } from './use-result';
+import { useActionForm } from '@/components/ui/use-action-form';
 
-type Values = z.input<typeof blendFormInput>;
 export type BlendableLot = { id: number; code: string; floralSource: string; remaining: string };
 
 /** A new lot from parts of released lots, by weight. */
 export function BlendForm({ lots, unit, onCreate }: { lots: BlendableLot[]; unit: 'kg' | 'lb'; onCreate: (v: BlendFormInput) => Promise<ActionResult<{ id: number; code: string }>> }) {
   const router = useRouter();
-  const form = useForm<Values, unknown, z.output<typeof blendFormInput>>({ resolver: zodResolver(blendFormInput), defaultValues: { floralSource: '', notes: '', unit, parts: [{ lotId: lots[0]?.id ?? 0, amount: '' as unknown as number }] } });
+  const { form, submit, pending, errors: e, message } = useActionForm({
+    schema: blendFormInput,
+    action: onCreate,
+    defaultValues: { floralSource: '', notes: '', unit, parts: [{ lotId: lots[0]?.id ?? 0, amount: '' }] },
+    successMessage: (blend) => `Blend ${blend.code} made.`,
+    onSuccess: (blend) => router.push(`/admin/lots/${blend.id}`),
+  });
   const parts = useFieldArray({ control: form.control, name: 'parts' });
-  const { msg, apply } = useResult(form);
-  const e = form.formState.errors;
-  async function submit(values: z.output<typeof blendFormInput>) {
-    const result = await onCreate(values);
-    if (apply(result, result.ok ? `Blend ${result.data.code} made.` : undefined) && result.ok) router.push(`/admin/lots/${result.data.id}`);
-  }
   if (!lots.length) return <p className="hint">No released lot has honey left to blend.</p>;
   return (
-    <form onSubmit={form.handleSubmit(submit)} className="card max-w-2xl space-y-4" noValidate>
+    <form onSubmit={submit} className="card max-w-2xl space-y-4" noValidate>
       <TextField label="Floral source of the blend" registration={form.register('floralSource')} error={e.floralSource} />
       <label className="field" htmlFor="unit"><span>Weights in</span>
         <select id="unit" className="input" {...form.register('unit')}><option value="kg">kg</option><option value="lb">lb</option></select></label>
@@ -41,11 +38,11 @@ export function BlendForm({ lots, unit, onCreate }: { lots: BlendableLot[]; unit
             {parts.fields.length > 1 ? <button type="button" className="btn-quiet" onClick={() => parts.remove(i)}>Remove</button> : <span />}
           </div>
         ))}
-        <button type="button" className="btn-quiet" onClick={() => parts.append({ lotId: lots[0].id, amount: '' as unknown as number })}>Add another parent</button>
+        <button type="button" className="btn-quiet" onClick={() => parts.append({ lotId: lots[0].id, amount: '' })}>Add another parent</button>
       </fieldset>
       <label className="field" htmlFor="notes"><span>Notes</span><textarea id="notes" rows={2} className="input" {...form.register('notes')} /></label>
-      <FormMessage error={msg.error ?? e.parts?.message} success={msg.success} />
-      <button type="submit" className="btn-primary w-full" disabled={form.formState.isSubmitting}>Make the blend</button>
+      <FormMessage error={message.error ?? e.parts?.message} success={message.success} />
+      <button type="submit" className="btn-primary w-full" disabled={pending}>Make the blend</button>
     </form>
   );
 }

@@ -1,22 +1,23 @@
 'use client';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
 import { containerInput, type ContainerInput } from '@/lib/schemas/lots';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
-import { useResult } from './use-result';
+import { useActionForm } from '@/components/ui/use-action-form';
 import { gramsToKg, gramsToLb } from '@/lib/domain/units';
 
-type Values = z.input<typeof containerInput>;
 export type ContainerTypeOption = { id: number; name: string; usualTareGrams: number };
 
 /** Gross and tare of one bucket, pail, drum or tank, in kg or lb; picking a type fills its usual tare. */
 export function ContainerForm({ lotId, types, unit, onSave }: { lotId: number; types: ContainerTypeOption[]; unit: 'kg' | 'lb'; onSave: (v: ContainerInput) => Promise<ActionResult> }) {
-  const form = useForm<Values, unknown, z.output<typeof containerInput>>({ resolver: zodResolver(containerInput), defaultValues: { lotId, unit, label: '', containerTypeId: '' as unknown as number } });
-  const { msg, setMsg, apply } = useResult(form);
-  const e = form.formState.errors;
+  const { form, submit, pending, errors: e, message } = useActionForm({
+    schema: containerInput,
+    action: onSave,
+    defaultValues: { lotId, unit, label: '', containerTypeId: '' },
+    successMessage: 'Container recorded.',
+    // The next container is often the same type: keep type, unit and tare, clear the rest.
+    resetOnSuccess: (typed) => ({ lotId, unit: typed.unit, label: '', containerTypeId: typed.containerTypeId, tare: typed.tare, gross: '' }),
+  });
   const typeField = form.register('containerTypeId', {
     onChange: (ev: React.ChangeEvent<HTMLSelectElement>) => {
       const t = types.find((x) => String(x.id) === ev.target.value);
@@ -26,12 +27,8 @@ export function ContainerForm({ lotId, types, unit, onSave }: { lotId: number; t
       form.setValue('tare', Number(tare.toFixed(u === 'kg' ? 3 : 2)));
     },
   });
-  async function submit(values: z.output<typeof containerInput>) {
-    setMsg({});
-    if (apply(await onSave(values), 'Container recorded.')) form.reset({ lotId, unit: values.unit, label: '', containerTypeId: values.containerTypeId, tare: values.tare, gross: '' as unknown as number });
-  }
   return (
-    <form onSubmit={form.handleSubmit(submit)} className="grid gap-3 sm:grid-cols-3" noValidate aria-label="Add a container">
+    <form onSubmit={submit} className="grid gap-3 sm:grid-cols-3" noValidate aria-label="Add a container">
       <label className="field" htmlFor="containerTypeId"><span>Container type</span>
         <select id="containerTypeId" className="input" {...typeField}>
           <option value="">Other</option>
@@ -44,8 +41,8 @@ export function ContainerForm({ lotId, types, unit, onSave }: { lotId: number; t
       </label>
       <TextField label="Gross weight" registration={form.register('gross')} error={e.gross} inputMode="decimal" />
       <TextField label="Tare (empty container)" registration={form.register('tare')} error={e.tare} inputMode="decimal" />
-      <div className="flex items-end"><button type="submit" className="btn-secondary w-full" disabled={form.formState.isSubmitting}>Add container</button></div>
-      <div className="sm:col-span-3"><FormMessage error={msg.error} success={msg.success} /></div>
+      <div className="flex items-end"><button type="submit" className="btn-secondary w-full" disabled={pending}>Add container</button></div>
+      <div className="sm:col-span-3"><FormMessage {...message} /></div>
     </form>
   );
 }

@@ -1,33 +1,29 @@
 'use client';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
 import { containerTypeInput, type ContainerTypeInput } from '@/lib/schemas/lots';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
-import { useResult } from './use-result';
-
-type Values = z.input<typeof containerTypeInput>;
+import { useActionForm } from '@/components/ui/use-action-form';
 
 /** Adds a container type, or edits one when `defaults.id` is given. */
-export function ContainerTypeForm({ defaults, onSave }: { defaults: Values; onSave: (v: ContainerTypeInput) => Promise<ActionResult<{ id: number }>> }) {
-  const form = useForm<Values, unknown, z.output<typeof containerTypeInput>>({ resolver: zodResolver(containerTypeInput), defaultValues: defaults });
-  const { msg, apply } = useResult(form);
-  const e = form.formState.errors;
+export function ContainerTypeForm({ defaults, onSave }: { defaults: ContainerTypeInput; onSave: (v: ContainerTypeInput) => Promise<ActionResult<{ id: number }>> }) {
+  const { form, submit, pending, errors: e, message } = useActionForm({
+    schema: containerTypeInput,
+    action: onSave,
+    defaultValues: defaults,
+    successMessage: 'Saved.',
+    resetOnSuccess: !defaults.id,
+  });
   const key = defaults.id ?? 'new';
-  async function submit(values: z.output<typeof containerTypeInput>) {
-    if (apply(await onSave(values), 'Saved.') && !defaults.id) form.reset(defaults);
-  }
   return (
-    <form onSubmit={form.handleSubmit(submit)} className="grid gap-2 sm:grid-cols-[1fr_8rem_6rem_auto_auto] sm:items-end" noValidate aria-label={defaults.id ? `Edit ${defaults.name}` : 'Add a container type'}>
+    <form onSubmit={submit} className="grid gap-2 sm:grid-cols-[1fr_8rem_6rem_auto_auto] sm:items-end" noValidate aria-label={defaults.id ? `Edit ${defaults.name}` : 'Add a container type'}>
       <TextField id={`name-${key}`} label="Name" registration={form.register('name')} error={e.name} />
       <TextField id={`tare-${key}`} label="Usual tare" registration={form.register('usualTare')} error={e.usualTare} inputMode="decimal" />
       <label className="field" htmlFor={`unit-${key}`}><span>Unit</span>
         <select id={`unit-${key}`} className="input" {...form.register('unit')}><option value="kg">kg</option><option value="lb">lb</option></select></label>
       <label className="flex min-h-11 items-center gap-2 text-sm" htmlFor={`active-${key}`}><input id={`active-${key}`} type="checkbox" className="h-5 w-5" {...form.register('active')} /> In use</label>
-      <button type="submit" className="btn-secondary" disabled={form.formState.isSubmitting}>{defaults.id ? 'Save' : 'Add'}</button>
-      <div className="sm:col-span-5"><FormMessage error={msg.error} success={msg.success} /></div>
+      <button type="submit" className="btn-secondary" disabled={pending}>{defaults.id ? 'Save' : 'Add'}</button>
+      <div className="sm:col-span-5"><FormMessage {...message} /></div>
     </form>
   );
 }

@@ -1,27 +1,22 @@
 'use client';
 import { useRouter } from 'next/navigation';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
 import { lotInput, type LotInput } from '@/lib/schemas/lots';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
-import { useResult } from './use-result';
-
-type Values = z.input<typeof lotInput>;
+import { useActionForm } from '@/components/ui/use-action-form';
 
 export function NewLotForm({ suggestions, onCreate }: { suggestions: string[]; onCreate: (v: LotInput) => Promise<ActionResult<{ id: number; code: string }>> }) {
   const router = useRouter();
-  const form = useForm<Values, unknown, z.output<typeof lotInput>>({ resolver: zodResolver(lotInput), defaultValues: { floralSource: '', heather: false, extractedOn: '', notes: '' } });
-  const { msg, apply } = useResult(form);
-  async function submit(values: z.output<typeof lotInput>) {
-    const result = await onCreate(values);
-    if (apply(result, result.ok ? `Lot ${result.data.code} made.` : undefined) && result.ok) router.push(`/admin/lots/${result.data.id}`);
-  }
-  const e = form.formState.errors;
+  const { form, submit, pending, errors: e, message } = useActionForm({
+    schema: lotInput,
+    action: onCreate,
+    defaultValues: { floralSource: '', heather: false, extractedOn: '', notes: '' },
+    successMessage: (lot) => `Lot ${lot.code} made.`,
+    onSuccess: (lot) => router.push(`/admin/lots/${lot.id}`),
+  });
   return (
-    <form onSubmit={form.handleSubmit(submit)} className="card max-w-xl space-y-4" noValidate>
+    <form onSubmit={submit} className="card max-w-xl space-y-4" noValidate>
       <TextField label="Floral source" registration={form.register('floralSource')} error={e.floralSource} list="floral-sources" hint="e.g. linden, spring blossom, late-summer wildflower" autoComplete="off" />
       <datalist id="floral-sources">{suggestions.map((s) => <option key={s} value={s} />)}</datalist>
       <label className="flex min-h-11 items-center gap-3 text-sm font-medium" htmlFor="heather">
@@ -29,8 +24,8 @@ export function NewLotForm({ suggestions, onCreate }: { suggestions: string[]; o
       </label>
       <TextField label="Extraction date (if known)" type="date" registration={form.register('extractedOn')} error={e.extractedOn} />
       <label className="field" htmlFor="notes"><span>Notes</span><textarea id="notes" rows={3} className="input" {...form.register('notes')} /></label>
-      <FormMessage error={msg.error} success={msg.success} />
-      <button type="submit" className="btn-primary w-full" disabled={form.formState.isSubmitting}>Start the lot</button>
+      <FormMessage {...message} />
+      <button type="submit" className="btn-primary w-full" disabled={pending}>Start the lot</button>
     </form>
   );
 }

@@ -1,28 +1,26 @@
 'use client';
-import { useState } from 'react';
 import type { ActionResult } from '@/lib/schemas/result';
-import type { PickSupersInput } from '@/lib/schemas/lots';
+import { pickSupersInput, type PickSupersInput } from '@/lib/schemas/lots';
 import { Chip } from '@/components/ui/chip';
 import { FormMessage } from '@/components/ui/form-message';
+import { useActionForm } from '@/components/ui/use-action-form';
 
 export type PickableSuper = { id: number; tagCode: string | null; colonyCode: string; yardName: string; pulledOn: string; depth: string; full: string; flagged: boolean; flagReasons: string[] };
 
 /** Pulled supers in no lot yet: tick and add. Flagged ones go in by scanning with an owner override. */
 export function SuperPicker({ lotId, supers, onPick }: { lotId: number; supers: PickableSuper[]; onPick: (v: PickSupersInput) => Promise<ActionResult<unknown>> }) {
-  const [picked, setPicked] = useState<number[]>([]);
-  const [msg, setMsg] = useState<{ error?: string; success?: string }>({});
-  const [busy, setBusy] = useState(false);
-  const toggle = (id: number) => setPicked((p) => (p.includes(id) ? p.filter((x) => x !== id) : [...p, id]));
-  async function add() {
-    setBusy(true);
-    const result = await onPick({ lotId, superPullIds: picked });
-    setBusy(false);
-    if (result.ok) { setMsg({ success: `${picked.length} super${picked.length === 1 ? '' : 's'} added.` }); setPicked([]); }
-    else setMsg({ error: result.message });
-  }
+  const { form, submit, pending: busy, errors, message } = useActionForm({
+    schema: pickSupersInput,
+    action: onPick,
+    defaultValues: { lotId, superPullIds: [] },
+    successMessage: (_, values) => `${values.superPullIds.length} super${values.superPullIds.length === 1 ? '' : 's'} added.`,
+    resetOnSuccess: true,
+  });
+  // Ticked boxes (a checkbox group registered as one array field; flagged ones are disabled).
+  const picked = form.watch('superPullIds') ?? [];
   if (!supers.length) return <p className="hint">No pulled supers waiting for a lot match these filters.</p>;
   return (
-    <div className="space-y-3">
+    <form onSubmit={submit} className="space-y-3" noValidate aria-label="Pick pulled supers">
       <div className="max-h-96 overflow-auto">
         <table className="data-table">
           <caption className="sr-only">Pulled supers not yet in a lot</caption>
@@ -30,7 +28,7 @@ export function SuperPicker({ lotId, supers, onPick }: { lotId: number; supers: 
           <tbody>
             {supers.map((s) => (
               <tr key={s.id}>
-                <td><input type="checkbox" className="h-5 w-5" aria-label={`Pick super ${s.tagCode ?? s.id}`} checked={picked.includes(s.id)} disabled={s.flagged} onChange={() => toggle(s.id)} /></td>
+                <td><input type="checkbox" className="h-5 w-5" aria-label={`Pick super ${s.tagCode ?? s.id}`} value={s.id} disabled={s.flagged} {...form.register('superPullIds')} /></td>
                 <td className="font-mono">{s.tagCode ?? '—'}</td><td>{s.colonyCode}</td><td>{s.yardName}</td><td>{s.pulledOn}</td><td className="num">{s.full}</td>
                 <td>{s.flagged ? <Chip tone="bad" title={s.flagReasons.join('; ')}>flagged</Chip> : <Chip tone="ok">ready</Chip>}</td>
               </tr>
@@ -38,8 +36,8 @@ export function SuperPicker({ lotId, supers, onPick }: { lotId: number; supers: 
           </tbody>
         </table>
       </div>
-      <FormMessage error={msg.error} success={msg.success} />
-      <button type="button" className="btn-secondary" disabled={busy || picked.length === 0} onClick={add}>Add {picked.length || ''} ticked super{picked.length === 1 ? '' : 's'}</button>
-    </div>
+      <FormMessage error={message.error ?? errors.superPullIds?.message} success={message.success} />
+      <button type="submit" className="btn-secondary" disabled={busy || picked.length === 0}>Add {picked.length || ''} ticked super{picked.length === 1 ? '' : 's'}</button>
+    </form>
   );
 }

@@ -2,8 +2,9 @@
 import { useRef, useState } from 'react';
 import { ScanLine } from 'lucide-react';
 import type { ActionResult } from '@/lib/schemas/result';
-import type { ScanSuperInput } from '@/lib/schemas/lots';
+import { scanSuperInput, type ScanSuperInput } from '@/lib/schemas/lots';
 import { FormMessage } from '@/components/ui/form-message';
+import { useActionForm } from '@/components/ui/use-action-form';
 import { CameraScan } from './camera-scan';
 
 type Added = { superPullId: number; tagCode: string | null; colonyCode: string; overridden: boolean };
@@ -15,11 +16,19 @@ type Added = { superPullId: number; tagCode: string | null; colonyCode: string; 
 export function SuperScanner({ lotId, isOwner, onScan }: { lotId: number; isOwner: boolean; onScan: (v: ScanSuperInput) => Promise<ActionResult<Added>> }) {
   const input = useRef<HTMLInputElement>(null);
   const [code, setCode] = useState('');
-  const [busy, setBusy] = useState(false);
   const [added, setAdded] = useState<Added[]>([]);
-  const [error, setError] = useState<string>();
   const [flagged, setFlagged] = useState<string | null>(null);
   const [reason, setReason] = useState('');
+  // The inputs stay plain (the code clears the moment it is sent); each scan goes through `run`.
+  const { run, pending: busy, message } = useActionForm({
+    schema: scanSuperInput,
+    action: onScan,
+    onSuccess: (one) => {
+      setAdded((list) => [one, ...list]);
+      setFlagged(null);
+      setReason('');
+    },
+  });
 
   // Scans queue up: a scanner can fire the next code before the last one is saved.
   const chain = useRef<Promise<void>>(Promise.resolve());
@@ -28,18 +37,8 @@ export function SuperScanner({ lotId, isOwner, onScan }: { lotId: number; isOwne
     setCode('');
     input.current?.focus();
     chain.current = chain.current.then(async () => {
-      setBusy(true);
-      setError(undefined);
-      const result = await onScan({ lotId, tagCode, overrideReason });
-      setBusy(false);
-      if (result.ok) {
-        setAdded((list) => [result.data, ...list]);
-        setFlagged(null);
-        setReason('');
-      } else {
-        setError(result.message);
-        setFlagged(isOwner && /flagged/.test(result.message ?? '') ? tagCode : null);
-      }
+      const result = await run({ lotId, tagCode, overrideReason });
+      if (result && !result.ok) setFlagged(isOwner && /flagged/.test(result.message ?? '') ? tagCode : null);
     });
   }
 
@@ -55,7 +54,7 @@ export function SuperScanner({ lotId, isOwner, onScan }: { lotId: number; isOwne
         <button type="submit" className="btn-secondary"><ScanLine aria-hidden className="h-4 w-4" /> Add super</button>
       </form>
       <CameraScan onCode={(c) => send(c)} />
-      <FormMessage error={error} />
+      <FormMessage error={message.error} />
       {flagged ? (
         <form onSubmit={(e) => { e.preventDefault(); send(flagged, reason); }} className="card space-y-2 border-bad-fg">
           <label className="field" htmlFor="override-reason"><span>Owner override for {flagged}: why may this flagged super go in?</span>

@@ -1,35 +1,34 @@
 'use client';
 import { useState } from 'react';
+import { productPhotoInput } from '@/lib/schemas/jarring';
 import { FormMessage } from '@/components/ui/form-message';
+import { useActionForm } from '@/components/ui/use-action-form';
+import { postForm } from '@/components/ui/post-form';
 
 /** Uploads a product photo to the route handler, which checks its type by content. */
 export function PhotoUpload({ productId, photoId }: { productId: number; photoId: number | null }) {
   const [version, setVersion] = useState(photoId);
-  const [msg, setMsg] = useState<{ error?: string; success?: string }>({});
-  const [busy, setBusy] = useState(false);
-  async function submit(ev: React.FormEvent<HTMLFormElement>) {
-    ev.preventDefault();
-    const file = new FormData(ev.currentTarget).get('photo');
-    if (!(file instanceof File) || file.size === 0) return setMsg({ error: 'Choose a photo first.' });
-    if (file.size > 5 * 1024 * 1024) return setMsg({ error: 'The photo is larger than 5 MB.' });
-    setBusy(true);
-    const res = await fetch(`/api/products/${productId}/photo`, { method: 'POST', body: new FormData(ev.currentTarget) });
-    setBusy(false);
-    const body = (await res.json().catch(() => ({}))) as { photoId?: number; error?: string };
-    if (!res.ok) return setMsg({ error: body.error ?? 'The upload failed.' });
-    setVersion(body.photoId ?? null);
-    setMsg({ success: 'Photo saved.' });
-  }
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: productPhotoInput,
+    action: (v) => {
+      const body = new FormData();
+      body.set('photo', v.photo[0]);
+      return postForm<{ photoId?: number }>(`/api/products/${productId}/photo`, body, () => 'The upload failed.');
+    },
+    successMessage: 'Photo saved.',
+    onSuccess: (saved) => setVersion(saved.photoId ?? null),
+  });
   return (
-    <form onSubmit={submit} className="space-y-3" aria-label="Product photo">
+    <form onSubmit={submit} className="space-y-3" noValidate aria-label="Product photo">
       {version ? (
         <img src={`/api/products/${productId}/photo?v=${version}`} alt="Product photo" className="max-h-56 rounded-lg border border-line" />
       ) : <p className="hint">No photo yet.</p>}
       <label className="field" htmlFor="photo"><span>Photo (JPEG, PNG or WebP, up to 5 MB)</span>
-        <input id="photo" name="photo" type="file" accept="image/jpeg,image/png,image/webp" className="input" />
+        <input id="photo" type="file" accept="image/jpeg,image/png,image/webp" className="input" aria-invalid={errors.photo ? true : undefined} {...form.register('photo')} />
+        {errors.photo?.message ? <small className="field-error" role="alert">{errors.photo.message}</small> : null}
       </label>
-      <FormMessage error={msg.error} success={msg.success} />
-      <button type="submit" className="btn-secondary" disabled={busy}>Upload photo</button>
+      <FormMessage {...message} />
+      <button type="submit" className="btn-secondary" disabled={pending}>Upload photo</button>
     </form>
   );
 }

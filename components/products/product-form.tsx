@@ -1,42 +1,30 @@
 'use client';
-import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
 import { productInput, type ProductInput } from '@/lib/schemas/jarring';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
-
-type Values = z.input<typeof productInput>;
+import { useActionForm } from '@/components/ui/use-action-form';
 
 /** A jar size for sale: net quantity in g or oz, container, price, GTIN typed or made from the company prefix. */
 export function ProductForm({ defaults, companyPrefix, onSave }: {
-  defaults?: Partial<Values>; companyPrefix: string;
+  defaults?: Partial<ProductInput>; companyPrefix: string;
   onSave: (v: ProductInput) => Promise<ActionResult<{ id: number; gtin: string | null }>>;
 }) {
   const router = useRouter();
-  const form = useForm<Values, unknown, z.output<typeof productInput>>({
-    resolver: zodResolver(productInput),
+  const { form, submit, pending, errors: e, message } = useActionForm({
+    schema: productInput,
+    action: onSave,
     defaultValues: { netUnit: 'g', containerKind: 'glass jar', active: true, gtinMode: 'none', gtin: '', itemReference: '', slug: '', description: '', ...defaults },
-  });
-  const [msg, setMsg] = useState<{ error?: string; success?: string }>({});
-  const e = form.formState.errors;
-  const mode = form.watch('gtinMode');
-  async function submit(values: z.output<typeof productInput>) {
-    const res = await onSave(values);
-    if (res.ok) {
-      setMsg({ success: `Saved${res.data.gtin ? ` with GTIN ${res.data.gtin}` : ''}.` });
-      if (!values.productId) router.push(`/admin/products/${res.data.id}`);
+    successMessage: (saved) => `Saved${saved.gtin ? ` with GTIN ${saved.gtin}` : ''}.`,
+    onSuccess: (saved, values) => {
+      if (!values.productId) router.push(`/admin/products/${saved.id}`);
       else router.refresh();
-      return;
-    }
-    for (const [name, message] of Object.entries(res.fieldErrors ?? {})) form.setError(name as keyof Values, { message });
-    setMsg({ error: res.message });
-  }
+    },
+  });
+  const mode = form.watch('gtinMode');
   return (
-    <form onSubmit={form.handleSubmit(submit)} className="space-y-4" noValidate aria-label="Product">
+    <form onSubmit={submit} className="space-y-4" noValidate aria-label="Product">
       <TextField label="Name" registration={form.register('name')} error={e.name} />
       <TextField label="Web address (slug)" registration={form.register('slug')} error={e.slug} hint="Leave empty to make it from the name." />
       <label className="field" htmlFor="description"><span>Description</span>
@@ -68,8 +56,8 @@ export function ProductForm({ defaults, companyPrefix, onSave }: {
             : <p className="text-sm text-bad-fg">Set your GS1 company prefix in Settings first.</p>
         ) : null}
       </fieldset>
-      <FormMessage error={msg.error} success={msg.success} />
-      <button type="submit" className="btn-primary" disabled={form.formState.isSubmitting}>Save product</button>
+      <FormMessage {...message} />
+      <button type="submit" className="btn-primary" disabled={pending}>Save product</button>
     </form>
   );
 }

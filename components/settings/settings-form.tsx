@@ -1,16 +1,15 @@
 'use client';
-import { useState } from 'react';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import { z } from 'zod';
+import type { UseFormReturn } from 'react-hook-form';
+import type { z } from 'zod';
 import { settingsInput, type SettingsInput } from '@/lib/schemas/settings';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
+import { useActionForm } from '@/components/ui/use-action-form';
 
-type Values = z.input<typeof settingsInput>;
+type Values = SettingsInput;
 
-function Select({ label, name, options, form }: { label: string; name: keyof Values; options: [string, string][]; form: ReturnType<typeof useForm<Values>> }) {
+function Select({ label, name, options, form }: { label: string; name: keyof Values; options: [string, string][]; form: UseFormReturn<Values, unknown, z.output<typeof settingsInput>> }) {
   return (
     <label className="field" htmlFor={name}><span>{label}</span>
       <select id={name} className="input" {...form.register(name)}>
@@ -21,19 +20,10 @@ function Select({ label, name, options, form }: { label: string; name: keyof Val
 }
 
 export function SettingsForm({ defaults, onSave }: { defaults: Values; onSave: (v: SettingsInput) => Promise<ActionResult> }) {
-  const form = useForm<Values, unknown, z.output<typeof settingsInput>>({ resolver: zodResolver(settingsInput), defaultValues: defaults });
-  const [msg, setMsg] = useState<{ error?: string; success?: string }>({});
-  const e = form.formState.errors;
-
-  async function submit(values: z.output<typeof settingsInput>) {
-    const result = await onSave(values);
-    if (result.ok) return setMsg({ success: 'Settings saved.' });
-    for (const [name, message] of Object.entries(result.fieldErrors ?? {})) form.setError(name as keyof Values, { message });
-    setMsg({ error: result.message });
-  }
+  const { form, submit, pending, errors: e, message } = useActionForm({ schema: settingsInput, action: onSave, defaultValues: defaults, successMessage: 'Settings saved.' });
 
   return (
-    <form onSubmit={form.handleSubmit(submit)} className="space-y-6" noValidate>
+    <form onSubmit={submit} className="space-y-6" noValidate>
       <fieldset className="card grid gap-4 sm:grid-cols-2">
         <legend className="font-heading text-lg font-semibold text-forest-800">Business</legend>
         <TextField label="Business name" registration={form.register('businessName')} error={e.businessName} />
@@ -69,8 +59,8 @@ export function SettingsForm({ defaults, onSave }: { defaults: Values; onSave: (
         <Select form={form} name="barcodeKind" label="Label barcode" options={[['gs1-128', 'GS1-128'], ['gs1datamatrix', 'GS1 DataMatrix']]} />
         <Select form={form} name="fillRuleSet" label="Fill-weight rules" options={[['oiml', 'OIML R 87 / EU 76/211/EEC'], ['nist', 'US NIST Handbook 133']]} />
       </fieldset>
-      <FormMessage error={msg.error} success={msg.success} />
-      <button type="submit" className="btn-primary" disabled={form.formState.isSubmitting}>Save settings</button>
+      <FormMessage {...message} />
+      <button type="submit" className="btn-primary" disabled={pending}>Save settings</button>
     </form>
   );
 }

@@ -2,19 +2,21 @@
 import { useId, useState } from 'react';
 import { useRouter } from 'next/navigation';
 import type { ActionResult } from '@/lib/schemas/result';
-import type { VoidPullInput } from '@/lib/schemas/supers';
+import { voidPullInput, type VoidPullInput } from '@/lib/schemas/supers';
 import type { PullVoid } from '@/lib/data/supers/pulls';
 import type { VoidResult } from '@/lib/data/supers/void';
+import { FormMessage } from '@/components/ui/form-message';
+import { useActionForm } from '@/components/ui/use-action-form';
 
 export type VoidPull = (v: VoidPullInput) => Promise<ActionResult<VoidResult>>;
 
 const WORDS = {
   pull: {
-    open: 'Void this pull…', question: 'Why void this pull?', confirm: 'Void pull', failed: 'Could not void this pull.',
+    open: 'Void this pull…', question: 'Why void this pull?', confirm: 'Void pull',
     hint: 'It stays on record, struck through, and no longer counts. If the super is still on the hive, record it as put on again.',
   },
   on: {
-    open: 'Void this super-on record…', question: 'Why void this super-on record?', confirm: 'Void super-on record', failed: 'Could not void this super-on record.',
+    open: 'Void this super-on record…', question: 'Why void this super-on record?', confirm: 'Void super-on record',
     hint: 'It stays on record, struck through, and the super no longer counts as on the hive: the next pull of this colony will not close it.',
   },
 } as const;
@@ -29,43 +31,38 @@ export function VoidPullButton({ superPullId, what, onVoid, onVoided, record = '
   const router = useRouter();
   const id = useId();
   const [open, setOpen] = useState(false);
-  const [reason, setReason] = useState('');
-  const [error, setError] = useState<string>();
-  const [busy, setBusy] = useState(false);
+  const { form, submit, pending: busy, errors, message, setMessage } = useActionForm({
+    schema: voidPullInput,
+    action: onVoid,
+    defaultValues: { superPullId, record, reason: '' },
+    onSuccess: (result) => {
+      setOpen(false);
+      if (onVoided) onVoided(result.void); else router.refresh();
+    },
+  });
+  const reason = form.watch('reason') ?? '';
   if (!open) {
     return <button type="button" className="btn-quiet px-2" onClick={() => setOpen(true)}>{words.open}<span className="sr-only"> ({what})</span></button>;
   }
-  async function confirm(e: React.FormEvent) {
-    e.preventDefault();
-    setBusy(true);
-    setError(undefined);
-    const result: ActionResult<VoidResult> = await onVoid({ superPullId, reason, record })
-      .catch(() => ({ ok: false as const, message: 'Could not reach the server. Check the connection and try again.' }));
-    setBusy(false);
-    if (result.ok) {
-      setOpen(false);
-      if (onVoided) onVoided(result.data.void); else router.refresh();
-      return;
-    }
-    setError(result.fieldErrors?.reason ?? result.message ?? words.failed);
-  }
+  const error = errors.reason?.message;
   const ready = reason.trim().length >= 3;
   return (
-    <form className="flex w-full min-w-56 max-w-sm flex-col gap-2" onSubmit={confirm} aria-label={`Void ${what}`}>
+    <form className="flex w-full min-w-56 max-w-sm flex-col gap-2" onSubmit={submit} noValidate aria-label={`Void ${what}`}>
       <label className="field" htmlFor={`${id}-reason`}><span>{words.question}</span>
         <input
-          id={`${id}-reason`} className="input" value={reason} maxLength={500} autoFocus autoComplete="off"
+          id={`${id}-reason`} className="input" maxLength={500} autoFocus autoComplete="off"
           aria-describedby={`${id}-hint${error ? ` ${id}-error` : ''}`} aria-invalid={error ? true : undefined}
-          onChange={(e) => setReason(e.target.value)}
+          {...form.register('reason')}
         />
       </label>
       <small id={`${id}-hint`} className="hint">
         {words.hint}
       </small>
       {error ? <small id={`${id}-error`} className="field-error" role="alert">{error}</small> : null}
+      <FormMessage {...message} />
       <div className="flex flex-wrap gap-2">
         <button type="submit" className="btn-danger" disabled={!ready || busy}>{busy ? 'Voiding…' : words.confirm}</button>
-        <button type="button" className="btn-quiet" onClick={() => { setOpen(false); setError(undefined); }}>Cancel</button>
+        <button type="button" className="btn-quiet" onClick={() => { setOpen(false); setMessage({}); form.clearErrors(); }}>Cancel</button>
       </div>
     </form>
   );

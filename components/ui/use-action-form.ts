@@ -12,6 +12,7 @@ export type AnyResult = ActionResult<unknown> | ActionResult;
 export type ResultData<Res extends AnyResult> = Extract<Res, { ok: true }>['data'];
 
 export const OFFLINE_MESSAGE = 'Could not reach the server. Check the connection and try again.';
+const REFUSED_MESSAGE = 'That did not work. Try again.';
 
 export type ActionFormOptions<S extends z.ZodType<FieldValues, FieldValues>, Res extends AnyResult> = {
   /** The form's schema from lib/schemas: checked in the browser before the action is called. */
@@ -32,32 +33,54 @@ export type ActionFormOptions<S extends z.ZodType<FieldValues, FieldValues>, Res
  * `ActionResult` is shown the same way in every form: field errors on their fields, the refusal
  * as the form's message, a success message, and `pending` while the action runs. Render the
  * message with `<FormMessage {...message} />`.
+ *
+ * `submit` is the form's onSubmit. `run(input)` is for controls without fields of their own (a
+ * button, a select that saves on change, a scanner): it checks `input` with the same schema,
+ * handles the answer the same way and also returns it (undefined if the input or the connection
+ * failed).
  */
 export function useActionForm<S extends z.ZodType<FieldValues, FieldValues>, Res extends AnyResult>(options: ActionFormOptions<S, Res>) {
   const { schema, action, defaultValues, successMessage, onSuccess, resetOnSuccess } = options;
   const form = useForm<z.input<S>, unknown, z.output<S>>({ resolver: zodResolver(schema as never) as never, defaultValues });
   const [message, setMessage] = useState<FormMessageState>({});
+  const [running, setRunning] = useState(false);
 
-  const submit = form.handleSubmit(async (values) => {
-    const typed = form.getValues();
+  async function save(values: z.output<S>, typed: z.input<S>): Promise<Res | undefined> {
     setMessage({});
     let result: Res;
     try {
       result = await action(values);
     } catch {
       setMessage({ error: OFFLINE_MESSAGE });
-      return;
+      return undefined;
     }
     if (!result.ok) {
       for (const [name, msg] of Object.entries(result.fieldErrors ?? {})) form.setError(name as Path<z.input<S>>, { message: msg });
-      setMessage({ error: result.message });
-      return;
+      setMessage({ error: result.message ?? (result.fieldErrors ? 'Please fix the marked fields.' : REFUSED_MESSAGE) });
+      return result;
     }
     const data = result.data as ResultData<Res>;
     if (resetOnSuccess) form.reset(resetOnSuccess === true ? undefined : resetOnSuccess(typed));
     setMessage({ success: typeof successMessage === 'function' ? successMessage(data, values) : successMessage });
     await onSuccess?.(data, values);
-  });
+    return result;
+  }
 
-  return { form, submit, pending: form.formState.isSubmitting, errors: form.formState.errors, message, setMessage };
+  const submit = form.handleSubmit(async (values) => { await save(values, form.getValues()); });
+
+  async function run(input: z.input<S>): Promise<Res | undefined> {
+    const parsed = schema.safeParse(input);
+    if (!parsed.success) {
+      setMessage({ error: parsed.error.issues[0]?.message });
+      return undefined;
+    }
+    setRunning(true);
+    try {
+      return await save(parsed.data as z.output<S>, input);
+    } finally {
+      setRunning(false);
+    }
+  }
+
+  return { form, submit, run, pending: form.formState.isSubmitting || running, errors: form.formState.errors, message, setMessage };
 }

@@ -100,3 +100,6 @@ export const labelLayoutInput = z.object({
   offsetYMm: z.coerce.number().min(-20, 'At most 20 mm.').max(20, 'At most 20 mm.'),
 });
 export type LabelLayoutInput = z.input<typeof labelLayoutInput>;
+
+export const labelLayoutIdInput = z.object({ layoutId: z.coerce.number().int().positive() });
+export type LabelLayoutIdInput = z.input<typeof labelLayoutIdInput>;

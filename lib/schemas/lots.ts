@@ -6,6 +6,9 @@ import { LAB_FILE_MAX_BYTES } from '@/lib/domain/file-type';
 const id = z.coerce.number().int().positive();
 const reason = (what: string) => z.string().trim().min(5, `Write a reason for ${what} (at least 5 characters).`).max(1000);
 const weight = (label: string) => z.coerce.number({ error: `${label}: enter a number.` }).nonnegative(`${label} cannot be negative.`).max(100_000, `${label} looks too large.`);
+/** A number as typed into a small form: a decimal comma reads as a point, and a blank is no number (not 0). */
+const typedNumber = <T extends z.ZodType>(schema: T) =>
+  z.preprocess((v) => (typeof v === 'string' ? (v.trim() === '' ? undefined : v.trim().replace(',', '.')) : v), schema);
 const optionalNumber = z.preprocess((v) => (v === '' || v === null || v === undefined || (typeof v === 'number' && Number.isNaN(v)) ? undefined : v), z.coerce.number().optional());
 const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Pick a date.');
 
@@ -35,7 +38,7 @@ export type PickSupersInput = z.input<typeof pickSupersInput>;
 export const removeSuperInput = z.object({ lotId: id, superPullId: id, reason: reason('taking the super out') });
 export type RemoveSuperInput = z.input<typeof removeSuperInput>;
 
-export const emptyWeightInput = z.object({ lotId: id, superPullId: id, empty: weight('Empty weight').positive('Empty weight must be above 0.'), unit: weightUnit });
+export const emptyWeightInput = z.object({ lotId: id, superPullId: id, empty: typedNumber(weight('Empty weight').positive('Empty weight must be above 0.')), unit: weightUnit });
 export type EmptyWeightInput = z.input<typeof emptyWeightInput>;
 
 export const containerInput = z.object({
@@ -48,7 +51,7 @@ export const containerInput = z.object({
 }).refine((v) => v.gross > v.tare, { path: ['gross'], message: 'Gross weight must be more than the tare.' });
 export type ContainerInput = z.input<typeof containerInput>;
 
-export const waxInput = z.object({ lotId: id, wax: weight('Cappings wax'), unit: weightUnit });
+export const waxInput = z.object({ lotId: id, wax: typedNumber(weight('Cappings wax')), unit: weightUnit });
 export type WaxInput = z.input<typeof waxInput>;
 
 export const readingInput = z.discriminatedUnion('method', [

@@ -1,8 +1,7 @@
 'use server';
-import { z } from 'zod';
 import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/server-action';
-import { labelLayoutInput } from '@/lib/schemas/jarring';
+import { labelLayoutIdInput, labelLayoutInput } from '@/lib/schemas/jarring';
 import { deleteLabelLayout, saveLabelLayout } from '@/lib/data/labels/layouts';
 
 export const saveLabelLayoutAction = guardedAction('labels.layouts', labelLayoutInput, async (user, data) => {
@@ -11,7 +10,7 @@ export const saveLabelLayoutAction = guardedAction('labels.layouts', labelLayout
   return { ok: true, data: saved };
 });
 
-export const deleteLabelLayoutAction = guardedAction('labels.layouts', z.object({ layoutId: z.coerce.number().int().positive() }), async (user, data) => {
+export const deleteLabelLayoutAction = guardedAction('labels.layouts', labelLayoutIdInput, async (user, data) => {
   await deleteLabelLayout(user.id, data.layoutId);
   revalidatePath('/admin/labels');
   return { ok: true };
