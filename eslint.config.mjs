@@ -26,6 +26,8 @@ export default defineConfig([
   },
   {
     name: 'combtrace/rules',
+    // An eslint-disable comment that no longer silences anything fails the run, so none outlive their reason.
+    linterOptions: { reportUnusedDisableDirectives: 'error' },
     rules: {
       // Warnings that Next's preset lowers are errors here, so CI stops on them.
       '@typescript-eslint/no-unused-vars': [
