@@ -27,7 +27,7 @@ async function renderPublicPage(pathname: string) {
 }
 
 /**
- * Runs before every page (not /api, not static files):
+ * Runs before every page (not /api, not static files, not the icons and the web app manifest):
  * 1. A Content-Security-Policy with a fresh nonce per response (ASVS 3.4.3); Next puts the nonce on
  *    its own scripts when it sees the header on the request.
  * 2. Signed-out views of the public shop pages come from a few seconds' cache, each answer with its
@@ -61,5 +61,5 @@ export async function proxy(req: NextRequest) {
 }
 
 export const config = {
-  matcher: [{ source: '/((?!api|_next/static|_next/image|favicon.ico).*)' }],
+  matcher: [{ source: '/((?!api|_next/static|_next/image|favicon.ico|icons/|manifest.webmanifest).*)' }],
 };

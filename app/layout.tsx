@@ -10,6 +10,15 @@ import { headers } from 'next/headers';
 export const metadata: Metadata = {
   title: { default: 'Combtrace', template: '%s · Combtrace' },
   description: 'Honey from the colony to the customer.',
+  // Drawn by lib/ops/icons.ts (npm run icons); the manifest names the app icons.
+  manifest: '/manifest.webmanifest',
+  icons: {
+    icon: [
+      { url: '/favicon.ico', sizes: '16x16 32x32 48x48' },
+      { url: '/icons/icon.svg', type: 'image/svg+xml' },
+    ],
+    apple: [{ url: '/icons/apple-touch-icon.png', sizes: '180x180' }],
+  },
 };
 
 export const viewport: Viewport = { width: 'device-width', initialScale: 1, themeColor: '#1b3a2a' };

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { bigSerialId, createdAtOnly } from './columns';
 
 /** Who changed what and when; written in the same transaction as the change. Never updated. */
 export class AuditEntry extends Model<InferAttributes<AuditEntry>, InferCreationAttributes<AuditEntry>> {
@@ -16,7 +17,7 @@ export class AuditEntry extends Model<InferAttributes<AuditEntry>, InferCreation
 export function initAuditEntry(sequelize: Sequelize) {
   return AuditEntry.init(
     {
-      id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
+      ...bigSerialId(),
       actorUserId: { type: DataTypes.INTEGER, allowNull: true },
       action: { type: DataTypes.STRING(60), allowNull: false },
       entityType: { type: DataTypes.STRING(40), allowNull: false },
@@ -24,7 +25,7 @@ export function initAuditEntry(sequelize: Sequelize) {
       before: { type: DataTypes.JSONB, allowNull: true },
       after: { type: DataTypes.JSONB, allowNull: true },
       reason: { type: DataTypes.TEXT, allowNull: true },
-      createdAt: DataTypes.DATE,
+      ...createdAtOnly(),
     },
     { sequelize, modelName: 'AuditEntry', tableName: 'audit_entries', underscored: true, updatedAt: false },
   );

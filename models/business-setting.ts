@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { timestamps } from './columns';
 
 export type ShippingBand = { upToGrams: number; cents: number };
 import type { SuperEstimates } from '@/lib/domain/yield-allocation';
@@ -64,8 +65,7 @@ export function initBusinessSetting(sequelize: Sequelize) {
       barcodeKind: { type: DataTypes.ENUM('gs1-128', 'gs1datamatrix'), allowNull: false, defaultValue: 'gs1-128' },
       shippingBands: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
       superEstimates: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'BusinessSetting', tableName: 'business_settings', underscored: true },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, idempotencyKey, timestamps } from './columns';
 import type { Colony } from './colony';
 
 export const COLONY_EVENT_KINDS = ['note', 'split', 'move', 'status'] as const;
@@ -22,16 +23,15 @@ export class ColonyEvent extends Model<InferAttributes<ColonyEvent>, InferCreati
 export function initColonyEvent(sequelize: Sequelize) {
   return ColonyEvent.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       colonyId: { type: DataTypes.INTEGER, allowNull: false },
       kind: { type: DataTypes.STRING(20), allowNull: false, validate: { isIn: [COLONY_EVENT_KINDS] } },
       occurredOn: { type: DataTypes.DATEONLY, allowNull: false },
       details: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
       note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       recordedBy: { type: DataTypes.INTEGER, allowNull: true },
-      idempotencyKey: { type: DataTypes.STRING(80), allowNull: true, unique: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...idempotencyKey(),
+      ...timestamps(),
     },
     { sequelize, modelName: 'ColonyEvent', tableName: 'colony_events', underscored: true },
   );

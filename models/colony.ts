@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 import type { User } from './user';
 import type { Yard } from './yard';
 import type { ColonyEvent } from './colony-event';
@@ -39,7 +40,7 @@ export class Colony extends Model<InferAttributes<Colony>, InferCreationAttribut
 export function initColony(sequelize: Sequelize) {
   return Colony.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       code: { type: DataTypes.STRING(30), allowNull: false, unique: true },
       yardId: { type: DataTypes.INTEGER, allowNull: false },
       keeperId: { type: DataTypes.INTEGER, allowNull: false },
@@ -50,8 +51,7 @@ export function initColony(sequelize: Sequelize) {
       combinedIntoId: { type: DataTypes.INTEGER, allowNull: true },
       startedOn: { type: DataTypes.DATEONLY, allowNull: true },
       notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'Colony', tableName: 'colonies', underscored: true },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 
 export class ContainerType extends Model<InferAttributes<ContainerType>, InferCreationAttributes<ContainerType>> {
   declare id: CreationOptional<number>;
@@ -12,12 +13,11 @@ export class ContainerType extends Model<InferAttributes<ContainerType>, InferCr
 export function initContainerType(sequelize: Sequelize) {
   return ContainerType.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       name: { type: DataTypes.STRING(60), allowNull: false, unique: true },
       usualTareGrams: { type: DataTypes.INTEGER, allowNull: false },
       active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'ContainerType', tableName: 'container_types', underscored: true },
   );

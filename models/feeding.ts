@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, idempotencyKey, timestamps } from './columns';
 import type { FeedingKind } from '@/lib/domain/conflicts';
 import type { Colony } from './colony';
 
@@ -24,7 +25,7 @@ export class Feeding extends Model<InferAttributes<Feeding>, InferCreationAttrib
 export function initFeeding(sequelize: Sequelize) {
   return Feeding.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       colonyId: { type: DataTypes.INTEGER, allowNull: false },
       kind: { type: DataTypes.STRING(20), allowNull: false, validate: { isIn: [FEEDING_KINDS] } },
       amount: { type: DataTypes.STRING(60), allowNull: false, defaultValue: '' },
@@ -32,9 +33,8 @@ export function initFeeding(sequelize: Sequelize) {
       endedOn: { type: DataTypes.DATEONLY, allowNull: true },
       note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       recordedBy: { type: DataTypes.INTEGER, allowNull: true },
-      idempotencyKey: { type: DataTypes.STRING(80), allowNull: true, unique: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...idempotencyKey(),
+      ...timestamps(),
     },
     { sequelize, modelName: 'Feeding', tableName: 'feedings', underscored: true },
   );

@@ -1,4 +1,4 @@
-import type { Sequelize } from 'sequelize';
+import type { Model, ModelStatic, Sequelize } from 'sequelize';
 import { initUser } from './user';
 import { initPasswordToken } from './password-token';
 import { initBusinessSetting } from './business-setting';
@@ -32,6 +32,12 @@ import { initOrderLine } from './order-line';
 import { initOrderAllocation } from './order-allocation';
 import { initStripeEvent } from './stripe-event';
 import { initRefund } from './refund';
+
+/** `one` has many `many` and each `many` belongs to its `one`, through `foreignKey`; `as` names both ends. */
+function oneToMany(one: ModelStatic<Model>, many: ModelStatic<Model>, foreignKey: string, as: { many: string; one: string }) {
+  one.hasMany(many, { foreignKey, as: as.many });
+  many.belongsTo(one, { foreignKey, as: as.one });
+}
 
 /** Initialises every model once and wires the associations in one place. */
 export function initModels(sequelize: Sequelize) {
@@ -88,48 +94,33 @@ export function initModels(sequelize: Sequelize) {
   // Yards, colonies and supers
   Yard.belongsToMany(User, { through: YardKeeper, as: 'keepers', foreignKey: 'yardId', otherKey: 'userId' });
   User.belongsToMany(Yard, { through: YardKeeper, as: 'yards', foreignKey: 'userId', otherKey: 'yardId' });
-  Yard.hasMany(Colony, { foreignKey: 'yardId', as: 'colonies' });
-
-  Colony.belongsTo(Yard, { foreignKey: 'yardId', as: 'yard' });
+  oneToMany(Yard, Colony, 'yardId', { many: 'colonies', one: 'yard' });
   Colony.belongsTo(User, { foreignKey: 'keeperId', as: 'keeper' });
   Colony.belongsTo(Colony, { foreignKey: 'parentColonyId', as: 'parent' });
   Colony.hasMany(Colony, { foreignKey: 'parentColonyId', as: 'splits' });
   Colony.belongsTo(Colony, { foreignKey: 'combinedIntoId', as: 'combinedInto' });
-  Colony.hasMany(ColonyEvent, { foreignKey: 'colonyId', as: 'events' });
-  Colony.hasMany(Feeding, { foreignKey: 'colonyId', as: 'feedings' });
-  Colony.hasMany(Treatment, { foreignKey: 'colonyId', as: 'treatments' });
-  Colony.hasMany(SuperPull, { foreignKey: 'colonyId', as: 'superPulls' });
-  ColonyEvent.belongsTo(Colony, { foreignKey: 'colonyId', as: 'colony' });
-  Feeding.belongsTo(Colony, { foreignKey: 'colonyId', as: 'colony' });
-  Treatment.belongsTo(Colony, { foreignKey: 'colonyId', as: 'colony' });
+  oneToMany(Colony, ColonyEvent, 'colonyId', { many: 'events', one: 'colony' });
+  oneToMany(Colony, Feeding, 'colonyId', { many: 'feedings', one: 'colony' });
+  oneToMany(Colony, Treatment, 'colonyId', { many: 'treatments', one: 'colony' });
+  oneToMany(Colony, SuperPull, 'colonyId', { many: 'superPulls', one: 'colony' });
   Treatment.belongsTo(TreatmentKind, { foreignKey: 'treatmentKindId', as: 'kind' });
-  SuperPull.belongsTo(Colony, { foreignKey: 'colonyId', as: 'colony' });
-  SuperPull.belongsTo(Lot, { foreignKey: 'lotId', as: 'lot' });
-  SuperPull.belongsTo(User, { foreignKey: 'voidedByUserId', as: 'voidedBy' });
 
   // Honey house
-  Lot.hasMany(SuperPull, { foreignKey: 'lotId', as: 'superPulls' });
-  Lot.hasMany(LotContainer, { foreignKey: 'lotId', as: 'containers' });
-  Lot.hasMany(MoistureReading, { foreignKey: 'lotId', as: 'readings' });
-  Lot.hasMany(LabFile, { foreignKey: 'lotId', as: 'labFiles' });
-  Lot.hasMany(JarringRun, { foreignKey: 'lotId', as: 'jarringRuns' });
-  Lot.hasMany(StockLevel, { foreignKey: 'lotId', as: 'stockLevels' });
-  Lot.hasMany(LotParent, { foreignKey: 'childLotId', as: 'parentLinks' });
-  Lot.hasMany(LotParent, { foreignKey: 'parentLotId', as: 'childLinks' });
-  LotParent.belongsTo(Lot, { foreignKey: 'parentLotId', as: 'parent' });
-  LotParent.belongsTo(Lot, { foreignKey: 'childLotId', as: 'child' });
-  LotContainer.belongsTo(Lot, { foreignKey: 'lotId', as: 'lot' });
+  oneToMany(Lot, SuperPull, 'lotId', { many: 'superPulls', one: 'lot' });
+  SuperPull.belongsTo(User, { foreignKey: 'voidedByUserId', as: 'voidedBy' });
+  oneToMany(Lot, LotContainer, 'lotId', { many: 'containers', one: 'lot' });
   LotContainer.belongsTo(ContainerType, { foreignKey: 'containerTypeId', as: 'containerType' });
-  MoistureReading.belongsTo(Lot, { foreignKey: 'lotId', as: 'lot' });
-  LabFile.belongsTo(Lot, { foreignKey: 'lotId', as: 'lot' });
+  oneToMany(Lot, MoistureReading, 'lotId', { many: 'readings', one: 'lot' });
+  oneToMany(Lot, LabFile, 'lotId', { many: 'labFiles', one: 'lot' });
+  oneToMany(Lot, JarringRun, 'lotId', { many: 'jarringRuns', one: 'lot' });
+  oneToMany(Lot, StockLevel, 'lotId', { many: 'stockLevels', one: 'lot' });
+  oneToMany(Lot, LotParent, 'childLotId', { many: 'parentLinks', one: 'child' });
+  oneToMany(Lot, LotParent, 'parentLotId', { many: 'childLinks', one: 'parent' });
 
   // Jarring and stock
   Product.belongsTo(StoredFile, { foreignKey: 'photoId', as: 'photo' });
-  Product.hasMany(StockLevel, { foreignKey: 'productId', as: 'stockLevels' });
-  JarringRun.belongsTo(Lot, { foreignKey: 'lotId', as: 'lot' });
+  oneToMany(Product, StockLevel, 'productId', { many: 'stockLevels', one: 'product' });
   JarringRun.belongsTo(Product, { foreignKey: 'productId', as: 'product' });
-  StockLevel.belongsTo(Product, { foreignKey: 'productId', as: 'product' });
-  StockLevel.belongsTo(Lot, { foreignKey: 'lotId', as: 'lot' });
   StockEntry.belongsTo(Product, { foreignKey: 'productId', as: 'product' });
   StockEntry.belongsTo(Lot, { foreignKey: 'lotId', as: 'lot' });
   StockEntry.belongsTo(JarringRun, { foreignKey: 'jarringRunId', as: 'jarringRun' });
@@ -138,14 +129,11 @@ export function initModels(sequelize: Sequelize) {
 
   // Shop
   Order.belongsTo(User, { foreignKey: 'customerId', as: 'customer' });
-  Order.hasMany(OrderLine, { foreignKey: 'orderId', as: 'lines' });
-  Order.hasMany(Refund, { foreignKey: 'orderId', as: 'refunds' });
-  OrderLine.belongsTo(Order, { foreignKey: 'orderId', as: 'order' });
+  oneToMany(Order, OrderLine, 'orderId', { many: 'lines', one: 'order' });
+  oneToMany(Order, Refund, 'orderId', { many: 'refunds', one: 'order' });
   OrderLine.belongsTo(Product, { foreignKey: 'productId', as: 'product' });
-  OrderLine.hasMany(OrderAllocation, { foreignKey: 'orderLineId', as: 'allocations' });
-  OrderAllocation.belongsTo(OrderLine, { foreignKey: 'orderLineId', as: 'line' });
+  oneToMany(OrderLine, OrderAllocation, 'orderLineId', { many: 'allocations', one: 'line' });
   OrderAllocation.belongsTo(Lot, { foreignKey: 'lotId', as: 'lot' });
-  Refund.belongsTo(Order, { foreignKey: 'orderId', as: 'order' });
 
   return models;
 }

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, idempotencyKey, timestamps } from './columns';
 import type { FillAssessment, assessFillUs } from '@/lib/domain/fill-check';
 import type { Lot } from './lot';
 import type { Product } from './product';
@@ -36,7 +37,7 @@ export class JarringRun extends Model<InferAttributes<JarringRun>, InferCreation
 export function initJarringRun(sequelize: Sequelize) {
   return JarringRun.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       lotId: { type: DataTypes.INTEGER, allowNull: false },
       productId: { type: DataTypes.INTEGER, allowNull: false },
       jarCount: { type: DataTypes.INTEGER, allowNull: false },
@@ -49,9 +50,8 @@ export function initJarringRun(sequelize: Sequelize) {
       overrideReason: { type: DataTypes.TEXT, allowNull: true },
       overrideBy: { type: DataTypes.INTEGER, allowNull: true },
       createdBy: { type: DataTypes.INTEGER, allowNull: true },
-      idempotencyKey: { type: DataTypes.STRING(80), allowNull: true, unique: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...idempotencyKey(),
+      ...timestamps(),
     },
     { sequelize, modelName: 'JarringRun', tableName: 'jarring_runs', underscored: true },
   );

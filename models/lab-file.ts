@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, voidColumns, timestamps } from './columns';
 import type { Lot } from './lot';
 
 /** A laboratory report of a lot (the file itself) with the results read from it. */
@@ -25,7 +26,7 @@ export class LabFile extends Model<InferAttributes<LabFile>, InferCreationAttrib
 export function initLabFile(sequelize: Sequelize) {
   return LabFile.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       lotId: { type: DataTypes.INTEGER, allowNull: false },
       filename: { type: DataTypes.STRING(200), allowNull: false },
       contentType: { type: DataTypes.STRING(60), allowNull: false },
@@ -36,11 +37,8 @@ export function initLabFile(sequelize: Sequelize) {
       diastaseSchade: { type: DataTypes.DECIMAL(5, 1), allowNull: true },
       insolubleG100g: { type: DataTypes.DECIMAL(5, 2), allowNull: true },
       uploadedBy: { type: DataTypes.INTEGER, allowNull: true },
-      voidedAt: { type: DataTypes.DATE, allowNull: true },
-      voidedBy: { type: DataTypes.INTEGER, allowNull: true },
-      voidReason: { type: DataTypes.TEXT, allowNull: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...voidColumns(),
+      ...timestamps(),
     },
     { sequelize, modelName: 'LabFile', tableName: 'lab_files', underscored: true },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 import type { LabelLayout } from '@/lib/domain/label-layout';
 
 /** A saved label sheet layout (named LabelLayoutRecord: LabelLayout is the domain type it stores). */
@@ -14,11 +15,10 @@ export class LabelLayoutRecord extends Model<InferAttributes<LabelLayoutRecord>,
 export function initLabelLayoutRecord(sequelize: Sequelize) {
   return LabelLayoutRecord.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       name: { type: DataTypes.STRING(60), allowNull: false, unique: true },
       layout: { type: DataTypes.JSONB, allowNull: false },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'LabelLayoutRecord', tableName: 'label_layouts', underscored: true },
   );

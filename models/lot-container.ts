@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, voidColumns, timestamps } from './columns';
 import type { Lot } from './lot';
 import type { ContainerType } from './container-type';
 
@@ -23,18 +24,15 @@ export class LotContainer extends Model<InferAttributes<LotContainer>, InferCrea
 export function initLotContainer(sequelize: Sequelize) {
   return LotContainer.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       lotId: { type: DataTypes.INTEGER, allowNull: false },
       containerTypeId: { type: DataTypes.INTEGER, allowNull: true },
       label: { type: DataTypes.STRING(40), allowNull: false, defaultValue: '' },
       grossGrams: { type: DataTypes.INTEGER, allowNull: false },
       tareGrams: { type: DataTypes.INTEGER, allowNull: false },
       recordedBy: { type: DataTypes.INTEGER, allowNull: true },
-      voidedAt: { type: DataTypes.DATE, allowNull: true },
-      voidedBy: { type: DataTypes.INTEGER, allowNull: true },
-      voidReason: { type: DataTypes.TEXT, allowNull: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...voidColumns(),
+      ...timestamps(),
     },
     { sequelize, modelName: 'LotContainer', tableName: 'lot_containers', underscored: true },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 import type { Lot } from './lot';
 
 /** Blends: grams of a parent lot that went into a child lot. */
@@ -16,12 +17,11 @@ export class LotParent extends Model<InferAttributes<LotParent>, InferCreationAt
 export function initLotParent(sequelize: Sequelize) {
   return LotParent.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       childLotId: { type: DataTypes.INTEGER, allowNull: false },
       parentLotId: { type: DataTypes.INTEGER, allowNull: false },
       grams: { type: DataTypes.INTEGER, allowNull: false },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'LotParent', tableName: 'lot_parents', underscored: true },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 import type { SuperPull } from './super-pull';
 import type { LotContainer } from './lot-container';
 import type { MoistureReading } from './moisture-reading';
@@ -43,7 +44,7 @@ export class Lot extends Model<InferAttributes<Lot>, InferCreationAttributes<Lot
 export function initLot(sequelize: Sequelize) {
   return Lot.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       code: { type: DataTypes.STRING(20), allowNull: false, unique: true },
       floralSource: { type: DataTypes.STRING(80), allowNull: false, defaultValue: '' },
       heather: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
@@ -57,8 +58,7 @@ export function initLot(sequelize: Sequelize) {
       bestBeforeOn: { type: DataTypes.DATEONLY, allowNull: true },
       notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       createdBy: { type: DataTypes.INTEGER, allowNull: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'Lot', tableName: 'lots', underscored: true },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, voidColumns, timestamps } from './columns';
 import type { Lot } from './lot';
 
 /** ri: refractive index; scale: a honey refractometer's own % water scale. */
@@ -26,7 +27,7 @@ export class MoistureReading extends Model<InferAttributes<MoistureReading>, Inf
 export function initMoistureReading(sequelize: Sequelize) {
   return MoistureReading.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       lotId: { type: DataTypes.INTEGER, allowNull: false },
       method: { type: DataTypes.STRING(8), allowNull: false, validate: { isIn: [MOISTURE_METHODS] } },
       refractiveIndex: { type: DataTypes.DECIMAL(6, 4), allowNull: true },
@@ -35,11 +36,8 @@ export function initMoistureReading(sequelize: Sequelize) {
       waterPct: { type: DataTypes.DECIMAL(5, 2), allowNull: false },
       takenOn: { type: DataTypes.DATEONLY, allowNull: false },
       recordedBy: { type: DataTypes.INTEGER, allowNull: true },
-      voidedAt: { type: DataTypes.DATE, allowNull: true },
-      voidedBy: { type: DataTypes.INTEGER, allowNull: true },
-      voidReason: { type: DataTypes.TEXT, allowNull: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...voidColumns(),
+      ...timestamps(),
     },
     { sequelize, modelName: 'MoistureReading', tableName: 'moisture_readings', underscored: true },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 import type { OrderLine } from './order-line';
 import type { Lot } from './lot';
 
@@ -21,13 +22,12 @@ export class OrderAllocation extends Model<InferAttributes<OrderAllocation>, Inf
 export function initOrderAllocation(sequelize: Sequelize) {
   return OrderAllocation.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       orderLineId: { type: DataTypes.INTEGER, allowNull: false },
       lotId: { type: DataTypes.INTEGER, allowNull: false },
       quantity: { type: DataTypes.INTEGER, allowNull: false },
       state: { type: DataTypes.STRING(12), allowNull: false, defaultValue: 'reserved', validate: { isIn: [ALLOCATION_STATES] } },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'OrderAllocation', tableName: 'order_allocations', underscored: true },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 import type { Order } from './order';
 import type { Product } from './product';
 import type { OrderAllocation } from './order-allocation';
@@ -21,14 +22,13 @@ export class OrderLine extends Model<InferAttributes<OrderLine>, InferCreationAt
 export function initOrderLine(sequelize: Sequelize) {
   return OrderLine.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       orderId: { type: DataTypes.INTEGER, allowNull: false },
       productId: { type: DataTypes.INTEGER, allowNull: false },
       productName: { type: DataTypes.STRING(120), allowNull: false },
       quantity: { type: DataTypes.INTEGER, allowNull: false },
       unitPriceCents: { type: DataTypes.INTEGER, allowNull: false },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'OrderLine', tableName: 'order_lines', underscored: true },
   );

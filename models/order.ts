@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 import type { User } from './user';
 import type { OrderLine } from './order-line';
 import type { Refund } from './refund';
@@ -51,7 +52,7 @@ export class Order extends Model<InferAttributes<Order>, InferCreationAttributes
 export function initOrder(sequelize: Sequelize) {
   return Order.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       number: { type: DataTypes.STRING(20), allowNull: false, unique: true },
       customerId: { type: DataTypes.INTEGER, allowNull: true },
       email: { type: DataTypes.STRING(254), allowNull: false },
@@ -73,8 +74,7 @@ export function initOrder(sequelize: Sequelize) {
       shippedAt: { type: DataTypes.DATE, allowNull: true },
       pickedUpAt: { type: DataTypes.DATE, allowNull: true },
       tracking: { type: DataTypes.STRING(200), allowNull: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'Order', tableName: 'orders', underscored: true },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { bigSerialId, timestamps } from './columns';
 
 export type OutboxAttachment = { filename: string; contentType: string; base64: string };
 
@@ -23,7 +24,7 @@ export class OutboxMessage extends Model<InferAttributes<OutboxMessage>, InferCr
 export function initOutboxMessage(sequelize: Sequelize) {
   return OutboxMessage.init(
     {
-      id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
+      ...bigSerialId(),
       dedupeKey: { type: DataTypes.STRING(200), allowNull: true, unique: true },
       toAddress: { type: DataTypes.STRING(254), allowNull: false },
       subject: { type: DataTypes.STRING(250), allowNull: false },
@@ -35,8 +36,7 @@ export function initOutboxMessage(sequelize: Sequelize) {
       lastError: { type: DataTypes.TEXT, allowNull: true },
       nextAttemptAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
       sentAt: { type: DataTypes.DATE, allowNull: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'OutboxMessage', tableName: 'outbox_messages', underscored: true },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 
 export class PasswordToken extends Model<InferAttributes<PasswordToken>, InferCreationAttributes<PasswordToken>> {
   declare id: CreationOptional<number>;
@@ -15,14 +16,13 @@ export class PasswordToken extends Model<InferAttributes<PasswordToken>, InferCr
 export function initPasswordToken(sequelize: Sequelize) {
   return PasswordToken.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       userId: { type: DataTypes.INTEGER, allowNull: false },
       purpose: { type: DataTypes.ENUM('set', 'reset'), allowNull: false },
       tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       usedAt: { type: DataTypes.DATE, allowNull: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'PasswordToken', tableName: 'password_tokens', underscored: true },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 import type { StoredFile } from './stored-file';
 import type { StockLevel } from './stock-level';
 
@@ -31,7 +32,7 @@ export class Product extends Model<InferAttributes<Product>, InferCreationAttrib
 export function initProduct(sequelize: Sequelize) {
   return Product.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       slug: { type: DataTypes.STRING(80), allowNull: false, unique: true },
       name: { type: DataTypes.STRING(120), allowNull: false },
       description: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
@@ -45,8 +46,7 @@ export function initProduct(sequelize: Sequelize) {
       photoId: { type: DataTypes.INTEGER, allowNull: true },
       active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
       sortOrder: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'Product', tableName: 'products', underscored: true },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 import type { Order } from './order';
 
 export class Refund extends Model<InferAttributes<Refund>, InferCreationAttributes<Refund>> {
@@ -17,15 +18,14 @@ export class Refund extends Model<InferAttributes<Refund>, InferCreationAttribut
 export function initRefund(sequelize: Sequelize) {
   return Refund.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       orderId: { type: DataTypes.INTEGER, allowNull: false },
       stripeRefundId: { type: DataTypes.STRING(120), allowNull: true, unique: true },
       amountCents: { type: DataTypes.INTEGER, allowNull: false },
       restock: { type: DataTypes.BOOLEAN, allowNull: false },
       reason: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       createdBy: { type: DataTypes.INTEGER, allowNull: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'Refund', tableName: 'refunds', underscored: true },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { bigSerialId, createdAtOnly } from './columns';
 
 export class SignInAttempt extends Model<InferAttributes<SignInAttempt>, InferCreationAttributes<SignInAttempt>> {
   declare id: CreationOptional<number>;
@@ -11,11 +12,11 @@ export class SignInAttempt extends Model<InferAttributes<SignInAttempt>, InferCr
 export function initSignInAttempt(sequelize: Sequelize) {
   return SignInAttempt.init(
     {
-      id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
+      ...bigSerialId(),
       email: { type: DataTypes.STRING(254), allowNull: false },
       ip: { type: DataTypes.STRING(64), allowNull: false },
       succeeded: { type: DataTypes.BOOLEAN, allowNull: false },
-      createdAt: DataTypes.DATE,
+      ...createdAtOnly(),
     },
     { sequelize, modelName: 'SignInAttempt', tableName: 'sign_in_attempts', underscored: true, updatedAt: false },
   );

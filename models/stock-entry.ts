@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { bigSerialId, createdAtOnly } from './columns';
 import type { Lot } from './lot';
 import type { Product } from './product';
 import type { JarringRun } from './jarring-run';
@@ -29,7 +30,7 @@ export class StockEntry extends Model<InferAttributes<StockEntry>, InferCreation
 export function initStockEntry(sequelize: Sequelize) {
   return StockEntry.init(
     {
-      id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
+      ...bigSerialId(),
       productId: { type: DataTypes.INTEGER, allowNull: false },
       lotId: { type: DataTypes.INTEGER, allowNull: false },
       delta: { type: DataTypes.INTEGER, allowNull: false },
@@ -38,7 +39,7 @@ export function initStockEntry(sequelize: Sequelize) {
       jarringRunId: { type: DataTypes.INTEGER, allowNull: true },
       orderId: { type: DataTypes.INTEGER, allowNull: true },
       createdBy: { type: DataTypes.INTEGER, allowNull: true },
-      createdAt: DataTypes.DATE,
+      ...createdAtOnly(),
     },
     { sequelize, modelName: 'StockEntry', tableName: 'stock_entries', underscored: true, updatedAt: false },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { timestamps } from './columns';
 import type { Lot } from './lot';
 import type { Product } from './product';
 
@@ -23,8 +24,7 @@ export function initStockLevel(sequelize: Sequelize) {
       onHand: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       reserved: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       bestBeforeOn: { type: DataTypes.DATEONLY, allowNull: false },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'StockLevel', tableName: 'stock_levels', underscored: true },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 
 /** Uploaded images and other binary files, served by a route handler, never from public/. */
 export class StoredFile extends Model<InferAttributes<StoredFile>, InferCreationAttributes<StoredFile>> {
@@ -16,15 +17,14 @@ export class StoredFile extends Model<InferAttributes<StoredFile>, InferCreation
 export function initStoredFile(sequelize: Sequelize) {
   return StoredFile.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       filename: { type: DataTypes.STRING(200), allowNull: false },
       contentType: { type: DataTypes.STRING(60), allowNull: false },
       sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
       sha256: { type: DataTypes.STRING(64), allowNull: false },
       data: { type: DataTypes.BLOB, allowNull: false },
       uploadedBy: { type: DataTypes.INTEGER, allowNull: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'StoredFile', tableName: 'stored_files', underscored: true },
   );

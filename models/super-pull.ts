@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, voidColumns, idempotencyKey, timestamps } from './columns';
 import { SUPER_DEPTHS, type SuperDepth } from './super-tag';
 import type { Colony } from './colony';
 import type { Lot } from './lot';
@@ -42,7 +43,7 @@ export class SuperPull extends Model<InferAttributes<SuperPull>, InferCreationAt
 export function initSuperPull(sequelize: Sequelize) {
   return SuperPull.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       colonyId: { type: DataTypes.INTEGER, allowNull: false },
       tagCode: { type: DataTypes.STRING(30), allowNull: true },
       depth: { type: DataTypes.STRING(10), allowNull: false, validate: { isIn: [SUPER_DEPTHS] } },
@@ -59,14 +60,11 @@ export function initSuperPull(sequelize: Sequelize) {
       overrideBy: { type: DataTypes.INTEGER, allowNull: true },
       putOnBy: { type: DataTypes.INTEGER, allowNull: true },
       pulledBy: { type: DataTypes.INTEGER, allowNull: true },
-      idempotencyKey: { type: DataTypes.STRING(80), allowNull: true, unique: true },
+      ...idempotencyKey(),
       pullKey: { type: DataTypes.STRING(80), allowNull: true, unique: true },
       note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
-      voidedAt: { type: DataTypes.DATE, allowNull: true },
-      voidedByUserId: { type: DataTypes.INTEGER, allowNull: true },
-      voidReason: { type: DataTypes.TEXT, allowNull: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...voidColumns('voidedByUserId'),
+      ...timestamps(),
     },
     { sequelize, modelName: 'SuperPull', tableName: 'super_pulls', underscored: true },
   );

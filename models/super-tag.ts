@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 
 export const SUPER_DEPTHS = ['deep', 'medium', 'shallow'] as const;
 export type SuperDepth = (typeof SUPER_DEPTHS)[number];
@@ -17,13 +18,12 @@ export class SuperTag extends Model<InferAttributes<SuperTag>, InferCreationAttr
 export function initSuperTag(sequelize: Sequelize) {
   return SuperTag.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       code: { type: DataTypes.STRING(30), allowNull: false, unique: true },
       depth: { type: DataTypes.STRING(10), allowNull: false, validate: { isIn: [SUPER_DEPTHS] } },
       frameCount: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 10 },
       retiredAt: { type: DataTypes.DATE, allowNull: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'SuperTag', tableName: 'super_tags', underscored: true },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 
 /** Owner-editable list of treatments; the real product's label governs, this is only a record of it. */
 export class TreatmentKind extends Model<InferAttributes<TreatmentKind>, InferCreationAttributes<TreatmentKind>> {
@@ -15,14 +16,13 @@ export class TreatmentKind extends Model<InferAttributes<TreatmentKind>, InferCr
 export function initTreatmentKind(sequelize: Sequelize) {
   return TreatmentKind.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       name: { type: DataTypes.STRING(80), allowNull: false, unique: true },
       supersAllowed: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       waitingDays: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'TreatmentKind', tableName: 'treatment_kinds', underscored: true },
   );

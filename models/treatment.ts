@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, idempotencyKey, timestamps } from './columns';
 import type { Colony } from './colony';
 import type { TreatmentKind } from './treatment-kind';
 
@@ -24,7 +25,7 @@ export class Treatment extends Model<InferAttributes<Treatment>, InferCreationAt
 export function initTreatment(sequelize: Sequelize) {
   return Treatment.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       colonyId: { type: DataTypes.INTEGER, allowNull: false },
       treatmentKindId: { type: DataTypes.INTEGER, allowNull: false },
       productName: { type: DataTypes.STRING(120), allowNull: false, defaultValue: '' },
@@ -34,9 +35,8 @@ export function initTreatment(sequelize: Sequelize) {
       waitingDays: { type: DataTypes.INTEGER, allowNull: false },
       note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       recordedBy: { type: DataTypes.INTEGER, allowNull: true },
-      idempotencyKey: { type: DataTypes.STRING(80), allowNull: true, unique: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...idempotencyKey(),
+      ...timestamps(),
     },
     { sequelize, modelName: 'Treatment', tableName: 'treatments', underscored: true },
   );

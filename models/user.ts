@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 import type { Role } from '@/lib/auth/roles';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
@@ -18,7 +19,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
 export function initUser(sequelize: Sequelize) {
   return User.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
       name: { type: DataTypes.STRING(120), allowNull: false },
       role: { type: DataTypes.ENUM('owner', 'keeper', 'crew', 'customer'), allowNull: false },
@@ -27,8 +28,7 @@ export function initUser(sequelize: Sequelize) {
       disabledAt: { type: DataTypes.DATE, allowNull: true },
       sessionVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
       weightUnit: { type: DataTypes.ENUM('metric', 'us'), allowNull: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'User', tableName: 'users', underscored: true },
   );

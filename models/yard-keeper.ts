@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { createdAtOnly } from './columns';
 
 /** Which keepers work a yard (join table of Yard ↔ User). */
 export class YardKeeper extends Model<InferAttributes<YardKeeper>, InferCreationAttributes<YardKeeper>> {
@@ -12,7 +13,7 @@ export function initYardKeeper(sequelize: Sequelize) {
     {
       yardId: { type: DataTypes.INTEGER, allowNull: false, primaryKey: true },
       userId: { type: DataTypes.INTEGER, allowNull: false, primaryKey: true },
-      createdAt: DataTypes.DATE,
+      ...createdAtOnly(),
     },
     { sequelize, modelName: 'YardKeeper', tableName: 'yard_keepers', underscored: true, updatedAt: false },
   );

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { serialId, timestamps } from './columns';
 import type { User } from './user';
 import type { Colony } from './colony';
 
@@ -19,15 +20,14 @@ export class Yard extends Model<InferAttributes<Yard>, InferCreationAttributes<Y
 export function initYard(sequelize: Sequelize) {
   return Yard.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       name: { type: DataTypes.STRING(80), allowNull: false, unique: true },
       place: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       latitude: { type: DataTypes.DECIMAL(9, 6), allowNull: true },
       longitude: { type: DataTypes.DECIMAL(9, 6), allowNull: true },
       forageNotes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       archivedAt: { type: DataTypes.DATE, allowNull: true },
-      createdAt: DataTypes.DATE,
-      updatedAt: DataTypes.DATE,
+      ...timestamps(),
     },
     { sequelize, modelName: 'Yard', tableName: 'yards', underscored: true },
   );

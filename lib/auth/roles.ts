@@ -8,46 +8,36 @@ export type Role = (typeof ROLES)[number];
 
 const O = 'owner', K = 'keeper', C = 'crew', U = 'customer';
 
-export const PERMISSIONS = {
-  'backoffice.enter': [O, K, C],
-  'settings.manage': [O],
-  'staff.manage': [O],
-  'audit.read': [O],
-  'yards.manage': [O],
-  'yards.read': [O, K, C],
-  'colonies.read': [O, K, C],
-  'colonies.write': [O, K],
-  'supers.read': [O, K, C],
-  'supers.write': [O, K],
-  'supers.import': [O, K],
-  'treatmentKinds.manage': [O],
-  'superTags.print': [O],
-  'lots.read': [O, K, C],
-  'lots.write': [O, C],
-  'lots.override': [O],
-  'containerTypes.manage': [O],
-  'products.manage': [O],
-  'products.read': [O, K, C],
-  'jarring.read': [O, K, C],
-  'jarring.write': [O, C],
-  'jarring.override': [O],
-  'stock.read': [O, K, C],
-  'stock.adjust': [O, C],
-  'labels.print': [O, C],
-  'labels.layouts': [O],
-  'orders.desk': [O, C],
-  'orders.refund': [O, C],
-  'orders.own': [U],
-  'reports.read': [O, K],
-  'reports.send': [O],
-  'trace.read': [O, C],
-} as const satisfies Record<string, readonly Role[]>;
+/** Each permission once, under the roles that hold it. */
+export const GRANTS = [
+  {
+    roles: [O, K, C],
+    permissions: ['backoffice.enter', 'yards.read', 'colonies.read', 'supers.read', 'lots.read', 'products.read', 'jarring.read', 'stock.read'],
+  },
+  { roles: [O, K], permissions: ['colonies.write', 'supers.write', 'supers.import', 'reports.read'] },
+  { roles: [O, C], permissions: ['lots.write', 'jarring.write', 'stock.adjust', 'labels.print', 'orders.desk', 'orders.refund', 'trace.read'] },
+  {
+    roles: [O],
+    permissions: [
+      'settings.manage', 'staff.manage', 'audit.read', 'yards.manage', 'treatmentKinds.manage', 'superTags.print',
+      'lots.override', 'containerTypes.manage', 'products.manage', 'jarring.override', 'labels.layouts', 'reports.send',
+    ],
+  },
+  { roles: [U], permissions: ['orders.own'] },
+] as const satisfies readonly { roles: readonly Role[]; permissions: readonly string[] }[];
 
-export type Permission = keyof typeof PERMISSIONS;
+export type Permission = (typeof GRANTS)[number]['permissions'][number];
+
+/** The roles that hold each permission. */
+export const PERMISSIONS: Readonly<Record<Permission, readonly Role[]>> = (() => {
+  const table = {} as Record<Permission, readonly Role[]>;
+  for (const { roles, permissions } of GRANTS) for (const p of permissions) table[p] = roles;
+  return table;
+})();
 
 export function can(role: Role | null | undefined, permission: Permission): boolean {
   if (!role) return false;
-  return (PERMISSIONS[permission] as readonly Role[]).includes(role);
+  return PERMISSIONS[permission].includes(role);
 }
 
 export function isRole(value: unknown): value is Role {

@@ -1,26 +1,12 @@
 // Paying (hosted page and hook), declines and refunds against the fake (fakes/stripe/payments.ts, refunds.ts).
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import Stripe from 'stripe';
 import type { StripeFake } from '@/fakes/stripe/server';
-import { hook, sdk, sessionParams, startFake, startReceiver, type Receiver } from './support';
+import { hook, sessionParams, setUpStripeFake } from './support';
 
-let receiver: Receiver;
 let fake: StripeFake;
 let stripe: Stripe;
-
-beforeAll(async () => {
-  receiver = await startReceiver();
-  fake = await startFake(receiver);
-  stripe = sdk(fake.port);
-});
-afterAll(async () => {
-  await fake.close();
-  await receiver.close();
-});
-beforeEach(async () => {
-  await hook(fake, '/_fake/reset');
-  receiver.clear();
-});
+setUpStripeFake((started) => ({ fake, stripe } = started));
 
 function payForm(card: string): string {
   return new URLSearchParams({ card, expiry: '12 / 34', cvc: '123', name: 'Test Buyer' }).toString();

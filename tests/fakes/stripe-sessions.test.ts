@@ -1,26 +1,13 @@
 // Checkout Sessions through the real SDK against the fake (fakes/stripe/sessions.ts, idempotency.ts).
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import Stripe from 'stripe';
 import type { StripeFake } from '@/fakes/stripe/server';
-import { hook, sdk, sessionParams, startFake, startReceiver, type Receiver } from './support';
+import { hook, sessionParams, setUpStripeFake, type Receiver } from './support';
 
 let receiver: Receiver;
 let fake: StripeFake;
 let stripe: Stripe;
-
-beforeAll(async () => {
-  receiver = await startReceiver();
-  fake = await startFake(receiver);
-  stripe = sdk(fake.port);
-});
-afterAll(async () => {
-  await fake.close();
-  await receiver.close();
-});
-beforeEach(async () => {
-  await hook(fake, '/_fake/reset');
-  receiver.clear();
-});
+setUpStripeFake((started) => ({ receiver, fake, stripe } = started));
 
 describe('checkout sessions', () => {
   it('creates, retrieves with line items, lists line items and expires', async () => {

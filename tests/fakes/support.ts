@@ -2,6 +2,7 @@
 import { createServer, type IncomingMessage } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import Stripe from 'stripe';
+import { afterAll, beforeAll, beforeEach } from 'vitest';
 import { startStripeFake, type StripeFake } from '@/fakes/stripe/server';
 
 export const WEBHOOK_SECRET = 'whsec_fake_tests';
@@ -78,4 +79,28 @@ export const sessionParams = (quantity = 2): Stripe.Checkout.SessionCreateParams
 export async function hook(fake: StripeFake, path: string, body: unknown = {}): Promise<{ status: number; json: Record<string, unknown> }> {
   const res = await fetch(`${fake.url}${path}`, { method: 'POST', body: JSON.stringify(body) });
   return { status: res.status, json: (await res.json()) as Record<string, unknown> };
+}
+
+export type StartedFake = { receiver: Receiver; fake: StripeFake; stripe: Stripe };
+
+/**
+ * For a test file: starts a webhook receiver, a fake that delivers to it and an SDK client once,
+ * hands them to `use`, resets the fake and forgets the deliveries before each test, stops both at the end.
+ */
+export function setUpStripeFake(use: (started: StartedFake) => void): void {
+  let started: StartedFake | undefined;
+  beforeAll(async () => {
+    const receiver = await startReceiver();
+    const fake = await startFake(receiver);
+    started = { receiver, fake, stripe: sdk(fake.port) };
+    use(started);
+  });
+  afterAll(async () => {
+    await started?.fake.close();
+    await started?.receiver.close();
+  });
+  beforeEach(async () => {
+    await hook(started!.fake, '/_fake/reset');
+    started!.receiver.clear();
+  });
 }

@@ -1,7 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { can, menuFor, PERMISSIONS, ROLES, isRole } from '@/lib/auth/roles';
+import { can, GRANTS, menuFor, PERMISSIONS, ROLES, isRole } from '@/lib/auth/roles';
 
 describe('permission table', () => {
+  it('grants each permission once (a second grant would silently replace the first)', () => {
+    const granted = GRANTS.flatMap((g) => g.permissions);
+    expect(new Set(granted).size).toBe(granted.length);
+    expect(Object.keys(PERMISSIONS).sort()).toEqual([...granted].sort());
+  });
+
   it('gives customers no back-office permission at all', () => {
     const staffOnly = Object.keys(PERMISSIONS).filter((p) => p !== 'orders.own') as (keyof typeof PERMISSIONS)[];
     for (const p of staffOnly) expect(can('customer', p), p).toBe(false);

@@ -6,6 +6,7 @@ import { GET as listLotsRoute } from '@/app/api/lots/route';
 import { DEMO, signInAs } from '@/tests/support/session';
 import { makePulledSupers } from '@/tests/support/lot-fixtures';
 import { listPullableSupers } from '@/lib/data/lots/supers';
+import { failOnce } from '@/tests/support/fail-once';
 
 afterAll(closeDb);
 
@@ -26,14 +27,24 @@ describe('lot codes', () => {
     expect(audits).toBe(20);
   });
 
-  it('a failed lot gives its number back (the sequence is taken in the lot’s transaction)', async () => {
+  it('a lot that fails after taking its number gives the number back (the sequence is taken in the lot’s transaction)', async () => {
     await signInAs(DEMO.crew);
     const a = await createLotAction({ floralSource: 'Before', heather: false, notes: '' });
-    const bad = await createLotAction({ floralSource: 'x'.repeat(200), heather: false, notes: '' });
-    expect(bad.ok).toBe(false);
+    if (!a.ok) throw new Error('lot not made');
+    // The lot's own row is inserted after takeLotCode, in the same transaction: fail that insert once,
+    // and name the code the lot was given, so the number was really taken before the failure.
+    const cleanUp = await failOnce('ct_fail_lot_insert', 'lots', `NEW.floral_source = 'Fails once'`, 'NEW.code');
+    let failedCode = '';
+    try {
+      const failed = await createLotAction({ floralSource: 'Fails once', heather: false, notes: '' }).then(() => null, (e: unknown) => e);
+      failedCode = /injected failure \(ct_fail_lot_insert\): (\S+)/.exec(String(failed))?.[1] ?? '';
+    } finally {
+      await cleanUp();
+    }
+    expect(parseLotCode(failedCode)?.sequence).toBe(parseLotCode(a.data.code)!.sequence + 1);
+    expect(await getDb().models.Lot.count({ where: { floralSource: 'Fails once' } })).toBe(0);
     const b = await createLotAction({ floralSource: 'After', heather: false, notes: '' });
-    expect(a.ok && b.ok).toBe(true);
-    if (a.ok && b.ok) expect(parseLotCode(b.data.code)!.sequence).toBe(parseLotCode(a.data.code)!.sequence + 1);
+    expect(b).toMatchObject({ ok: true, data: { code: failedCode } });
   });
 
   it('keepers and customers cannot create lots', async () => {

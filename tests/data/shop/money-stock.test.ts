@@ -5,6 +5,7 @@ import { closeDb, getDb } from '@/lib/db/index';
 import { POST as checkoutPOST } from '@/app/api/checkout/route';
 import { POST as webhookPOST } from '@/app/api/stripe/webhook/route';
 import { signInAs, setRequestHeaders } from '@/tests/support/session';
+import { failOnce } from '@/tests/support/fail-once';
 import { guest, hook, makeProduct, orderOf, SHOP_WEBHOOK_SECRET, startOrder, startShopFake, stockOf, waitUntil, type ShopFake } from '@/tests/support/shop';
 
 // Money and stock: multi-line checkouts under contention, and a webhook whose
@@ -40,29 +41,6 @@ const eventRecord = (type: string, sessionId: string) =>
     () => fetch(`${shop.fake.url}/_fake/events?type=${type}&session=${sessionId}`).then((r) => r.json()).then((j) => j.data[0] as EventRecord | undefined),
     (r) => (r?.attempts.length ?? 0) > 0,
   ).then((r) => r!);
-
-/**
- * A trigger that raises the first time `when` holds for a row inserted into `table`, and never
- * again. The counter is a sequence because nextval survives the rollback the failure causes.
- * Returns the clean-up.
- */
-async function failOnce(name: string, table: string, when: string): Promise<() => Promise<void>> {
-  const { sequelize } = getDb();
-  await sequelize.query(`CREATE SEQUENCE ${name}_seq`);
-  await sequelize.query(`CREATE FUNCTION ${name}() RETURNS trigger LANGUAGE plpgsql AS $$
-    BEGIN
-      IF ${when} THEN
-        IF nextval('${name}_seq') = 1 THEN RAISE EXCEPTION 'injected failure (${name})'; END IF;
-      END IF;
-      RETURN NEW;
-    END $$`);
-  await sequelize.query(`CREATE TRIGGER ${name} BEFORE INSERT ON ${table} FOR EACH ROW EXECUTE FUNCTION ${name}()`);
-  return async () => {
-    await sequelize.query(`DROP TRIGGER IF EXISTS ${name} ON ${table}`);
-    await sequelize.query(`DROP FUNCTION IF EXISTS ${name}()`);
-    await sequelize.query(`DROP SEQUENCE IF EXISTS ${name}_seq`);
-  };
-}
 
 /** What an order has left in the tables a paid or expired event touches. */
 async function traces(orderId: number, eventId: string) {
