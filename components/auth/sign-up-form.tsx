@@ -13,6 +13,8 @@ export function SignUpForm({ onSignUp }: { onSignUp: (v: SignUpInput) => Promise
     action: onSignUp,
     onSuccess: async (_, values) => {
       await signIn('credentials', { redirect: false, email: values.email, password: values.password });
+      // A full page load, so the header and every server component see the new session cookie.
+      // eslint-disable-next-line @next/next/no-location-assign-relative-destination
       window.location.assign('/account');
     },
   });

@@ -1,5 +1,5 @@
 'use client';
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useEffectEvent, useRef, useState, useSyncExternalStore } from 'react';
 import { Camera } from 'lucide-react';
 
 // The Barcode Detection API (Chromium on Android and desktop); not in TypeScript's DOM types yet.
@@ -16,16 +16,16 @@ function detectorClass(): DetectorClass | null {
  * Camera scanning where the browser can read barcodes itself; elsewhere nothing is shown and the
  * scanner input (keyboard wedge or typing) is the way in. The same code is not sent twice within 3 s.
  */
+const noSubscription = () => () => {};
+const cameraScanSupported = () => Boolean(detectorClass()) && Boolean(navigator.mediaDevices?.getUserMedia);
+
 export function CameraScan({ onCode }: { onCode: (code: string) => void }) {
-  const [supported, setSupported] = useState(false);
+  const supported = useSyncExternalStore(noSubscription, cameraScanSupported, () => false);
   const [on, setOn] = useState(false);
   const [error, setError] = useState<string>();
   const video = useRef<HTMLVideoElement>(null);
   const last = useRef<{ code: string; at: number }>({ code: '', at: 0 });
-  const send = useRef(onCode);
-  send.current = onCode;
-
-  useEffect(() => setSupported(Boolean(detectorClass()) && Boolean(navigator.mediaDevices?.getUserMedia)), []);
+  const send = useEffectEvent(onCode);
 
   useEffect(() => {
     if (!on) return;
@@ -50,7 +50,7 @@ export function CameraScan({ onCode }: { onCode: (code: string) => void }) {
               const now = Date.now();
               if (!code || (code === last.current.code && now - last.current.at < 3000)) continue;
               last.current = { code, at: now };
-              send.current(code);
+              send(code);
             }
           } catch { /* a frame that could not be read */ }
         }, 300);

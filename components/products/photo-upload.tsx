@@ -21,6 +21,7 @@ export function PhotoUpload({ productId, photoId }: { productId: number; photoId
   return (
     <form onSubmit={submit} className="space-y-3" noValidate aria-label="Product photo">
       {version ? (
+        // eslint-disable-next-line @next/next/no-img-element -- served by our own route, sizes vary
         <img src={`/api/products/${productId}/photo?v=${version}`} alt="Product photo" className="max-h-56 rounded-lg border border-line" />
       ) : <p className="hint">No photo yet.</p>}
       <label className="field" htmlFor="photo"><span>Photo (JPEG, PNG or WebP, up to 5 MB)</span>

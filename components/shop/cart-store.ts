@@ -19,6 +19,15 @@ export function readCart(): CartItem[] {
   }
 }
 
+let snapshot: { raw: string | null; items: CartItem[] } = { raw: null, items: [] };
+
+/** The cart, the same array until it changes (for useSyncExternalStore). */
+export function cartSnapshot(): CartItem[] {
+  const raw = window.localStorage.getItem(KEY);
+  if (raw !== snapshot.raw) snapshot = { raw, items: readCart() };
+  return snapshot.items;
+}
+
 export function writeCart(items: CartItem[]): void {
   window.localStorage.setItem(KEY, JSON.stringify(items.filter((i) => i.quantity > 0)));
   window.dispatchEvent(new Event(EVENT));

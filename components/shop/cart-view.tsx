@@ -11,7 +11,7 @@ export function CartView({ currency, cancelled }: { currency: string; cancelled:
   const notice = cancelled ? <p role="status" className="mb-4 rounded-lg bg-info-bg px-3 py-2 text-sm text-info-fg">Payment cancelled. Your jars are back on the shelf; your cart is as you left it.</p> : null;
   if (items.length === 0) return <>{notice}<p>Your cart is empty. <Link href="/products">Browse the jars</Link>.</p></>;
   const setQty = (productId: number, quantity: number) => writeCart(items.map((i) => (i.productId === productId ? { ...i, quantity } : i)));
-  let total = 0;
+  const total = items.reduce((sum, i) => sum + (live?.get(i.productId)?.priceCents ?? i.priceCents) * i.quantity, 0);
   return (
     <div className="space-y-4">
       {notice}
@@ -21,7 +21,6 @@ export function CartView({ currency, cancelled }: { currency: string; cancelled:
           {items.map((i) => {
             const p = live?.get(i.productId);
             const price = p?.priceCents ?? i.priceCents;
-            total += price * i.quantity;
             const warn = live && !p ? 'No longer sold' : p && p.available <= 0 ? 'Sold out' : p && p.available < i.quantity ? `Only ${p.available} left` : null;
             return (
               <tr key={i.productId}>

@@ -166,6 +166,7 @@ export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardNam
 
   useEffect(() => {
     const d = localStorage.getItem(DEPTH_KEY);
+    // eslint-disable-next-line react-hooks/set-state-in-effect -- this phone's saved choice, read after hydration
     if (d && (SUPER_DEPTHS as readonly string[]).includes(d)) setDepth(d as Depth);
     const f = localStorage.getItem(FRAMES_KEY);
     if (f && /^\d{1,2}$/.test(f)) setFrames(f);
@@ -173,6 +174,7 @@ export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardNam
 
   // Restore what is waiting on this phone, send it if there is a connection, and again whenever the connection comes back.
   useEffect(() => {
+    // eslint-disable-next-line react-hooks/set-state-in-effect -- the queue saved on this phone, read after hydration
     const stored = restore();
     setOnline(navigator.onLine);
     setReady(true);
