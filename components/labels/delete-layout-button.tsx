@@ -1,7 +1,7 @@
 'use client';
 import { useRouter } from 'next/navigation';
 import type { ActionResult } from '@/lib/schemas/result';
-import { labelLayoutIdInput, type LabelLayoutIdInput } from '@/lib/schemas/jarring';
+import { labelLayoutIdInput, type LabelLayoutIdInput } from '@/lib/schemas/labels';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 

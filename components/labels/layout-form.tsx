@@ -1,6 +1,6 @@
 'use client';
 import { useRouter } from 'next/navigation';
-import { labelLayoutInput, type LabelLayoutInput } from '@/lib/schemas/jarring';
+import { labelLayoutInput, type LabelLayoutInput } from '@/lib/schemas/labels';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';

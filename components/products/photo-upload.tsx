@@ -1,6 +1,6 @@
 'use client';
 import { useState } from 'react';
-import { productPhotoInput } from '@/lib/schemas/jarring';
+import { productPhotoInput } from '@/lib/schemas/products';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 import { postForm } from '@/components/ui/post-form';

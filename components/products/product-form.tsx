@@ -1,6 +1,6 @@
 'use client';
 import { useRouter } from 'next/navigation';
-import { productInput, type ProductInput } from '@/lib/schemas/jarring';
+import { productInput, type ProductInput } from '@/lib/schemas/products';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';

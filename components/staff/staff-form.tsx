@@ -1,5 +1,5 @@
 'use client';
-import { staffInput, type StaffInput } from '@/lib/schemas/auth';
+import { staffInput, type StaffInput } from '@/lib/schemas/staff';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';

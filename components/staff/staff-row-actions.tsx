@@ -1,6 +1,6 @@
 'use client';
 import type { ActionResult } from '@/lib/schemas/result';
-import { staffUpdateInput, type StaffUpdateInput } from '@/lib/schemas/auth';
+import { staffUpdateInput, type StaffUpdateInput } from '@/lib/schemas/staff';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 

@@ -1,5 +1,5 @@
 'use client';
-import { stockAdjustInput, type StockAdjustInput } from '@/lib/schemas/jarring';
+import { stockAdjustInput, type StockAdjustInput } from '@/lib/schemas/stock';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';

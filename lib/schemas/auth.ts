@@ -22,13 +22,3 @@ export type ForgotPasswordInput = z.input<typeof forgotPasswordInput>;
 
 export const resetPasswordInput = z.object({ token: z.string().min(20).max(200), password });
 export type ResetPasswordInput = z.input<typeof resetPasswordInput>;
-
-export const staffInput = z.object({ name: personName, email, role: z.enum(['owner', 'keeper', 'crew'], 'Pick a role.') });
-export type StaffInput = z.input<typeof staffInput>;
-
-export const staffUpdateInput = z.object({
-  userId: z.coerce.number().int().positive(),
-  role: z.enum(['owner', 'keeper', 'crew']).optional(),
-  disabled: z.boolean().optional(),
-});
-export type StaffUpdateInput = z.input<typeof staffUpdateInput>;

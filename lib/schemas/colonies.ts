@@ -60,3 +60,5 @@ export const treatmentInput = z.object({
 }).refine((v) => v.removedOn === null || v.removedOn >= v.appliedOn, { path: ['removedOn'], message: 'Removed before it was applied' });
 export const treatmentEndInput = z.object({ treatmentId: id, removedOn: isoDay });
 
+/** One colony with its supers, by id. */
+export const colonyDetailQuery = z.object({ id: z.coerce.number().int().positive('Give the colony id') });

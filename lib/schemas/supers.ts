@@ -69,3 +69,9 @@ export const importMapping = z.object({
   cappedFrames: z.string().optional(),
   tagCode: z.string().optional(),
 });
+
+/** The super-tag sheet: which batch (tag prefix) and which label layout. */
+export const tagSheetQuery = z.object({
+  prefix: z.string().trim().max(12).regex(/^[A-Za-z0-9-]*$/).optional(),
+  layout: z.string().max(80).optional(),
+});

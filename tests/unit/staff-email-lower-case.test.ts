@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { staffInput } from '@/lib/schemas/auth';
+import { staffInput } from '@/lib/schemas/staff';
 
 // The staff form parses with this same schema in the browser, so what it sends (and shows) is
 // the address the account gets.

@@ -5,7 +5,7 @@ import { getDb } from '@/lib/db/index';
 import { ConflictError, DomainError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { isValidGtin, makeGtin } from '@/lib/domain/gs1';
 import { toGrams } from '@/lib/domain/units';
-import type { ProductData } from '@/lib/schemas/jarring';
+import type { ProductData } from '@/lib/schemas/products';
 import { recordAudit } from '@/lib/data/audit';
 import { getSettings } from '@/lib/data/settings/settings';
 import { sniffImageType } from '@/lib/domain/file-type';

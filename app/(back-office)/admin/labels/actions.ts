@@ -1,7 +1,7 @@
 'use server';
 import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/server-action';
-import { labelLayoutIdInput, labelLayoutInput } from '@/lib/schemas/jarring';
+import { labelLayoutIdInput, labelLayoutInput } from '@/lib/schemas/labels';
 import { deleteLabelLayout, saveLabelLayout } from '@/lib/data/labels/layouts';
 
 export const saveLabelLayoutAction = guardedAction('labels.layouts', labelLayoutInput, async (user, data) => {

@@ -1,7 +1,7 @@
 'use server';
 import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/server-action';
-import { productInput } from '@/lib/schemas/jarring';
+import { productInput } from '@/lib/schemas/products';
 import { saveProduct } from '@/lib/data/products/products';
 
 export const saveProductAction = guardedAction('products.manage', productInput, async (user, data) => {

@@ -1,7 +1,7 @@
 'use server';
 import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/server-action';
-import { staffInput, staffUpdateInput } from '@/lib/schemas/auth';
+import { staffInput, staffUpdateInput } from '@/lib/schemas/staff';
 import { createStaff, EmailTakenError, updateStaff } from '@/lib/data/staff/users';
 import { fail } from '@/lib/schemas/result';
 

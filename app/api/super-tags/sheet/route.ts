@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import { tagSheetQuery } from '@/lib/schemas/supers';
 import { authorize } from '@/lib/auth/session';
 import { handleRouteError, HttpError } from '@/lib/http/json';
 import { listTags } from '@/lib/data/supers/tags';
@@ -8,16 +8,11 @@ import { BUILT_IN_LAYOUTS } from '@/lib/domain/label-layout';
 
 export const dynamic = 'force-dynamic';
 
-const query = z.object({
-  prefix: z.string().trim().max(12).regex(/^[A-Za-z0-9-]*$/).optional(),
-  layout: z.string().max(80).optional(),
-});
-
 /** Owner: a PDF sheet of super tags (Code 128 barcode + code per label), streamed. */
 export async function GET(req: Request) {
   try {
     await authorize('superTags.print');
-    const q = query.parse(Object.fromEntries(new URL(req.url).searchParams));
+    const q = tagSheetQuery.parse(Object.fromEntries(new URL(req.url).searchParams));
     const layout = q.layout ? BUILT_IN_LAYOUTS.find((l) => l.name === q.layout) : BUILT_IN_LAYOUTS[0];
     if (!layout) throw new HttpError(422, `Unknown label layout. Choose one of: ${BUILT_IN_LAYOUTS.map((l) => l.name).join(', ')}.`);
     const tags = await listTags(q.prefix);

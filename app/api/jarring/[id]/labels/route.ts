@@ -1,17 +1,10 @@
-import { z } from 'zod';
+import { runLabelsQuery } from '@/lib/schemas/labels';
 import { authorize } from '@/lib/auth/session';
 import { handleRouteError, HttpError } from '@/lib/http/json';
 import { pdfResponse, safePdfFilename } from '@/lib/pdf/response';
 import { renderRunLabels } from '@/lib/data/labels/run-labels';
 
 type Ctx = { params: Promise<{ id: string }> };
-
-const query = z.object({
-  layout: z.string().regex(/^[bs]\d{1,9}$/).optional(),
-  start: z.coerce.number().int().min(0).max(500).optional(),
-  copies: z.coerce.number().int().min(1).max(10_000).optional(),
-  preview: z.enum(['1']).optional(),
-});
 
 /**
  * A jarring run's labels as one PDF (owner and crew). `?preview=1` gives only the first page,
@@ -22,7 +15,7 @@ export async function GET(req: Request, { params }: Ctx): Promise<Response> {
     await authorize('labels.print');
     const id = Number((await params).id);
     if (!Number.isInteger(id) || id <= 0) throw new HttpError(404, 'No such jarring run.');
-    const q = query.parse(Object.fromEntries(new URL(req.url).searchParams));
+    const q = runLabelsQuery.parse(Object.fromEntries(new URL(req.url).searchParams));
     const preview = q.preview === '1';
     const { bytes, filename } = await renderRunLabels(id, { layoutKey: q.layout, startSlot: q.start, copies: q.copies, firstPageOnly: preview });
     const res = pdfResponse(bytes, filename);
