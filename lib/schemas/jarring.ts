@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { isValidGtin } from '@/lib/domain/gs1';
 import { chosenFile } from './fields';
+import { listQuery } from './list-query';
 
 const money = z.coerce.number({ error: 'Enter a price.' }).min(0, 'A price cannot be negative.').max(100_000, 'That price is too high.');
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Pick a date.');
@@ -67,6 +68,12 @@ export const overrideRunInput = z.object({
   reason: z.string().trim().min(10, 'Write why these jars may be sold (at least 10 characters).').max(1000),
 });
 export type OverrideRunInput = z.input<typeof overrideRunInput>;
+
+/** The jarring runs list: newest run first, optionally the runs of one lot. */
+export const jarringRunListQuery = listQuery(['runOn'], {
+  lotId: z.coerce.number().int().positive().optional(),
+}, 'runOn', { defaultDir: 'desc' });
+export type JarringRunListQuery = z.output<typeof jarringRunListQuery>;
 
 export const ADJUSTMENT_KINDS = ['breakage', 'adjustment', 'return'] as const;
 export const stockAdjustInput = z
