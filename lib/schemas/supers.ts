@@ -69,3 +69,18 @@ export const importMapping = z.object({
   cappedFrames: z.string().optional(),
   tagCode: z.string().optional(),
 });
+
+/**
+ * The pull import wizard's two requests, checked in the browser before posting: a look at the sheet
+ * (`preview`, first without a column mapping), then the import of its valid rows (`commit`). The
+ * route handler checks the file again, by content.
+ */
+export const importSheetInput = z.object({
+  file: z.custom<File>((v) => typeof File !== 'undefined' && v instanceof File, 'Choose a CSV file to upload.')
+    .refine((f) => f.size <= 5 * 1024 * 1024, 'The file is larger than 5 MB. Split it into smaller files.')
+    .refine((f) => /\.csv$/i.test(f.name), 'Only CSV files (.csv) can be imported. Save the spreadsheet as CSV first.'),
+  mode: z.enum(['preview', 'commit']),
+  mapping: importMapping.partial().optional(),
+  expectedValid: z.number().int().min(0).optional(),
+});
+export type ImportSheetInput = z.output<typeof importSheetInput>;
