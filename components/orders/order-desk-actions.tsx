@@ -1,8 +1,8 @@
 'use client';
-import { useState, useTransition } from 'react';
 import type { ActionResult } from '@/lib/schemas/result';
-import type { RefundInput, ShipInput } from '@/lib/schemas/orders';
+import { orderIdInput, refundFormInput, shipInput, type RefundInput, type ShipInput } from '@/lib/schemas/orders';
 import { FormMessage } from '@/components/ui/form-message';
+import { useActionForm } from '@/components/ui/use-action-form';
 
 type IdAction = (v: { orderId: number }) => Promise<ActionResult>;
 type Props = {
@@ -14,67 +14,71 @@ type Props = {
 
 /** The order desk's buttons: only the steps that fit the order's state are offered. */
 export function OrderDeskActions({ order, lines, canRefund, actions }: Props) {
-  const [pending, start] = useTransition();
-  const [error, setError] = useState<string>();
-  const [done, setDone] = useState<string>();
-  const run = (what: string, call: () => Promise<ActionResult>) =>
-    start(async () => {
-      setError(undefined);
-      setDone(undefined);
-      const r = await call();
-      if (r.ok) setDone(what);
-      else setError(r.message ?? 'That did not work.');
-    });
   const id = order.id;
   const open = order.status === 'paid' || order.status === 'packed';
   const refundable = canRefund && order.paid && order.refundableCents > 0;
   const max = order.refundableCents / 10 ** order.currencyDigits;
 
+  const pack = useActionForm({ schema: orderIdInput, action: actions.packed, successMessage: 'Marked packed.' });
+  const pickUp = useActionForm({ schema: orderIdInput, action: actions.pickedUp, successMessage: 'Marked picked up.' });
+  const cancel = useActionForm({ schema: orderIdInput, action: actions.cancel, successMessage: 'Order cancelled; jars released.' });
+  const ship = useActionForm({ schema: shipInput, action: actions.shipped, defaultValues: { orderId: id, tracking: '' }, successMessage: 'Marked shipped.' });
+  const refund = useActionForm({
+    schema: refundFormInput,
+    action: actions.refund,
+    // Every sold jar comes back, to the shelf, unless changed; lines with none sold stay at 0.
+    defaultValues: { orderId: id, amount: max.toFixed(order.currencyDigits), jars: lines.map((l) => ({ lineId: l.id, quantity: l.sold })), restock: lines.some((l) => l.sold > 0), reason: '' },
+    successMessage: 'Refund sent.',
+  });
+
+  // The steps share one message and one pending state: starting one clears what another said.
+  const steps = [pack, pickUp, cancel, ship, refund];
+  const pending = steps.some((s) => s.pending);
+  const message = steps.find((s) => s.message.error || s.message.success)?.message ?? {};
+  const only = (step: (typeof steps)[number]) => { for (const s of steps) if (s !== step) s.setMessage({}); };
+  const restock = refund.form.watch('restock');
+
   return (
     <div className="space-y-4">
-      <FormMessage error={error} success={done} />
+      <FormMessage {...message} />
       <div className="flex flex-wrap gap-2">
-        {order.status === 'paid' ? <button type="button" className="btn-primary" disabled={pending} onClick={() => run('Marked packed.', () => actions.packed({ orderId: id }))}>Mark packed</button> : null}
-        {open && order.fulfilment === 'pickup' ? <button type="button" className="btn-secondary" disabled={pending} onClick={() => run('Marked picked up.', () => actions.pickedUp({ orderId: id }))}>Mark picked up</button> : null}
-        {order.status === 'awaiting_payment' ? <button type="button" className="btn-danger" disabled={pending} onClick={() => { if (confirm('Cancel this unpaid order and put its jars back?')) run('Order cancelled; jars released.', () => actions.cancel({ orderId: id })); }}>Cancel unpaid order</button> : null}
+        {order.status === 'paid' ? <button type="button" className="btn-primary" disabled={pending} onClick={() => { only(pack); void pack.run({ orderId: id }); }}>Mark packed</button> : null}
+        {open && order.fulfilment === 'pickup' ? <button type="button" className="btn-secondary" disabled={pending} onClick={() => { only(pickUp); void pickUp.run({ orderId: id }); }}>Mark picked up</button> : null}
+        {order.status === 'awaiting_payment' ? <button type="button" className="btn-danger" disabled={pending} onClick={() => { if (confirm('Cancel this unpaid order and put its jars back?')) { only(cancel); void cancel.run({ orderId: id }); } }}>Cancel unpaid order</button> : null}
       </div>
       {open && order.fulfilment === 'ship' ? (
-        <form className="flex flex-wrap items-end gap-2" onSubmit={(e) => { e.preventDefault(); const tracking = String(new FormData(e.currentTarget).get('tracking') ?? ''); run('Marked shipped.', () => actions.shipped({ orderId: id, tracking })); }}>
-          <label className="field grow" htmlFor="tracking"><span>Tracking (carrier and number)</span><input id="tracking" name="tracking" className="input" maxLength={200} /></label>
+        <form className="flex flex-wrap items-end gap-2" onSubmit={(e) => { only(ship); void ship.submit(e); }}>
+          <label className="field grow" htmlFor="tracking"><span>Tracking (carrier and number)</span>
+            <input id="tracking" className="input" maxLength={200} aria-invalid={ship.errors.tracking ? true : undefined} {...ship.form.register('tracking')} />
+            {ship.errors.tracking?.message ? <small className="field-error" role="alert">{ship.errors.tracking.message}</small> : null}</label>
           <button type="submit" className="btn-secondary" disabled={pending}>Mark shipped</button>
         </form>
       ) : null}
       {refundable ? (
-        <form
-          className="card space-y-3"
-          aria-label="Refund"
-          onSubmit={(e) => {
-            e.preventDefault();
-            const f = new FormData(e.currentTarget);
-            const amount = Number(String(f.get('amount') ?? '').replace(',', '.'));
-            const jars = lines.map((l) => ({ lineId: l.id, quantity: Math.floor(Number(f.get(`jars-${l.id}`) || 0)) }));
-            run('Refund sent.', () => actions.refund({ orderId: id, amount, jars, restock: f.get('restock') === 'yes', reason: String(f.get('reason') ?? '') }));
-          }}
-        >
+        <form className="card space-y-3" aria-label="Refund" onSubmit={(e) => { only(refund); void refund.submit(e); }}>
           <h2 className="text-lg">Refund</h2>
           <label className="field" htmlFor="amount"><span>Amount ({order.currency.toUpperCase()}, at most {max.toFixed(order.currencyDigits)})</span>
-            <input id="amount" name="amount" className="input w-40" inputMode="decimal" defaultValue={max.toFixed(order.currencyDigits)} required /></label>
+            <input id="amount" className="input w-40" inputMode="decimal" required aria-invalid={refund.errors.amount ? true : undefined} {...refund.form.register('amount')} />
+            {refund.errors.amount?.message ? <small className="field-error" role="alert">{refund.errors.amount.message}</small> : null}</label>
           {lines.some((l) => l.sold > 0) ? (
             <fieldset className="space-y-2">
               <legend className="text-sm font-medium">Jars coming back</legend>
-              {lines.filter((l) => l.sold > 0).map((l) => (
+              {lines.map((l, i) => (l.sold > 0 ? (
                 <label key={l.id} className="flex items-center gap-2 text-sm" htmlFor={`jars-${l.id}`}>
-                  <input id={`jars-${l.id}`} name={`jars-${l.id}`} className="input w-20" type="number" inputMode="numeric" min={0} max={l.sold} defaultValue={l.sold} />
+                  <input id={`jars-${l.id}`} className="input w-20" type="number" inputMode="numeric" min={0} max={l.sold}
+                    {...refund.form.register(`jars.${i}.quantity`, { setValueAs: (v) => Math.floor(Number(v || 0)) })} />
                   of {l.sold} × {l.name}
                 </label>
-              ))}
+              ) : null))}
               <div className="flex flex-wrap gap-4 text-sm">
-                <label className="flex min-h-11 items-center gap-2"><input type="radio" name="restock" value="yes" defaultChecked /> Back to stock (sealed, fit to sell)</label>
-                <label className="flex min-h-11 items-center gap-2"><input type="radio" name="restock" value="no" /> Write off (broken or opened)</label>
+                <label className="flex min-h-11 items-center gap-2"><input type="radio" name="restock" checked={restock} onChange={() => refund.form.setValue('restock', true)} /> Back to stock (sealed, fit to sell)</label>
+                <label className="flex min-h-11 items-center gap-2"><input type="radio" name="restock" checked={!restock} onChange={() => refund.form.setValue('restock', false)} /> Write off (broken or opened)</label>
               </div>
             </fieldset>
-          ) : <input type="hidden" name="restock" value="no" />}
-          <label className="field" htmlFor="reason"><span>Reason (kept in the history)</span><input id="reason" name="reason" className="input" maxLength={500} /></label>
+          ) : null}
+          <label className="field" htmlFor="reason"><span>Reason (kept in the history)</span>
+            <input id="reason" className="input" maxLength={500} aria-invalid={refund.errors.reason ? true : undefined} {...refund.form.register('reason')} />
+            {refund.errors.reason?.message ? <small className="field-error" role="alert">{refund.errors.reason.message}</small> : null}</label>
           <button type="submit" className="btn-danger" disabled={pending}>Refund to card</button>
         </form>
       ) : null}

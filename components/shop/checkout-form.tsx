@@ -3,18 +3,37 @@ import { useState } from 'react';
 import Link from 'next/link';
 import { formatMoney } from '@/lib/domain/units';
 import { parcelWeightGrams, shippingCents, type ShippingBand } from '@/lib/domain/shipping';
+import { checkoutInput } from '@/lib/schemas/checkout';
+import type { ActionResult } from '@/lib/schemas/result';
 import { FormMessage } from '@/components/ui/form-message';
+import { TextField } from '@/components/ui/text-field';
+import { useActionForm } from '@/components/ui/use-action-form';
+import { postForm } from '@/components/ui/post-form';
 import { useCart } from './use-cart';
 
 type Props = { currency: string; bands: ShippingBand[]; pickupAddress: string; user: { name: string; email: string } | null };
-type Errors = Record<string, string>;
+type Started = { url: string; number: string };
 
 export function CheckoutForm({ currency, bands, pickupAddress, user }: Props) {
   const { items, live, ready } = useCart();
-  const [fulfilment, setFulfilment] = useState<'pickup' | 'ship'>('pickup');
-  const [error, setError] = useState<string>();
-  const [fieldErrors, setFieldErrors] = useState<Errors>({});
-  const [busy, setBusy] = useState(false);
+  // Once the jars are reserved the browser leaves for the card page; the button stays busy until it does.
+  const [leaving, setLeaving] = useState(false);
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: checkoutInput,
+    defaultValues: { items: [], name: user?.name ?? '', email: user?.email ?? '', phone: '', fulfilment: 'pickup' },
+    action: async (v): Promise<ActionResult<Started>> => {
+      try {
+        return await postForm<Started>('/api/checkout', { ...v, address: v.fulfilment === 'ship' ? v.address : undefined }, () => 'Something went wrong. Please try again.');
+      } catch {
+        return { ok: false, message: 'Could not reach the shop. Check your connection and try again.' };
+      }
+    },
+    onSuccess: ({ url }) => {
+      setLeaving(true);
+      window.location.assign(url);
+    },
+  });
+  const fulfilment = form.watch('fulfilment');
   const money = (c: number) => formatMoney(c, currency.toUpperCase());
   if (!ready) return <p className="text-ink-soft">Loading your cart…</p>;
   if (items.length === 0) return <p>Your cart is empty. <Link href="/products">Browse the jars</Link>.</p>;
@@ -23,67 +42,37 @@ export function CheckoutForm({ currency, bands, pickupAddress, user }: Props) {
   const subtotal = priced.reduce((s, i) => s + (i.p?.priceCents ?? i.priceCents) * i.quantity, 0);
   const weight = parcelWeightGrams(priced.map((i) => ({ quantity: i.quantity, netGrams: i.p?.netGrams ?? 0, containerGrams: i.p?.containerGrams ?? 0 })));
   const shipping = fulfilment === 'ship' ? shippingCents(weight, bands) : 0;
-
-  async function submit(form: HTMLFormElement) {
-    const f = new FormData(form);
-    const s = (k: string) => String(f.get(k) ?? '');
-    setBusy(true);
-    setError(undefined);
-    setFieldErrors({});
-    try {
-      const res = await fetch('/api/checkout', {
-        method: 'POST',
-        headers: { 'content-type': 'application/json' },
-        body: JSON.stringify({
-          items: items.map((i) => ({ productId: i.productId, quantity: i.quantity })),
-          name: s('name'), email: s('email'), phone: s('phone'), fulfilment,
-          address: fulfilment === 'ship' ? { line1: s('line1'), line2: s('line2'), city: s('city'), region: s('region'), postalCode: s('postalCode'), country: s('country') } : undefined,
-        }),
-      });
-      const body = (await res.json()) as { url?: string; error?: string; fieldErrors?: Errors };
-      if (res.ok && body.url) {
-        window.location.assign(body.url);
-        return;
-      }
-      setError(body.error ?? 'Something went wrong. Please try again.');
-      setFieldErrors(body.fieldErrors ?? {});
-    } catch {
-      setError('Could not reach the shop. Check your connection and try again.');
-    }
-    setBusy(false);
-  }
-
-  const field = (name: string, label: string, props: React.InputHTMLAttributes<HTMLInputElement> = {}) => (
-    <label className="field" htmlFor={`co-${name}`}>
-      <span>{label}</span>
-      <input id={`co-${name}`} name={name} className="input" aria-invalid={fieldErrors[name] || fieldErrors[`address.${name}`] ? true : undefined} {...props} />
-      {fieldErrors[name] || fieldErrors[`address.${name}`] ? <small className="field-error">{fieldErrors[name] ?? fieldErrors[`address.${name}`]}</small> : null}
-    </label>
-  );
+  const busy = pending || leaving;
+  // The cart is no field of its own: a refused line (e.g. too many jars) is said in the form's message.
+  const cartError = errors.items?.message ?? (Array.isArray(errors.items) ? errors.items.find((e) => e?.quantity)?.quantity?.message : undefined);
 
   return (
-    <form className="grid gap-8 md:grid-cols-[1fr_20rem]" onSubmit={(e) => { e.preventDefault(); void submit(e.currentTarget); }} noValidate>
+    <form
+      className="grid gap-8 md:grid-cols-[1fr_20rem]"
+      onSubmit={(e) => { form.setValue('items', items.map((i) => ({ productId: i.productId, quantity: i.quantity }))); void submit(e); }}
+      noValidate
+    >
       <div className="space-y-4">
-        <FormMessage error={error} />
+        <FormMessage error={message.error ?? cartError} />
         <fieldset className="card space-y-3">
           <legend className="font-heading text-lg font-bold">You</legend>
-          {field('name', 'Your name', { autoComplete: 'name', defaultValue: user?.name ?? '', required: true })}
-          {field('email', 'E-mail', { type: 'email', autoComplete: 'email', defaultValue: user?.email ?? '', readOnly: Boolean(user), required: true })}
+          <TextField id="co-name" label="Your name" registration={form.register('name')} error={errors.name} autoComplete="name" required />
+          <TextField id="co-email" label="E-mail" registration={form.register('email')} error={errors.email} type="email" autoComplete="email" readOnly={Boolean(user)} required />
           {user ? null : <p className="hint">Checking out as a guest. <Link href="/sign-in?next=/checkout">Sign in</Link> or <Link href="/sign-up">make an account</Link> to see your orders later.</p>}
-          {field('phone', 'Phone (optional)', { type: 'tel', autoComplete: 'tel', inputMode: 'tel' })}
+          <TextField id="co-phone" label="Phone (optional)" registration={form.register('phone')} error={errors.phone} type="tel" autoComplete="tel" inputMode="tel" />
         </fieldset>
         <fieldset className="card space-y-3">
           <legend className="font-heading text-lg font-bold">Pickup or delivery</legend>
-          <label className="flex min-h-11 items-center gap-2"><input type="radio" name="fulfilment" checked={fulfilment === 'pickup'} onChange={() => setFulfilment('pickup')} /> Pick up at the honey house{pickupAddress ? ` (${pickupAddress})` : ''} — free</label>
-          <label className="flex min-h-11 items-center gap-2"><input type="radio" name="fulfilment" checked={fulfilment === 'ship'} onChange={() => setFulfilment('ship')} /> Ship to me</label>
+          <label className="flex min-h-11 items-center gap-2"><input type="radio" value="pickup" {...form.register('fulfilment')} /> Pick up at the honey house{pickupAddress ? ` (${pickupAddress})` : ''} — free</label>
+          <label className="flex min-h-11 items-center gap-2"><input type="radio" value="ship" {...form.register('fulfilment')} /> Ship to me</label>
           {fulfilment === 'ship' ? (
             <div className="grid gap-3 sm:grid-cols-2">
-              <div className="sm:col-span-2">{field('line1', 'Street and number', { autoComplete: 'address-line1' })}</div>
-              <div className="sm:col-span-2">{field('line2', 'Address line 2 (optional)', { autoComplete: 'address-line2' })}</div>
-              {field('city', 'Town or city', { autoComplete: 'address-level2' })}
-              {field('region', 'State or region', { autoComplete: 'address-level1' })}
-              {field('postalCode', 'Postal code', { autoComplete: 'postal-code' })}
-              {field('country', 'Country', { autoComplete: 'country-name' })}
+              <div className="sm:col-span-2"><TextField id="co-line1" label="Street and number" registration={form.register('address.line1')} error={errors.address?.line1} autoComplete="address-line1" /></div>
+              <div className="sm:col-span-2"><TextField id="co-line2" label="Address line 2 (optional)" registration={form.register('address.line2')} error={errors.address?.line2} autoComplete="address-line2" /></div>
+              <TextField id="co-city" label="Town or city" registration={form.register('address.city')} error={errors.address?.city} autoComplete="address-level2" />
+              <TextField id="co-region" label="State or region" registration={form.register('address.region')} error={errors.address?.region} autoComplete="address-level1" />
+              <TextField id="co-postalCode" label="Postal code" registration={form.register('address.postalCode')} error={errors.address?.postalCode} autoComplete="postal-code" />
+              <TextField id="co-country" label="Country" registration={form.register('address.country')} error={errors.address?.country} autoComplete="country-name" />
             </div>
           ) : null}
         </fieldset>

@@ -2,10 +2,14 @@
 import { useState } from 'react';
 import { toCsv } from '@/lib/domain/csv';
 import type { PullMapping, PullRowError, ValidPullRow } from '@/lib/domain/super-pull-import';
+import { importSheetInput, type ImportSheetInput } from '@/lib/schemas/supers';
+import type { ActionResult } from '@/lib/schemas/result';
 import { FormMessage } from '@/components/ui/form-message';
+import { useActionForm } from '@/components/ui/use-action-form';
+import { postForm } from '@/components/ui/post-form';
 
 type Preview = { headers: string[]; mapping: Partial<PullMapping>; valid: ValidPullRow[]; errors: PullRowError[]; total: number };
-const MAX_BYTES = 5 * 1024 * 1024;
+type Imported = { imported: number; flagged: number; errors: PullRowError[] };
 const FIELDS: { key: keyof PullMapping; label: string; required?: boolean }[] = [
   { key: 'colonyCode', label: 'Colony code', required: true },
   { key: 'pulledOn', label: 'Pull date (YYYY-MM-DD)', required: true },
@@ -17,14 +21,16 @@ const FIELDS: { key: keyof PullMapping; label: string; required?: boolean }[] = 
   { key: 'tagCode', label: 'Tag code' },
 ];
 
-async function post(file: File, fields: Record<string, string>): Promise<{ ok: true; body: unknown } | { ok: false; message: string }> {
+/** Posts the sheet for a preview or the import; a refused import says that nothing was imported. */
+async function sendSheet(v: ImportSheetInput): Promise<ActionResult<Preview | Imported>> {
   const form = new FormData();
-  form.set('file', file);
-  for (const [k, v] of Object.entries(fields)) form.set(k, v);
+  form.set('file', v.file);
+  form.set('mode', v.mode);
+  if (v.mapping) form.set('mapping', JSON.stringify(v.mapping));
+  if (v.expectedValid !== undefined) form.set('expectedValid', String(v.expectedValid));
   try {
-    const res = await fetch('/api/super-pulls/import', { method: 'POST', body: form });
-    const body = await res.json();
-    return res.ok ? { ok: true, body } : { ok: false, message: body.error ?? 'The import was refused.' };
+    const r = await postForm<Preview | Imported>('/api/super-pulls/import', form, () => 'The import was refused.');
+    return !r.ok && v.mode === 'commit' ? { ...r, message: `${r.message} Nothing was imported.` } : r;
   } catch {
     return { ok: false, message: 'Could not reach the server. Nothing was imported.' };
   }
@@ -35,38 +41,29 @@ export function ImportWizard() {
   const [file, setFile] = useState<File | null>(null);
   const [preview, setPreview] = useState<Preview | null>(null);
   const [mapping, setMapping] = useState<Partial<PullMapping>>({});
-  const [error, setError] = useState<string>();
-  const [done, setDone] = useState<string>();
-  const [busy, setBusy] = useState(false);
   const [rejected, setRejected] = useState<PullRowError[]>([]);
+  // Both requests go through the one form hook: the file checks first, then its message and pending state.
+  const { run, pending: busy, message, setMessage } = useActionForm({ schema: importSheetInput, action: sendSheet });
 
-  async function check(f: File, m: Partial<PullMapping> | null) {
-    setBusy(true); setError(undefined); setDone(undefined);
-    const r = await post(f, { mode: 'preview', ...(m ? { mapping: JSON.stringify(m) } : {}) });
-    setBusy(false);
-    if (!r.ok) { setError(r.message); setPreview(null); return; }
-    const p = r.body as Preview;
-    setPreview(p); setMapping(p.mapping); setRejected(p.errors);
+  async function check(f: File, m?: Partial<PullMapping>) {
+    const r = await run({ file: f, mode: 'preview', mapping: m });
+    if (!r?.ok) { setPreview(null); return; }
+    const p = r.data as Preview;
+    setFile(f); setPreview(p); setMapping(p.mapping); setRejected(p.errors);
   }
 
   function choose(f: File | undefined) {
-    setPreview(null); setDone(undefined);
-    if (!f) return;
-    if (f.size > MAX_BYTES) { setError('The file is larger than 5 MB. Split it into smaller files.'); setFile(null); return; }
-    if (!/\.csv$/i.test(f.name)) { setError('Only CSV files (.csv) can be imported. Save the spreadsheet as CSV first.'); setFile(null); return; }
-    setFile(f);
-    void check(f, null);
+    setPreview(null); setMessage({});
+    if (f) void check(f);
   }
 
   async function commit() {
     if (!file || !preview) return;
-    setBusy(true); setError(undefined);
-    const r = await post(file, { mode: 'commit', mapping: JSON.stringify(mapping), expectedValid: String(preview.valid.length) });
-    setBusy(false);
-    if (!r.ok) { setError(`${r.message} Nothing was imported.`); return; }
-    const body = r.body as { imported: number; flagged: number; errors: PullRowError[] };
+    const r = await run({ file, mode: 'commit', mapping, expectedValid: preview.valid.length });
+    if (!r?.ok) return;
+    const body = r.data as Imported;
     setRejected(body.errors);
-    setDone(`Imported ${body.imported} super pulls${body.flagged ? `, ${body.flagged} of them flagged` : ''}.${body.errors.length ? ` ${body.errors.length} rows were not imported: download them, fix and import again.` : ''}`);
+    setMessage({ success: `Imported ${body.imported} super pulls${body.flagged ? `, ${body.flagged} of them flagged` : ''}.${body.errors.length ? ` ${body.errors.length} rows were not imported: download them, fix and import again.` : ''}` });
     setPreview(null);
   }
 
@@ -87,7 +84,7 @@ export function ImportWizard() {
         <span>Field sheet (CSV, at most 5 MB, dates as YYYY-MM-DD)</span>
         <input id="sheet" type="file" accept=".csv,text/csv" className="input min-h-11" onChange={(e) => choose(e.target.files?.[0])} />
       </label>
-      <FormMessage error={error} success={done} />
+      <FormMessage {...message} />
       {rejected.length > 0 && !preview ? <button type="button" className="btn-secondary min-h-11" onClick={downloadRejected}>Download rejected rows (CSV)</button> : null}
       {preview ? (
         <>

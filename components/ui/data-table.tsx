@@ -22,7 +22,7 @@ const features = tableFeatures({ rowSortingFeature });
  * kept), so nothing is fetched until the user pages or sorts. New filters start again at page 1.
  */
 export function DataTable<Row extends { id: number | string }>({
-  endpoint, columns, caption, filters = {}, initial, initialSort, pageSize = initial?.pageSize ?? 25, empty = 'Nothing here yet.',
+  endpoint, columns, caption, filters = {}, initial, initialSort, pageSize = initial?.pageSize ?? 25, empty = 'Nothing here yet.', rowClassName,
 }: {
   endpoint: string;
   columns: DataColumn<Row>[];
@@ -32,6 +32,8 @@ export function DataTable<Row extends { id: number | string }>({
   initialSort?: { id: string; desc: boolean };
   pageSize?: number;
   empty?: string;
+  /** A class for a row that should stand out (e.g. a failed check). */
+  rowClassName?: (row: Row) => string | undefined;
 }) {
   const [sorting, setSorting] = useState<SortingState>(initialSort ? [initialSort] : []);
   const [page, setPage] = useState(initial?.page ?? 1);
@@ -104,7 +106,7 @@ export function DataTable<Row extends { id: number | string }>({
           </thead>
           <tbody>
             {table.getRowModel().rows.map((row) => (
-              <tr key={row.id}>
+              <tr key={row.id} className={rowClassName?.(row.original)}>
                 {row.getAllCells().map((cell) => (
                   <td key={cell.id} className={byId[cell.column.id]?.numeric ? 'num' : undefined}><table.FlexRender cell={cell} /></td>
                 ))}

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { listQuery } from './list-query';
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Pick a date.');
 
@@ -30,3 +31,9 @@ export const overrideRunInput = z.object({
   reason: z.string().trim().min(10, 'Write why these jars may be sold (at least 10 characters).').max(1000),
 });
 export type OverrideRunInput = z.input<typeof overrideRunInput>;
+
+/** The jarring runs list: newest run first, optionally the runs of one lot. */
+export const jarringRunListQuery = listQuery(['runOn'], {
+  lotId: z.coerce.number().int().positive().optional(),
+}, 'runOn', { defaultDir: 'desc' });
+export type JarringRunListQuery = z.output<typeof jarringRunListQuery>;

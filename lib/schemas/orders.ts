@@ -10,10 +10,12 @@ export const shipInput = z.object({
 });
 export type ShipInput = z.input<typeof shipInput>;
 
+/** Money in the currency's major unit as typed (e.g. 12.50); converted to cents once. */
+const refundAmount = z.number({ error: 'Enter the amount to refund' }).positive('More than zero').max(1_000_000);
+
 export const refundInput = z.object({
   orderId: z.number().int().positive(),
-  /** Money in the currency's major unit as typed (e.g. 12.50); converted to cents once. */
-  amount: z.number({ error: 'Enter the amount to refund' }).positive('More than zero').max(1_000_000),
+  amount: refundAmount,
   /** Jars coming back per order line; 0 for a money-only refund. */
   jars: z.array(z.object({ lineId: z.number().int().positive(), quantity: z.number().int().min(0).max(1000) })).default([]),
   /** true: the jars go back on the shelf; false: they are written off (broken, opened). */
@@ -21,6 +23,11 @@ export const refundInput = z.object({
   reason: z.string().trim().max(500).default(''),
 });
 export type RefundInput = z.input<typeof refundInput>;
+
+/** The order desk's refund form: the amount as typed in its text field ("12,50" reads as 12.50), then the same checks. */
+export const refundFormInput = refundInput.extend({
+  amount: z.preprocess((v) => (typeof v === 'string' ? (v.trim() === '' ? undefined : Number(v.trim().replace(',', '.'))) : v), refundAmount),
+});
 
 /** The order desk's filters: the orders still to pack and send (paid or packed), all, or one status. */
 export const ORDER_DESK_FILTERS = ['open', 'all', 'awaiting_payment', 'paid', 'packed', 'shipped', 'picked_up', 'cancelled', 'expired', 'refunded'] as const satisfies readonly (OrderStatus | 'open' | 'all')[];

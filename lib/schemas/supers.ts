@@ -75,3 +75,18 @@ export const tagSheetQuery = z.object({
   prefix: z.string().trim().max(12).regex(/^[A-Za-z0-9-]*$/).optional(),
   layout: z.string().max(80).optional(),
 });
+
+/**
+ * The pull import wizard's two requests, checked in the browser before posting: a look at the sheet
+ * (`preview`, first without a column mapping), then the import of its valid rows (`commit`). The
+ * route handler checks the file again, by content.
+ */
+export const importSheetInput = z.object({
+  file: z.custom<File>((v) => typeof File !== 'undefined' && v instanceof File, 'Choose a CSV file to upload.')
+    .refine((f) => f.size <= 5 * 1024 * 1024, 'The file is larger than 5 MB. Split it into smaller files.')
+    .refine((f) => /\.csv$/i.test(f.name), 'Only CSV files (.csv) can be imported. Save the spreadsheet as CSV first.'),
+  mode: z.enum(['preview', 'commit']),
+  mapping: importMapping.partial().optional(),
+  expectedValid: z.number().int().min(0).optional(),
+});
+export type ImportSheetInput = z.output<typeof importSheetInput>;

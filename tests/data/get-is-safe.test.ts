@@ -55,6 +55,7 @@ beforeAll(async () => {
     'app/api/colonies/detail/route.ts': [{ query: `?id=${colonyId}`, expect: 200 }],
     'app/api/colonies/route.ts': [{ query: '?page=1&pageSize=25', expect: 200 }],
     'app/api/health/route.ts': [{ expect: 200 }],
+    'app/api/jarring/route.ts': [{ query: '?page=1&pageSize=25', expect: 200 }],
     'app/api/jarring/[id]/labels/route.ts': [{ params: { id: String(runId) }, query: '?preview=1', expect: 200 }, { params: { id: String(runId) }, expect: 200 }],
     'app/api/lab-files/[id]/route.ts': [{ params: { id: String(labFileId) }, expect: 200 }],
     'app/api/lots/route.ts': [{ query: '?page=1&pageSize=25', expect: 200 }],

@@ -80,6 +80,7 @@ export const ROUTES: Record<string, Allowed> = {
   'app/api/super-tags/sheet/route.ts#GET': OWNER,
   'app/api/products/[id]/photo/route.ts#GET': 'anyone', // a product's photo, for the shop
   'app/api/products/[id]/photo/route.ts#POST': OWNER,
+  'app/api/jarring/route.ts#GET': STAFF,
   'app/api/jarring/[id]/labels/route.ts#GET': HOUSE,
   // Shop: public catalogue and checkout; the webhook guards itself with Stripe's signature, the
   // cancel link with the order's HMAC token.

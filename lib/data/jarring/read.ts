@@ -3,6 +3,9 @@ import { getDb } from '@/lib/db/index';
 import { jarsLotCanFill } from '@/lib/domain/jars';
 import type { FillRuleSet } from '@/models/jarring-run';
 import { getSettings } from '@/lib/data/settings/settings';
+import type { SessionUser } from '@/lib/auth/session';
+import type { JarringRunListQuery } from '@/lib/schemas/jarring';
+import type { Page } from '@/lib/schemas/list-query';
 
 /** What the jarring pages read: lots that can still be jarred, and runs already made. */
 
@@ -42,15 +45,22 @@ function toRunRow(r: RunModel): RunRow {
   };
 }
 
-export async function listJarringRuns(opts: { lotId?: number; limit?: number } = {}): Promise<RunRow[]> {
+/** One page of jarring runs (all, or one lot's), newest first unless sorted otherwise. */
+export async function listJarringRuns(_user: SessionUser, query: JarringRunListQuery): Promise<Page<RunRow>> {
   const { JarringRun, Lot, Product } = getDb().models;
-  const rows = await JarringRun.findAll({
-    where: opts.lotId ? { lotId: opts.lotId } : {},
-    include: [{ model: Lot, as: 'lot', attributes: ['code', 'floralSource'] }, { model: Product, as: 'product', attributes: ['name'] }],
-    order: [['runOn', 'DESC'], ['id', 'DESC']],
-    limit: Math.min(opts.limit ?? 50, 500),
-  });
-  return rows.map(toRunRow);
+  const { page, pageSize } = query;
+  const dir = query.dir === 'asc' ? 'ASC' : 'DESC';
+  const where = query.lotId ? { lotId: query.lotId } : {};
+  const [total, rows] = await Promise.all([
+    JarringRun.count({ where }),
+    JarringRun.findAll({
+      where,
+      include: [{ model: Lot, as: 'lot', attributes: ['code', 'floralSource'] }, { model: Product, as: 'product', attributes: ['name'] }],
+      order: [['runOn', dir], ['id', dir]],
+      limit: pageSize, offset: (page - 1) * pageSize,
+    }),
+  ]);
+  return { rows: rows.map(toRunRow), total, page, pageSize };
 }
 
 export async function getJarringRun(id: number): Promise<RunRow | null> {

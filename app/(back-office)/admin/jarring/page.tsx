@@ -9,7 +9,8 @@ import { declareNetQuantity } from '@/lib/domain/net-quantity';
 import { PageHeader } from '@/components/ui/page-header';
 import { Caution, INFANT_CAUTION } from '@/components/ui/caution';
 import { RunForm } from '@/components/jarring/run-form';
-import { RunStatus } from '@/components/jarring/run-status';
+import { RunsTable } from '@/components/jarring/runs-table';
+import { jarringRunListQuery } from '@/lib/schemas/jarring';
 import { createJarringRunAction } from './actions';
 
 export const metadata = { title: 'Jarring' };
@@ -20,7 +21,8 @@ function todayIn(timeZone: string): string {
 
 export default async function JarringPage() {
   const user = await requirePermission('jarring.read', '/admin/jarring');
-  const [settings, lots, products, runs] = await Promise.all([getSettings(), listJarrableLots(), listProducts({ activeOnly: true }), listJarringRuns({ limit: 30 })]);
+  const query = jarringRunListQuery.parse({});
+  const [settings, lots, products, runs] = await Promise.all([getSettings(), listJarrableLots(), listProducts({ activeOnly: true }), listJarringRuns(user, query)]);
   const system = settings.weightSystem;
   const writer = can(user.role, 'jarring.write');
   return (
@@ -62,25 +64,9 @@ export default async function JarringPage() {
           </div>
         </section>
       ) : null}
-      <section className="card overflow-x-auto p-0" aria-labelledby="runs-h">
-        <h2 id="runs-h" className="px-4 pt-4">Recent runs</h2>
-        <table className="data-table">
-          <thead><tr><th scope="col">Run</th><th scope="col">Date</th><th scope="col">Lot</th><th scope="col">Product</th><th scope="col" className="num">Jars</th><th scope="col" className="num">Honey used</th><th scope="col">Fill check</th></tr></thead>
-          <tbody>
-            {runs.length === 0 ? <tr><td colSpan={7} className="hint">No runs yet.</td></tr> : null}
-            {runs.map((r) => (
-              <tr key={r.id} className={r.pass ? undefined : 'bg-bad-bg'}>
-                <td><Link href={`/admin/jarring/${r.id}`}>#{r.id}</Link></td>
-                <td className="whitespace-nowrap">{r.runOn}</td><td className="whitespace-nowrap">{r.lotCode}</td><td>{r.productName}</td>
-                <td className="num">{r.jarCount}</td><td className="num">{formatWeight(r.honeyUsedGrams, system)}</td>
-                <td>
-                  <RunStatus pass={r.pass} overridden={!!r.overrideReason} />
-                  {!r.pass ? <ul className="mt-1 ml-4 list-disc text-xs text-bad-fg">{r.reasons.map((x) => <li key={x}>{x}</li>)}</ul> : null}
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+      <section aria-labelledby="runs-h">
+        <h2 id="runs-h" className="mb-2">Recent runs</h2>
+        <RunsTable initial={runs} system={system} initialSort={{ id: query.sort, desc: query.dir === 'desc' }} />
       </section>
     </>
   );
