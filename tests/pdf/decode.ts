@@ -15,7 +15,11 @@ export function decodePng(png: Buffer, kind: 'code128' | 'datamatrix' | 'qr'): s
   const bitmap = new zxing.BinaryBitmap(new zxing.HybridBinarizer(source));
   const hints = new Map<zxing.DecodeHintType, unknown>([[zxing.DecodeHintType.ASSUME_GS1, true], [zxing.DecodeHintType.TRY_HARDER, true]]);
   const reader = kind === 'code128' ? new zxing.Code128Reader() : kind === 'datamatrix' ? new zxing.DataMatrixReader() : new zxing.QRCodeReader();
-  return reader.decode(bitmap, hints).getText();
+  const text = reader.decode(bitmap, hints).getText();
+  // @zxing/library 0.21 reads a Code 128 check character of value 102 in code set C as FNC1 and
+  // appends a GS after the data (seen with lot TJ-UDJD30). A GS1 element string never ends with a
+  // separator (GS1 General Specifications, FNC1 only between fields), so a trailing one is dropped.
+  return kind === 'code128' ? text.replace(/\x1d$/, '') : text;
 }
 
 /** Cuts a rectangle (in PDF points, measured from the top-left) out of a page rendered at `dpi`, with a white margin. */

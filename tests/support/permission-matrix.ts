@@ -11,7 +11,7 @@ export type Allowed = 'anyone' | readonly Who[];
 
 const OWNER = ['owner'] as const;
 const STAFF = ['owner', 'keeper', 'crew'] as const;
-const HARVEST_WRITE = ['owner', 'keeper'] as const;
+const YARD_WORK = ['owner', 'keeper'] as const;
 const HOUSE = ['owner', 'crew'] as const;
 
 export const ACTIONS: Record<string, Allowed> = {
@@ -29,21 +29,21 @@ export const ACTIONS: Record<string, Allowed> = {
   // Yards, colonies and supers. Scope (a keeper's own yards) is checked in lib/data: tests/data/yards/scope.test.ts.
   'app/(back-office)/admin/yards/actions.ts#createYardAction': OWNER,
   'app/(back-office)/admin/yards/actions.ts#updateYardAction': OWNER,
-  'app/(back-office)/admin/yards/actions.ts#recordPullsAction': HARVEST_WRITE,
-  'app/(back-office)/admin/colonies/actions.ts#createColonyAction': HARVEST_WRITE,
-  'app/(back-office)/admin/colonies/actions.ts#updateColonyAction': HARVEST_WRITE,
-  'app/(back-office)/admin/colonies/actions.ts#moveColonyAction': HARVEST_WRITE,
-  'app/(back-office)/admin/colonies/actions.ts#colonyStatusAction': HARVEST_WRITE,
-  'app/(back-office)/admin/colonies/actions.ts#splitColonyAction': HARVEST_WRITE,
-  'app/(back-office)/admin/colonies/actions.ts#colonyNoteAction': HARVEST_WRITE,
-  'app/(back-office)/admin/colonies/actions.ts#addFeedingAction': HARVEST_WRITE,
-  'app/(back-office)/admin/colonies/actions.ts#endFeedingAction': HARVEST_WRITE,
-  'app/(back-office)/admin/colonies/actions.ts#addTreatmentAction': HARVEST_WRITE,
-  'app/(back-office)/admin/colonies/actions.ts#endTreatmentAction': HARVEST_WRITE,
-  'app/(back-office)/admin/colonies/actions.ts#superOnAction': HARVEST_WRITE,
+  'app/(back-office)/admin/yards/actions.ts#recordPullsAction': YARD_WORK,
+  'app/(back-office)/admin/colonies/actions.ts#createColonyAction': YARD_WORK,
+  'app/(back-office)/admin/colonies/actions.ts#updateColonyAction': YARD_WORK,
+  'app/(back-office)/admin/colonies/actions.ts#moveColonyAction': YARD_WORK,
+  'app/(back-office)/admin/colonies/actions.ts#colonyStatusAction': YARD_WORK,
+  'app/(back-office)/admin/colonies/actions.ts#splitColonyAction': YARD_WORK,
+  'app/(back-office)/admin/colonies/actions.ts#colonyNoteAction': YARD_WORK,
+  'app/(back-office)/admin/colonies/actions.ts#addFeedingAction': YARD_WORK,
+  'app/(back-office)/admin/colonies/actions.ts#endFeedingAction': YARD_WORK,
+  'app/(back-office)/admin/colonies/actions.ts#addTreatmentAction': YARD_WORK,
+  'app/(back-office)/admin/colonies/actions.ts#endTreatmentAction': YARD_WORK,
+  'app/(back-office)/admin/colonies/actions.ts#superOnAction': YARD_WORK,
   'app/(back-office)/admin/treatment-kinds/actions.ts#saveTreatmentKindAction': OWNER,
   'app/(back-office)/admin/supers/actions.ts#createTagBatchAction': OWNER,
-  'app/(back-office)/admin/supers/actions.ts#voidSuperPullAction': HARVEST_WRITE, // scope: tests/data/supers/void.test.ts
+  'app/(back-office)/admin/supers/actions.ts#voidSuperPullAction': YARD_WORK, // scope: tests/data/supers/void.test.ts
   'app/(back-office)/admin/products/actions.ts#saveProductAction': OWNER,
   'app/(back-office)/admin/jarring/actions.ts#createJarringRunAction': HOUSE,
   'app/(back-office)/admin/jarring/actions.ts#overrideJarringRunAction': OWNER,
@@ -75,8 +75,8 @@ export const ROUTES: Record<string, Allowed> = {
   'app/api/colonies/route.ts#GET': STAFF,
   'app/api/colonies/detail/route.ts#GET': STAFF,
   'app/api/super-pulls/route.ts#GET': STAFF,
-  'app/api/super-pulls/route.ts#POST': HARVEST_WRITE,
-  'app/api/super-pulls/import/route.ts#POST': HARVEST_WRITE,
+  'app/api/super-pulls/route.ts#POST': YARD_WORK,
+  'app/api/super-pulls/import/route.ts#POST': YARD_WORK,
   'app/api/super-tags/sheet/route.ts#GET': OWNER,
   'app/api/products/[id]/photo/route.ts#GET': 'anyone', // a product's photo, for the shop
   'app/api/products/[id]/photo/route.ts#POST': OWNER,
@@ -97,4 +97,4 @@ export const ROUTES: Record<string, Allowed> = {
   'app/api/trace/recall/route.ts#GET': HOUSE,
 };
 
-export const GROUPS = { OWNER, STAFF, HARVEST_WRITE, HOUSE };
+export const GROUPS = { OWNER, STAFF, YARD_WORK, HOUSE };

@@ -4,7 +4,7 @@ import { createColony } from '@/lib/data/colonies/write';
 import { DEMO } from './session';
 
 /** Own yards and colonies per test file, with unique names, so files do not depend on each other. */
-export async function harvestFixture(tag: string) {
+export async function yardFixture(tag: string) {
   const { User, TreatmentKind } = getDb().models;
   const [owner, keeperA, keeperB] = await Promise.all([DEMO.owner, DEMO.keeper, DEMO.keeper2].map((email) => User.findOne({ where: { email } })));
   if (!owner || !keeperA || !keeperB) throw new Error('demo users missing');

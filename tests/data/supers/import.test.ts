@@ -1,14 +1,14 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
 import { closeDb, getDb } from '@/lib/db/index';
 import { DEMO, setRequestHeaders, signInAs } from '@/tests/support/session';
-import { harvestFixture } from '@/tests/support/yard-fixtures';
+import { yardFixture } from '@/tests/support/yard-fixtures';
 import { POST } from '@/app/api/super-pulls/import/route';
 
 afterAll(closeDb);
 beforeEach(() => setRequestHeaders({}));
 
-let f: Awaited<ReturnType<typeof harvestFixture>>;
-beforeAll(async () => { f = await harvestFixture('IMP'); });
+let f: Awaited<ReturnType<typeof yardFixture>>;
+beforeAll(async () => { f = await yardFixture('IMP'); });
 
 const MAPPING = { colonyCode: 'Colony', pulledOn: 'Date', depth: 'Box', fullWeight: 'Weight', weightUnit: 'Unit', tagCode: 'Tag' };
 function upload(csv: string | Blob, fields: Record<string, string>, name = 'sheet.csv', type = 'text/csv') {

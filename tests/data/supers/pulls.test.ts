@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/lib/db/index';
 import { DEMO, setRequestHeaders, signInAs } from '@/tests/support/session';
-import { harvestFixture, key } from '@/tests/support/yard-fixtures';
+import { yardFixture, key } from '@/tests/support/yard-fixtures';
 import { recordPullsAction } from '@/app/(back-office)/admin/yards/actions';
 import { addFeedingAction, addTreatmentAction, endTreatmentAction, superOnAction } from '@/app/(back-office)/admin/colonies/actions';
 import { POST as postPulls } from '@/app/api/super-pulls/route';
@@ -9,8 +9,8 @@ import { POST as postPulls } from '@/app/api/super-pulls/route';
 afterAll(closeDb);
 beforeEach(() => setRequestHeaders({}));
 
-let f: Awaited<ReturnType<typeof harvestFixture>>;
-beforeAll(async () => { f = await harvestFixture('PUL'); });
+let f: Awaited<ReturnType<typeof yardFixture>>;
+beforeAll(async () => { f = await yardFixture('PUL'); });
 
 const entry = (colonyId: number, extra: Record<string, unknown> = {}) => ({ colonyId, pulledOn: '2026-07-10', depth: 'medium' as const, frameCount: 10, idempotencyKey: key(), ...extra });
 

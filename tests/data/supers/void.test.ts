@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/lib/db/index';
 import { DEMO, setRequestHeaders, signInAs } from '@/tests/support/session';
-import { harvestFixture, key } from '@/tests/support/yard-fixtures';
+import { yardFixture, key } from '@/tests/support/yard-fixtures';
 import { recordPullsAction } from '@/app/(back-office)/admin/yards/actions';
 import { addFeedingAction, superOnAction } from '@/app/(back-office)/admin/colonies/actions';
 import { voidSuperPullAction } from '@/app/(back-office)/admin/supers/actions';
@@ -19,8 +19,8 @@ import { down as undoVoidPutOn } from '@/migrations/20261203000500-void-put-on';
 afterAll(closeDb);
 beforeEach(() => setRequestHeaders({}));
 
-let f: Awaited<ReturnType<typeof harvestFixture>>;
-beforeAll(async () => { f = await harvestFixture('VOI'); });
+let f: Awaited<ReturnType<typeof yardFixture>>;
+beforeAll(async () => { f = await yardFixture('VOI'); });
 
 /** Records one pull as whoever is signed in and returns its id. */
 async function pull(colonyId: number, pulledOn: string, extra: Record<string, unknown> = {}): Promise<number> {

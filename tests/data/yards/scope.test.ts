@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/lib/db/index';
 import { DEMO, setRequestHeaders, signInAs } from '@/tests/support/session';
-import { harvestFixture, key } from '@/tests/support/yard-fixtures';
+import { yardFixture, key } from '@/tests/support/yard-fixtures';
 import {
   addFeedingAction, addTreatmentAction, colonyNoteAction, colonyStatusAction, moveColonyAction,
   splitColonyAction, superOnAction, updateColonyAction, createColonyAction,
@@ -16,8 +16,8 @@ import ColonyPage from '@/app/(back-office)/admin/colonies/[id]/page';
 afterAll(closeDb);
 beforeEach(() => setRequestHeaders({}));
 
-let f: Awaited<ReturnType<typeof harvestFixture>>;
-beforeAll(async () => { f = await harvestFixture('SCP'); });
+let f: Awaited<ReturnType<typeof yardFixture>>;
+beforeAll(async () => { f = await yardFixture('SCP'); });
 
 const getColonyRoute = (req: Request) => colonyDetailRoute(req);
 const url = (path: string) => new Request(`http://127.0.0.1:3100${path}`);
