@@ -10,7 +10,9 @@ export async function register() {
   // Expired Checkout Sessions also release through the webhook; this catches a missed one.
   const { releaseOverdueReservations } = await import('@/lib/data/shop/checkout');
   const sweep = setInterval(() => {
-    releaseOverdueReservations().catch((err) => console.error('[orders] sweep:', err instanceof Error ? err.message : err));
+    releaseOverdueReservations().catch((err) =>
+      console.error('[orders] sweep:', err instanceof Error ? err.message : err),
+    );
   }, 60_000);
   sweep.unref();
 }

@@ -1,7 +1,16 @@
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // Sequelize loads its dialect at run time; bundling it breaks that (the build passes, then "Please install pg package manually").
-  serverExternalPackages: ['sequelize', 'pg', 'pg-hstore', 'bwip-js', 'pdf-lib', '@pdf-lib/fontkit', 'nodemailer', 'stripe'],
+  serverExternalPackages: [
+    'sequelize',
+    'pg',
+    'pg-hstore',
+    'bwip-js',
+    'pdf-lib',
+    '@pdf-lib/fontkit',
+    'nodemailer',
+    'stripe',
+  ],
   poweredByHeader: false,
   typedRoutes: false,
   // ASVS 3.4: safe defaults on every answer; pages also get a nonce-based CSP from proxy.ts.

@@ -1,7 +1,13 @@
 import { NextResponse, type NextRequest } from 'next/server';
 import { getToken } from 'next-auth/jwt';
 import { contentSecurityPolicy, newNonce } from '@/lib/http/csp';
-import { PublicPageCache, RENDER_HEADER, isPublicPageView, respondWithNonce, storablePage } from '@/lib/http/public-page-cache';
+import {
+  PublicPageCache,
+  RENDER_HEADER,
+  isPublicPageView,
+  respondWithNonce,
+  storablePage,
+} from '@/lib/http/public-page-cache';
 
 const publicPages = new PublicPageCache(Number(process.env.PUBLIC_PAGE_CACHE_SECONDS ?? 5) * 1000);
 

@@ -17,7 +17,17 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { env, name: 'unit', include: ['tests/domain/**/*.test.ts', 'tests/unit/**/*.test.ts', 'tests/fakes/**/*.test.ts', 'tests/pdf/**/*.test.ts'], testTimeout: 30_000 },
+        test: {
+          env,
+          name: 'unit',
+          include: [
+            'tests/domain/**/*.test.ts',
+            'tests/unit/**/*.test.ts',
+            'tests/fakes/**/*.test.ts',
+            'tests/pdf/**/*.test.ts',
+          ],
+          testTimeout: 30_000,
+        },
       },
       {
         resolve: { alias },

@@ -6,7 +6,8 @@ import { startStripeFake } from './stripe/server';
 function port(name: string, fallback: number): number {
   const raw = process.env[name];
   const value = raw === undefined || raw === '' ? fallback : Number(raw);
-  if (!Number.isInteger(value) || value < 0 || value > 65_535) throw new Error(`${name} must be a port number, got "${raw}"`);
+  if (!Number.isInteger(value) || value < 0 || value > 65_535)
+    throw new Error(`${name} must be a port number, got "${raw}"`);
   return value;
 }
 
@@ -17,12 +18,13 @@ async function main(): Promise<void> {
     webhookSecret: process.env.STRIPE_WEBHOOK_SECRET || 'whsec_combtrace_local',
     publicUrl: process.env.FAKE_STRIPE_PUBLIC_URL || undefined,
   });
-  const mail = await startMailFake({ smtpPort: port('FAKE_SMTP_PORT', 1025), webPort: port('FAKE_MAIL_WEB_PORT', 1080) }).catch(
-    async (err: unknown) => {
-      await stripe.close();
-      throw err;
-    },
-  );
+  const mail = await startMailFake({
+    smtpPort: port('FAKE_SMTP_PORT', 1025),
+    webPort: port('FAKE_MAIL_WEB_PORT', 1080),
+  }).catch(async (err: unknown) => {
+    await stripe.close();
+    throw err;
+  });
   console.log(`stripe fake: ${stripe.url} (API /v1, dashboard /, test hooks /_fake)`);
   console.log(`mail fake: smtp://127.0.0.1:${mail.smtpPort} inbox ${mail.webUrl}`);
 

@@ -23,7 +23,12 @@ export async function up({ context: q }: { context: QueryInterface }) {
 
   await q.createTable('password_tokens', {
     id,
-    user_id: { type: DataTypes.INTEGER, allowNull: false, references: { model: 'users', key: 'id' }, onDelete: 'CASCADE' },
+    user_id: {
+      type: DataTypes.INTEGER,
+      allowNull: false,
+      references: { model: 'users', key: 'id' },
+      onDelete: 'CASCADE',
+    },
     purpose: { type: DataTypes.ENUM('set', 'reset'), allowNull: false },
     token_hash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
     expires_at: { type: DataTypes.DATE, allowNull: false },
@@ -107,12 +112,26 @@ export async function up({ context: q }: { context: QueryInterface }) {
 }
 
 export async function down({ context: q }: { context: QueryInterface }) {
-  for (const t of ['sign_in_attempts', 'outbox_messages', 'audit_entries', 'business_settings', 'password_tokens', 'users']) {
+  for (const t of [
+    'sign_in_attempts',
+    'outbox_messages',
+    'audit_entries',
+    'business_settings',
+    'password_tokens',
+    'users',
+  ]) {
     await q.dropTable(t, {});
   }
-  for (const e of ['enum_users_role', 'enum_users_weight_unit', 'enum_password_tokens_purpose', 'enum_business_settings_weight_system',
-    'enum_business_settings_fill_rule_set', 'enum_business_settings_label_declaration', 'enum_business_settings_barcode_kind',
-    'enum_outbox_messages_status']) {
+  for (const e of [
+    'enum_users_role',
+    'enum_users_weight_unit',
+    'enum_password_tokens_purpose',
+    'enum_business_settings_weight_system',
+    'enum_business_settings_fill_rule_set',
+    'enum_business_settings_label_declaration',
+    'enum_business_settings_barcode_kind',
+    'enum_outbox_messages_status',
+  ]) {
     await q.sequelize.query(`DROP TYPE IF EXISTS "${e}"`);
   }
 }

@@ -6,7 +6,10 @@ const ts = {
   updated_at: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
 };
 const ref = (model: string, allowNull = false, onDelete = 'RESTRICT') => ({
-  type: DataTypes.INTEGER, allowNull, references: { model, key: 'id' }, onDelete,
+  type: DataTypes.INTEGER,
+  allowNull,
+  references: { model, key: 'id' },
+  onDelete,
 });
 const by = { type: DataTypes.INTEGER, allowNull: true, references: { model: 'users', key: 'id' } };
 
@@ -143,13 +146,27 @@ export async function up({ context: q }: { context: QueryInterface }) {
   await q.addIndex('super_pulls', ['lot_id']);
   await q.addIndex('super_pulls', ['tag_code']);
   // A tag is on at most one hive at a time.
-  await q.addIndex('super_pulls', ['tag_code'], { unique: true, where: { pulled_on: null }, name: 'super_pulls_one_open_per_tag' });
+  await q.addIndex('super_pulls', ['tag_code'], {
+    unique: true,
+    where: { pulled_on: null },
+    name: 'super_pulls_one_open_per_tag',
+  });
   await q.sequelize.query(`ALTER TABLE super_pulls ADD CONSTRAINT super_pulls_weights_ck
     CHECK ((full_grams IS NULL OR full_grams > 0) AND (empty_grams IS NULL OR empty_grams >= 0) AND frame_count BETWEEN 1 AND 12)`);
 }
 
 export async function down({ context: q }: { context: QueryInterface }) {
-  for (const t of ['super_pulls', 'super_tags', 'treatments', 'feedings', 'colony_events', 'colonies', 'treatment_kinds', 'yard_keepers', 'yards']) {
+  for (const t of [
+    'super_pulls',
+    'super_tags',
+    'treatments',
+    'feedings',
+    'colony_events',
+    'colonies',
+    'treatment_kinds',
+    'yard_keepers',
+    'yards',
+  ]) {
     await q.dropTable(t, {});
   }
 }

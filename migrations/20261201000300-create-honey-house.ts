@@ -6,7 +6,10 @@ const ts = {
   updated_at: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
 };
 const ref = (model: string, allowNull = false, onDelete = 'RESTRICT') => ({
-  type: DataTypes.INTEGER, allowNull, references: { model, key: 'id' }, onDelete,
+  type: DataTypes.INTEGER,
+  allowNull,
+  references: { model, key: 'id' },
+  onDelete,
 });
 const by = { type: DataTypes.INTEGER, allowNull: true, references: { model: 'users', key: 'id' } };
 // Records of a lot are corrected, never deleted: a voided row keeps who voided it and why.
@@ -54,7 +57,14 @@ export async function up({ context: q }: { context: QueryInterface }) {
   await q.addIndex('lots', ['stage']);
   await q.addIndex('lots', ['extracted_on']);
   await q.sequelize.query(`ALTER TABLE lots ADD CONSTRAINT lots_grams_ck CHECK (net_grams >= 0 AND used_grams >= 0)`);
-  await q.addConstraint('super_pulls', { type: 'foreign key', fields: ['lot_id'], name: 'super_pulls_lot_fk', references: { table: 'lots', field: 'id' }, onDelete: 'SET NULL', onUpdate: 'CASCADE' });
+  await q.addConstraint('super_pulls', {
+    type: 'foreign key',
+    fields: ['lot_id'],
+    name: 'super_pulls_lot_fk',
+    references: { table: 'lots', field: 'id' },
+    onDelete: 'SET NULL',
+    onUpdate: 'CASCADE',
+  });
 
   await q.createTable('lot_containers', {
     id,
@@ -68,7 +78,9 @@ export async function up({ context: q }: { context: QueryInterface }) {
     ...ts,
   });
   await q.addIndex('lot_containers', ['lot_id']);
-  await q.sequelize.query(`ALTER TABLE lot_containers ADD CONSTRAINT lot_containers_ck CHECK (tare_grams >= 0 AND gross_grams > tare_grams)`);
+  await q.sequelize.query(
+    `ALTER TABLE lot_containers ADD CONSTRAINT lot_containers_ck CHECK (tare_grams >= 0 AND gross_grams > tare_grams)`,
+  );
 
   await q.createTable('moisture_readings', {
     id,
@@ -113,12 +125,22 @@ export async function up({ context: q }: { context: QueryInterface }) {
   });
   await q.addIndex('lot_parents', ['child_lot_id']);
   await q.addIndex('lot_parents', ['parent_lot_id']);
-  await q.sequelize.query(`ALTER TABLE lot_parents ADD CONSTRAINT lot_parents_ck CHECK (grams > 0 AND child_lot_id <> parent_lot_id)`);
+  await q.sequelize.query(
+    `ALTER TABLE lot_parents ADD CONSTRAINT lot_parents_ck CHECK (grams > 0 AND child_lot_id <> parent_lot_id)`,
+  );
 }
 
 export async function down({ context: q }: { context: QueryInterface }) {
   await q.removeConstraint('super_pulls', 'super_pulls_lot_fk');
-  for (const t of ['lot_parents', 'lab_files', 'moisture_readings', 'lot_containers', 'lots', 'lot_sequences', 'container_types']) {
+  for (const t of [
+    'lot_parents',
+    'lab_files',
+    'moisture_readings',
+    'lot_containers',
+    'lots',
+    'lot_sequences',
+    'container_types',
+  ]) {
     await q.dropTable(t, {});
   }
 }

@@ -6,7 +6,10 @@ const ts = {
   updated_at: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
 };
 const ref = (model: string, allowNull = false, onDelete = 'RESTRICT') => ({
-  type: DataTypes.INTEGER, allowNull, references: { model, key: 'id' }, onDelete,
+  type: DataTypes.INTEGER,
+  allowNull,
+  references: { model, key: 'id' },
+  onDelete,
 });
 const by = { type: DataTypes.INTEGER, allowNull: true, references: { model: 'users', key: 'id' } };
 
@@ -29,7 +32,9 @@ export async function up({ context: q }: { context: QueryInterface }) {
     sort_order: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     ...ts,
   });
-  await q.sequelize.query(`ALTER TABLE products ADD CONSTRAINT products_ck CHECK (net_grams > 0 AND container_grams >= 0 AND price_cents >= 0)`);
+  await q.sequelize.query(
+    `ALTER TABLE products ADD CONSTRAINT products_ck CHECK (net_grams > 0 AND container_grams >= 0 AND price_cents >= 0)`,
+  );
 
   // Uploaded images and other binary files, served by a route handler, never from public/.
   await q.createTable('stored_files', {
@@ -42,7 +47,14 @@ export async function up({ context: q }: { context: QueryInterface }) {
     uploaded_by: by,
     ...ts,
   });
-  await q.addConstraint('products', { type: 'foreign key', fields: ['photo_id'], name: 'products_photo_fk', references: { table: 'stored_files', field: 'id' }, onDelete: 'SET NULL', onUpdate: 'CASCADE' });
+  await q.addConstraint('products', {
+    type: 'foreign key',
+    fields: ['photo_id'],
+    name: 'products_photo_fk',
+    references: { table: 'stored_files', field: 'id' },
+    onDelete: 'SET NULL',
+    onUpdate: 'CASCADE',
+  });
 
   await q.createTable('label_layouts', {
     id,
@@ -72,7 +84,9 @@ export async function up({ context: q }: { context: QueryInterface }) {
     ...ts,
   });
   await q.addIndex('jarring_runs', ['lot_id']);
-  await q.sequelize.query(`ALTER TABLE jarring_runs ADD CONSTRAINT jarring_runs_ck CHECK (jar_count > 0 AND honey_used_grams > 0)`);
+  await q.sequelize.query(
+    `ALTER TABLE jarring_runs ADD CONSTRAINT jarring_runs_ck CHECK (jar_count > 0 AND honey_used_grams > 0)`,
+  );
 
   // On hand and reserved jars per product per lot. The CHECK is the last line against overselling.
   await q.createTable('stock_levels', {
@@ -83,7 +97,9 @@ export async function up({ context: q }: { context: QueryInterface }) {
     best_before_on: { type: DataTypes.DATEONLY, allowNull: false },
     ...ts,
   });
-  await q.sequelize.query(`ALTER TABLE stock_levels ADD CONSTRAINT stock_levels_ck CHECK (on_hand >= 0 AND reserved >= 0 AND reserved <= on_hand)`);
+  await q.sequelize.query(
+    `ALTER TABLE stock_levels ADD CONSTRAINT stock_levels_ck CHECK (on_hand >= 0 AND reserved >= 0 AND reserved <= on_hand)`,
+  );
   await q.addIndex('stock_levels', ['product_id', 'best_before_on']);
 
   // Every change of on-hand stock, append-only.

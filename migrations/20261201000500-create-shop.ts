@@ -6,7 +6,10 @@ const ts = {
   updated_at: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
 };
 const ref = (model: string, allowNull = false, onDelete = 'RESTRICT') => ({
-  type: DataTypes.INTEGER, allowNull, references: { model, key: 'id' }, onDelete,
+  type: DataTypes.INTEGER,
+  allowNull,
+  references: { model, key: 'id' },
+  onDelete,
 });
 
 export async function up({ context: q }: { context: QueryInterface }) {
@@ -40,7 +43,9 @@ export async function up({ context: q }: { context: QueryInterface }) {
   });
   await q.addIndex('orders', ['customer_id', 'created_at']);
   await q.addIndex('orders', ['status', 'created_at']);
-  await q.sequelize.query(`ALTER TABLE orders ADD CONSTRAINT orders_ck CHECK (subtotal_cents >= 0 AND shipping_cents >= 0 AND refunded_cents >= 0 AND refunded_cents <= total_cents)`);
+  await q.sequelize.query(
+    `ALTER TABLE orders ADD CONSTRAINT orders_ck CHECK (subtotal_cents >= 0 AND shipping_cents >= 0 AND refunded_cents >= 0 AND refunded_cents <= total_cents)`,
+  );
   await q.sequelize.query(`CREATE SEQUENCE order_number_seq START 10001`);
 
   await q.createTable('order_lines', {
@@ -54,7 +59,9 @@ export async function up({ context: q }: { context: QueryInterface }) {
     ...ts,
   });
   await q.addIndex('order_lines', ['order_id']);
-  await q.sequelize.query(`ALTER TABLE order_lines ADD CONSTRAINT order_lines_ck CHECK (quantity > 0 AND unit_price_cents >= 0)`);
+  await q.sequelize.query(
+    `ALTER TABLE order_lines ADD CONSTRAINT order_lines_ck CHECK (quantity > 0 AND unit_price_cents >= 0)`,
+  );
 
   // Which lot's jars fill a line: made when stock is reserved (oldest best-before first), final once paid.
   await q.createTable('order_allocations', {

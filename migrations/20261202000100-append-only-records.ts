@@ -13,10 +13,14 @@ export async function up({ context: q }: { context: QueryInterface }) {
         USING ERRCODE = 'insufficient_privilege';
     END $$`);
   for (const t of NO_CHANGE) {
-    await q.sequelize.query(`CREATE TRIGGER ${t}_append_only BEFORE UPDATE OR DELETE ON ${t} FOR EACH ROW EXECUTE FUNCTION combtrace_append_only()`);
+    await q.sequelize.query(
+      `CREATE TRIGGER ${t}_append_only BEFORE UPDATE OR DELETE ON ${t} FOR EACH ROW EXECUTE FUNCTION combtrace_append_only()`,
+    );
   }
   for (const t of NO_DELETE) {
-    await q.sequelize.query(`CREATE TRIGGER ${t}_no_delete BEFORE DELETE ON ${t} FOR EACH ROW EXECUTE FUNCTION combtrace_append_only()`);
+    await q.sequelize.query(
+      `CREATE TRIGGER ${t}_no_delete BEFORE DELETE ON ${t} FOR EACH ROW EXECUTE FUNCTION combtrace_append_only()`,
+    );
   }
 }
 

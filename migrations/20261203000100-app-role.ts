@@ -19,7 +19,14 @@ const NO_DELETE = ['lots', 'lot_containers', 'moisture_readings', 'lab_files', '
 // umzug's bookkeeping (schema_seeds exists only once the demo seed has run): not the app's business.
 const BOOKKEEPING = ['schema_migrations', 'schema_seeds'];
 
-type RoleRow = { rolsuper: boolean; rolcreatedb: boolean; rolcreaterole: boolean; rolreplication: boolean; rolbypassrls: boolean; owner_rights: boolean };
+type RoleRow = {
+  rolsuper: boolean;
+  rolcreatedb: boolean;
+  rolcreaterole: boolean;
+  rolreplication: boolean;
+  rolbypassrls: boolean;
+  owner_rights: boolean;
+};
 
 async function appRole(q: QueryInterface): Promise<RoleRow | undefined> {
   const rows = await q.sequelize.query<RoleRow>(
@@ -55,11 +62,22 @@ export async function up({ context: q }: { context: QueryInterface }) {
   if (!role) {
     // A database you brought yourself, migrated by a role that may not create roles: the app then
     // connects with DATABASE_URL's role (or APP_DATABASE_URL's). The triggers still stand.
-    console.warn(`${ROLE} does not exist and this user may not create roles; the app will use the role in its URL (DEVELOPERS.md, "Database roles").`);
+    console.warn(
+      `${ROLE} does not exist and this user may not create roles; the app will use the role in its URL (DEVELOPERS.md, "Database roles").`,
+    );
     return;
   }
-  if (role.rolsuper || role.rolcreatedb || role.rolcreaterole || role.rolreplication || role.rolbypassrls || role.owner_rights) {
-    throw new Error(`${ROLE} already exists with more rights than the app may have (superuser, createdb, createrole, replication, bypassrls or the tables' owner's rights); fix or drop that role first.`);
+  if (
+    role.rolsuper ||
+    role.rolcreatedb ||
+    role.rolcreaterole ||
+    role.rolreplication ||
+    role.rolbypassrls ||
+    role.owner_rights
+  ) {
+    throw new Error(
+      `${ROLE} already exists with more rights than the app may have (superuser, createdb, createrole, replication, bypassrls or the tables' owner's rights); fix or drop that role first.`,
+    );
   }
 
   await sql(`DO $$ BEGIN EXECUTE format('GRANT CONNECT ON DATABASE %I TO ${ROLE}', current_database()); END $$`);

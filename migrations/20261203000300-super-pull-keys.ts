@@ -13,7 +13,9 @@ export async function up({ context: q }: { context: QueryInterface }) {
 }
 
 export async function down({ context: q }: { context: QueryInterface }) {
-  await q.sequelize.query(`UPDATE super_pulls SET idempotency_key = pull_key WHERE pull_key IS NOT NULL AND pulled_on IS NOT NULL`);
+  await q.sequelize.query(
+    `UPDATE super_pulls SET idempotency_key = pull_key WHERE pull_key IS NOT NULL AND pulled_on IS NOT NULL`,
+  );
   await q.removeIndex('super_pulls', 'super_pulls_pull_key');
   await q.removeColumn('super_pulls', 'pull_key');
 }

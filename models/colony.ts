@@ -1,4 +1,12 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import { serialId, timestamps } from './columns';
 import type { User } from './user';
 import type { Yard } from './yard';
@@ -47,7 +55,12 @@ export function initColony(sequelize: Sequelize) {
       origin: { type: DataTypes.STRING(20), allowNull: false, validate: { isIn: [COLONY_ORIGINS] } },
       parentColonyId: { type: DataTypes.INTEGER, allowNull: true },
       queenYear: { type: DataTypes.INTEGER, allowNull: true },
-      status: { type: DataTypes.STRING(20), allowNull: false, defaultValue: 'active', validate: { isIn: [COLONY_STATUSES] } },
+      status: {
+        type: DataTypes.STRING(20),
+        allowNull: false,
+        defaultValue: 'active',
+        validate: { isIn: [COLONY_STATUSES] },
+      },
       combinedIntoId: { type: DataTypes.INTEGER, allowNull: true },
       startedOn: { type: DataTypes.DATEONLY, allowNull: true },
       notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },

@@ -1,11 +1,24 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import { serialId, idempotencyKey, timestamps } from './columns';
 import type { FeedingKind } from '@/lib/domain/conflicts';
 import type { Colony } from './colony';
 
 /** The union lives with the super-conflict rules; re-exported here with its values. */
 export type { FeedingKind };
-export const FEEDING_KINDS = ['sugar_syrup', 'fondant', 'pollen_substitute', 'other'] as const satisfies readonly FeedingKind[];
+export const FEEDING_KINDS = [
+  'sugar_syrup',
+  'fondant',
+  'pollen_substitute',
+  'other',
+] as const satisfies readonly FeedingKind[];
 
 export class Feeding extends Model<InferAttributes<Feeding>, InferCreationAttributes<Feeding>> {
   declare id: CreationOptional<number>;

@@ -34,7 +34,12 @@ import { initStripeEvent } from './stripe-event';
 import { initRefund } from './refund';
 
 /** `one` has many `many` and each `many` belongs to its `one`, through `foreignKey`; `as` names both ends. */
-function oneToMany(one: ModelStatic<Model>, many: ModelStatic<Model>, foreignKey: string, as: { many: string; one: string }) {
+function oneToMany(
+  one: ModelStatic<Model>,
+  many: ModelStatic<Model>,
+  foreignKey: string,
+  as: { many: string; one: string },
+) {
   one.hasMany(many, { foreignKey, as: as.many });
   many.belongsTo(one, { foreignKey, as: as.one });
 }
@@ -81,11 +86,32 @@ export function initModels(sequelize: Sequelize) {
     Refund: initRefund(sequelize),
   };
   const {
-    User, PasswordToken, AuditEntry,
-    Yard, YardKeeper, TreatmentKind, Colony, ColonyEvent, Feeding, Treatment, SuperPull,
-    ContainerType, Lot, LotContainer, MoistureReading, LabFile, LotParent,
-    Product, StoredFile, JarringRun, StockLevel, StockEntry,
-    Order, OrderLine, OrderAllocation, Refund,
+    User,
+    PasswordToken,
+    AuditEntry,
+    Yard,
+    YardKeeper,
+    TreatmentKind,
+    Colony,
+    ColonyEvent,
+    Feeding,
+    Treatment,
+    SuperPull,
+    ContainerType,
+    Lot,
+    LotContainer,
+    MoistureReading,
+    LabFile,
+    LotParent,
+    Product,
+    StoredFile,
+    JarringRun,
+    StockLevel,
+    StockEntry,
+    Order,
+    OrderLine,
+    OrderAllocation,
+    Refund,
   } = models;
 
   PasswordToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });

@@ -1,9 +1,19 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 import { serialId, timestamps } from './columns';
 import type { LabelLayout } from '@/lib/domain/label-layout';
 
 /** A saved label sheet layout (named LabelLayoutRecord: LabelLayout is the domain type it stores). */
-export class LabelLayoutRecord extends Model<InferAttributes<LabelLayoutRecord>, InferCreationAttributes<LabelLayoutRecord>> {
+export class LabelLayoutRecord extends Model<
+  InferAttributes<LabelLayoutRecord>,
+  InferCreationAttributes<LabelLayoutRecord>
+> {
   declare id: CreationOptional<number>;
   declare name: string;
   /** In millimetres. */

@@ -1,4 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 
 /** Last sequence used per prefix and year; the row is locked while a lot code is taken (no gaps, no duplicates). */
 export class LotSequence extends Model<InferAttributes<LotSequence>, InferCreationAttributes<LotSequence>> {

@@ -1,4 +1,12 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import { serialId, timestamps } from './columns';
 import type { SuperPull } from './super-pull';
 import type { LotContainer } from './lot-container';
@@ -49,7 +57,12 @@ export function initLot(sequelize: Sequelize) {
       floralSource: { type: DataTypes.STRING(80), allowNull: false, defaultValue: '' },
       heather: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       extractedOn: { type: DataTypes.DATEONLY, allowNull: true },
-      stage: { type: DataTypes.STRING(12), allowNull: false, defaultValue: 'gathering', validate: { isIn: [LOT_STAGES] } },
+      stage: {
+        type: DataTypes.STRING(12),
+        allowNull: false,
+        defaultValue: 'gathering',
+        validate: { isIn: [LOT_STAGES] },
+      },
       holdReasons: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
       isBlend: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       netGrams: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },

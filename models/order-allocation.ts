@@ -1,4 +1,12 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import { serialId, timestamps } from './columns';
 import type { OrderLine } from './order-line';
 import type { Lot } from './lot';
@@ -26,7 +34,12 @@ export function initOrderAllocation(sequelize: Sequelize) {
       orderLineId: { type: DataTypes.INTEGER, allowNull: false },
       lotId: { type: DataTypes.INTEGER, allowNull: false },
       quantity: { type: DataTypes.INTEGER, allowNull: false },
-      state: { type: DataTypes.STRING(12), allowNull: false, defaultValue: 'reserved', validate: { isIn: [ALLOCATION_STATES] } },
+      state: {
+        type: DataTypes.STRING(12),
+        allowNull: false,
+        defaultValue: 'reserved',
+        validate: { isIn: [ALLOCATION_STATES] },
+      },
       ...timestamps(),
     },
     { sequelize, modelName: 'OrderAllocation', tableName: 'order_allocations', underscored: true },

@@ -1,4 +1,12 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import { serialId, timestamps } from './columns';
 import type { User } from './user';
 import type { OrderLine } from './order-line';
@@ -58,7 +66,12 @@ export function initOrder(sequelize: Sequelize) {
       email: { type: DataTypes.STRING(254), allowNull: false },
       name: { type: DataTypes.STRING(120), allowNull: false, defaultValue: '' },
       phone: { type: DataTypes.STRING(40), allowNull: false, defaultValue: '' },
-      status: { type: DataTypes.STRING(20), allowNull: false, defaultValue: 'awaiting_payment', validate: { isIn: [ORDER_STATUSES] } },
+      status: {
+        type: DataTypes.STRING(20),
+        allowNull: false,
+        defaultValue: 'awaiting_payment',
+        validate: { isIn: [ORDER_STATUSES] },
+      },
       fulfilment: { type: DataTypes.STRING(8), allowNull: false, validate: { isIn: [FULFILMENTS] } },
       shippingAddress: { type: DataTypes.JSONB, allowNull: true },
       subtotalCents: { type: DataTypes.INTEGER, allowNull: false },

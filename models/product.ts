@@ -1,4 +1,12 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+  type Sequelize,
+} from 'sequelize';
 import { serialId, timestamps } from './columns';
 import type { StoredFile } from './stored-file';
 import type { StockLevel } from './stock-level';
@@ -37,7 +45,12 @@ export function initProduct(sequelize: Sequelize) {
       name: { type: DataTypes.STRING(120), allowNull: false },
       description: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       netGrams: { type: DataTypes.INTEGER, allowNull: false },
-      declaredUnit: { type: DataTypes.STRING(2), allowNull: false, defaultValue: 'g', validate: { isIn: [DECLARED_UNITS] } },
+      declaredUnit: {
+        type: DataTypes.STRING(2),
+        allowNull: false,
+        defaultValue: 'g',
+        validate: { isIn: [DECLARED_UNITS] },
+      },
       declaredAmount: { type: DataTypes.DECIMAL(8, 2), allowNull: false },
       containerKind: { type: DataTypes.STRING(60), allowNull: false },
       containerGrams: { type: DataTypes.INTEGER, allowNull: false },

@@ -1,7 +1,14 @@
 'use server';
 import { headers } from 'next/headers';
 import { createCustomer, EmailTakenError, requestPasswordReset, resetPassword } from '@/lib/data/staff/users';
-import { forgotPasswordInput, resetPasswordInput, signUpInput, type ForgotPasswordInput, type ResetPasswordInput, type SignUpInput } from '@/lib/schemas/auth';
+import {
+  forgotPasswordInput,
+  resetPasswordInput,
+  signUpInput,
+  type ForgotPasswordInput,
+  type ResetPasswordInput,
+  type SignUpInput,
+} from '@/lib/schemas/auth';
 import { fail, toFieldErrors, type ActionResult } from '@/lib/schemas/result';
 import { assertSameOrigin } from '@/lib/http/origin';
 

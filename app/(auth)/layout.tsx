@@ -8,7 +8,9 @@ export default async function AuthLayout({ children }: { children: React.ReactNo
   return (
     <>
       <ShopHeader businessName={settings.businessName} user={user} />
-      <main id="main" className="mx-auto max-w-md px-4 py-10">{children}</main>
+      <main id="main" className="mx-auto max-w-md px-4 py-10">
+        {children}
+      </main>
       <SiteFooter businessName={settings.businessName} address={settings.address} />
     </>
   );

@@ -8,7 +8,9 @@ export default async function StorefrontLayout({ children }: { children: React.R
   return (
     <>
       <ShopHeader businessName={settings.businessName} user={user} />
-      <main id="main" className="mx-auto max-w-6xl px-4 py-8">{children}</main>
+      <main id="main" className="mx-auto max-w-6xl px-4 py-8">
+        {children}
+      </main>
       <SiteFooter businessName={settings.businessName} address={settings.address} />
     </>
   );

@@ -13,10 +13,19 @@ export function ForgotPasswordForm({ onRequest }: { onRequest: (v: ForgotPasswor
     successMessage: 'If an account uses that address, a reset link is on its way. Check your inbox.',
   });
   return (
-    <form onSubmit={submit} className="card space-y-4" noValidate>
-      <TextField label="E-mail" type="email" registration={form.register('email')} error={errors.email} autoComplete="email" required />
+    <form onSubmit={submit} className="space-y-4 card" noValidate>
+      <TextField
+        label="E-mail"
+        type="email"
+        registration={form.register('email')}
+        error={errors.email}
+        autoComplete="email"
+        required
+      />
       <FormMessage {...message} />
-      <button type="submit" className="btn-primary w-full" disabled={pending}>Send reset link</button>
+      <button type="submit" className="btn-primary w-full" disabled={pending}>
+        Send reset link
+      </button>
     </form>
   );
 }

@@ -9,7 +9,13 @@ import { useActionForm } from '@/components/ui/use-action-form';
 // The token comes from the link, not from the person: the server checks it and says so if it is not valid.
 const passwordOnly = resetPasswordInput.pick({ password: true });
 
-export function ResetPasswordForm({ token, onReset }: { token: string; onReset: (v: ResetPasswordInput) => Promise<ActionResult> }) {
+export function ResetPasswordForm({
+  token,
+  onReset,
+}: {
+  token: string;
+  onReset: (v: ResetPasswordInput) => Promise<ActionResult>;
+}) {
   const { form, submit, pending, errors, message } = useActionForm({
     schema: passwordOnly,
     defaultValues: { password: '' },
@@ -18,18 +24,29 @@ export function ResetPasswordForm({ token, onReset }: { token: string; onReset: 
   });
   if (message.success) {
     return (
-      <div className="card space-y-3">
+      <div className="space-y-3 card">
         <FormMessage {...message} />
-        <Link className="btn-primary no-underline" href="/sign-in">Sign in</Link>
+        <Link className="btn-primary no-underline" href="/sign-in">
+          Sign in
+        </Link>
       </div>
     );
   }
   return (
-    <form onSubmit={submit} className="card space-y-4" noValidate>
-      <TextField label="New password" type="password" registration={form.register('password')} error={errors.password} autoComplete="new-password" required
-        hint="At least 8 characters. A long phrase is best." />
+    <form onSubmit={submit} className="space-y-4 card" noValidate>
+      <TextField
+        label="New password"
+        type="password"
+        registration={form.register('password')}
+        error={errors.password}
+        autoComplete="new-password"
+        required
+        hint="At least 8 characters. A long phrase is best."
+      />
       <FormMessage {...message} />
-      <button type="submit" className="btn-primary w-full" disabled={pending}>Save password</button>
+      <button type="submit" className="btn-primary w-full" disabled={pending}>
+        Save password
+      </button>
     </form>
   );
 }

@@ -28,11 +28,27 @@ export function SignInForm({ next }: { next?: string }) {
   });
 
   return (
-    <form onSubmit={submit} className="card space-y-4" noValidate>
-      <TextField label="E-mail" type="email" registration={form.register('email')} error={errors.email} autoComplete="email" required />
-      <TextField label="Password" type="password" registration={form.register('password')} error={errors.password} autoComplete="current-password" required />
+    <form onSubmit={submit} className="space-y-4 card" noValidate>
+      <TextField
+        label="E-mail"
+        type="email"
+        registration={form.register('email')}
+        error={errors.email}
+        autoComplete="email"
+        required
+      />
+      <TextField
+        label="Password"
+        type="password"
+        registration={form.register('password')}
+        error={errors.password}
+        autoComplete="current-password"
+        required
+      />
       <FormMessage {...message} />
-      <button type="submit" className="btn-primary w-full" disabled={pending}>{pending ? 'Signing in…' : 'Sign in'}</button>
+      <button type="submit" className="btn-primary w-full" disabled={pending}>
+        {pending ? 'Signing in…' : 'Sign in'}
+      </button>
       <p className="flex justify-between text-sm">
         <Link href="/forgot-password">Forgot your password?</Link>
         <Link href="/sign-up">New here? Create an account</Link>

@@ -20,13 +20,27 @@ export function SignUpForm({ onSignUp }: { onSignUp: (v: SignUpInput) => Promise
   });
 
   return (
-    <form onSubmit={submit} className="card space-y-4" noValidate>
+    <form onSubmit={submit} className="space-y-4 card" noValidate>
       <TextField label="Your name" registration={form.register('name')} error={errors.name} autoComplete="name" />
-      <TextField label="E-mail" type="email" registration={form.register('email')} error={errors.email} autoComplete="email" />
-      <TextField label="Password" type="password" registration={form.register('password')} error={errors.password} autoComplete="new-password"
-        hint="At least 8 characters. A long phrase is best; pasting from a password manager is fine." />
+      <TextField
+        label="E-mail"
+        type="email"
+        registration={form.register('email')}
+        error={errors.email}
+        autoComplete="email"
+      />
+      <TextField
+        label="Password"
+        type="password"
+        registration={form.register('password')}
+        error={errors.password}
+        autoComplete="new-password"
+        hint="At least 8 characters. A long phrase is best; pasting from a password manager is fine."
+      />
       <FormMessage {...message} />
-      <button type="submit" className="btn-primary w-full" disabled={pending}>{pending ? 'Creating…' : 'Create account'}</button>
+      <button type="submit" className="btn-primary w-full" disabled={pending}>
+        {pending ? 'Creating…' : 'Create account'}
+      </button>
     </form>
   );
 }

@@ -14,11 +14,23 @@ type Props = {
   submitLabel: string;
 };
 
-const ORIGIN_NAMES: Record<(typeof COLONY_ORIGINS)[number], string> = { package: 'Package', nucleus: 'Nucleus', swarm: 'Swarm', purchased: 'Purchased colony', split: 'Split from another colony' };
+const ORIGIN_NAMES: Record<(typeof COLONY_ORIGINS)[number], string> = {
+  package: 'Package',
+  nucleus: 'Nucleus',
+  swarm: 'Swarm',
+  purchased: 'Purchased colony',
+  split: 'Split from another colony',
+};
 
 export function ColonyForm({ initial, keepers, parents, onSave, submitLabel }: Props) {
   const router = useRouter();
-  const { form, submit, pending: isSubmitting, errors, message } = useActionForm({
+  const {
+    form,
+    submit,
+    pending: isSubmitting,
+    errors,
+    message,
+  } = useActionForm({
     schema: colonyInput,
     action: onSave,
     defaultValues: initial,
@@ -27,21 +39,39 @@ export function ColonyForm({ initial, keepers, parents, onSave, submitLabel }: P
   const { register, watch } = form;
   const origin = watch('origin');
   return (
-    <form onSubmit={submit} className="card grid max-w-2xl gap-4" noValidate>
-      <TextField label="Colony code" hint="Unique in the business, e.g. OT-07." autoCapitalize="characters" registration={register('code')} error={errors.code} />
+    <form onSubmit={submit} className="grid max-w-2xl gap-4 card" noValidate>
+      <TextField
+        label="Colony code"
+        hint="Unique in the business, e.g. OT-07."
+        autoCapitalize="characters"
+        registration={register('code')}
+        error={errors.code}
+      />
       {keepers ? (
         <label className="field" htmlFor="keeperId">
           <span>Keeper</span>
           <select id="keeperId" className="input min-h-11" {...register('keeperId')}>
-            {keepers.map((k) => <option key={k.id} value={k.id}>{k.name}</option>)}
+            {keepers.map((k) => (
+              <option key={k.id} value={k.id}>
+                {k.name}
+              </option>
+            ))}
           </select>
-          {errors.keeperId ? <small className="field-error" role="alert">{errors.keeperId.message}</small> : null}
+          {errors.keeperId ? (
+            <small className="field-error" role="alert">
+              {errors.keeperId.message}
+            </small>
+          ) : null}
         </label>
       ) : null}
       <label className="field" htmlFor="origin">
         <span>Origin</span>
         <select id="origin" className="input min-h-11" {...register('origin')}>
-          {COLONY_ORIGINS.map((o) => <option key={o} value={o}>{ORIGIN_NAMES[o]}</option>)}
+          {COLONY_ORIGINS.map((o) => (
+            <option key={o} value={o}>
+              {ORIGIN_NAMES[o]}
+            </option>
+          ))}
         </select>
       </label>
       {origin === 'split' ? (
@@ -49,12 +79,22 @@ export function ColonyForm({ initial, keepers, parents, onSave, submitLabel }: P
           <span>Split from</span>
           <select id="parentColonyId" className="input min-h-11" {...register('parentColonyId')}>
             <option value="">Choose the parent colony</option>
-            {parents.map((p) => <option key={p.id} value={p.id}>{p.code}</option>)}
+            {parents.map((p) => (
+              <option key={p.id} value={p.id}>
+                {p.code}
+              </option>
+            ))}
           </select>
         </label>
       ) : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Queen year" hint="Gives the marking colour." inputMode="numeric" registration={register('queenYear')} error={errors.queenYear} />
+        <TextField
+          label="Queen year"
+          hint="Gives the marking colour."
+          inputMode="numeric"
+          registration={register('queenYear')}
+          error={errors.queenYear}
+        />
         <TextField label="Started on" type="date" registration={register('startedOn')} error={errors.startedOn} />
       </div>
       <label className="field" htmlFor="notes">
@@ -62,7 +102,11 @@ export function ColonyForm({ initial, keepers, parents, onSave, submitLabel }: P
         <textarea id="notes" className="input min-h-20" {...register('notes')} />
       </label>
       <FormMessage {...message} />
-      <div><button type="submit" className="btn-primary min-h-11" disabled={isSubmitting}>{isSubmitting ? 'Saving…' : submitLabel}</button></div>
+      <div>
+        <button type="submit" className="btn-primary min-h-11" disabled={isSubmitting}>
+          {isSubmitting ? 'Saving…' : submitLabel}
+        </button>
+      </div>
     </form>
   );
 }

@@ -2,7 +2,16 @@
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import type { z } from 'zod';
-import { feedingInput, feedingEndInput, treatmentInput, noteInput, splitInput, moveInput, statusInput, FEEDING_KINDS } from '@/lib/schemas/colonies';
+import {
+  feedingInput,
+  feedingEndInput,
+  treatmentInput,
+  noteInput,
+  splitInput,
+  moveInput,
+  statusInput,
+  FEEDING_KINDS,
+} from '@/lib/schemas/colonies';
 import { superOnInput, SUPER_DEPTHS } from '@/lib/schemas/supers';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
@@ -21,10 +30,21 @@ function useEntryKey() {
 }
 
 function Submit({ busy, label }: { busy: boolean; label: string }) {
-  return <div><button type="submit" className="btn-secondary min-h-11" disabled={busy}>{busy ? 'Saving…' : label}</button></div>;
+  return (
+    <div>
+      <button type="submit" className="btn-secondary min-h-11" disabled={busy}>
+        {busy ? 'Saving…' : label}
+      </button>
+    </div>
+  );
 }
 
-const FEEDING_NAMES = { sugar_syrup: 'Sugar syrup', fondant: 'Fondant / candy', pollen_substitute: 'Pollen substitute', other: 'Other' } as const;
+const FEEDING_NAMES = {
+  sugar_syrup: 'Sugar syrup',
+  fondant: 'Fondant / candy',
+  pollen_substitute: 'Pollen substitute',
+  other: 'Other',
+} as const;
 
 export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof feedingInput> }) {
   const router = useRouter();
@@ -32,21 +52,57 @@ export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<t
   const { form, submit, pending, errors, message } = useActionForm({
     schema: feedingInput,
     action: (v) => onSave({ ...v, idempotencyKey: k.key }),
-    defaultValues: { colonyId, kind: 'sugar_syrup', amount: '', startedOn: today, endedOn: '', note: '', idempotencyKey: k.key },
+    defaultValues: {
+      colonyId,
+      kind: 'sugar_syrup',
+      amount: '',
+      startedOn: today,
+      endedOn: '',
+      note: '',
+      idempotencyKey: k.key,
+    },
     successMessage: 'Saved.',
     resetOnSuccess: true,
-    onSuccess: () => { k.renew(); router.refresh(); },
+    onSuccess: () => {
+      k.renew();
+      router.refresh();
+    },
   });
   const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a feeding">
-      <label className="field" htmlFor="feed-kind"><span>Feed</span>
-        <select id="feed-kind" className="input min-h-11" {...register('kind')}>{FEEDING_KINDS.map((f) => <option key={f} value={f}>{FEEDING_NAMES[f]}</option>)}</select>
+      <label className="field" htmlFor="feed-kind">
+        <span>Feed</span>
+        <select id="feed-kind" className="input min-h-11" {...register('kind')}>
+          {FEEDING_KINDS.map((f) => (
+            <option key={f} value={f}>
+              {FEEDING_NAMES[f]}
+            </option>
+          ))}
+        </select>
       </label>
-      <TextField id="feed-amount" label="Amount" hint="e.g. 2 L 1:1, 1 kg" registration={register('amount')} error={errors.amount} />
+      <TextField
+        id="feed-amount"
+        label="Amount"
+        hint="e.g. 2 L 1:1, 1 kg"
+        registration={register('amount')}
+        error={errors.amount}
+      />
       <div className="grid gap-3 sm:grid-cols-2">
-        <TextField id="feed-start" label="Started" type="date" registration={register('startedOn')} error={errors.startedOn} />
-        <TextField id="feed-end" label="Ended (blank if still feeding)" type="date" registration={register('endedOn')} error={errors.endedOn} />
+        <TextField
+          id="feed-start"
+          label="Started"
+          type="date"
+          registration={register('startedOn')}
+          error={errors.startedOn}
+        />
+        <TextField
+          id="feed-end"
+          label="Ended (blank if still feeding)"
+          type="date"
+          registration={register('endedOn')}
+          error={errors.endedOn}
+        />
       </div>
       <FormMessage {...message} />
       <Submit busy={pending} label="Save feeding" />
@@ -54,30 +110,74 @@ export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<t
   );
 }
 
-export function TreatmentForm({ colonyId, today, kinds, onSave }: Base & { kinds: { id: number; name: string; supersAllowed: boolean; waitingDays: number }[]; onSave: Save<typeof treatmentInput> }) {
+export function TreatmentForm({
+  colonyId,
+  today,
+  kinds,
+  onSave,
+}: Base & {
+  kinds: { id: number; name: string; supersAllowed: boolean; waitingDays: number }[];
+  onSave: Save<typeof treatmentInput>;
+}) {
   const router = useRouter();
   const k = useEntryKey();
   const { form, submit, pending, errors, message } = useActionForm({
     schema: treatmentInput,
     action: (v) => onSave({ ...v, idempotencyKey: k.key }),
-    defaultValues: { colonyId, treatmentKindId: kinds[0]?.id, productName: '', appliedOn: today, removedOn: '', note: '', idempotencyKey: k.key },
+    defaultValues: {
+      colonyId,
+      treatmentKindId: kinds[0]?.id,
+      productName: '',
+      appliedOn: today,
+      removedOn: '',
+      note: '',
+      idempotencyKey: k.key,
+    },
     successMessage: 'Saved.',
     resetOnSuccess: true,
-    onSuccess: () => { k.renew(); router.refresh(); },
+    onSuccess: () => {
+      k.renew();
+      router.refresh();
+    },
   });
   const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a mite treatment">
       <TreatmentCaution />
-      <label className="field" htmlFor="treat-kind"><span>Treatment kind</span>
+      <label className="field" htmlFor="treat-kind">
+        <span>Treatment kind</span>
         <select id="treat-kind" className="input min-h-11" {...register('treatmentKindId')}>
-          {kinds.map((x) => <option key={x.id} value={x.id}>{x.name} — {x.supersAllowed ? 'supers allowed (per your list)' : `no supers${x.waitingDays ? `, wait ${x.waitingDays} d` : ''}`}</option>)}
+          {kinds.map((x) => (
+            <option key={x.id} value={x.id}>
+              {x.name} —{' '}
+              {x.supersAllowed
+                ? 'supers allowed (per your list)'
+                : `no supers${x.waitingDays ? `, wait ${x.waitingDays} d` : ''}`}
+            </option>
+          ))}
         </select>
       </label>
-      <TextField id="treat-product" label="Product name" registration={register('productName')} error={errors.productName} />
+      <TextField
+        id="treat-product"
+        label="Product name"
+        registration={register('productName')}
+        error={errors.productName}
+      />
       <div className="grid gap-3 sm:grid-cols-2">
-        <TextField id="treat-on" label="Applied" type="date" registration={register('appliedOn')} error={errors.appliedOn} />
-        <TextField id="treat-off" label="Removed (blank if still on)" type="date" registration={register('removedOn')} error={errors.removedOn} />
+        <TextField
+          id="treat-on"
+          label="Applied"
+          type="date"
+          registration={register('appliedOn')}
+          error={errors.appliedOn}
+        />
+        <TextField
+          id="treat-off"
+          label="Removed (blank if still on)"
+          type="date"
+          registration={register('removedOn')}
+          error={errors.removedOn}
+        />
       </div>
       <FormMessage {...message} />
       <Submit busy={pending} label="Save treatment" />
@@ -94,16 +194,32 @@ export function SuperOnForm({ colonyId, today, onSave }: Base & { onSave: Save<t
     defaultValues: { colonyId, depth: 'medium', frameCount: 10, tagCode: '', putOnOn: today, idempotencyKey: k.key },
     successMessage: 'Saved.',
     resetOnSuccess: true,
-    onSuccess: () => { k.renew(); router.refresh(); },
+    onSuccess: () => {
+      k.renew();
+      router.refresh();
+    },
   });
   const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a super put on">
       <div className="grid gap-3 sm:grid-cols-2">
-        <label className="field" htmlFor="on-depth"><span>Box depth</span>
-          <select id="on-depth" className="input min-h-11" {...register('depth')}>{SUPER_DEPTHS.map((d) => <option key={d} value={d}>{d}</option>)}</select>
+        <label className="field" htmlFor="on-depth">
+          <span>Box depth</span>
+          <select id="on-depth" className="input min-h-11" {...register('depth')}>
+            {SUPER_DEPTHS.map((d) => (
+              <option key={d} value={d}>
+                {d}
+              </option>
+            ))}
+          </select>
         </label>
-        <TextField id="on-frames" label="Frames" inputMode="numeric" registration={register('frameCount')} error={errors.frameCount} />
+        <TextField
+          id="on-frames"
+          label="Frames"
+          inputMode="numeric"
+          registration={register('frameCount')}
+          error={errors.frameCount}
+        />
         <TextField id="on-tag" label="Tag code (optional)" registration={register('tagCode')} error={errors.tagCode} />
         <TextField id="on-date" label="Put on" type="date" registration={register('putOnOn')} error={errors.putOnOn} />
       </div>
@@ -122,36 +238,71 @@ export function NoteForm({ colonyId, today, onSave }: Base & { onSave: Save<type
     defaultValues: { colonyId, occurredOn: today, note: '', idempotencyKey: k.key },
     successMessage: 'Saved.',
     resetOnSuccess: true,
-    onSuccess: () => { k.renew(); router.refresh(); },
+    onSuccess: () => {
+      k.renew();
+      router.refresh();
+    },
   });
   const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Add a note">
-      <label className="field" htmlFor="note-text"><span>Note</span><textarea id="note-text" className="input min-h-20" {...register('note')} />
-        {errors.note ? <small className="field-error" role="alert">{errors.note.message}</small> : null}</label>
-      <TextField id="note-date" label="Date" type="date" registration={register('occurredOn')} error={errors.occurredOn} />
+      <label className="field" htmlFor="note-text">
+        <span>Note</span>
+        <textarea id="note-text" className="input min-h-20" {...register('note')} />
+        {errors.note ? (
+          <small className="field-error" role="alert">
+            {errors.note.message}
+          </small>
+        ) : null}
+      </label>
+      <TextField
+        id="note-date"
+        label="Date"
+        type="date"
+        registration={register('occurredOn')}
+        error={errors.occurredOn}
+      />
       <FormMessage {...message} />
       <Submit busy={pending} label="Save note" />
     </form>
   );
 }
 
-export function SplitForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof splitInput, ActionResult<{ id: number }>> }) {
+export function SplitForm({
+  colonyId,
+  today,
+  onSave,
+}: Base & { onSave: Save<typeof splitInput, ActionResult<{ id: number }>> }) {
   const router = useRouter();
   const k = useEntryKey();
   const { form, submit, pending, errors, message } = useActionForm({
     schema: splitInput,
     action: (v) => onSave({ ...v, idempotencyKey: k.key }),
     defaultValues: { colonyId, newCode: '', occurredOn: today, queenYear: '', note: '', idempotencyKey: k.key },
-    onSuccess: (data) => { k.renew(); router.push(`/admin/colonies/${data.id}`); },
+    onSuccess: (data) => {
+      k.renew();
+      router.push(`/admin/colonies/${data.id}`);
+    },
   });
   const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a split">
       <div className="grid gap-3 sm:grid-cols-2">
         <TextField id="split-code" label="New colony code" registration={register('newCode')} error={errors.newCode} />
-        <TextField id="split-date" label="Split on" type="date" registration={register('occurredOn')} error={errors.occurredOn} />
-        <TextField id="split-queen" label="New queen year (optional)" inputMode="numeric" registration={register('queenYear')} error={errors.queenYear} />
+        <TextField
+          id="split-date"
+          label="Split on"
+          type="date"
+          registration={register('occurredOn')}
+          error={errors.occurredOn}
+        />
+        <TextField
+          id="split-queen"
+          label="New queen year (optional)"
+          inputMode="numeric"
+          registration={register('queenYear')}
+          error={errors.queenYear}
+        />
       </div>
       <FormMessage {...message} />
       <Submit busy={pending} label="Save split" />
@@ -159,7 +310,12 @@ export function SplitForm({ colonyId, today, onSave }: Base & { onSave: Save<typ
   );
 }
 
-export function MoveForm({ colonyId, today, yards, onSave }: Base & { yards: { id: number; name: string }[]; onSave: Save<typeof moveInput> }) {
+export function MoveForm({
+  colonyId,
+  today,
+  yards,
+  onSave,
+}: Base & { yards: { id: number; name: string }[]; onSave: Save<typeof moveInput> }) {
   const router = useRouter();
   const { form, submit, pending, errors, message } = useActionForm({
     schema: moveInput,
@@ -172,17 +328,35 @@ export function MoveForm({ colonyId, today, yards, onSave }: Base & { yards: { i
   if (yards.length === 0) return <p className="hint">No other yard to move to.</p>;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Move to another yard">
-      <label className="field" htmlFor="move-yard"><span>Move to</span>
-        <select id="move-yard" className="input min-h-11" {...register('yardId')}>{yards.map((y) => <option key={y.id} value={y.id}>{y.name}</option>)}</select>
+      <label className="field" htmlFor="move-yard">
+        <span>Move to</span>
+        <select id="move-yard" className="input min-h-11" {...register('yardId')}>
+          {yards.map((y) => (
+            <option key={y.id} value={y.id}>
+              {y.name}
+            </option>
+          ))}
+        </select>
       </label>
-      <TextField id="move-date" label="Moved on" type="date" registration={register('occurredOn')} error={errors.occurredOn} />
+      <TextField
+        id="move-date"
+        label="Moved on"
+        type="date"
+        registration={register('occurredOn')}
+        error={errors.occurredOn}
+      />
       <FormMessage {...message} />
       <Submit busy={pending} label="Move colony" />
     </form>
   );
 }
 
-export function StatusForm({ colonyId, today, status, onSave }: Base & { status: string; onSave: Save<typeof statusInput> }) {
+export function StatusForm({
+  colonyId,
+  today,
+  status,
+  onSave,
+}: Base & { status: string; onSave: Save<typeof statusInput> }) {
   const router = useRouter();
   const { form, submit, pending, errors, message } = useActionForm({
     schema: statusInput,
@@ -194,13 +368,30 @@ export function StatusForm({ colonyId, today, status, onSave }: Base & { status:
   const { register, watch } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Change status">
-      <label className="field" htmlFor="status-value"><span>Status</span>
+      <label className="field" htmlFor="status-value">
+        <span>Status</span>
         <select id="status-value" className="input min-h-11" {...register('status')}>
-          <option value="active">active</option><option value="dead_out">dead-out</option><option value="combined">combined into another colony</option><option value="sold">sold</option>
+          <option value="active">active</option>
+          <option value="dead_out">dead-out</option>
+          <option value="combined">combined into another colony</option>
+          <option value="sold">sold</option>
         </select>
       </label>
-      {watch('status') === 'combined' ? <TextField id="status-into" label="Combined into (colony code)" registration={register('combinedIntoCode')} error={errors.combinedIntoCode} /> : null}
-      <TextField id="status-date" label="Date" type="date" registration={register('occurredOn')} error={errors.occurredOn} />
+      {watch('status') === 'combined' ? (
+        <TextField
+          id="status-into"
+          label="Combined into (colony code)"
+          registration={register('combinedIntoCode')}
+          error={errors.combinedIntoCode}
+        />
+      ) : null}
+      <TextField
+        id="status-date"
+        label="Date"
+        type="date"
+        registration={register('occurredOn')}
+        error={errors.occurredOn}
+      />
       <TextField id="status-note" label="Note" registration={register('note')} error={errors.note} />
       <FormMessage {...message} />
       <Submit busy={pending} label="Save status" />
@@ -209,7 +400,15 @@ export function StatusForm({ colonyId, today, status, onSave }: Base & { status:
 }
 
 /** Ends an open feeding or treatment with a date; the colony's supers are re-checked on save. */
-export function EndRecordForm({ label, today, onEnd }: { label: string; today: string; onEnd: (date: string) => Promise<AnyResult> }) {
+export function EndRecordForm({
+  label,
+  today,
+  onEnd,
+}: {
+  label: string;
+  today: string;
+  onEnd: (date: string) => Promise<AnyResult>;
+}) {
   const router = useRouter();
   // A feeding's end date and a treatment's removal date follow the same rule.
   const { form, submit, pending, errors, message } = useActionForm({
@@ -220,9 +419,21 @@ export function EndRecordForm({ label, today, onEnd }: { label: string; today: s
   });
   return (
     <form className="mt-2 flex flex-wrap items-end gap-2" onSubmit={submit} noValidate>
-      <label className="field"><span className="text-xs">{label}</span><input type="date" className="input min-h-11" aria-invalid={errors.endedOn ? true : undefined} {...form.register('endedOn')} /></label>
-      <button type="submit" className="btn-quiet min-h-11" disabled={pending}>{label}</button>
-      <div className="w-full"><FormMessage error={message.error ?? errors.endedOn?.message} /></div>
+      <label className="field">
+        <span className="text-xs">{label}</span>
+        <input
+          type="date"
+          className="input min-h-11"
+          aria-invalid={errors.endedOn ? true : undefined}
+          {...form.register('endedOn')}
+        />
+      </label>
+      <button type="submit" className="btn-quiet min-h-11" disabled={pending}>
+        {label}
+      </button>
+      <div className="w-full">
+        <FormMessage error={message.error ?? errors.endedOn?.message} />
+      </div>
     </form>
   );
 }

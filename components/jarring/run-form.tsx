@@ -6,26 +6,63 @@ import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
-export type RunFormLot = { id: number; code: string; floralSource: string; remainingText: string; jars: { productId: number; jars: number }[] };
+export type RunFormLot = {
+  id: number;
+  code: string;
+  floralSource: string;
+  remainingText: string;
+  jars: { productId: number; jars: number }[];
+};
 export type RunFormProduct = { id: number; name: string; containerGrams: number; netText: string };
-type RunResult = { runId: number; pass: boolean; reasons: string[]; stocked: boolean; packedOut: boolean; duplicate: boolean };
+type RunResult = {
+  runId: number;
+  pass: boolean;
+  reasons: string[];
+  stocked: boolean;
+  packedOut: boolean;
+  duplicate: boolean;
+};
 
-const newKey = () => (typeof crypto !== 'undefined' && 'randomUUID' in crypto ? crypto.randomUUID() : `${Date.now()}-${Math.random()}`);
+const newKey = () =>
+  typeof crypto !== 'undefined' && 'randomUUID' in crypto ? crypto.randomUUID() : `${Date.now()}-${Math.random()}`;
 
 /** The crew's jarring run form: lot, product, jars, sample fill weights. */
-export function RunForm({ lots, products, ruleSet, today, onSave }: {
-  lots: RunFormLot[]; products: RunFormProduct[]; ruleSet: 'oiml' | 'nist'; today: string;
+export function RunForm({
+  lots,
+  products,
+  ruleSet,
+  today,
+  onSave,
+}: {
+  lots: RunFormLot[];
+  products: RunFormProduct[];
+  ruleSet: 'oiml' | 'nist';
+  today: string;
   onSave: (v: JarringRunInput) => Promise<ActionResult<RunResult>>;
 }) {
   // The run's outcome (passed, or failed with reasons) is shown in its own panel, not as a message.
   const [result, setResult] = useState<RunResult | null>(null);
-  const { form, submit, pending, errors: e, message } = useActionForm({
+  const {
+    form,
+    submit,
+    pending,
+    errors: e,
+    message,
+  } = useActionForm({
     schema: jarringRunInput,
     action: (values) => {
       setResult(null);
       return onSave(values);
     },
-    defaultValues: { lotId: lots[0]?.id ?? 0, productId: products[0]?.id ?? 0, runOn: today, sampleMode: 'net', samples: '', mavGrams: '', idempotencyKey: newKey() },
+    defaultValues: {
+      lotId: lots[0]?.id ?? 0,
+      productId: products[0]?.id ?? 0,
+      runOn: today,
+      sampleMode: 'net',
+      samples: '',
+      mavGrams: '',
+      idempotencyKey: newKey(),
+    },
     // A new run needs a new key; a retry of this one (no answer) keeps it.
     resetOnSuccess: (typed) => ({ ...typed, jarCount: undefined, samples: '', idempotencyKey: newKey() }),
     onSuccess: (data) => setResult(data),
@@ -37,63 +74,117 @@ export function RunForm({ lots, products, ruleSet, today, onSave }: {
   const product = products.find((p) => p.id === productId);
   const canFill = lot?.jars.find((j) => j.productId === productId)?.jars;
 
-  if (lots.length === 0) return <p className="hint">No released lot has honey left. Release a lot in the honey house first.</p>;
+  if (lots.length === 0)
+    return <p className="hint">No released lot has honey left. Release a lot in the honey house first.</p>;
   if (products.length === 0) return <p className="hint">No active product. The owner adds jar sizes under Products.</p>;
 
   return (
     <form onSubmit={submit} className="space-y-4" noValidate aria-label="New jarring run">
       <div className="grid gap-4 sm:grid-cols-2">
-        <label className="field" htmlFor="lotId"><span>Lot (released)</span>
+        <label className="field" htmlFor="lotId">
+          <span>Lot (released)</span>
           <select id="lotId" className="input" {...form.register('lotId')}>
-            {lots.map((l) => <option key={l.id} value={l.id}>{l.code} · {l.floralSource || 'honey'} · {l.remainingText} left</option>)}
+            {lots.map((l) => (
+              <option key={l.id} value={l.id}>
+                {l.code} · {l.floralSource || 'honey'} · {l.remainingText} left
+              </option>
+            ))}
           </select>
         </label>
-        <label className="field" htmlFor="productId"><span>Product</span>
+        <label className="field" htmlFor="productId">
+          <span>Product</span>
           <select id="productId" className="input" {...form.register('productId')}>
-            {products.map((p) => <option key={p.id} value={p.id}>{p.name} ({p.netText})</option>)}
+            {products.map((p) => (
+              <option key={p.id} value={p.id}>
+                {p.name} ({p.netText})
+              </option>
+            ))}
           </select>
         </label>
       </div>
       {canFill !== undefined ? (
-        <p className="hint" aria-live="polite">This lot can still fill about <strong data-testid="can-fill">{canFill}</strong> jars of this product (after the expected loss).</p>
+        <p className="hint" aria-live="polite">
+          This lot can still fill about <strong data-testid="can-fill">{canFill}</strong> jars of this product (after
+          the expected loss).
+        </p>
       ) : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Jars filled" registration={form.register('jarCount')} error={e.jarCount} inputMode="numeric" />
+        <TextField
+          label="Jars filled"
+          registration={form.register('jarCount')}
+          error={e.jarCount}
+          inputMode="numeric"
+        />
         <TextField label="Date" type="date" registration={form.register('runOn')} error={e.runOn} />
       </div>
       <fieldset className="space-y-2">
         <legend className="text-sm font-medium">Sample weights are</legend>
         <div className="flex flex-wrap gap-4">
-          <label className="flex min-h-11 items-center gap-2"><input type="radio" value="net" {...form.register('sampleMode')} /> net (honey only)</label>
-          <label className="flex min-h-11 items-center gap-2"><input type="radio" value="gross" {...form.register('sampleMode')} /> gross (jar and lid included{product ? `, ${product.containerGrams} g taken off` : ''})</label>
+          <label className="flex min-h-11 items-center gap-2">
+            <input type="radio" value="net" {...form.register('sampleMode')} /> net (honey only)
+          </label>
+          <label className="flex min-h-11 items-center gap-2">
+            <input type="radio" value="gross" {...form.register('sampleMode')} /> gross (jar and lid included
+            {product ? `, ${product.containerGrams} g taken off` : ''})
+          </label>
         </div>
       </fieldset>
-      <label className="field" htmlFor="samples"><span>Sample fill weights, g</span>
-        <textarea id="samples" rows={3} className="input" inputMode="decimal" placeholder={mode === 'gross' ? 'e.g. 542, 545, 541' : 'e.g. 342, 345, 341'}
-          aria-invalid={e.samples ? true : undefined} aria-describedby="samples-hint" {...form.register('samples')} />
-        <small id="samples-hint" className="hint">Weigh jars taken through the run; separate weights with commas or spaces.</small>
-        {e.samples?.message ? <small className="field-error" role="alert">{e.samples.message}</small> : null}
+      <label className="field" htmlFor="samples">
+        <span>Sample fill weights, g</span>
+        <textarea
+          id="samples"
+          rows={3}
+          className="input"
+          inputMode="decimal"
+          placeholder={mode === 'gross' ? 'e.g. 542, 545, 541' : 'e.g. 342, 345, 341'}
+          aria-invalid={e.samples ? true : undefined}
+          aria-describedby="samples-hint"
+          {...form.register('samples')}
+        />
+        <small id="samples-hint" className="hint">
+          Weigh jars taken through the run; separate weights with commas or spaces.
+        </small>
+        {e.samples?.message ? (
+          <small className="field-error" role="alert">
+            {e.samples.message}
+          </small>
+        ) : null}
       </label>
       {ruleSet === 'nist' ? (
-        <TextField label="MAV for this package, g" registration={form.register('mavGrams')} error={e.mavGrams} inputMode="decimal"
-          hint="US rules (NIST Handbook 133): Combtrace does not hold the handbook's MAV table. Look up the maximum allowable variation for this labelled weight in Appendix A, Table 2-5, and enter it in grams." />
+        <TextField
+          label="MAV for this package, g"
+          registration={form.register('mavGrams')}
+          error={e.mavGrams}
+          inputMode="decimal"
+          hint="US rules (NIST Handbook 133): Combtrace does not hold the handbook's MAV table. Look up the maximum allowable variation for this labelled weight in Appendix A, Table 2-5, and enter it in grams."
+        />
       ) : null}
       <input type="hidden" {...form.register('idempotencyKey')} />
       <FormMessage {...message} />
       {result ? (
         result.pass ? (
           <div role="status" className="rounded-lg bg-ok-bg px-3 py-2 text-sm font-medium text-ok-fg">
-            Fill check passed; the jars are in stock.{result.packedOut ? ' The lot is now packed out.' : ''} <Link href={`/admin/jarring/${result.runId}`}>Print labels for run {result.runId}</Link>
+            Fill check passed; the jars are in stock.{result.packedOut ? ' The lot is now packed out.' : ''}{' '}
+            <Link href={`/admin/jarring/${result.runId}`}>Print labels for run {result.runId}</Link>
           </div>
         ) : (
           <div role="alert" className="rounded-lg border-2 border-bad-fg bg-bad-bg px-3 py-2 text-sm text-bad-fg">
             <p className="font-semibold">Fill check failed: these jars are not in stock.</p>
-            <ul className="ml-5 list-disc">{result.reasons.map((r) => <li key={r}>{r}</li>)}</ul>
-            <p>Re-check or re-fill the jars; the owner can override with a written reason. <Link href={`/admin/jarring/${result.runId}`}>Open run {result.runId}</Link></p>
+            <ul className="ml-5 list-disc">
+              {result.reasons.map((r) => (
+                <li key={r}>{r}</li>
+              ))}
+            </ul>
+            <p>
+              Re-check or re-fill the jars; the owner can override with a written reason.{' '}
+              <Link href={`/admin/jarring/${result.runId}`}>Open run {result.runId}</Link>
+            </p>
           </div>
         )
       ) : null}
-      <button type="submit" className="btn-primary w-full sm:w-auto" disabled={pending}>Record jarring run</button>
+      <button type="submit" className="btn-primary w-full sm:w-auto" disabled={pending}>
+        Record jarring run
+      </button>
     </form>
   );
 }

@@ -15,7 +15,7 @@ export function AdminNav({ items }: { items: { href: string; label: string }[] }
               <Link
                 href={item.href}
                 aria-current={active ? 'page' : undefined}
-                className={`flex min-h-11 items-center whitespace-nowrap rounded-lg px-3 no-underline ${active ? 'bg-forest-700 text-white' : 'text-forest-800 hover:bg-forest-50'}`}
+                className={`flex min-h-11 items-center rounded-lg px-3 whitespace-nowrap no-underline ${active ? 'bg-forest-700 text-white' : 'text-forest-800 hover:bg-forest-50'}`}
               >
                 {item.label}
               </Link>

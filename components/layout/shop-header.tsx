@@ -12,13 +12,28 @@ export function ShopHeader({ businessName, user }: { businessName: string; user:
           {businessName}
         </Link>
         <nav aria-label="Shop" className="flex items-center gap-1 text-sm">
-          <Link className="btn-quiet no-underline" href="/products">Shop</Link>
-          <Link className="btn-quiet no-underline" href="/cart"><ShoppingBasket aria-hidden className="h-4 w-4" />Cart<CartCount /></Link>
-          {staff ? <Link className="btn-quiet no-underline" href="/admin">Back office</Link> : null}
+          <Link className="btn-quiet no-underline" href="/products">
+            Shop
+          </Link>
+          <Link className="btn-quiet no-underline" href="/cart">
+            <ShoppingBasket aria-hidden className="h-4 w-4" />
+            Cart
+            <CartCount />
+          </Link>
+          {staff ? (
+            <Link className="btn-quiet no-underline" href="/admin">
+              Back office
+            </Link>
+          ) : null}
           {user ? (
-            <Link className="btn-quiet no-underline" href="/account"><UserRound aria-hidden className="h-4 w-4" />{user.name.split(' ')[0]}</Link>
+            <Link className="btn-quiet no-underline" href="/account">
+              <UserRound aria-hidden className="h-4 w-4" />
+              {user.name.split(' ')[0]}
+            </Link>
           ) : (
-            <Link className="btn-quiet no-underline" href="/sign-in">Sign in</Link>
+            <Link className="btn-quiet no-underline" href="/sign-in">
+              Sign in
+            </Link>
           )}
         </nav>
       </div>

@@ -35,9 +35,13 @@ export function CameraScan({ onCode }: { onCode: (code: string) => void }) {
     let timer: ReturnType<typeof setInterval> | undefined;
     let stopped = false;
     const detector = new Det({ formats: ['code_128', 'qr_code', 'data_matrix', 'code_39', 'ean_13'] });
-    navigator.mediaDevices.getUserMedia({ video: { facingMode: 'environment' }, audio: false })
+    navigator.mediaDevices
+      .getUserMedia({ video: { facingMode: 'environment' }, audio: false })
       .then(async (s) => {
-        if (stopped) { s.getTracks().forEach((t) => t.stop()); return; }
+        if (stopped) {
+          s.getTracks().forEach((t) => t.stop());
+          return;
+        }
         stream = s;
         if (!video.current) return;
         video.current.srcObject = s;
@@ -52,10 +56,15 @@ export function CameraScan({ onCode }: { onCode: (code: string) => void }) {
               last.current = { code, at: now };
               send(code);
             }
-          } catch { /* a frame that could not be read */ }
+          } catch {
+            /* a frame that could not be read */
+          }
         }, 300);
       })
-      .catch(() => { setError('The camera could not be opened. Allow camera access, or use the scanner input.'); setOn(false); });
+      .catch(() => {
+        setError('The camera could not be opened. Allow camera access, or use the scanner input.');
+        setOn(false);
+      });
     return () => {
       stopped = true;
       if (timer) clearInterval(timer);
@@ -69,8 +78,20 @@ export function CameraScan({ onCode }: { onCode: (code: string) => void }) {
       <button type="button" className="btn-quiet" onClick={() => setOn((v) => !v)} aria-pressed={on}>
         <Camera aria-hidden className="h-4 w-4" /> {on ? 'Stop the camera' : 'Scan with the camera'}
       </button>
-      {on ? <video ref={video} className="w-full max-w-sm rounded-lg border border-line" muted playsInline aria-label="Camera view for scanning super tags" /> : null}
-      {error ? <p className="field-error" role="alert">{error}</p> : null}
+      {on ? (
+        <video
+          ref={video}
+          className="w-full max-w-sm rounded-lg border border-line"
+          muted
+          playsInline
+          aria-label="Camera view for scanning super tags"
+        />
+      ) : null}
+      {error ? (
+        <p className="field-error" role="alert">
+          {error}
+        </p>
+      ) : null}
     </div>
   );
 }

@@ -9,30 +9,69 @@ import { postForm } from '@/components/ui/post-form';
 /** Uploads a PDF or image lab report to the route handler (the server checks its real type). */
 export function LabUploadForm({ lotId }: { lotId: number }) {
   const router = useRouter();
-  const { form, submit, pending, errors: e, message } = useActionForm({
+  const {
+    form,
+    submit,
+    pending,
+    errors: e,
+    message,
+  } = useActionForm({
     schema: labUploadFormInput,
     defaultValues: { hmfMgKg: '', diastaseSchade: '', insolubleG100g: '' },
     action: (v) => {
       const body = new FormData();
       body.set('file', v.file[0]);
       for (const k of ['hmfMgKg', 'diastaseSchade', 'insolubleG100g'] as const) if (v[k]) body.set(k, v[k]);
-      return postForm<{ held?: boolean }>(`/api/lots/${lotId}/lab-files`, body, (status) => `Upload failed (${status}).`);
+      return postForm<{ held?: boolean }>(
+        `/api/lots/${lotId}/lab-files`,
+        body,
+        (status) => `Upload failed (${status}).`,
+      );
     },
-    successMessage: (saved) => (saved.held ? 'Lab report stored. Its results fail the limits: the lot is now held.' : 'Lab report stored.'),
+    successMessage: (saved) =>
+      saved.held ? 'Lab report stored. Its results fail the limits: the lot is now held.' : 'Lab report stored.',
     resetOnSuccess: true,
     onSuccess: () => router.refresh(),
   });
   return (
     <form onSubmit={submit} className="grid gap-3 sm:grid-cols-3" noValidate aria-label="Upload a lab report">
-      <label className="field sm:col-span-3" htmlFor="lab-file"><span>Lab report (PDF, PNG, JPEG or WebP, at most 10 MB)</span>
-        <input id="lab-file" type="file" accept="application/pdf,image/png,image/jpeg,image/webp" className="input" aria-invalid={e.file ? true : undefined} {...form.register('file')} />
-        {e.file?.message ? <small className="field-error" role="alert">{e.file.message}</small> : null}
+      <label className="field sm:col-span-3" htmlFor="lab-file">
+        <span>Lab report (PDF, PNG, JPEG or WebP, at most 10 MB)</span>
+        <input
+          id="lab-file"
+          type="file"
+          accept="application/pdf,image/png,image/jpeg,image/webp"
+          className="input"
+          aria-invalid={e.file ? true : undefined}
+          {...form.register('file')}
+        />
+        {e.file?.message ? (
+          <small className="field-error" role="alert">
+            {e.file.message}
+          </small>
+        ) : null}
       </label>
       <TextField label="HMF, mg/kg" registration={form.register('hmfMgKg')} error={e.hmfMgKg} inputMode="decimal" />
-      <TextField label="Diastase, Schade" registration={form.register('diastaseSchade')} error={e.diastaseSchade} inputMode="decimal" />
-      <TextField label="Water-insoluble, g/100 g" registration={form.register('insolubleG100g')} error={e.insolubleG100g} inputMode="decimal" />
-      <div className="sm:col-span-3"><FormMessage {...message} /></div>
-      <div><button type="submit" className="btn-secondary" disabled={pending}>Upload report</button></div>
+      <TextField
+        label="Diastase, Schade"
+        registration={form.register('diastaseSchade')}
+        error={e.diastaseSchade}
+        inputMode="decimal"
+      />
+      <TextField
+        label="Water-insoluble, g/100 g"
+        registration={form.register('insolubleG100g')}
+        error={e.insolubleG100g}
+        inputMode="decimal"
+      />
+      <div className="sm:col-span-3">
+        <FormMessage {...message} />
+      </div>
+      <div>
+        <button type="submit" className="btn-secondary" disabled={pending}>
+          Upload report
+        </button>
+      </div>
     </form>
   );
 }

@@ -6,19 +6,63 @@ import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 
 /** Floral source, heather, extraction date and notes, while the lot is still open (each change audited). */
-export function LotDetailsForm({ defaults, suggestions, onSave }: { defaults: LotDetailsInput; suggestions: string[]; onSave: (v: LotDetailsInput) => Promise<ActionResult> }) {
-  const { form, submit, pending, errors: e, message } = useActionForm({ schema: lotDetailsInput, action: onSave, defaultValues: defaults, successMessage: 'Details saved.' });
+export function LotDetailsForm({
+  defaults,
+  suggestions,
+  onSave,
+}: {
+  defaults: LotDetailsInput;
+  suggestions: string[];
+  onSave: (v: LotDetailsInput) => Promise<ActionResult>;
+}) {
+  const {
+    form,
+    submit,
+    pending,
+    errors: e,
+    message,
+  } = useActionForm({
+    schema: lotDetailsInput,
+    action: onSave,
+    defaultValues: defaults,
+    successMessage: 'Details saved.',
+  });
   return (
     <form onSubmit={submit} className="grid gap-3 sm:grid-cols-2" noValidate aria-label="Lot details">
-      <TextField label="Floral source" registration={form.register('floralSource')} error={e.floralSource} list="floral-sources" autoComplete="off" />
-      <datalist id="floral-sources">{suggestions.map((s) => <option key={s} value={s} />)}</datalist>
-      <TextField label="Extraction date" type="date" registration={form.register('extractedOn')} error={e.extractedOn} />
+      <TextField
+        label="Floral source"
+        registration={form.register('floralSource')}
+        error={e.floralSource}
+        list="floral-sources"
+        autoComplete="off"
+      />
+      <datalist id="floral-sources">
+        {suggestions.map((s) => (
+          <option key={s} value={s} />
+        ))}
+      </datalist>
+      <TextField
+        label="Extraction date"
+        type="date"
+        registration={form.register('extractedOn')}
+        error={e.extractedOn}
+      />
       <label className="flex min-h-11 items-center gap-3 text-sm font-medium" htmlFor="heather">
-        <input id="heather" type="checkbox" className="h-5 w-5" {...form.register('heather')} /> Heather honey (heather moisture limit)
+        <input id="heather" type="checkbox" className="h-5 w-5" {...form.register('heather')} /> Heather honey (heather
+        moisture limit)
       </label>
-      <label className="field sm:col-span-2" htmlFor="notes"><span>Notes</span><textarea id="notes" rows={2} className="input" {...form.register('notes')} /></label>
-      <div className="sm:col-span-2"><FormMessage {...message} /></div>
-      <div><button type="submit" className="btn-secondary" disabled={pending}>Save details</button></div>
+      <label className="field sm:col-span-2" htmlFor="notes">
+        <span>Notes</span>
+        <textarea id="notes" rows={2} className="input" {...form.register('notes')} />
+      </label>
+      <div className="sm:col-span-2">
+        <FormMessage {...message} />
+      </div>
+      <div>
+        <button type="submit" className="btn-secondary" disabled={pending}>
+          Save details
+        </button>
+      </div>
     </form>
   );
 }

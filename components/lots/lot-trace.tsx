@@ -8,18 +8,39 @@ export function LotTrace({ rows }: { rows: TraceRow[] }) {
     <div className="overflow-x-auto">
       <table className="data-table">
         <caption className="sr-only">Supers, colonies, yards and keepers behind this lot</caption>
-        <thead><tr><th scope="col">Super</th><th scope="col">Colony</th><th scope="col">Yard</th><th scope="col">Keeper</th><th scope="col">On the hive</th><th scope="col">Feedings and treatments meanwhile</th></tr></thead>
+        <thead>
+          <tr>
+            <th scope="col">Super</th>
+            <th scope="col">Colony</th>
+            <th scope="col">Yard</th>
+            <th scope="col">Keeper</th>
+            <th scope="col">On the hive</th>
+            <th scope="col">Feedings and treatments meanwhile</th>
+          </tr>
+        </thead>
         <tbody>
           {rows.map((r) => (
             <tr key={r.id}>
-              <td className="font-mono">{r.tagCode ?? `#${r.id}`}{r.viaLot ? <span className="hint"> via {r.viaLot}</span> : null}</td>
-              <td>{r.colonyCode}</td><td>{r.yardName}</td><td>{r.keeperName}</td>
-              <td>{r.putOnOn ?? '?'} – {r.pulledOn ?? 'on'}</td>
+              <td className="font-mono">
+                {r.tagCode ?? `#${r.id}`}
+                {r.viaLot ? <span className="hint"> via {r.viaLot}</span> : null}
+              </td>
+              <td>{r.colonyCode}</td>
+              <td>{r.yardName}</td>
+              <td>{r.keeperName}</td>
               <td>
-                {r.events.length === 0 ? <span className="hint">none recorded</span> : (
+                {r.putOnOn ?? '?'} – {r.pulledOn ?? 'on'}
+              </td>
+              <td>
+                {r.events.length === 0 ? (
+                  <span className="hint">none recorded</span>
+                ) : (
                   <ul className="space-y-1">
                     {r.events.map((e, i) => (
-                      <li key={i}><Chip tone={e.kind === 'treatment' ? 'warn' : 'info'}>{e.kind}</Chip> {e.what}, {e.from} – {e.to ?? 'not ended'}</li>
+                      <li key={i}>
+                        <Chip tone={e.kind === 'treatment' ? 'warn' : 'info'}>{e.kind}</Chip> {e.what}, {e.from} –{' '}
+                        {e.to ?? 'not ended'}
+                      </li>
                     ))}
                   </ul>
                 )}

@@ -7,7 +7,17 @@ import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 
 /** Takes a super back out of a lot that is still gathering, with a written reason (audited). */
-export function RemoveSuperButton({ lotId, superPullId, tag, onRemove }: { lotId: number; superPullId: number; tag: string; onRemove: (v: RemoveSuperInput) => Promise<ActionResult> }) {
+export function RemoveSuperButton({
+  lotId,
+  superPullId,
+  tag,
+  onRemove,
+}: {
+  lotId: number;
+  superPullId: number;
+  tag: string;
+  onRemove: (v: RemoveSuperInput) => Promise<ActionResult>;
+}) {
   const [open, setOpen] = useState(false);
   // On success the page refreshes without this super's row.
   const { form, submit, pending, errors, message } = useActionForm({
@@ -16,14 +26,28 @@ export function RemoveSuperButton({ lotId, superPullId, tag, onRemove }: { lotId
     defaultValues: { lotId, superPullId, reason: '' },
   });
   const reason = form.watch('reason') ?? '';
-  if (!open) return <button type="button" className="btn-quiet min-h-0 px-2 py-1" onClick={() => setOpen(true)}>Take out<span className="sr-only"> super {tag}</span></button>;
+  if (!open)
+    return (
+      <button type="button" className="btn-quiet min-h-0 px-2 py-1" onClick={() => setOpen(true)}>
+        Take out<span className="sr-only"> super {tag}</span>
+      </button>
+    );
   return (
     <form onSubmit={submit} className="flex min-w-48 flex-col gap-1" noValidate>
-      <TextField id={`remove-${superPullId}`} label={`Why take ${tag} out?`} registration={form.register('reason')} error={errors.reason} />
+      <TextField
+        id={`remove-${superPullId}`}
+        label={`Why take ${tag} out?`}
+        registration={form.register('reason')}
+        error={errors.reason}
+      />
       <FormMessage {...message} />
       <div className="flex gap-1">
-        <button type="submit" className="btn-danger min-h-9 px-2 py-1" disabled={pending || reason.trim().length < 5}>Take out</button>
-        <button type="button" className="btn-quiet min-h-9 px-2 py-1" onClick={() => setOpen(false)}>Cancel</button>
+        <button type="submit" className="btn-danger min-h-9 px-2 py-1" disabled={pending || reason.trim().length < 5}>
+          Take out
+        </button>
+        <button type="button" className="btn-quiet min-h-9 px-2 py-1" onClick={() => setOpen(false)}>
+          Cancel
+        </button>
       </div>
     </form>
   );

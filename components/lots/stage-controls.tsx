@@ -6,7 +6,9 @@ import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 
 type Props = {
-  lotId: number; stage: LotStage; isOwner: boolean;
+  lotId: number;
+  stage: LotStage;
+  isOwner: boolean;
   onChange: (v: StageInput) => Promise<ActionResult<{ stage: LotStage; holdReasons: string[] }>>;
 };
 type Target = StageInput['target'];
@@ -15,7 +17,14 @@ type Target = StageInput['target'];
 export function StageControls({ lotId, stage, isOwner, onChange }: Props) {
   // Holding, and leaving held, carry the written reason; the other steps do not.
   const withReason = (target: Target) => target === 'held' || stage === 'held';
-  const { form, submit, pending: busy, errors, setMessage, message } = useActionForm({
+  const {
+    form,
+    submit,
+    pending: busy,
+    errors,
+    setMessage,
+    message,
+  } = useActionForm({
     schema: stageInput,
     action: (v) => onChange({ ...v, reason: withReason(v.target) ? v.reason : undefined }),
     defaultValues: { lotId, target: 'extracted', reason: '' },
@@ -34,24 +43,69 @@ export function StageControls({ lotId, stage, isOwner, onChange }: Props) {
   return (
     <div className="space-y-3">
       <div className="flex flex-wrap gap-2">
-        {stage === 'gathering' ? <button type="button" className="btn-primary" disabled={busy} onClick={() => go('extracted')}>Mark extracted</button> : null}
-        {stage === 'extracted' ? <button type="button" className="btn-primary" disabled={busy} onClick={() => go('released')}>Release the lot</button> : null}
+        {stage === 'gathering' ? (
+          <button type="button" className="btn-primary" disabled={busy} onClick={() => go('extracted')}>
+            Mark extracted
+          </button>
+        ) : null}
+        {stage === 'extracted' ? (
+          <button type="button" className="btn-primary" disabled={busy} onClick={() => go('released')}>
+            Release the lot
+          </button>
+        ) : null}
       </div>
       {needsReason ? (
         <div className="space-y-2">
-          <label className="field" htmlFor="stage-reason"><span>{stage === 'held' ? 'Owner’s reason to take the lot out of held' : 'Reason to hold the lot'}</span>
-            <textarea id="stage-reason" rows={2} className="input" aria-invalid={errors.reason ? true : undefined} {...form.register('reason')} />
-            {errors.reason?.message ? <small className="field-error" role="alert">{errors.reason.message}</small> : null}</label>
+          <label className="field" htmlFor="stage-reason">
+            <span>{stage === 'held' ? 'Owner’s reason to take the lot out of held' : 'Reason to hold the lot'}</span>
+            <textarea
+              id="stage-reason"
+              rows={2}
+              className="input"
+              aria-invalid={errors.reason ? true : undefined}
+              {...form.register('reason')}
+            />
+            {errors.reason?.message ? (
+              <small className="field-error" role="alert">
+                {errors.reason.message}
+              </small>
+            ) : null}
+          </label>
           <div className="flex flex-wrap gap-2">
             {stage === 'held' ? (
               <>
-                <button type="button" className="btn-danger" disabled={busy || reason.trim().length < 5} onClick={() => go('released')}>Release held lot</button>
-                <button type="button" className="btn-secondary" disabled={busy || reason.trim().length < 5} onClick={() => go('extracted')}>Back to extracted</button>
+                <button
+                  type="button"
+                  className="btn-danger"
+                  disabled={busy || reason.trim().length < 5}
+                  onClick={() => go('released')}
+                >
+                  Release held lot
+                </button>
+                <button
+                  type="button"
+                  className="btn-secondary"
+                  disabled={busy || reason.trim().length < 5}
+                  onClick={() => go('extracted')}
+                >
+                  Back to extracted
+                </button>
               </>
-            ) : <button type="button" className="btn-danger" disabled={busy || reason.trim().length < 5} onClick={() => go('held')}>Hold the lot</button>}
+            ) : (
+              <button
+                type="button"
+                className="btn-danger"
+                disabled={busy || reason.trim().length < 5}
+                onClick={() => go('held')}
+              >
+                Hold the lot
+              </button>
+            )}
           </div>
         </div>
-      ) : stage === 'held' ? <p className="hint">Only the owner can take a lot out of held.</p> : null}
+      ) : stage === 'held' ? (
+        <p className="hint">Only the owner can take a lot out of held.</p>
+      ) : null}
       <FormMessage {...message} />
     </div>
   );

@@ -5,15 +5,40 @@ import { Chip } from '@/components/ui/chip';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 
-export type PickableSuper = { id: number; tagCode: string | null; colonyCode: string; yardName: string; pulledOn: string; depth: string; full: string; flagged: boolean; flagReasons: string[] };
+export type PickableSuper = {
+  id: number;
+  tagCode: string | null;
+  colonyCode: string;
+  yardName: string;
+  pulledOn: string;
+  depth: string;
+  full: string;
+  flagged: boolean;
+  flagReasons: string[];
+};
 
 /** Pulled supers in no lot yet: tick and add. Flagged ones go in by scanning with an owner override. */
-export function SuperPicker({ lotId, supers, onPick }: { lotId: number; supers: PickableSuper[]; onPick: (v: PickSupersInput) => Promise<ActionResult<unknown>> }) {
-  const { form, submit, pending: busy, errors, message } = useActionForm({
+export function SuperPicker({
+  lotId,
+  supers,
+  onPick,
+}: {
+  lotId: number;
+  supers: PickableSuper[];
+  onPick: (v: PickSupersInput) => Promise<ActionResult<unknown>>;
+}) {
+  const {
+    form,
+    submit,
+    pending: busy,
+    errors,
+    message,
+  } = useActionForm({
     schema: pickSupersInput,
     action: onPick,
     defaultValues: { lotId, superPullIds: [] },
-    successMessage: (_, values) => `${values.superPullIds.length} super${values.superPullIds.length === 1 ? '' : 's'} added.`,
+    successMessage: (_, values) =>
+      `${values.superPullIds.length} super${values.superPullIds.length === 1 ? '' : 's'} added.`,
     resetOnSuccess: true,
   });
   // Ticked boxes (a checkbox group registered as one array field; flagged ones are disabled).
@@ -24,20 +49,57 @@ export function SuperPicker({ lotId, supers, onPick }: { lotId: number; supers: 
       <div className="max-h-96 overflow-auto">
         <table className="data-table">
           <caption className="sr-only">Pulled supers not yet in a lot</caption>
-          <thead><tr><th scope="col"><span className="sr-only">Pick</span></th><th scope="col">Tag</th><th scope="col">Colony</th><th scope="col">Yard</th><th scope="col">Pulled</th><th scope="col" className="num">Full</th><th scope="col">Status</th></tr></thead>
+          <thead>
+            <tr>
+              <th scope="col">
+                <span className="sr-only">Pick</span>
+              </th>
+              <th scope="col">Tag</th>
+              <th scope="col">Colony</th>
+              <th scope="col">Yard</th>
+              <th scope="col">Pulled</th>
+              <th scope="col" className="num">
+                Full
+              </th>
+              <th scope="col">Status</th>
+            </tr>
+          </thead>
           <tbody>
             {supers.map((s) => (
               <tr key={s.id}>
-                <td><input type="checkbox" className="h-5 w-5" aria-label={`Pick super ${s.tagCode ?? s.id}`} value={s.id} disabled={s.flagged} {...form.register('superPullIds')} /></td>
-                <td className="font-mono">{s.tagCode ?? '—'}</td><td>{s.colonyCode}</td><td>{s.yardName}</td><td>{s.pulledOn}</td><td className="num">{s.full}</td>
-                <td>{s.flagged ? <Chip tone="bad" title={s.flagReasons.join('; ')}>flagged</Chip> : <Chip tone="ok">ready</Chip>}</td>
+                <td>
+                  <input
+                    type="checkbox"
+                    className="h-5 w-5"
+                    aria-label={`Pick super ${s.tagCode ?? s.id}`}
+                    value={s.id}
+                    disabled={s.flagged}
+                    {...form.register('superPullIds')}
+                  />
+                </td>
+                <td className="font-mono">{s.tagCode ?? '—'}</td>
+                <td>{s.colonyCode}</td>
+                <td>{s.yardName}</td>
+                <td>{s.pulledOn}</td>
+                <td className="num">{s.full}</td>
+                <td>
+                  {s.flagged ? (
+                    <Chip tone="bad" title={s.flagReasons.join('; ')}>
+                      flagged
+                    </Chip>
+                  ) : (
+                    <Chip tone="ok">ready</Chip>
+                  )}
+                </td>
               </tr>
             ))}
           </tbody>
         </table>
       </div>
       <FormMessage error={message.error ?? errors.superPullIds?.message} success={message.success} />
-      <button type="submit" className="btn-secondary" disabled={busy || picked.length === 0}>Add {picked.length || ''} ticked super{picked.length === 1 ? '' : 's'}</button>
+      <button type="submit" className="btn-secondary" disabled={busy || picked.length === 0}>
+        Add {picked.length || ''} ticked super{picked.length === 1 ? '' : 's'}
+      </button>
     </form>
   );
 }

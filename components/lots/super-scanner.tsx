@@ -13,14 +13,26 @@ type Added = { superPullId: number; tagCode: string | null; colonyCode: string; 
  * A barcode scanner acting as a keyboard types the tag code and Enter: the input keeps the
  * focus, sends on Enter, clears itself and lists what went in. Typing a code works the same.
  */
-export function SuperScanner({ lotId, isOwner, onScan }: { lotId: number; isOwner: boolean; onScan: (v: ScanSuperInput) => Promise<ActionResult<Added>> }) {
+export function SuperScanner({
+  lotId,
+  isOwner,
+  onScan,
+}: {
+  lotId: number;
+  isOwner: boolean;
+  onScan: (v: ScanSuperInput) => Promise<ActionResult<Added>>;
+}) {
   const input = useRef<HTMLInputElement>(null);
   const [code, setCode] = useState('');
   const [added, setAdded] = useState<Added[]>([]);
   const [flagged, setFlagged] = useState<string | null>(null);
   const [reason, setReason] = useState('');
   // The inputs stay plain (the code clears the moment it is sent); each scan goes through `run`.
-  const { run, pending: busy, message } = useActionForm({
+  const {
+    run,
+    pending: busy,
+    message,
+  } = useActionForm({
     schema: scanSuperInput,
     action: onScan,
     onSuccess: (one) => {
@@ -44,27 +56,69 @@ export function SuperScanner({ lotId, isOwner, onScan }: { lotId: number; isOwne
 
   return (
     <div className="space-y-3">
-      <form onSubmit={(e) => { e.preventDefault(); send(code); }} className="flex flex-wrap items-end gap-2">
+      <form
+        onSubmit={(e) => {
+          e.preventDefault();
+          send(code);
+        }}
+        className="flex flex-wrap items-end gap-2"
+      >
         <label className="field min-w-0 flex-1" htmlFor="scan-tag">
           <span>Scan or type a super tag</span>
-          <input id="scan-tag" ref={input} autoFocus autoComplete="off" autoCapitalize="characters" spellCheck={false} enterKeyHint="go"
-            className="input font-mono" value={code} onChange={(e) => setCode(e.target.value)} aria-describedby="scan-hint" />
-          <small id="scan-hint" className="hint">A handheld scanner types the code and Enter; each super goes straight in.</small>
+          <input
+            id="scan-tag"
+            ref={input}
+            autoFocus
+            autoComplete="off"
+            autoCapitalize="characters"
+            spellCheck={false}
+            enterKeyHint="go"
+            className="input font-mono"
+            value={code}
+            onChange={(e) => setCode(e.target.value)}
+            aria-describedby="scan-hint"
+          />
+          <small id="scan-hint" className="hint">
+            A handheld scanner types the code and Enter; each super goes straight in.
+          </small>
         </label>
-        <button type="submit" className="btn-secondary"><ScanLine aria-hidden className="h-4 w-4" /> Add super</button>
+        <button type="submit" className="btn-secondary">
+          <ScanLine aria-hidden className="h-4 w-4" /> Add super
+        </button>
       </form>
       <CameraScan onCode={(c) => send(c)} />
       <FormMessage error={message.error} />
       {flagged ? (
-        <form onSubmit={(e) => { e.preventDefault(); send(flagged, reason); }} className="card space-y-2 border-bad-fg">
-          <label className="field" htmlFor="override-reason"><span>Owner override for {flagged}: why may this flagged super go in?</span>
-            <textarea id="override-reason" rows={2} className="input" value={reason} onChange={(e) => setReason(e.target.value)} /></label>
-          <button type="submit" className="btn-danger" disabled={busy || reason.trim().length < 5}>Override and add {flagged}</button>
+        <form
+          onSubmit={(e) => {
+            e.preventDefault();
+            send(flagged, reason);
+          }}
+          className="space-y-2 card border-bad-fg"
+        >
+          <label className="field" htmlFor="override-reason">
+            <span>Owner override for {flagged}: why may this flagged super go in?</span>
+            <textarea
+              id="override-reason"
+              rows={2}
+              className="input"
+              value={reason}
+              onChange={(e) => setReason(e.target.value)}
+            />
+          </label>
+          <button type="submit" className="btn-danger" disabled={busy || reason.trim().length < 5}>
+            Override and add {flagged}
+          </button>
         </form>
       ) : null}
       {added.length ? (
         <ul aria-label="Added by scanning" className="space-y-1 text-sm">
-          {added.map((a) => <li key={a.superPullId}>✓ <span className="font-mono">{a.tagCode}</span> from colony {a.colonyCode}{a.overridden ? ' (owner override)' : ''}</li>)}
+          {added.map((a) => (
+            <li key={a.superPullId}>
+              ✓ <span className="font-mono">{a.tagCode}</span> from colony {a.colonyCode}
+              {a.overridden ? ' (owner override)' : ''}
+            </li>
+          ))}
         </ul>
       ) : null}
     </div>

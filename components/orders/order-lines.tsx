@@ -8,25 +8,67 @@ export function OrderLines({ order }: { order: OrderDetail }) {
   const money = (c: number) => formatMoney(c, order.currency.toUpperCase());
   return (
     <table className="data-table">
-      <thead><tr><th scope="col">Jar</th><th scope="col" className="num">Jars</th><th scope="col">Lot codes</th><th scope="col" className="num">Amount</th></tr></thead>
+      <thead>
+        <tr>
+          <th scope="col">Jar</th>
+          <th scope="col" className="num">
+            Jars
+          </th>
+          <th scope="col">Lot codes</th>
+          <th scope="col" className="num">
+            Amount
+          </th>
+        </tr>
+      </thead>
       <tbody>
         {order.lines.map((l) => (
           <tr key={l.id}>
-            <td>{l.productName}<div className="hint">{money(l.unitPriceCents)} each</div></td>
+            <td>
+              {l.productName}
+              <div className="hint">{money(l.unitPriceCents)} each</div>
+            </td>
             <td className="num">{l.quantity}</td>
             <td>
               {l.lots.length ? (
-                <ul>{l.lots.map((a, i) => <li key={i}><span className="font-mono">{a.code}</span> × {a.quantity}{STATE[a.state] ? ` (${STATE[a.state]})` : ''}</li>)}</ul>
-              ) : '—'}
+                <ul>
+                  {l.lots.map((a, i) => (
+                    <li key={i}>
+                      <span className="font-mono">{a.code}</span> × {a.quantity}
+                      {STATE[a.state] ? ` (${STATE[a.state]})` : ''}
+                    </li>
+                  ))}
+                </ul>
+              ) : (
+                '—'
+              )}
             </td>
             <td className="num">{money(l.quantity * l.unitPriceCents)}</td>
           </tr>
         ))}
       </tbody>
       <tfoot>
-        {order.shippingCents > 0 ? <tr><th scope="row" colSpan={3}>Shipping</th><td className="num">{money(order.shippingCents)}</td></tr> : null}
-        <tr><th scope="row" colSpan={3}>Total</th><td className="num font-semibold">{money(order.totalCents)}</td></tr>
-        {order.refundedCents > 0 ? <tr><th scope="row" colSpan={3}>Refunded</th><td className="num">−{money(order.refundedCents)}</td></tr> : null}
+        {order.shippingCents > 0 ? (
+          <tr>
+            <th scope="row" colSpan={3}>
+              Shipping
+            </th>
+            <td className="num">{money(order.shippingCents)}</td>
+          </tr>
+        ) : null}
+        <tr>
+          <th scope="row" colSpan={3}>
+            Total
+          </th>
+          <td className="num font-semibold">{money(order.totalCents)}</td>
+        </tr>
+        {order.refundedCents > 0 ? (
+          <tr>
+            <th scope="row" colSpan={3}>
+              Refunded
+            </th>
+            <td className="num">−{money(order.refundedCents)}</td>
+          </tr>
+        ) : null}
       </tfoot>
     </table>
   );

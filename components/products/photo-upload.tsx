@@ -22,14 +22,34 @@ export function PhotoUpload({ productId, photoId }: { productId: number; photoId
     <form onSubmit={submit} className="space-y-3" noValidate aria-label="Product photo">
       {version ? (
         // eslint-disable-next-line @next/next/no-img-element -- served by our own route, sizes vary
-        <img src={`/api/products/${productId}/photo?v=${version}`} alt="Product photo" className="max-h-56 rounded-lg border border-line" />
-      ) : <p className="hint">No photo yet.</p>}
-      <label className="field" htmlFor="photo"><span>Photo (JPEG, PNG or WebP, up to 5 MB)</span>
-        <input id="photo" type="file" accept="image/jpeg,image/png,image/webp" className="input" aria-invalid={errors.photo ? true : undefined} {...form.register('photo')} />
-        {errors.photo?.message ? <small className="field-error" role="alert">{errors.photo.message}</small> : null}
+        <img
+          src={`/api/products/${productId}/photo?v=${version}`}
+          alt="Product photo"
+          className="max-h-56 rounded-lg border border-line"
+        />
+      ) : (
+        <p className="hint">No photo yet.</p>
+      )}
+      <label className="field" htmlFor="photo">
+        <span>Photo (JPEG, PNG or WebP, up to 5 MB)</span>
+        <input
+          id="photo"
+          type="file"
+          accept="image/jpeg,image/png,image/webp"
+          className="input"
+          aria-invalid={errors.photo ? true : undefined}
+          {...form.register('photo')}
+        />
+        {errors.photo?.message ? (
+          <small className="field-error" role="alert">
+            {errors.photo.message}
+          </small>
+        ) : null}
       </label>
       <FormMessage {...message} />
-      <button type="submit" className="btn-secondary" disabled={pending}>Upload photo</button>
+      <button type="submit" className="btn-secondary" disabled={pending}>
+        Upload photo
+      </button>
     </form>
   );
 }

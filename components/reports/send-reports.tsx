@@ -28,12 +28,17 @@ export function SendReports({ season, onList, onSend }: Props) {
       setTotal(list.data.length);
       for (const k of list.data) {
         const r = await onSend({ ...input, keeperId: k.id });
-        const line: Line = r.ok ? { name: k.name, state: r.data.queued ? 'queued' : 'already sent' } : { name: k.name, state: 'failed', message: r.message };
+        const line: Line = r.ok
+          ? { name: k.name, state: r.data.queued ? 'queued' : 'already sent' }
+          : { name: k.name, state: 'failed', message: r.message };
         setLines((prev) => [...prev, line]);
       }
       return { ok: true };
     } catch {
-      return { ok: false, message: 'The connection failed. Sending again is safe: reports already queued are not sent twice.' };
+      return {
+        ok: false,
+        message: 'The connection failed. Sending again is safe: reports already queued are not sent twice.',
+      };
     }
   }
   const { run, pending: running, message } = useActionForm({ schema: sendSeasonInput, action: sendAll });
@@ -51,13 +56,19 @@ export function SendReports({ season, onList, onSend }: Props) {
           </span>
         ) : null}
       </div>
-      {total !== null ? <progress className="w-full max-w-md" max={Math.max(total, 1)} value={done} aria-label="Reports sent" /> : null}
+      {total !== null ? (
+        <progress className="w-full max-w-md" max={Math.max(total, 1)} value={done} aria-label="Reports sent" />
+      ) : null}
       {total === 0 ? <p className="hint">No keeper has colonies in this season, so there is nothing to send.</p> : null}
       <FormMessage {...message} />
       {lines.length > 0 ? (
         <ul className="text-sm">
           {lines.map((l) => (
-            <li key={l.name}>{l.name}: <Chip tone={l.state === 'failed' ? 'bad' : l.state === 'queued' ? 'ok' : 'neutral'}>{l.state}</Chip>{l.message ? ` — ${l.message}` : ''}</li>
+            <li key={l.name}>
+              {l.name}:{' '}
+              <Chip tone={l.state === 'failed' ? 'bad' : l.state === 'queued' ? 'ok' : 'neutral'}>{l.state}</Chip>
+              {l.message ? ` — ${l.message}` : ''}
+            </li>
           ))}
         </ul>
       ) : null}

@@ -5,7 +5,15 @@ const INK = '#1f2d24';
 const BARS = ['#234a35', '#b7791f', '#4a6fa5', '#7a8b3a', '#8c4a3a', '#5b6b60'];
 
 /** Honey per colony in one yard: simple bars with labelled axes (data already aggregated on the server). */
-export function YardBars({ yard, unit, data }: { yard: string; unit: string; data: { colony: string; honey: number }[] }) {
+export function YardBars({
+  yard,
+  unit,
+  data,
+}: {
+  yard: string;
+  unit: string;
+  data: { colony: string; honey: number }[];
+}) {
   return (
     <figure className="card">
       <figcaption className="mb-2 font-heading text-lg">{yard}</figcaption>
@@ -13,8 +21,15 @@ export function YardBars({ yard, unit, data }: { yard: string; unit: string; dat
         <ResponsiveContainer width="100%" height="100%">
           <BarChart data={data} margin={{ top: 8, right: 8, bottom: 24, left: 8 }}>
             <CartesianGrid strokeDasharray="3 3" vertical={false} />
-            <XAxis dataKey="colony" tick={{ fontSize: 11, fill: INK }} label={{ value: 'Colony', position: 'insideBottom', offset: -16, fill: INK }} />
-            <YAxis tick={{ fontSize: 11, fill: INK }} label={{ value: `Honey (${unit})`, angle: -90, position: 'insideLeft', fill: INK }} />
+            <XAxis
+              dataKey="colony"
+              tick={{ fontSize: 11, fill: INK }}
+              label={{ value: 'Colony', position: 'insideBottom', offset: -16, fill: INK }}
+            />
+            <YAxis
+              tick={{ fontSize: 11, fill: INK }}
+              label={{ value: `Honey (${unit})`, angle: -90, position: 'insideLeft', fill: INK }}
+            />
             <Tooltip formatter={(v) => [`${v} ${unit}`, 'Honey']} />
             <Bar dataKey="honey" fill={BARS[0]} isAnimationActive={false} />
           </BarChart>
@@ -25,7 +40,15 @@ export function YardBars({ yard, unit, data }: { yard: string; unit: string; dat
 }
 
 /** Season over season: honey per yard, one group of bars per season. */
-export function SeasonBars({ unit, yards, data }: { unit: string; yards: string[]; data: Record<string, number | string>[] }) {
+export function SeasonBars({
+  unit,
+  yards,
+  data,
+}: {
+  unit: string;
+  yards: string[];
+  data: Record<string, number | string>[];
+}) {
   return (
     <figure className="card">
       <figcaption className="mb-2 font-heading text-lg">Season over season</figcaption>
@@ -33,11 +56,20 @@ export function SeasonBars({ unit, yards, data }: { unit: string; yards: string[
         <ResponsiveContainer width="100%" height="100%">
           <BarChart data={data} margin={{ top: 8, right: 8, bottom: 24, left: 8 }}>
             <CartesianGrid strokeDasharray="3 3" vertical={false} />
-            <XAxis dataKey="season" tick={{ fontSize: 11, fill: INK }} label={{ value: 'Season', position: 'insideBottom', offset: -16, fill: INK }} />
-            <YAxis tick={{ fontSize: 11, fill: INK }} label={{ value: `Honey (${unit})`, angle: -90, position: 'insideLeft', fill: INK }} />
+            <XAxis
+              dataKey="season"
+              tick={{ fontSize: 11, fill: INK }}
+              label={{ value: 'Season', position: 'insideBottom', offset: -16, fill: INK }}
+            />
+            <YAxis
+              tick={{ fontSize: 11, fill: INK }}
+              label={{ value: `Honey (${unit})`, angle: -90, position: 'insideLeft', fill: INK }}
+            />
             <Tooltip formatter={(v, name) => [`${v} ${unit}`, String(name)]} />
             <Legend verticalAlign="top" />
-            {yards.map((y, i) => <Bar key={y} dataKey={y} fill={BARS[i % BARS.length]} isAnimationActive={false} />)}
+            {yards.map((y, i) => (
+              <Bar key={y} dataKey={y} fill={BARS[i % BARS.length]} isAnimationActive={false} />
+            ))}
           </BarChart>
         </ResponsiveContainer>
       </div>

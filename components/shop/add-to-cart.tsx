@@ -21,11 +21,25 @@ export function AddToCart({ productId, slug, name, priceCents, available }: Prop
     >
       <label className="field w-28" htmlFor={`qty-${productId}`}>
         <span>Jars</span>
-        <input id={`qty-${productId}`} className="input" type="number" inputMode="numeric" min={1} max={max} value={quantity}
-          onChange={(e) => setQuantity(Math.max(1, Math.min(max, Math.floor(Number(e.target.value) || 1))))} />
+        <input
+          id={`qty-${productId}`}
+          className="input"
+          type="number"
+          inputMode="numeric"
+          min={1}
+          max={max}
+          value={quantity}
+          onChange={(e) => setQuantity(Math.max(1, Math.min(max, Math.floor(Number(e.target.value) || 1))))}
+        />
       </label>
-      <button type="submit" className="btn-primary">Add to cart</button>
-      {added ? <p role="status" className="text-sm text-ok-fg">Added. <Link href="/cart">View cart</Link></p> : null}
+      <button type="submit" className="btn-primary">
+        Add to cart
+      </button>
+      {added ? (
+        <p role="status" className="text-sm text-ok-fg">
+          Added. <Link href="/cart">View cart</Link>
+        </p>
+      ) : null}
     </form>
   );
 }

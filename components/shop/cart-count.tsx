@@ -11,5 +11,9 @@ export function CartCount() {
     return onCartChange(sync);
   }, []);
   if (n === 0) return null;
-  return <span className="chip bg-amber-100 text-amber-800" aria-label={`${n} jars`}>{n}</span>;
+  return (
+    <span className="chip bg-amber-100 text-amber-800" aria-label={`${n} jars`}>
+      {n}
+    </span>
+  );
 }

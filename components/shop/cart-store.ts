@@ -13,7 +13,10 @@ export function readCart(): CartItem[] {
   try {
     const raw: unknown = JSON.parse(window.localStorage.getItem(KEY) ?? '[]');
     if (!Array.isArray(raw)) return [];
-    return raw.filter((i): i is CartItem => Boolean(i) && Number.isInteger(i.productId) && Number.isInteger(i.quantity) && i.quantity > 0);
+    return raw.filter(
+      (i): i is CartItem =>
+        Boolean(i) && Number.isInteger(i.productId) && Number.isInteger(i.quantity) && i.quantity > 0,
+    );
   } catch {
     return [];
   }

@@ -17,7 +17,8 @@ export function StaffForm({ onCreate }: { onCreate: (v: StaffInput) => Promise<A
     <form onSubmit={submit} className="space-y-4" noValidate>
       <TextField label="Name" registration={form.register('name')} error={errors.name} />
       <TextField label="E-mail" type="email" registration={form.register('email')} error={errors.email} />
-      <label className="field" htmlFor="role"><span>Role</span>
+      <label className="field" htmlFor="role">
+        <span>Role</span>
         <select id="role" className="input" {...form.register('role')}>
           <option value="keeper">Keeper</option>
           <option value="crew">Honey house crew</option>
@@ -25,7 +26,9 @@ export function StaffForm({ onCreate }: { onCreate: (v: StaffInput) => Promise<A
         </select>
       </label>
       <FormMessage {...message} />
-      <button type="submit" className="btn-primary w-full" disabled={pending}>Create and send link</button>
+      <button type="submit" className="btn-primary w-full" disabled={pending}>
+        Create and send link
+      </button>
     </form>
   );
 }

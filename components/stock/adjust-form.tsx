@@ -8,9 +8,21 @@ import { useActionForm } from '@/components/ui/use-action-form';
 export type StockChoice = { productId: number; lotId: number; label: string };
 
 /** Breakage, a counted adjustment or a return, for one product from one lot. */
-export function AdjustForm({ choices, onAdjust }: { choices: StockChoice[]; onAdjust: (v: StockAdjustInput) => Promise<ActionResult<{ onHand: number }>> }) {
+export function AdjustForm({
+  choices,
+  onAdjust,
+}: {
+  choices: StockChoice[];
+  onAdjust: (v: StockAdjustInput) => Promise<ActionResult<{ onHand: number }>>;
+}) {
   const first = choices[0];
-  const { form, submit, pending, errors: e, message } = useActionForm({
+  const {
+    form,
+    submit,
+    pending,
+    errors: e,
+    message,
+  } = useActionForm({
     schema: stockAdjustInput,
     action: onAdjust,
     defaultValues: { productId: first?.productId ?? 0, lotId: first?.lotId ?? 0, kind: 'breakage', reason: '' },
@@ -21,26 +33,44 @@ export function AdjustForm({ choices, onAdjust }: { choices: StockChoice[]; onAd
   if (!first) return <p className="hint">Nothing in stock yet.</p>;
   return (
     <form onSubmit={submit} className="space-y-4" noValidate aria-label="Adjust stock">
-      <label className="field" htmlFor="stock-pick"><span>Product and lot</span>
-        <select id="stock-pick" className="input" value={pick} onChange={(ev) => {
-          const [p, l] = ev.target.value.split(':').map(Number);
-          form.setValue('productId', p);
-          form.setValue('lotId', l);
-        }}>
-          {choices.map((c) => <option key={`${c.productId}:${c.lotId}`} value={`${c.productId}:${c.lotId}`}>{c.label}</option>)}
+      <label className="field" htmlFor="stock-pick">
+        <span>Product and lot</span>
+        <select
+          id="stock-pick"
+          className="input"
+          value={pick}
+          onChange={(ev) => {
+            const [p, l] = ev.target.value.split(':').map(Number);
+            form.setValue('productId', p);
+            form.setValue('lotId', l);
+          }}
+        >
+          {choices.map((c) => (
+            <option key={`${c.productId}:${c.lotId}`} value={`${c.productId}:${c.lotId}`}>
+              {c.label}
+            </option>
+          ))}
         </select>
       </label>
-      <label className="field" htmlFor="kind"><span>Kind</span>
+      <label className="field" htmlFor="kind">
+        <span>Kind</span>
         <select id="kind" className="input" {...form.register('kind')}>
           <option value="breakage">Breakage (−)</option>
           <option value="adjustment">Count adjustment (±)</option>
           <option value="return">Return (+)</option>
         </select>
       </label>
-      <TextField label="Change in jars (− takes away)" registration={form.register('delta')} error={e.delta} inputMode="numeric" />
+      <TextField
+        label="Change in jars (− takes away)"
+        registration={form.register('delta')}
+        error={e.delta}
+        inputMode="numeric"
+      />
       <TextField label="Reason" registration={form.register('reason')} error={e.reason} />
       <FormMessage {...message} />
-      <button type="submit" className="btn-secondary w-full" disabled={pending}>Save change</button>
+      <button type="submit" className="btn-secondary w-full" disabled={pending}>
+        Save change
+      </button>
     </form>
   );
 }

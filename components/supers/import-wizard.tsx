@@ -8,7 +8,13 @@ import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 import { postForm } from '@/components/ui/post-form';
 
-type Preview = { headers: string[]; mapping: Partial<PullMapping>; valid: ValidPullRow[]; errors: PullRowError[]; total: number };
+type Preview = {
+  headers: string[];
+  mapping: Partial<PullMapping>;
+  valid: ValidPullRow[];
+  errors: PullRowError[];
+  total: number;
+};
 type Imported = { imported: number; flagged: number; errors: PullRowError[] };
 const FIELDS: { key: keyof PullMapping; label: string; required?: boolean }[] = [
   { key: 'colonyCode', label: 'Colony code', required: true },
@@ -47,13 +53,20 @@ export function ImportWizard() {
 
   async function check(f: File, m?: Partial<PullMapping>) {
     const r = await run({ file: f, mode: 'preview', mapping: m });
-    if (!r?.ok) { setPreview(null); return; }
+    if (!r?.ok) {
+      setPreview(null);
+      return;
+    }
     const p = r.data as Preview;
-    setFile(f); setPreview(p); setMapping(p.mapping); setRejected(p.errors);
+    setFile(f);
+    setPreview(p);
+    setMapping(p.mapping);
+    setRejected(p.errors);
   }
 
   function choose(f: File | undefined) {
-    setPreview(null); setMessage({});
+    setPreview(null);
+    setMessage({});
     if (f) void check(f);
   }
 
@@ -63,13 +76,18 @@ export function ImportWizard() {
     if (!r?.ok) return;
     const body = r.data as Imported;
     setRejected(body.errors);
-    setMessage({ success: `Imported ${body.imported} super pulls${body.flagged ? `, ${body.flagged} of them flagged` : ''}.${body.errors.length ? ` ${body.errors.length} rows were not imported: download them, fix and import again.` : ''}` });
+    setMessage({
+      success: `Imported ${body.imported} super pulls${body.flagged ? `, ${body.flagged} of them flagged` : ''}.${body.errors.length ? ` ${body.errors.length} rows were not imported: download them, fix and import again.` : ''}`,
+    });
     setPreview(null);
   }
 
   function downloadRejected() {
     const headers = [...(preview?.headers ?? Object.keys(rejected[0]?.raw ?? {})), 'Problems'];
-    const csv = toCsv(headers, rejected.map((e) => [...headers.slice(0, -1).map((h) => e.raw[h] ?? ''), e.messages.join('; ')]));
+    const csv = toCsv(
+      headers,
+      rejected.map((e) => [...headers.slice(0, -1).map((h) => e.raw[h] ?? ''), e.messages.join('; ')]),
+    );
     const url = URL.createObjectURL(new Blob([csv], { type: 'text/csv' }));
     const a = Object.assign(document.createElement('a'), { href: url, download: 'rejected-rows.csv' });
     a.click();
@@ -80,57 +98,129 @@ export function ImportWizard() {
   const validByRow = new Map((preview?.valid ?? []).map((v) => [v.row, v]));
   return (
     <div className="space-y-4">
-      <label className="card field" htmlFor="sheet">
+      <label className="field card" htmlFor="sheet">
         <span>Field sheet (CSV, at most 5 MB, dates as YYYY-MM-DD)</span>
-        <input id="sheet" type="file" accept=".csv,text/csv" className="input min-h-11" onChange={(e) => choose(e.target.files?.[0])} />
+        <input
+          id="sheet"
+          type="file"
+          accept=".csv,text/csv"
+          className="input min-h-11"
+          onChange={(e) => choose(e.target.files?.[0])}
+        />
       </label>
       <FormMessage {...message} />
-      {rejected.length > 0 && !preview ? <button type="button" className="btn-secondary min-h-11" onClick={downloadRejected}>Download rejected rows (CSV)</button> : null}
+      {rejected.length > 0 && !preview ? (
+        <button type="button" className="btn-secondary min-h-11" onClick={downloadRejected}>
+          Download rejected rows (CSV)
+        </button>
+      ) : null}
       {preview ? (
         <>
-          <fieldset className="card grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
+          <fieldset className="grid gap-3 card sm:grid-cols-2 lg:grid-cols-4">
             <legend className="font-heading text-lg font-bold">Columns</legend>
             {FIELDS.map((f) => (
               <label key={f.key} className="field" htmlFor={`map-${f.key}`}>
-                <span>{f.label}{f.required ? '' : ' (optional)'}</span>
-                <select id={`map-${f.key}`} className="input min-h-11" value={mapping[f.key] ?? ''} onChange={(e) => setMapping((m) => ({ ...m, [f.key]: e.target.value || undefined }))}>
+                <span>
+                  {f.label}
+                  {f.required ? '' : ' (optional)'}
+                </span>
+                <select
+                  id={`map-${f.key}`}
+                  className="input min-h-11"
+                  value={mapping[f.key] ?? ''}
+                  onChange={(e) => setMapping((m) => ({ ...m, [f.key]: e.target.value || undefined }))}
+                >
                   <option value="">—</option>
-                  {preview.headers.map((h) => <option key={h} value={h}>{h}</option>)}
+                  {preview.headers.map((h) => (
+                    <option key={h} value={h}>
+                      {h}
+                    </option>
+                  ))}
                 </select>
               </label>
             ))}
-            <div className="flex items-end"><button type="button" className="btn-secondary min-h-11" disabled={busy || !file} onClick={() => file && check(file, mapping)}>Check again</button></div>
+            <div className="flex items-end">
+              <button
+                type="button"
+                className="btn-secondary min-h-11"
+                disabled={busy || !file}
+                onClick={() => file && check(file, mapping)}
+              >
+                Check again
+              </button>
+            </div>
           </fieldset>
-          <p role="status">{preview.total} rows: {preview.valid.length} ready, {preview.errors.length} with problems.</p>
-          <div className="card overflow-x-auto p-0">
+          <p role="status">
+            {preview.total} rows: {preview.valid.length} ready, {preview.errors.length} with problems.
+          </p>
+          <div className="overflow-x-auto card p-0">
             <table className="data-table">
               <caption className="sr-only">Preview of every row</caption>
-              <thead><tr><th scope="col">Row</th><th scope="col">Colony</th><th scope="col">Date</th><th scope="col">Box</th><th scope="col" className="num">Weight</th><th scope="col">Tag</th><th scope="col">Check</th></tr></thead>
+              <thead>
+                <tr>
+                  <th scope="col">Row</th>
+                  <th scope="col">Colony</th>
+                  <th scope="col">Date</th>
+                  <th scope="col">Box</th>
+                  <th scope="col" className="num">
+                    Weight
+                  </th>
+                  <th scope="col">Tag</th>
+                  <th scope="col">Check</th>
+                </tr>
+              </thead>
               <tbody>
-                {Array.from({ length: preview.total }, (_, i) => i + 1).filter((row) => errorsByRow.has(row) || validByRow.has(row)).map((row) => {
-                  const v = validByRow.get(row);
-                  const e = errorsByRow.get(row);
-                  const raw = e?.raw ?? {};
-                  return (
-                    <tr key={row} className={e ? 'bg-bad-bg/40' : undefined}>
-                      <td className="num">{row}</td>
-                      <td>{v?.colonyCode ?? raw[mapping.colonyCode ?? ''] ?? ''}</td>
-                      <td>{v?.pulledOn ?? raw[mapping.pulledOn ?? ''] ?? ''}</td>
-                      <td>{v?.depth ?? raw[mapping.depth ?? ''] ?? ''}</td>
-                      <td className="num">{v ? (v.fullGrams ? `${(v.fullGrams / 1000).toFixed(2)} kg` : '—') : raw[mapping.fullWeight ?? ''] ?? ''}</td>
-                      <td>{v?.tagCode ?? raw[mapping.tagCode ?? ''] ?? ''}</td>
-                      <td>{e ? <ul className="text-sm text-bad-fg">{e.messages.map((m) => <li key={m}>{m}</li>)}</ul> : <span className="text-ok-fg">ready</span>}</td>
-                    </tr>
-                  );
-                })}
+                {Array.from({ length: preview.total }, (_, i) => i + 1)
+                  .filter((row) => errorsByRow.has(row) || validByRow.has(row))
+                  .map((row) => {
+                    const v = validByRow.get(row);
+                    const e = errorsByRow.get(row);
+                    const raw = e?.raw ?? {};
+                    return (
+                      <tr key={row} className={e ? 'bg-bad-bg/40' : undefined}>
+                        <td className="num">{row}</td>
+                        <td>{v?.colonyCode ?? raw[mapping.colonyCode ?? ''] ?? ''}</td>
+                        <td>{v?.pulledOn ?? raw[mapping.pulledOn ?? ''] ?? ''}</td>
+                        <td>{v?.depth ?? raw[mapping.depth ?? ''] ?? ''}</td>
+                        <td className="num">
+                          {v
+                            ? v.fullGrams
+                              ? `${(v.fullGrams / 1000).toFixed(2)} kg`
+                              : '—'
+                            : (raw[mapping.fullWeight ?? ''] ?? '')}
+                        </td>
+                        <td>{v?.tagCode ?? raw[mapping.tagCode ?? ''] ?? ''}</td>
+                        <td>
+                          {e ? (
+                            <ul className="text-sm text-bad-fg">
+                              {e.messages.map((m) => (
+                                <li key={m}>{m}</li>
+                              ))}
+                            </ul>
+                          ) : (
+                            <span className="text-ok-fg">ready</span>
+                          )}
+                        </td>
+                      </tr>
+                    );
+                  })}
               </tbody>
             </table>
           </div>
           <div className="flex flex-wrap gap-2">
-            <button type="button" className="btn-primary min-h-11" disabled={busy || preview.valid.length === 0} onClick={commit}>
+            <button
+              type="button"
+              className="btn-primary min-h-11"
+              disabled={busy || preview.valid.length === 0}
+              onClick={commit}
+            >
               {busy ? 'Importing…' : `Import ${preview.valid.length} rows`}
             </button>
-            {preview.errors.length ? <button type="button" className="btn-secondary min-h-11" onClick={downloadRejected}>Download rejected rows (CSV)</button> : null}
+            {preview.errors.length ? (
+              <button type="button" className="btn-secondary min-h-11" onClick={downloadRejected}>
+                Download rejected rows (CSV)
+              </button>
+            ) : null}
           </div>
         </>
       ) : null}

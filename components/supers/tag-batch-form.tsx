@@ -7,7 +7,11 @@ import { useActionForm } from '@/components/ui/use-action-form';
 import type { ActionResult } from '@/lib/schemas/result';
 import type { z } from 'zod';
 
-export function TagBatchForm({ onSave }: { onSave: (v: z.input<typeof tagBatchInput>) => Promise<ActionResult<{ codes: string[]; created: number }>> }) {
+export function TagBatchForm({
+  onSave,
+}: {
+  onSave: (v: z.input<typeof tagBatchInput>) => Promise<ActionResult<{ codes: string[]; created: number }>>;
+}) {
   const router = useRouter();
   const { form, submit, pending, errors, message } = useActionForm({
     schema: tagBatchInput,
@@ -22,12 +26,25 @@ export function TagBatchForm({ onSave }: { onSave: (v: z.input<typeof tagBatchIn
       <TextField label="Prefix" registration={register('prefix')} error={errors.prefix} />
       <TextField label="First number" inputMode="numeric" registration={register('from')} error={errors.from} />
       <TextField label="How many" inputMode="numeric" registration={register('count')} error={errors.count} />
-      <label className="field" htmlFor="depth"><span>Box depth</span>
-        <select id="depth" className="input min-h-11" {...register('depth')}>{SUPER_DEPTHS.map((d) => <option key={d} value={d}>{d}</option>)}</select>
+      <label className="field" htmlFor="depth">
+        <span>Box depth</span>
+        <select id="depth" className="input min-h-11" {...register('depth')}>
+          {SUPER_DEPTHS.map((d) => (
+            <option key={d} value={d}>
+              {d}
+            </option>
+          ))}
+        </select>
       </label>
       <TextField label="Frames" inputMode="numeric" registration={register('frameCount')} error={errors.frameCount} />
-      <div className="flex items-end"><button type="submit" className="btn-secondary min-h-11" disabled={pending}>Create tags</button></div>
-      <div className="sm:col-span-3"><FormMessage {...message} /></div>
+      <div className="flex items-end">
+        <button type="submit" className="btn-secondary min-h-11" disabled={pending}>
+          Create tags
+        </button>
+      </div>
+      <div className="sm:col-span-3">
+        <FormMessage {...message} />
+      </div>
     </form>
   );
 }

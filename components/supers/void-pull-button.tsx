@@ -12,11 +12,15 @@ export type VoidPull = (v: VoidPullInput) => Promise<ActionResult<VoidResult>>;
 
 const WORDS = {
   pull: {
-    open: 'Void this pull…', question: 'Why void this pull?', confirm: 'Void pull',
+    open: 'Void this pull…',
+    question: 'Why void this pull?',
+    confirm: 'Void pull',
     hint: 'It stays on record, struck through, and no longer counts. If the super is still on the hive, record it as put on again.',
   },
   on: {
-    open: 'Void this super-on record…', question: 'Why void this super-on record?', confirm: 'Void super-on record',
+    open: 'Void this super-on record…',
+    question: 'Why void this super-on record?',
+    confirm: 'Void super-on record',
     hint: 'It stays on record, struck through, and the super no longer counts as on the hive: the next pull of this colony will not close it.',
   },
 } as const;
@@ -26,43 +30,95 @@ const WORDS = {
  * confirm. The record stays, struck through, and no longer counts anywhere. Without `onVoided` the
  * page is refreshed from the server.
  */
-export function VoidPullButton({ superPullId, what, onVoid, onVoided, record = 'pull' }: { superPullId: number; what: string; onVoid: VoidPull; onVoided?: (v: PullVoid) => void; record?: 'pull' | 'on' }) {
+export function VoidPullButton({
+  superPullId,
+  what,
+  onVoid,
+  onVoided,
+  record = 'pull',
+}: {
+  superPullId: number;
+  what: string;
+  onVoid: VoidPull;
+  onVoided?: (v: PullVoid) => void;
+  record?: 'pull' | 'on';
+}) {
   const words = WORDS[record];
   const router = useRouter();
   const id = useId();
   const [open, setOpen] = useState(false);
-  const { form, submit, pending: busy, errors, message, setMessage } = useActionForm({
+  const {
+    form,
+    submit,
+    pending: busy,
+    errors,
+    message,
+    setMessage,
+  } = useActionForm({
     schema: voidPullInput,
     action: onVoid,
     defaultValues: { superPullId, record, reason: '' },
     onSuccess: (result) => {
       setOpen(false);
-      if (onVoided) onVoided(result.void); else router.refresh();
+      if (onVoided) onVoided(result.void);
+      else router.refresh();
     },
   });
   const reason = form.watch('reason') ?? '';
   if (!open) {
-    return <button type="button" className="btn-quiet px-2" onClick={() => setOpen(true)}>{words.open}<span className="sr-only"> ({what})</span></button>;
+    return (
+      <button type="button" className="btn-quiet px-2" onClick={() => setOpen(true)}>
+        {words.open}
+        <span className="sr-only"> ({what})</span>
+      </button>
+    );
   }
   const error = errors.reason?.message;
   const ready = reason.trim().length >= 3;
   return (
-    <form className="flex w-full min-w-56 max-w-sm flex-col gap-2" onSubmit={submit} noValidate aria-label={`Void ${what}`}>
-      <label className="field" htmlFor={`${id}-reason`}><span>{words.question}</span>
+    <form
+      className="flex w-full max-w-sm min-w-56 flex-col gap-2"
+      onSubmit={submit}
+      noValidate
+      aria-label={`Void ${what}`}
+    >
+      <label className="field" htmlFor={`${id}-reason`}>
+        <span>{words.question}</span>
         <input
-          id={`${id}-reason`} className="input" maxLength={500} autoFocus autoComplete="off"
-          aria-describedby={`${id}-hint${error ? ` ${id}-error` : ''}`} aria-invalid={error ? true : undefined}
+          id={`${id}-reason`}
+          className="input"
+          maxLength={500}
+          autoFocus
+          autoComplete="off"
+          aria-describedby={`${id}-hint${error ? ` ${id}-error` : ''}`}
+          aria-invalid={error ? true : undefined}
           {...form.register('reason')}
         />
       </label>
       <small id={`${id}-hint`} className="hint">
         {words.hint}
       </small>
-      {error ? <small id={`${id}-error`} className="field-error" role="alert">{error}</small> : null}
+      {error ? (
+        <small id={`${id}-error`} className="field-error" role="alert">
+          {error}
+        </small>
+      ) : null}
       <FormMessage {...message} />
       <div className="flex flex-wrap gap-2">
-        <button type="submit" className="btn-danger" disabled={!ready || busy}>{busy ? 'Voiding…' : words.confirm}</button>
-        <button type="button" className="btn-quiet" onClick={() => { setOpen(false); setMessage({}); form.clearErrors(); }}>Cancel</button>
+        <button type="submit" className="btn-danger" disabled={!ready || busy}>
+          {busy ? 'Voiding…' : words.confirm}
+        </button>
+        <button
+          type="button"
+          className="btn-quiet"
+          onClick={() => {
+            setOpen(false);
+            setMessage({});
+            form.clearErrors();
+          }}
+        >
+          Cancel
+        </button>
       </div>
     </form>
   );
@@ -70,5 +126,9 @@ export function VoidPullButton({ superPullId, what, onVoid, onVoided, record = '
 
 /** Who voided a pull or super-on record, when (the business's calendar date) and why. */
 export function VoidedNote({ v, date }: { v: PullVoid; date: string }) {
-  return <span className="text-xs text-ink-soft">Voided {date} by {v.byName ?? 'unknown'}: {v.reason}</span>;
+  return (
+    <span className="text-xs text-ink-soft">
+      Voided {date} by {v.byName ?? 'unknown'}: {v.reason}
+    </span>
+  );
 }

@@ -6,7 +6,13 @@ import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm, type AnyResult } from '@/components/ui/use-action-form';
 
 /** One treatment kind (new or existing). Values are copied from the product label by the owner. */
-export function TreatmentKindForm({ initial, onSave }: { initial?: TreatmentKindInput; onSave: (v: TreatmentKindInput) => Promise<AnyResult> }) {
+export function TreatmentKindForm({
+  initial,
+  onSave,
+}: {
+  initial?: TreatmentKindInput;
+  onSave: (v: TreatmentKindInput) => Promise<AnyResult>;
+}) {
   const router = useRouter();
   const { form, submit, pending, errors, message } = useActionForm({
     schema: treatmentKindInput,
@@ -19,14 +25,35 @@ export function TreatmentKindForm({ initial, onSave }: { initial?: TreatmentKind
   const { register } = form;
   const p = initial?.id ? `k${initial.id}` : 'new';
   return (
-    <form onSubmit={submit} className="grid gap-3 sm:grid-cols-[2fr_auto_1fr_2fr_auto_auto] sm:items-end" noValidate aria-label={initial ? `Edit ${initial.name}` : 'New treatment kind'}>
+    <form
+      onSubmit={submit}
+      className="grid gap-3 sm:grid-cols-[2fr_auto_1fr_2fr_auto_auto] sm:items-end"
+      noValidate
+      aria-label={initial ? `Edit ${initial.name}` : 'New treatment kind'}
+    >
       <TextField id={`${p}-name`} label="Name" registration={register('name')} error={errors.name} />
-      <label className="flex min-h-11 items-center gap-2" htmlFor={`${p}-supers`}><input id={`${p}-supers`} type="checkbox" className="h-5 w-5" {...register('supersAllowed')} />Label allows honey supers on</label>
-      <TextField id={`${p}-wait`} label="Waiting days after removal" inputMode="numeric" registration={register('waitingDays')} error={errors.waitingDays} />
+      <label className="flex min-h-11 items-center gap-2" htmlFor={`${p}-supers`}>
+        <input id={`${p}-supers`} type="checkbox" className="h-5 w-5" {...register('supersAllowed')} />
+        Label allows honey supers on
+      </label>
+      <TextField
+        id={`${p}-wait`}
+        label="Waiting days after removal"
+        inputMode="numeric"
+        registration={register('waitingDays')}
+        error={errors.waitingDays}
+      />
       <TextField id={`${p}-notes`} label="Notes" registration={register('notes')} error={errors.notes} />
-      <label className="flex min-h-11 items-center gap-2" htmlFor={`${p}-active`}><input id={`${p}-active`} type="checkbox" className="h-5 w-5" {...register('active')} />In use</label>
-      <button type="submit" className="btn-secondary min-h-11" disabled={pending}>{initial ? 'Save' : 'Add kind'}</button>
-      <div className="sm:col-span-6"><FormMessage {...message} /></div>
+      <label className="flex min-h-11 items-center gap-2" htmlFor={`${p}-active`}>
+        <input id={`${p}-active`} type="checkbox" className="h-5 w-5" {...register('active')} />
+        In use
+      </label>
+      <button type="submit" className="btn-secondary min-h-11" disabled={pending}>
+        {initial ? 'Save' : 'Add kind'}
+      </button>
+      <div className="sm:col-span-6">
+        <FormMessage {...message} />
+      </div>
     </form>
   );
 }

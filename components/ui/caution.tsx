@@ -3,7 +3,7 @@ import { TriangleAlert } from 'lucide-react';
 /** The usual safety and legal reminders; Combtrace records and warns, it does not certify. */
 export function Caution({ children, title = 'Caution' }: { children: React.ReactNode; title?: string }) {
   return (
-    <div className="caution flex gap-3" role="note" aria-label={title}>
+    <div className="flex gap-3 caution" role="note" aria-label={title}>
       <TriangleAlert aria-hidden className="mt-0.5 h-5 w-5 shrink-0" />
       <div>{children}</div>
     </div>

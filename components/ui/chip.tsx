@@ -9,7 +9,15 @@ const TONES: Record<ChipTone, string> = {
 };
 
 /** Status is always a word in a chip, never colour alone. */
-export function Chip({ tone = 'neutral', children, title }: { tone?: ChipTone; children: React.ReactNode; title?: string }) {
+export function Chip({
+  tone = 'neutral',
+  children,
+  title,
+}: {
+  tone?: ChipTone;
+  children: React.ReactNode;
+  title?: string;
+}) {
   return (
     <span className={`chip ${TONES[tone]}`} title={title}>
       {children}

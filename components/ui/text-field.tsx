@@ -11,13 +11,29 @@ type Props = InputHTMLAttributes<HTMLInputElement> & {
 /** A labelled input with its error announced to screen readers. */
 export function TextField({ label, registration, error, hint, id, ...rest }: Props) {
   const inputId = id ?? registration.name;
-  const describedBy = [error ? `${inputId}-error` : null, hint ? `${inputId}-hint` : null].filter(Boolean).join(' ') || undefined;
+  const describedBy =
+    [error ? `${inputId}-error` : null, hint ? `${inputId}-hint` : null].filter(Boolean).join(' ') || undefined;
   return (
     <label className="field" htmlFor={inputId}>
       <span>{label}</span>
-      <input id={inputId} className="input" aria-invalid={error ? true : undefined} aria-describedby={describedBy} {...registration} {...rest} />
-      {hint ? <small id={`${inputId}-hint`} className="hint">{hint}</small> : null}
-      {error?.message ? <small id={`${inputId}-error`} className="field-error" role="alert">{error.message}</small> : null}
+      <input
+        id={inputId}
+        className="input"
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy}
+        {...registration}
+        {...rest}
+      />
+      {hint ? (
+        <small id={`${inputId}-hint`} className="hint">
+          {hint}
+        </small>
+      ) : null}
+      {error?.message ? (
+        <small id={`${inputId}-error`} className="field-error" role="alert">
+          {error.message}
+        </small>
+      ) : null}
     </label>
   );
 }

@@ -39,9 +39,14 @@ export type ActionFormOptions<S extends z.ZodType<FieldValues, FieldValues>, Res
  * handles the answer the same way and also returns it (undefined if the input or the connection
  * failed).
  */
-export function useActionForm<S extends z.ZodType<FieldValues, FieldValues>, Res extends AnyResult>(options: ActionFormOptions<S, Res>) {
+export function useActionForm<S extends z.ZodType<FieldValues, FieldValues>, Res extends AnyResult>(
+  options: ActionFormOptions<S, Res>,
+) {
   const { schema, action, defaultValues, successMessage, onSuccess, resetOnSuccess } = options;
-  const form = useForm<z.input<S>, unknown, z.output<S>>({ resolver: zodResolver(schema as never) as never, defaultValues });
+  const form = useForm<z.input<S>, unknown, z.output<S>>({
+    resolver: zodResolver(schema as never) as never,
+    defaultValues,
+  });
   const [message, setMessage] = useState<FormMessageState>({});
   const [running, setRunning] = useState(false);
 
@@ -55,7 +60,8 @@ export function useActionForm<S extends z.ZodType<FieldValues, FieldValues>, Res
       return undefined;
     }
     if (!result.ok) {
-      for (const [name, msg] of Object.entries(result.fieldErrors ?? {})) form.setError(name as Path<z.input<S>>, { message: msg });
+      for (const [name, msg] of Object.entries(result.fieldErrors ?? {}))
+        form.setError(name as Path<z.input<S>>, { message: msg });
       setMessage({ error: result.message ?? (result.fieldErrors ? 'Please fix the marked fields.' : REFUSED_MESSAGE) });
       return result;
     }
@@ -66,7 +72,9 @@ export function useActionForm<S extends z.ZodType<FieldValues, FieldValues>, Res
     return result;
   }
 
-  const submit = form.handleSubmit(async (values) => { await save(values, form.getValues()); });
+  const submit = form.handleSubmit(async (values) => {
+    await save(values, form.getValues());
+  });
 
   async function run(input: z.input<S>): Promise<Res | undefined> {
     const parsed = schema.safeParse(input);
@@ -82,5 +90,13 @@ export function useActionForm<S extends z.ZodType<FieldValues, FieldValues>, Res
     }
   }
 
-  return { form, submit, run, pending: form.formState.isSubmitting || running, errors: form.formState.errors, message, setMessage };
+  return {
+    form,
+    submit,
+    run,
+    pending: form.formState.isSubmitting || running,
+    errors: form.formState.errors,
+    message,
+    setMessage,
+  };
 }

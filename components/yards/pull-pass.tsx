@@ -4,8 +4,22 @@ import { Check, CloudOff, RotateCw, TriangleAlert } from 'lucide-react';
 import { SUPER_DEPTHS, type PullEntry } from '@/lib/schemas/supers';
 import { newEntryKey } from '@/components/ui/entry-key';
 import {
-  ANSWER_WITHIN_MS, NoAnswer, answerWithin, changeWaiting, markRefused, notShown, pullOutcome, readWaiting, toSend, waitingKey, withoutWaiting, withWaiting,
-  type PullOutcome, type PullReply, type StoredEntry, type WaitingPull,
+  ANSWER_WITHIN_MS,
+  NoAnswer,
+  answerWithin,
+  changeWaiting,
+  markRefused,
+  notShown,
+  pullOutcome,
+  readWaiting,
+  toSend,
+  waitingKey,
+  withoutWaiting,
+  withWaiting,
+  type PullOutcome,
+  type PullReply,
+  type StoredEntry,
+  type WaitingPull,
 } from './pull-queue';
 
 type Depth = (typeof SUPER_DEPTHS)[number];
@@ -15,8 +29,15 @@ type Save = (input: { entries: PullEntry[] }) => Promise<PullReply>;
  * (it failed, was tapped with no signal, or was restored after a reload).
  */
 type Shown = {
-  key: string; entry: StoredEntry; colonyCode: string; yardName: string; state: 'sending' | 'waiting' | 'saved' | 'refused';
-  waited: boolean; flagged?: boolean; reasons?: string[]; message?: string;
+  key: string;
+  entry: StoredEntry;
+  colonyCode: string;
+  yardName: string;
+  state: 'sending' | 'waiting' | 'saved' | 'refused';
+  waited: boolean;
+  flagged?: boolean;
+  reasons?: string[];
+  message?: string;
 };
 type Colony = { id: number; code: string; lastPulledOn: string | null };
 
@@ -45,48 +66,122 @@ async function sendWithRetry(onSave: Save, entry: PullEntry, tries = 3): Promise
 }
 
 const fromStored = (w: WaitingPull): Shown => ({
-  key: w.entry.idempotencyKey, entry: w.entry, colonyCode: w.colonyCode, yardName: w.yardName,
-  state: w.refused === undefined ? 'waiting' : 'refused', waited: true, message: w.refused,
+  key: w.entry.idempotencyKey,
+  entry: w.entry,
+  colonyCode: w.colonyCode,
+  yardName: w.yardName,
+  state: w.refused === undefined ? 'waiting' : 'refused',
+  waited: true,
+  message: w.refused,
 });
 
-function EntryLine({ item, label, name, onDismiss }: { item: Shown; label: string; name: string; onDismiss: () => void }) {
+function EntryLine({
+  item,
+  label,
+  name,
+  onDismiss,
+}: {
+  item: Shown;
+  label: string;
+  name: string;
+  onDismiss: () => void;
+}) {
   const sendingKept = item.state === 'sending' && item.waited;
-  const text = item.state === 'saved' ? 'recorded'
-    : item.state === 'refused' ? `not recorded — ${item.message ?? 'refused'}`
-    : item.state === 'waiting' ? (item.message ? `${KEPT} (${item.message})` : KEPT)
-    : sendingKept ? `${KEPT}; sending…` : 'saving…';
+  const text =
+    item.state === 'saved'
+      ? 'recorded'
+      : item.state === 'refused'
+        ? `not recorded — ${item.message ?? 'refused'}`
+        : item.state === 'waiting'
+          ? item.message
+            ? `${KEPT} (${item.message})`
+            : KEPT
+          : sendingKept
+            ? `${KEPT}; sending…`
+            : 'saving…';
   return (
     <li className="flex flex-wrap items-start gap-2">
-      {item.state === 'saved' ? <Check aria-hidden className="mt-0.5 h-4 w-4 shrink-0 text-ok-fg" />
-        : item.state === 'refused' ? <TriangleAlert aria-hidden className="mt-0.5 h-4 w-4 shrink-0 text-bad-fg" />
-        : item.state === 'waiting' ? <CloudOff aria-hidden className="mt-0.5 h-4 w-4 shrink-0 text-warn-fg" />
-        : <RotateCw aria-hidden className="mt-0.5 h-4 w-4 shrink-0 animate-spin" />}
-      <span className={`min-w-0 flex-1 ${item.state === 'refused' ? 'text-bad-fg' : item.state === 'waiting' || sendingKept ? 'text-warn-fg' : ''}`}>{label}: {text}</span>
-      {item.state === 'saved' && item.flagged ? <span className="w-full rounded bg-bad-bg px-2 py-1 text-bad-fg"><strong>Flagged:</strong> {item.reasons?.join('; ')}</span> : null}
+      {item.state === 'saved' ? (
+        <Check aria-hidden className="mt-0.5 h-4 w-4 shrink-0 text-ok-fg" />
+      ) : item.state === 'refused' ? (
+        <TriangleAlert aria-hidden className="mt-0.5 h-4 w-4 shrink-0 text-bad-fg" />
+      ) : item.state === 'waiting' ? (
+        <CloudOff aria-hidden className="mt-0.5 h-4 w-4 shrink-0 text-warn-fg" />
+      ) : (
+        <RotateCw aria-hidden className="mt-0.5 h-4 w-4 shrink-0 animate-spin" />
+      )}
+      <span
+        className={`min-w-0 flex-1 ${item.state === 'refused' ? 'text-bad-fg' : item.state === 'waiting' || sendingKept ? 'text-warn-fg' : ''}`}
+      >
+        {label}: {text}
+      </span>
+      {item.state === 'saved' && item.flagged ? (
+        <span className="w-full rounded bg-bad-bg px-2 py-1 text-bad-fg">
+          <strong>Flagged:</strong> {item.reasons?.join('; ')}
+        </span>
+      ) : null}
       {item.state === 'refused' ? (
-        <button type="button" className="btn-secondary min-h-11" aria-label={`Dismiss ${name}`} onClick={onDismiss}>Dismiss</button>
+        <button type="button" className="btn-secondary min-h-11" aria-label={`Dismiss ${name}`} onClick={onDismiss}>
+          Dismiss
+        </button>
       ) : null}
     </li>
   );
 }
 
-function Details({ colony, value, onChange }: { colony: Colony; value: Partial<PullEntry>; onChange: (v: Partial<PullEntry>) => void }) {
+function Details({
+  colony,
+  value,
+  onChange,
+}: {
+  colony: Colony;
+  value: Partial<PullEntry>;
+  onChange: (v: Partial<PullEntry>) => void;
+}) {
   const id = (s: string) => `${s}-${colony.id}`;
   return (
     <div className="mt-3 grid grid-cols-2 gap-3">
-      <label className="field" htmlFor={id('w')}><span>Full weight</span>
-        <input id={id('w')} className="input min-h-11" inputMode="decimal" value={String(value.weight ?? '')} onChange={(e) => onChange({ weight: e.target.value })} />
+      <label className="field" htmlFor={id('w')}>
+        <span>Full weight</span>
+        <input
+          id={id('w')}
+          className="input min-h-11"
+          inputMode="decimal"
+          value={String(value.weight ?? '')}
+          onChange={(e) => onChange({ weight: e.target.value })}
+        />
       </label>
-      <label className="field" htmlFor={id('u')}><span>Unit</span>
-        <select id={id('u')} className="input min-h-11" value={value.weightUnit ?? 'kg'} onChange={(e) => onChange({ weightUnit: e.target.value as 'kg' | 'lb' })}>
-          <option value="kg">kg</option><option value="lb">lb</option>
+      <label className="field" htmlFor={id('u')}>
+        <span>Unit</span>
+        <select
+          id={id('u')}
+          className="input min-h-11"
+          value={value.weightUnit ?? 'kg'}
+          onChange={(e) => onChange({ weightUnit: e.target.value as 'kg' | 'lb' })}
+        >
+          <option value="kg">kg</option>
+          <option value="lb">lb</option>
         </select>
       </label>
-      <label className="field" htmlFor={id('c')}><span>Capped frames (if not weighed)</span>
-        <input id={id('c')} className="input min-h-11" inputMode="decimal" value={String(value.cappedFrames ?? '')} onChange={(e) => onChange({ cappedFrames: e.target.value })} />
+      <label className="field" htmlFor={id('c')}>
+        <span>Capped frames (if not weighed)</span>
+        <input
+          id={id('c')}
+          className="input min-h-11"
+          inputMode="decimal"
+          value={String(value.cappedFrames ?? '')}
+          onChange={(e) => onChange({ cappedFrames: e.target.value })}
+        />
       </label>
-      <label className="field" htmlFor={id('t')}><span>Tag code</span>
-        <input id={id('t')} className="input min-h-11" autoCapitalize="characters" value={String(value.tagCode ?? '')} onChange={(e) => onChange({ tagCode: e.target.value })} />
+      <label className="field" htmlFor={id('t')}>
+        <span>Tag code</span>
+        <input
+          id={id('t')}
+          className="input min-h-11"
+          autoCapitalize="characters"
+          value={String(value.tagCode ?? '')}
+          onChange={(e) => onChange({ tagCode: e.target.value })}
+        />
       </label>
     </div>
   );
@@ -99,8 +194,20 @@ function Details({ colony, value, onChange }: { colony: Colony; value: Partial<P
  * with no signal, after a reload or a flat battery, it is shown again and sent when there is a
  * connection; the key makes a second send harmless.
  */
-export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardName }: {
-  colonies: Colony[]; today: string; defaultUnit: 'kg' | 'lb'; onSave: Save; userId: number; yardName: string;
+export function PullPass({
+  colonies,
+  today,
+  defaultUnit,
+  onSave,
+  userId,
+  yardName,
+}: {
+  colonies: Colony[];
+  today: string;
+  defaultUnit: 'kg' | 'lb';
+  onSave: Save;
+  userId: number;
+  yardName: string;
 }) {
   const [pulledOn, setPulledOn] = useState(today);
   const [depth, setDepth] = useState<Depth>('medium');
@@ -114,32 +221,40 @@ export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardNam
   const inFlight = useRef(new Set<string>());
   const drainingRef = useRef(false);
   const saveRef = useRef(onSave);
-  useEffect(() => { saveRef.current = onSave; }, [onSave]);
+  useEffect(() => {
+    saveRef.current = onSave;
+  }, [onSave]);
   const storeKey = waitingKey(userId);
 
   const patch = (key: string, p: Partial<Shown>) => setShown((s) => s.map((x) => (x.key === key ? { ...x, ...p } : x)));
-  const keep = useCallback((change: (list: WaitingPull[]) => WaitingPull[]) => {
-    if (!changeWaiting(localStorage, storeKey, change)) setStorageFailed(true);
-  }, [storeKey]);
+  const keep = useCallback(
+    (change: (list: WaitingPull[]) => WaitingPull[]) => {
+      if (!changeWaiting(localStorage, storeKey, change)) setStorageFailed(true);
+    },
+    [storeKey],
+  );
 
-  const send = useCallback(async (entry: PullEntry): Promise<PullOutcome['kind'] | 'busy'> => {
-    const key = entry.idempotencyKey;
-    if (inFlight.current.has(key)) return 'busy';
-    inFlight.current.add(key);
-    patch(key, { state: 'sending' });
-    const out = await sendWithRetry(saveRef.current, entry);
-    inFlight.current.delete(key);
-    if (out.kind === 'saved') {
-      keep((l) => withoutWaiting(l, [key]));
-      patch(key, { state: 'saved', flagged: out.flagged, reasons: out.flagReasons, message: undefined });
-    } else if (out.kind === 'refused') {
-      keep((l) => markRefused(l, key, out.message));
-      patch(key, { state: 'refused', message: out.message });
-    } else {
-      patch(key, { state: 'waiting', waited: true, message: out.message });
-    }
-    return out.kind;
-  }, [keep]);
+  const send = useCallback(
+    async (entry: PullEntry): Promise<PullOutcome['kind'] | 'busy'> => {
+      const key = entry.idempotencyKey;
+      if (inFlight.current.has(key)) return 'busy';
+      inFlight.current.add(key);
+      patch(key, { state: 'sending' });
+      const out = await sendWithRetry(saveRef.current, entry);
+      inFlight.current.delete(key);
+      if (out.kind === 'saved') {
+        keep((l) => withoutWaiting(l, [key]));
+        patch(key, { state: 'saved', flagged: out.flagged, reasons: out.flagReasons, message: undefined });
+      } else if (out.kind === 'refused') {
+        keep((l) => markRefused(l, key, out.message));
+        patch(key, { state: 'refused', message: out.message });
+      } else {
+        patch(key, { state: 'waiting', waited: true, message: out.message });
+      }
+      return out.kind;
+    },
+    [keep],
+  );
 
   /** Reads what this user has waiting on this phone and shows the entries the page does not show yet. */
   const restore = useCallback((): WaitingPull[] => {
@@ -179,27 +294,55 @@ export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardNam
     setOnline(navigator.onLine);
     setReady(true);
     if (navigator.onLine && toSend(stored).length) void sendWaiting();
-    const up = () => { setOnline(true); void sendWaiting(); };
+    const up = () => {
+      setOnline(true);
+      void sendWaiting();
+    };
     const down = () => setOnline(false);
     window.addEventListener('online', up);
     window.addEventListener('offline', down);
-    return () => { window.removeEventListener('online', up); window.removeEventListener('offline', down); };
+    return () => {
+      window.removeEventListener('online', up);
+      window.removeEventListener('offline', down);
+    };
   }, [restore, sendWaiting]);
 
-  const chooseDepth = (d: Depth) => { setDepth(d); localStorage.setItem(DEPTH_KEY, d); };
-  const chooseFrames = (f: string) => { setFrames(f); if (/^\d{1,2}$/.test(f)) localStorage.setItem(FRAMES_KEY, f); };
+  const chooseDepth = (d: Depth) => {
+    setDepth(d);
+    localStorage.setItem(DEPTH_KEY, d);
+  };
+  const chooseFrames = (f: string) => {
+    setFrames(f);
+    if (/^\d{1,2}$/.test(f)) localStorage.setItem(FRAMES_KEY, f);
+  };
 
   function pull(colony: Colony) {
     const extra = details[colony.id] ?? {};
     const entry: StoredEntry = {
-      colonyId: colony.id, pulledOn, depth, frameCount: Number(frames), idempotencyKey: newEntryKey(),
-      weight: extra.weight === '' ? null : extra.weight ?? null, weightUnit: extra.weightUnit ?? defaultUnit,
-      cappedFrames: extra.cappedFrames === '' ? null : extra.cappedFrames ?? null, tagCode: extra.tagCode || null,
+      colonyId: colony.id,
+      pulledOn,
+      depth,
+      frameCount: Number(frames),
+      idempotencyKey: newEntryKey(),
+      weight: extra.weight === '' ? null : (extra.weight ?? null),
+      weightUnit: extra.weightUnit ?? defaultUnit,
+      cappedFrames: extra.cappedFrames === '' ? null : (extra.cappedFrames ?? null),
+      tagCode: extra.tagCode || null,
     };
     // Kept on the phone before anything is sent: a closed tab or a flat battery mid-send loses nothing.
     keep((l) => withWaiting(l, { entry, colonyCode: colony.code, yardName, savedAt: new Date().toISOString() }));
     const offline = !navigator.onLine;
-    setShown((s) => [...s, { key: entry.idempotencyKey, entry, colonyCode: colony.code, yardName, state: offline ? 'waiting' : 'sending', waited: offline }]);
+    setShown((s) => [
+      ...s,
+      {
+        key: entry.idempotencyKey,
+        entry,
+        colonyCode: colony.code,
+        yardName,
+        state: offline ? 'waiting' : 'sending',
+        waited: offline,
+      },
+    ]);
     setDetails((d) => ({ ...d, [colony.id]: undefined }));
     if (!offline) void send(entry);
   }
@@ -221,31 +364,66 @@ export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardNam
     waiting && !online ? 'No signal: they go as soon as there is one.' : '',
     refused ? `${supers(refused)} not recorded: see the marked entries.` : '',
     storageFailed ? 'This browser would not keep unsent supers: keep this page open until they are sent.' : '',
-  ].filter(Boolean).join(' ');
+  ]
+    .filter(Boolean)
+    .join(' ');
   const attention = summary !== '';
   return (
     <div className="space-y-4">
-      <fieldset className="card grid gap-3">
+      <fieldset className="grid gap-3 card">
         <legend className="sr-only">For every super in this pass</legend>
-        <label className="field" htmlFor="pull-date"><span>Pulled on</span>
-          <input id="pull-date" type="date" className="input min-h-11" value={pulledOn} max={today} onChange={(e) => setPulledOn(e.target.value)} />
+        <label className="field" htmlFor="pull-date">
+          <span>Pulled on</span>
+          <input
+            id="pull-date"
+            type="date"
+            className="input min-h-11"
+            value={pulledOn}
+            max={today}
+            onChange={(e) => setPulledOn(e.target.value)}
+          />
         </label>
         <div role="radiogroup" aria-label="Box depth" className="grid grid-cols-3 gap-2">
           {SUPER_DEPTHS.map((d) => (
-            <button key={d} type="button" role="radio" aria-checked={depth === d} onClick={() => chooseDepth(d)}
-              className={`min-h-12 rounded-lg border px-2 font-semibold capitalize ${depth === d ? 'border-forest-800 bg-forest-800 text-paper' : 'border-line bg-paper-raised text-ink'}`}>{d}</button>
+            <button
+              key={d}
+              type="button"
+              role="radio"
+              aria-checked={depth === d}
+              onClick={() => chooseDepth(d)}
+              className={`min-h-12 rounded-lg border px-2 font-semibold capitalize ${depth === d ? 'border-forest-800 bg-forest-800 text-paper' : 'border-line bg-paper-raised text-ink'}`}
+            >
+              {d}
+            </button>
           ))}
         </div>
-        <label className="field" htmlFor="pull-frames"><span>Frames per super</span>
-          <input id="pull-frames" className="input min-h-11" inputMode="numeric" value={frames} onChange={(e) => chooseFrames(e.target.value)} />
+        <label className="field" htmlFor="pull-frames">
+          <span>Frames per super</span>
+          <input
+            id="pull-frames"
+            className="input min-h-11"
+            inputMode="numeric"
+            value={frames}
+            onChange={(e) => chooseFrames(e.target.value)}
+          />
         </label>
       </fieldset>
       {elsewhere.length ? (
         <section aria-labelledby="pull-elsewhere" className="card">
-          <h2 id="pull-elsewhere" className="font-heading text-lg font-bold">Other colonies</h2>
+          <h2 id="pull-elsewhere" className="font-heading text-lg font-bold">
+            Other colonies
+          </h2>
           <p className="hint">Tapped on this phone in another pass, or for a colony no longer listed here.</p>
           <ul className="mt-2 space-y-1 text-sm">
-            {elsewhere.map((x) => <EntryLine key={x.key} item={x} label={`${x.colonyCode} (${x.yardName}), ${x.entry.pulledOn}`} name={`the super for ${x.colonyCode}`} onDismiss={() => dismiss(x)} />)}
+            {elsewhere.map((x) => (
+              <EntryLine
+                key={x.key}
+                item={x}
+                label={`${x.colonyCode} (${x.yardName}), ${x.entry.pulledOn}`}
+                name={`the super for ${x.colonyCode}`}
+                onDismiss={() => dismiss(x)}
+              />
+            ))}
           </ul>
         </section>
       ) : null}
@@ -262,18 +440,47 @@ export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardNam
                   <div className="font-heading text-xl font-bold">{c.code}</div>
                   <div className="hint">{c.lastPulledOn ? `last pull ${c.lastPulledOn}` : 'no pull yet'}</div>
                 </div>
-                <button type="button" className="btn-quiet min-h-11" aria-expanded={open} onClick={() => setDetails((d) => ({ ...d, [c.id]: open ? undefined : {} }))}>
+                <button
+                  type="button"
+                  className="btn-quiet min-h-11"
+                  aria-expanded={open}
+                  onClick={() => setDetails((d) => ({ ...d, [c.id]: open ? undefined : {} }))}
+                >
                   {open ? 'No details' : 'Weight, tag…'}
                 </button>
               </div>
-              {open ? <Details colony={c} value={details[c.id] ?? {}} onChange={(v) => setDetails((d) => ({ ...d, [c.id]: { ...(d[c.id] ?? {}), ...v } }))} /> : null}
+              {open ? (
+                <Details
+                  colony={c}
+                  value={details[c.id] ?? {}}
+                  onChange={(v) => setDetails((d) => ({ ...d, [c.id]: { ...(d[c.id] ?? {}), ...v } }))}
+                />
+              ) : null}
               {/* Disabled until the page has started: a tap before that would do nothing. */}
-              <button id={`pull-${c.id}`} type="button" disabled={!ready || busy} onClick={() => pull(c)} className="btn-primary mt-3 min-h-14 w-full text-lg">
-                {busy ? 'Saving…' : mine.length ? `Pulled another super from ${c.code}` : `Pulled a super from ${c.code}`}
+              <button
+                id={`pull-${c.id}`}
+                type="button"
+                disabled={!ready || busy}
+                onClick={() => pull(c)}
+                className="mt-3 btn-primary min-h-14 w-full text-lg"
+              >
+                {busy
+                  ? 'Saving…'
+                  : mine.length
+                    ? `Pulled another super from ${c.code}`
+                    : `Pulled a super from ${c.code}`}
               </button>
               {mine.length ? (
                 <ul className="mt-2 space-y-1 text-sm">
-                  {mine.map((x, i) => <EntryLine key={x.key} item={x} label={`Super ${i + 1}`} name={`super ${i + 1} of ${c.code}`} onDismiss={() => dismiss(x)} />)}
+                  {mine.map((x, i) => (
+                    <EntryLine
+                      key={x.key}
+                      item={x}
+                      label={`Super ${i + 1}`}
+                      name={`super ${i + 1} of ${c.code}`}
+                      onDismiss={() => dismiss(x)}
+                    />
+                  ))}
                 </ul>
               ) : null}
             </li>
@@ -286,15 +493,27 @@ export function PullPass({ colonies, today, defaultUnit, onSave, userId, yardNam
         above the colonies and moves them under the keeper's thumb; "Send now" keeps its place.
       */}
       <div
-        id="pull-summary" tabIndex={-1}
+        id="pull-summary"
+        tabIndex={-1}
         className={`sticky bottom-0 z-10 flex min-h-21 items-center gap-3 rounded-card border p-3 shadow-lg ${attention ? 'border-warn-fg bg-warn-bg text-warn-fg' : 'border-line bg-paper-raised text-ink-soft'}`}
       >
         <div className="min-w-0 flex-1 text-sm">
-          <p role="status">{total === 0 ? 'Tap a colony once for each super you take off it.' : `${total} ${total === 1 ? 'super' : 'supers'} recorded in this pass.`}</p>
-          <p role="status" className={summary ? 'font-semibold' : 'sr-only'}>{summary}</p>
+          <p role="status">
+            {total === 0
+              ? 'Tap a colony once for each super you take off it.'
+              : `${total} ${total === 1 ? 'super' : 'supers'} recorded in this pass.`}
+          </p>
+          <p role="status" className={summary ? 'font-semibold' : 'sr-only'}>
+            {summary}
+          </p>
         </div>
         {/* Room for the count and two lines of news, and the button's place kept when there is nothing to send: the bar keeps its shape. */}
-        <button type="button" className={`btn-secondary min-h-11 shrink-0 ${waiting ? '' : 'invisible'}`} disabled={!waiting || draining || !ready} onClick={() => void sendWaiting()}>
+        <button
+          type="button"
+          className={`btn-secondary min-h-11 shrink-0 ${waiting ? '' : 'invisible'}`}
+          disabled={!waiting || draining || !ready}
+          onClick={() => void sendWaiting()}
+        >
           {draining ? 'Sending…' : 'Send now'}
         </button>
       </div>

@@ -27,19 +27,34 @@ function isWaiting(v: unknown): v is WaitingPull {
   if (!v || typeof v !== 'object') return false;
   const w = v as Record<string, unknown>;
   const e = w.entry as Record<string, unknown> | null | undefined;
-  return !!e && typeof e === 'object' && isKey(e.idempotencyKey) && Number.isInteger(e.colonyId) && (e.colonyId as number) > 0
-    && typeof e.pulledOn === 'string' && typeof w.colonyCode === 'string' && typeof w.yardName === 'string' && typeof w.savedAt === 'string'
-    && (w.refused === undefined || typeof w.refused === 'string');
+  return (
+    !!e &&
+    typeof e === 'object' &&
+    isKey(e.idempotencyKey) &&
+    Number.isInteger(e.colonyId) &&
+    (e.colonyId as number) > 0 &&
+    typeof e.pulledOn === 'string' &&
+    typeof w.colonyCode === 'string' &&
+    typeof w.yardName === 'string' &&
+    typeof w.savedAt === 'string' &&
+    (w.refused === undefined || typeof w.refused === 'string')
+  );
 }
 
 /** The stored list; anything unreadable (old format, hand edits) is skipped rather than breaking the pass. */
 export function parseWaiting(raw: string | null): WaitingPull[] {
   if (!raw) return [];
   let data: unknown;
-  try { data = JSON.parse(raw); } catch { return []; }
+  try {
+    data = JSON.parse(raw);
+  } catch {
+    return [];
+  }
   if (!Array.isArray(data)) return [];
   const seen = new Set<string>();
-  return data.filter(isWaiting).filter((w) => (seen.has(w.entry.idempotencyKey) ? false : (seen.add(w.entry.idempotencyKey), true)));
+  return data
+    .filter(isWaiting)
+    .filter((w) => (seen.has(w.entry.idempotencyKey) ? false : (seen.add(w.entry.idempotencyKey), true)));
 }
 
 /** Adds an entry, or replaces the one with the same key (a key is one super, never two). */
@@ -69,7 +84,11 @@ export function notShown(list: WaitingPull[], shownKeys: ReadonlySet<string>): W
 
 /** Reads the user's list; a browser that blocks storage gives an empty list. */
 export function readWaiting(store: Store, key: string): WaitingPull[] {
-  try { return parseWaiting(store.getItem(key)); } catch { return []; }
+  try {
+    return parseWaiting(store.getItem(key));
+  } catch {
+    return [];
+  }
 }
 
 /**
@@ -88,16 +107,25 @@ export function changeWaiting(store: Store, key: string, change: (list: WaitingP
 }
 
 const FIELD_NAMES: Record<string, string> = {
-  weight: 'Full weight', weightUnit: 'Unit', cappedFrames: 'Capped frames', tagCode: 'Tag code', frameCount: 'Frames per super',
-  pulledOn: 'Pulled on', depth: 'Box depth', colonyId: 'Colony', idempotencyKey: 'Entry key',
+  weight: 'Full weight',
+  weightUnit: 'Unit',
+  cappedFrames: 'Capped frames',
+  tagCode: 'Tag code',
+  frameCount: 'Frames per super',
+  pulledOn: 'Pulled on',
+  depth: 'Box depth',
+  colonyId: 'Colony',
+  idempotencyKey: 'Entry key',
 };
 
 /** "entries.0.weight: More than 0" → "Full weight: More than 0". */
 function fieldMessage(fieldErrors: Record<string, string>): string {
-  return Object.entries(fieldErrors).map(([path, msg]) => {
-    const field = path.split('.').pop() ?? path;
-    return FIELD_NAMES[field] ? `${FIELD_NAMES[field]}: ${msg}` : msg;
-  }).join('; ');
+  return Object.entries(fieldErrors)
+    .map(([path, msg]) => {
+      const field = path.split('.').pop() ?? path;
+      return FIELD_NAMES[field] ? `${FIELD_NAMES[field]}: ${msg}` : msg;
+    })
+    .join('; ');
 }
 
 export type PullOutcome =
@@ -106,8 +134,10 @@ export type PullOutcome =
   | { kind: 'waiting'; message?: string };
 
 /** What the pull action answers (lib/schemas/result ActionResult, loosely typed for the client). */
-export type PullReply = { ok: true; data?: unknown } | { ok: false; message?: string; fieldErrors?: Record<string, string> };
-type EntryResult = { ok: true; key: string; flagged: boolean; flagReasons: string[] } | { ok: false; key: string; message: string };
+export type PullReply =
+  { ok: true; data?: unknown } | { ok: false; message?: string; fieldErrors?: Record<string, string> };
+type EntryResult =
+  { ok: true; key: string; flagged: boolean; flagReasons: string[] } | { ok: false; key: string; message: string };
 
 /**
  * What one send attempt means for a stored entry:
@@ -120,7 +150,8 @@ type EntryResult = { ok: true; key: string; flagged: boolean; flagReasons: strin
 export function pullOutcome(key: string, reply: PullReply | undefined): PullOutcome {
   if (!reply) return { kind: 'waiting' };
   if (!reply.ok) {
-    if (reply.fieldErrors && Object.keys(reply.fieldErrors).length) return { kind: 'refused', message: fieldMessage(reply.fieldErrors) };
+    if (reply.fieldErrors && Object.keys(reply.fieldErrors).length)
+      return { kind: 'refused', message: fieldMessage(reply.fieldErrors) };
     // Signed out, session ended or not allowed: the entry itself is fine; it waits for a new sign-in.
     return { kind: 'waiting', message: reply.message ?? 'Not sent yet.' };
   }
@@ -144,6 +175,15 @@ export class NoAnswer extends Error {
 export function answerWithin<T>(promise: Promise<T>, ms: number): Promise<T> {
   return new Promise<T>((resolve, reject) => {
     const timer = setTimeout(() => reject(new NoAnswer()), ms);
-    promise.then((v) => { clearTimeout(timer); resolve(v); }, (e: unknown) => { clearTimeout(timer); reject(e); });
+    promise.then(
+      (v) => {
+        clearTimeout(timer);
+        resolve(v);
+      },
+      (e: unknown) => {
+        clearTimeout(timer);
+        reject(e);
+      },
+    );
   });
 }

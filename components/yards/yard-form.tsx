@@ -14,7 +14,13 @@ type Props = {
 
 export function YardForm({ initial, keepers, onSave }: Props) {
   const router = useRouter();
-  const { form, submit, pending: isSubmitting, errors, message } = useActionForm({
+  const {
+    form,
+    submit,
+    pending: isSubmitting,
+    errors,
+    message,
+  } = useActionForm({
     schema: yardInput,
     action: onSave,
     defaultValues: initial ?? { name: '', place: '', forageNotes: '', keeperIds: [] },
@@ -22,12 +28,27 @@ export function YardForm({ initial, keepers, onSave }: Props) {
   });
   const { register } = form;
   return (
-    <form onSubmit={submit} className="card grid max-w-2xl gap-4" noValidate>
+    <form onSubmit={submit} className="grid max-w-2xl gap-4 card" noValidate>
       <TextField label="Yard name" registration={register('name')} error={errors.name} />
-      <TextField label="Place" hint="How to find it: lane, gate, landmark." registration={register('place')} error={errors.place} />
+      <TextField
+        label="Place"
+        hint="How to find it: lane, gate, landmark."
+        registration={register('place')}
+        error={errors.place}
+      />
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Latitude (optional)" inputMode="decimal" registration={register('latitude')} error={errors.latitude} />
-        <TextField label="Longitude (optional)" inputMode="decimal" registration={register('longitude')} error={errors.longitude} />
+        <TextField
+          label="Latitude (optional)"
+          inputMode="decimal"
+          registration={register('latitude')}
+          error={errors.latitude}
+        />
+        <TextField
+          label="Longitude (optional)"
+          inputMode="decimal"
+          registration={register('longitude')}
+          error={errors.longitude}
+        />
       </div>
       <label className="field" htmlFor="forageNotes">
         <span>Forage notes</span>
@@ -38,12 +59,17 @@ export function YardForm({ initial, keepers, onSave }: Props) {
         {keepers.map((k) => (
           <label key={k.id} className="flex min-h-11 items-center gap-2">
             <input type="checkbox" value={k.id} className="h-5 w-5" {...register('keeperIds')} />
-            {k.name}{k.role === 'owner' ? ' (owner)' : ''}
+            {k.name}
+            {k.role === 'owner' ? ' (owner)' : ''}
           </label>
         ))}
       </fieldset>
       <FormMessage {...message} />
-      <div><button type="submit" className="btn-primary min-h-11" disabled={isSubmitting}>{isSubmitting ? 'Saving…' : 'Save yard'}</button></div>
+      <div>
+        <button type="submit" className="btn-primary min-h-11" disabled={isSubmitting}>
+          {isSubmitting ? 'Saving…' : 'Save yard'}
+        </button>
+      </div>
     </form>
   );
 }

@@ -22,12 +22,16 @@ export function inboxPage(messages: StoredMessage[]): string {
 export function messagePage(m: StoredMessage): string {
   const attachments = m.attachments
     .map(
-      (a, i) => `<li><a href="/api/messages/${encodeURIComponent(m.id)}/attachments/${i}">${escapeHtml(a.filename ?? `attachment-${i}`)}</a>
+      (
+        a,
+        i,
+      ) => `<li><a href="/api/messages/${encodeURIComponent(m.id)}/attachments/${i}">${escapeHtml(a.filename ?? `attachment-${i}`)}</a>
 (${escapeHtml(a.contentType)}, ${a.size} bytes)</li>`,
     )
     .join('');
   // No `allow-*` tokens: scripts, forms, popups and same-origin access all stay blocked.
-  const html = m.html === null ? '' : `<h2>HTML</h2><iframe title="HTML body" sandbox srcdoc="${escapeHtml(m.html)}"></iframe>`;
+  const html =
+    m.html === null ? '' : `<h2>HTML</h2><iframe title="HTML body" sandbox srcdoc="${escapeHtml(m.html)}"></iframe>`;
   const text = m.text === null ? '' : `<h2>Text</h2><pre>${escapeHtml(m.text)}</pre>`;
   const body = `<main><p><a href="/">Inbox</a></p><h1>${escapeHtml(m.subject || '(no subject)')}</h1>
 <dl><dt>From</dt><dd>${escapeHtml(m.from)}</dd><dt>To</dt><dd>${escapeHtml(m.to)}</dd>

@@ -44,7 +44,9 @@ function handleWeb(inbox: Inbox, req: IncomingMessage, res: ServerResponse): voi
   if (method === 'GET' && parts.length === 0) return sendHtml(res, 200, inboxPage(inbox.list()));
   if (method === 'GET' && parts[0] === 'm' && parts.length === 2) {
     const message = inbox.get(parts[1]);
-    return message ? sendHtml(res, 200, messagePage(message)) : sendHtml(res, 404, page('Not found', '<p>No such message.</p>'));
+    return message
+      ? sendHtml(res, 200, messagePage(message))
+      : sendHtml(res, 404, page('Not found', '<p>No such message.</p>'));
   }
   if (parts[0] === 'api' && parts[1] === 'messages') {
     if (parts.length === 2 && method === 'GET') {

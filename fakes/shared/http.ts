@@ -20,7 +20,12 @@ export async function readBody(req: IncomingMessage, limitBytes = 1_000_000): Pr
   return Buffer.concat(chunks).toString('utf8');
 }
 
-export function sendJson(res: ServerResponse, status: number, body: unknown, headers: Record<string, string> = {}): void {
+export function sendJson(
+  res: ServerResponse,
+  status: number,
+  body: unknown,
+  headers: Record<string, string> = {},
+): void {
   const text = JSON.stringify(body, null, 2);
   res.writeHead(status, { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store', ...headers });
   res.end(text);
@@ -31,7 +36,8 @@ export function sendHtml(res: ServerResponse, status: number, html: string): voi
   res.writeHead(status, {
     'content-type': 'text/html; charset=utf-8',
     'cache-control': 'no-store',
-    'content-security-policy': "default-src 'none'; style-src 'unsafe-inline'; img-src * data:; form-action *; frame-src 'self'",
+    'content-security-policy':
+      "default-src 'none'; style-src 'unsafe-inline'; img-src * data:; form-action *; frame-src 'self'",
   });
   res.end(html);
 }

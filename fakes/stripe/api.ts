@@ -41,7 +41,12 @@ export async function handleApi(ctx: ApiContext, req: IncomingMessage, res: Serv
       return match !== null;
     });
     if (!route) {
-      throw new ApiError(404, 'invalid_request_error', `Unrecognized request URL (${method}: ${url.pathname}).`, 'resource_missing');
+      throw new ApiError(
+        404,
+        'invalid_request_error',
+        `Unrecognized request URL (${method}: ${url.pathname}).`,
+        'resource_missing',
+      );
     }
     const key = method === 'POST' ? header(req, 'idempotency-key') : undefined;
     if (key) headers['idempotency-key'] = key;

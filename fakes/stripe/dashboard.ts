@@ -8,7 +8,9 @@ function sessionRows(state: StripeState): string {
   return [...state.sessions.values()]
     .reverse()
     .map((s) => {
-      const charge = s.payment_intent ? state.charges.get(state.paymentIntents.get(s.payment_intent)?.latest_charge ?? '') : undefined;
+      const charge = s.payment_intent
+        ? state.charges.get(state.paymentIntents.get(s.payment_intent)?.latest_charge ?? '')
+        : undefined;
       const refunded = charge && charge.amount_refunded > 0 ? money(charge.amount_refunded, charge.currency) : '';
       const link = s.url ? `<a href="${e(s.url)}">pay page</a>` : '';
       return `<tr><td><code>${e(s.id)}</code></td><td>${e(s.status)} / ${e(s.payment_status)}</td>
@@ -28,14 +30,20 @@ function attempts(record: EventRecord): string {
 function eventRows(state: StripeState): string {
   return [...state.events]
     .reverse()
-    .map((r) => `<tr><td><code>${e(r.event.id)}</code></td><td>${e(r.event.type)}</td><td><code>${e(r.event.data.object.id)}</code></td>
-<td>${e(new Date(r.event.created * 1000).toISOString())}</td><td>${e(r.state)}</td><td>${attempts(r)}</td></tr>`)
+    .map(
+      (
+        r,
+      ) => `<tr><td><code>${e(r.event.id)}</code></td><td>${e(r.event.type)}</td><td><code>${e(r.event.data.object.id)}</code></td>
+<td>${e(new Date(r.event.created * 1000).toISOString())}</td><td>${e(r.state)}</td><td>${attempts(r)}</td></tr>`,
+    )
     .join('\n');
 }
 
 export function dashboardPage(state: StripeState, webhookUrl: string): string {
   const c = state.config;
-  return page('Combtrace Stripe fake', `<main><h1>Combtrace Stripe fake</h1>
+  return page(
+    'Combtrace Stripe fake',
+    `<main><h1>Combtrace Stripe fake</h1>
 <p>Webhooks go to <code>${e(webhookUrl)}</code>. Switches: deliverTwice=${c.deliverTwice}, reverseOrder=${c.reverseOrder},
 failNext=${c.failNext}, latencyMs=${c.latencyMs}. Reload to refresh.</p>
 <h2>Checkout Sessions</h2>
@@ -45,5 +53,6 @@ failNext=${c.failNext}, latencyMs=${c.latencyMs}. Reload to refresh.</p>
 <h2>Events</h2>
 <table><thead><tr><th scope="col">Id</th><th scope="col">Type</th><th scope="col">Object</th><th scope="col">Created</th>
 <th scope="col">Delivery</th><th scope="col">Attempts (HTTP status)</th></tr></thead>
-<tbody>${eventRows(state)}</tbody></table></main>`);
+<tbody>${eventRows(state)}</tbody></table></main>`,
+  );
 }

@@ -15,7 +15,8 @@ export function newId(prefix: string, length = 24): string {
 
 export const nowSeconds = (): number => Math.floor(Date.now() / 1000);
 
-export type ErrorType = 'invalid_request_error' | 'idempotency_error' | 'card_error' | 'api_error' | 'authentication_error';
+export type ErrorType =
+  'invalid_request_error' | 'idempotency_error' | 'card_error' | 'api_error' | 'authentication_error';
 
 export class ApiError extends Error {
   constructor(
@@ -44,9 +45,17 @@ export function missingParam(param: string): ApiError {
 
 /** A path id that does not exist is a 404; an id inside the parameters is a 400 on that param. */
 export function noSuch(kind: string, id: string, param?: string): ApiError {
-  return new ApiError(param ? 400 : 404, 'invalid_request_error', `No such ${kind}: '${id}'`, 'resource_missing', param ?? 'id');
+  return new ApiError(
+    param ? 400 : 404,
+    'invalid_request_error',
+    `No such ${kind}: '${id}'`,
+    'resource_missing',
+    param ?? 'id',
+  );
 }
 
 export function declined(): ApiError {
-  return new ApiError(402, 'card_error', 'Your card was declined.', 'card_declined', undefined, { decline_code: 'generic_decline' });
+  return new ApiError(402, 'card_error', 'Your card was declined.', 'card_declined', undefined, {
+    decline_code: 'generic_decline',
+  });
 }

@@ -34,7 +34,12 @@ export class IdempotencyStore {
   ): Promise<ApiResult & { replayed: boolean }> {
     if (key === undefined) return { ...(await handler()), replayed: false };
     if (key.length > MAX_KEY_LENGTH) {
-      throw new ApiError(400, 'invalid_request_error', `Idempotency key is longer than ${MAX_KEY_LENGTH} characters.`, 'idempotency_key_too_long');
+      throw new ApiError(
+        400,
+        'invalid_request_error',
+        `Idempotency key is longer than ${MAX_KEY_LENGTH} characters.`,
+        'idempotency_key_too_long',
+      );
     }
     const id = `${scope}\u0000${key}`;
     const hash = createHash('sha256').update(canonical(params)).digest('hex');
@@ -64,7 +69,8 @@ export class IdempotencyStore {
       this.running.delete(id);
     }
     // Validation failures never started the endpoint, so a corrected retry may reuse the key.
-    if (result.status !== 400 && result.status !== 404) this.saved.set(id, { ...result, path, hash, savedAt: Date.now() });
+    if (result.status !== 400 && result.status !== 404)
+      this.saved.set(id, { ...result, path, hash, savedAt: Date.now() });
     return { ...result, replayed: false };
   }
 

@@ -14,7 +14,11 @@ export function normaliseCard(card: string): string {
 }
 
 function notOpen(session: CheckoutSession): ApiError {
-  return invalid(`This Checkout Session is ${session.status} and can no longer be paid.`, undefined, 'checkout_session_not_open');
+  return invalid(
+    `This Checkout Session is ${session.status} and can no longer be paid.`,
+    undefined,
+    'checkout_session_not_open',
+  );
 }
 
 /** The success URL Stripe redirects to, with `{CHECKOUT_SESSION_ID}` filled in (docs.stripe.com/api/checkout/sessions/create, success_url). */
@@ -30,7 +34,12 @@ export function paySession(state: StripeState, session: CheckoutSession, payer: 
   if (session.status !== 'open') throw notOpen(session);
   const card = normaliseCard(payer.card ?? SUCCESS_CARD);
   if (card === DECLINE_CARD) throw declined();
-  if (card !== SUCCESS_CARD) throw invalid('Use a test card: 4242 4242 4242 4242 succeeds, 4000 0000 0000 0002 is declined.', 'card', 'invalid_number');
+  if (card !== SUCCESS_CARD)
+    throw invalid(
+      'Use a test card: 4242 4242 4242 4242 succeeds, 4000 0000 0000 0002 is declined.',
+      'card',
+      'invalid_number',
+    );
   const created = nowSeconds();
   const metadata = state.paymentIntentMetadata.get(session.id) ?? {};
   const email = session.customer_email ?? (payer.email?.trim() || null);

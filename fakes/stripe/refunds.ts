@@ -35,7 +35,12 @@ export function createRefund(state: StripeState, params: Params, request: Reques
   const charge = findCharge(state, params);
   const left = charge.amount - charge.amount_refunded;
   if (left === 0) {
-    throw new ApiError(400, 'invalid_request_error', `Charge ${charge.id} has already been refunded.`, 'charge_already_refunded');
+    throw new ApiError(
+      400,
+      'invalid_request_error',
+      `Charge ${charge.id} has already been refunded.`,
+      'charge_already_refunded',
+    );
   }
   const amount = int(params.amount, 'amount', 1) ?? left;
   if (amount > left) {

@@ -20,7 +20,11 @@ function page<T extends { id: string }>(items: T[], params: Params, url: string)
   let start = 0;
   let end = items.length;
   if (after) start = items.findIndex((i) => i.id === after) + 1;
-  if (before) end = Math.max(items.findIndex((i) => i.id === before), 0);
+  if (before)
+    end = Math.max(
+      items.findIndex((i) => i.id === before),
+      0,
+    );
   const window = before && !after ? items.slice(Math.max(end - limit, 0), end) : items.slice(start, start + limit);
   const hasMore = before && !after ? end - limit > 0 : start + limit < items.length;
   return { object: 'list', data: window, has_more: hasMore, url };
@@ -35,24 +39,39 @@ function session(state: StripeState, id: string) {
 }
 
 export const routes: Route[] = [
-  { method: 'POST', path: /^\/v1\/checkout\/sessions$/, run: (s, p, _i, _r, publicUrl) => sessionView(s, createSession(s, p, publicUrl), p) },
+  {
+    method: 'POST',
+    path: /^\/v1\/checkout\/sessions$/,
+    run: (s, p, _i, _r, publicUrl) => sessionView(s, createSession(s, p, publicUrl), p),
+  },
   {
     method: 'GET',
     path: /^\/v1\/checkout\/sessions$/,
     run: (s, p) => {
       const pi = str(p.payment_intent, 'payment_intent');
       const status = str(p.status, 'status');
-      const all = newestFirst(s.sessions.values()).filter((x) => (!pi || x.payment_intent === pi) && (!status || x.status === status));
+      const all = newestFirst(s.sessions.values()).filter(
+        (x) => (!pi || x.payment_intent === pi) && (!status || x.status === status),
+      );
       return page(all, p, '/v1/checkout/sessions');
     },
   },
-  { method: 'GET', path: /^\/v1\/checkout\/sessions\/([^/]+)$/, run: (s, p, [id]) => sessionView(s, session(s, id), p) },
+  {
+    method: 'GET',
+    path: /^\/v1\/checkout\/sessions\/([^/]+)$/,
+    run: (s, p, [id]) => sessionView(s, session(s, id), p),
+  },
   {
     method: 'POST',
     path: /^\/v1\/checkout\/sessions\/([^/]+)\/expire$/,
     run: (s, p, [id], request) => {
       const found = session(s, id);
-      if (found.status !== 'open') throw invalid('Only Checkout Sessions with a status of `open` can be expired.', undefined, 'checkout_session_not_open');
+      if (found.status !== 'open')
+        throw invalid(
+          'Only Checkout Sessions with a status of `open` can be expired.',
+          undefined,
+          'checkout_session_not_open',
+        );
       s.expire(found, request);
       return sessionView(s, found, p);
     },
@@ -73,7 +92,11 @@ export const routes: Route[] = [
       return expand.length ? { ...pi, latest_charge: s.charges.get(pi.latest_charge) ?? null } : pi;
     },
   },
-  { method: 'GET', path: /^\/v1\/charges\/([^/]+)$/, run: (s, _p, [id]) => s.charges.get(id) ?? throwMissing('charge', id) },
+  {
+    method: 'GET',
+    path: /^\/v1\/charges\/([^/]+)$/,
+    run: (s, _p, [id]) => s.charges.get(id) ?? throwMissing('charge', id),
+  },
   { method: 'POST', path: /^\/v1\/refunds$/, run: (s, p, _i, request) => createRefund(s, p, request) },
   {
     method: 'GET',
@@ -81,11 +104,17 @@ export const routes: Route[] = [
     run: (s, p) => {
       const pi = str(p.payment_intent, 'payment_intent');
       const charge = str(p.charge, 'charge');
-      const all = newestFirst(s.refunds.values()).filter((r) => (!pi || r.payment_intent === pi) && (!charge || r.charge === charge));
+      const all = newestFirst(s.refunds.values()).filter(
+        (r) => (!pi || r.payment_intent === pi) && (!charge || r.charge === charge),
+      );
       return page(all, p, '/v1/refunds');
     },
   },
-  { method: 'GET', path: /^\/v1\/refunds\/([^/]+)$/, run: (s, _p, [id]) => s.refunds.get(id) ?? throwMissing('refund', id) },
+  {
+    method: 'GET',
+    path: /^\/v1\/refunds\/([^/]+)$/,
+    run: (s, _p, [id]) => s.refunds.get(id) ?? throwMissing('refund', id),
+  },
   {
     method: 'GET',
     path: /^\/v1\/events$/,
@@ -95,7 +124,11 @@ export const routes: Route[] = [
       return page(all, p, '/v1/events');
     },
   },
-  { method: 'GET', path: /^\/v1\/events\/([^/]+)$/, run: (s, _p, [id]) => s.events.find((r) => r.event.id === id)?.event ?? throwMissing('event', id) },
+  {
+    method: 'GET',
+    path: /^\/v1\/events\/([^/]+)$/,
+    run: (s, _p, [id]) => s.events.find((r) => r.event.id === id)?.event ?? throwMissing('event', id),
+  },
 ];
 
 function throwMissing(kind: string, id: string): never {

@@ -21,7 +21,8 @@ function lineItem(raw: Params[string], i: number): LineItem {
   if (!/^[a-z]{3}$/.test(currency)) throw invalid(`Invalid currency: ${currency}`, `${at}[price_data][currency]`);
   const decimal = str(priceData.unit_amount_decimal, `${at}[price_data][unit_amount_decimal]`);
   let unitAmount = int(priceData.unit_amount, `${at}[price_data][unit_amount]`);
-  if (unitAmount === undefined && decimal !== undefined && /^\d+(\.\d{1,12})?$/.test(decimal)) unitAmount = Number(decimal);
+  if (unitAmount === undefined && decimal !== undefined && /^\d+(\.\d{1,12})?$/.test(decimal))
+    unitAmount = Number(decimal);
   if (unitAmount === undefined) throw missingParam(`${at}[price_data][unit_amount]`);
   const product = obj(priceData.product_data, `${at}[price_data][product_data]`);
   const productId = str(priceData.product, `${at}[price_data][product]`);
@@ -55,7 +56,10 @@ function expiresAt(params: Params, created: number): number {
   const value = int(params.expires_at, 'expires_at');
   if (value === undefined) return created + MAX_EXPIRY_S;
   if (value < created + MIN_EXPIRY_S || value > created + MAX_EXPIRY_S) {
-    throw invalid('The `expires_at` timestamp must be between 30 minutes and 24 hours from Checkout Session creation.', 'expires_at');
+    throw invalid(
+      'The `expires_at` timestamp must be between 30 minutes and 24 hours from Checkout Session creation.',
+      'expires_at',
+    );
   }
   return value;
 }
@@ -68,11 +72,14 @@ export function createSession(state: StripeState, params: Params, publicUrl: str
   if (rawItems.length === 0) throw missingParam('line_items');
   const items = rawItems.map(lineItem);
   const currency = items[0].currency;
-  if (items.some((i) => i.currency !== currency)) throw invalid('All line items must use the same currency.', 'line_items');
+  if (items.some((i) => i.currency !== currency))
+    throw invalid('All line items must use the same currency.', 'line_items');
   const email = str(params.customer_email, 'customer_email') || null;
-  if (email !== null && !/^[^@\s]+@[^@\s]+$/.test(email)) throw invalid(`Invalid email address: ${email}`, 'customer_email', 'email_invalid');
+  if (email !== null && !/^[^@\s]+@[^@\s]+$/.test(email))
+    throw invalid(`Invalid email address: ${email}`, 'customer_email', 'email_invalid');
   const reference = str(params.client_reference_id, 'client_reference_id') || null;
-  if (reference !== null && reference.length > 200) throw invalid('client_reference_id is longer than 200 characters.', 'client_reference_id');
+  if (reference !== null && reference.length > 200)
+    throw invalid('client_reference_id is longer than 200 characters.', 'client_reference_id');
   const created = nowSeconds();
   const id = newId('cs_test_', 58);
   const total = items.reduce((sum, i) => sum + i.amount_total, 0);
@@ -111,9 +118,14 @@ export function sessionView(state: StripeState, session: CheckoutSession, params
   for (const field of expandList(params)) {
     if (field === 'line_items') {
       const data = state.lineItems.get(session.id) ?? [];
-      view.line_items = { object: 'list', data, has_more: false, url: `/v1/checkout/sessions/${session.id}/line_items` };
+      view.line_items = {
+        object: 'list',
+        data,
+        has_more: false,
+        url: `/v1/checkout/sessions/${session.id}/line_items`,
+      };
     } else if (field === 'payment_intent') {
-      view.payment_intent = session.payment_intent ? state.paymentIntents.get(session.payment_intent) ?? null : null;
+      view.payment_intent = session.payment_intent ? (state.paymentIntents.get(session.payment_intent) ?? null) : null;
     } else {
       throw invalid(`This property cannot be expanded (${field}).`, 'expand');
     }

@@ -2,7 +2,15 @@
 import Stripe from 'stripe';
 import { newId, nowSeconds } from './errors';
 import type {
-  Charge, CheckoutSession, EventRecord, FakeConfig, LineItem, PaymentIntent, Refund, RequestRef, StripeObject,
+  Charge,
+  CheckoutSession,
+  EventRecord,
+  FakeConfig,
+  LineItem,
+  PaymentIntent,
+  Refund,
+  RequestRef,
+  StripeObject,
 } from './types';
 import { defaultConfig } from './types';
 

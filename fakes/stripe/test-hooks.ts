@@ -31,13 +31,19 @@ function applyConfig(config: FakeConfig, input: Record<string, unknown>): FakeCo
   for (const count of ['failNext', 'latencyMs'] as const) {
     const v = input[count];
     if (v === undefined) continue;
-    if (typeof v !== 'number' || !Number.isInteger(v) || v < 0) throw invalid(`${count} must be a non-negative integer.`, count);
+    if (typeof v !== 'number' || !Number.isInteger(v) || v < 0)
+      throw invalid(`${count} must be a non-negative integer.`, count);
     config[count] = v;
   }
   return config;
 }
 
-export async function handleHooks(ctx: HookContext, req: IncomingMessage, res: ServerResponse, url: URL): Promise<void> {
+export async function handleHooks(
+  ctx: HookContext,
+  req: IncomingMessage,
+  res: ServerResponse,
+  url: URL,
+): Promise<void> {
   const { state } = ctx;
   const method = req.method ?? 'GET';
   try {
@@ -60,12 +66,15 @@ export async function handleHooks(ctx: HookContext, req: IncomingMessage, res: S
       paySession(state, session, payer);
       return sendJson(res, 200, { session, redirectUrl: successUrl(session) });
     }
-    if (area === 'config' && method === 'POST') return sendJson(res, 200, applyConfig(state.config, await readJson(req)));
+    if (area === 'config' && method === 'POST')
+      return sendJson(res, 200, applyConfig(state.config, await readJson(req)));
     if (area === 'config' && method === 'GET') return sendJson(res, 200, state.config);
     if (area === 'events' && method === 'GET') {
       const type = url.searchParams.get('type');
       const session = url.searchParams.get('session');
-      const data = state.events.filter((r) => (!type || r.event.type === type) && (!session || r.sessionId === session));
+      const data = state.events.filter(
+        (r) => (!type || r.event.type === type) && (!session || r.sessionId === session),
+      );
       return sendJson(res, 200, { data });
     }
     if (area === 'reset' && method === 'POST') {

@@ -131,4 +131,9 @@ export type FakeConfig = {
   latencyMs: number;
 };
 
-export const defaultConfig = (): FakeConfig => ({ deliverTwice: false, reverseOrder: false, failNext: 0, latencyMs: 0 });
+export const defaultConfig = (): FakeConfig => ({
+  deliverTwice: false,
+  reverseOrder: false,
+  failNext: 0,
+  latencyMs: 0,
+});

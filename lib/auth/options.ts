@@ -48,7 +48,11 @@ export const authOptions: NextAuthOptions = {
       async authorize(raw, req) {
         const parsed = signInInput.safeParse(raw);
         if (!parsed.success) return null;
-        const result = await authenticate(parsed.data.email, parsed.data.password, clientIp(req?.headers as Record<string, unknown> | undefined));
+        const result = await authenticate(
+          parsed.data.email,
+          parsed.data.password,
+          clientIp(req?.headers as Record<string, unknown> | undefined),
+        );
         if (result.status === 'throttled') throw new Error('Throttled');
         if (result.status !== 'ok') return null;
         const u = result.user;
@@ -67,7 +71,13 @@ export const authOptions: NextAuthOptions = {
     },
     async session({ session, token }) {
       if (token.uid && isRole(token.role)) {
-        session.user = { id: token.uid, name: token.name ?? '', email: token.email ?? '', role: token.role, sv: token.sv ?? 0 };
+        session.user = {
+          id: token.uid,
+          name: token.name ?? '',
+          email: token.email ?? '',
+          role: token.role,
+          sv: token.sv ?? 0,
+        };
       }
       return session;
     },

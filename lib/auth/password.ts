@@ -28,7 +28,10 @@ export async function verifyPassword(password: string, stored: string | null): P
   const N = 2 ** Number(logN);
   const expected = Buffer.from(keyB64, 'base64');
   const key = await scrypt(password.normalize('NFC'), Buffer.from(saltB64, 'base64'), expected.length, {
-    N, r: Number(r), p: Number(p), maxmem: 256 * N * Number(r),
+    N,
+    r: Number(r),
+    p: Number(p),
+    maxmem: 256 * N * Number(r),
   });
   return stored !== null && timingSafeEqual(key, expected);
 }

@@ -6,21 +6,54 @@
 export const ROLES = ['owner', 'keeper', 'crew', 'customer'] as const;
 export type Role = (typeof ROLES)[number];
 
-const O = 'owner', K = 'keeper', C = 'crew', U = 'customer';
+const O = 'owner',
+  K = 'keeper',
+  C = 'crew',
+  U = 'customer';
 
 /** Each permission once, under the roles that hold it. */
 export const GRANTS = [
   {
     roles: [O, K, C],
-    permissions: ['backoffice.enter', 'yards.read', 'colonies.read', 'supers.read', 'lots.read', 'products.read', 'jarring.read', 'stock.read'],
+    permissions: [
+      'backoffice.enter',
+      'yards.read',
+      'colonies.read',
+      'supers.read',
+      'lots.read',
+      'products.read',
+      'jarring.read',
+      'stock.read',
+    ],
   },
   { roles: [O, K], permissions: ['colonies.write', 'supers.write', 'supers.import', 'reports.read'] },
-  { roles: [O, C], permissions: ['lots.write', 'jarring.write', 'stock.adjust', 'labels.print', 'orders.desk', 'orders.refund', 'trace.read'] },
+  {
+    roles: [O, C],
+    permissions: [
+      'lots.write',
+      'jarring.write',
+      'stock.adjust',
+      'labels.print',
+      'orders.desk',
+      'orders.refund',
+      'trace.read',
+    ],
+  },
   {
     roles: [O],
     permissions: [
-      'settings.manage', 'staff.manage', 'audit.read', 'yards.manage', 'treatmentKinds.manage', 'superTags.print',
-      'lots.override', 'containerTypes.manage', 'products.manage', 'jarring.override', 'labels.layouts', 'reports.send',
+      'settings.manage',
+      'staff.manage',
+      'audit.read',
+      'yards.manage',
+      'treatmentKinds.manage',
+      'superTags.print',
+      'lots.override',
+      'containerTypes.manage',
+      'products.manage',
+      'jarring.override',
+      'labels.layouts',
+      'reports.send',
     ],
   },
   { roles: [U], permissions: ['orders.own'] },

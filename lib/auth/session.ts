@@ -20,7 +20,10 @@ export async function currentUser(): Promise<SessionUser | null> {
 }
 
 export class AuthError extends Error {
-  constructor(public status: 401 | 403, message: string) {
+  constructor(
+    public status: 401 | 403,
+    message: string,
+  ) {
     super(message);
   }
 }

@@ -20,7 +20,14 @@ function linear(options: BarcodeOptions) {
   const scale = options.scale ?? 3;
   const includeText = options.includeText ?? true;
   // Separate x and y scales keep a short strip short when bars are only stretched later.
-  return { scaleX: scale, scaleY: includeText ? scale : 1, height: options.barHeightMm ?? 12, includetext: includeText, paddingwidth: 10, paddingheight: 1 };
+  return {
+    scaleX: scale,
+    scaleY: includeText ? scale : 1,
+    height: options.barHeightMm ?? 12,
+    includetext: includeText,
+    paddingwidth: 10,
+    paddingheight: 1,
+  };
 }
 
 const CACHE_LIMIT = 500;
@@ -49,28 +56,54 @@ const common = { backgroundcolor: 'FFFFFF', barcolor: '000000' } as const;
  * Quiet zones (GS1 General Specifications §5.4.4.2, §5.6.3.2, from memory): 10 modules
  * each side for GS1-128, 1 module for DataMatrix; bwip-js pads in modules × scale.
  */
-export function gs1BarcodePng(elementString: string, kind: Gs1BarcodeKind, options: BarcodeOptions = {}): Promise<Buffer> {
+export function gs1BarcodePng(
+  elementString: string,
+  kind: Gs1BarcodeKind,
+  options: BarcodeOptions = {},
+): Promise<Buffer> {
   const includeText = options.includeText ?? true;
   return cached(`${kind}\0${JSON.stringify(options)}\0${elementString}`, () => {
     // bwip-js cannot take "(" or ")" inside a value (both are in character set 82, so a
     // lot may hold them); then FNC1 is placed by hand: FNC1 first marks the symbol as
     // GS1 (GS1 General Specifications §5.4.3.7 / §5.6.3.1, from memory), GS → FNC1.
     const bracketsInData = /[()]/.test(elementString.replace(/\(\d{2,4}\)/g, ''));
-    const text = bracketsInData ? `^FNC1${gs1RawElementString(elementString).replaceAll('\x1d', '^FNC1')}` : elementString;
+    const text = bracketsInData
+      ? `^FNC1${gs1RawElementString(elementString).replaceAll('\x1d', '^FNC1')}`
+      : elementString;
     const raw = bracketsInData ? { parsefnc: true } : {};
     return kind === 'gs1-128'
-      ? bwipjs.toBuffer({ ...common, ...raw, ...linear(options), bcid: bracketsInData ? 'code128' : 'gs1-128', text, ...(bracketsInData && includeText ? { alttext: elementString } : {}) })
-      : bwipjs.toBuffer({ ...common, ...raw, bcid: bracketsInData ? 'datamatrix' : 'gs1datamatrix', text, scale: options.scale ?? 4, padding: 1 });
+      ? bwipjs.toBuffer({
+          ...common,
+          ...raw,
+          ...linear(options),
+          bcid: bracketsInData ? 'code128' : 'gs1-128',
+          text,
+          ...(bracketsInData && includeText ? { alttext: elementString } : {}),
+        })
+      : bwipjs.toBuffer({
+          ...common,
+          ...raw,
+          bcid: bracketsInData ? 'datamatrix' : 'gs1datamatrix',
+          text,
+          scale: options.scale ?? 4,
+          padding: 1,
+        });
   });
 }
 
 /** QR code (ISO/IEC 18004) for a URL or any text; error correction M, 4-module quiet zone. */
 export function qrPng(text: string, options: Pick<BarcodeOptions, 'scale'> = {}): Promise<Buffer> {
   const scale = options.scale ?? 4;
-  return cached(`qr\0${scale}\0${text}`, () => bwipjs.toBuffer({ ...common, bcid: 'qrcode', text, eclevel: 'M', scale, padding: 4 } as Parameters<typeof bwipjs.toBuffer>[0]));
+  return cached(`qr\0${scale}\0${text}`, () =>
+    bwipjs.toBuffer({ ...common, bcid: 'qrcode', text, eclevel: 'M', scale, padding: 4 } as Parameters<
+      typeof bwipjs.toBuffer
+    >[0]),
+  );
 }
 
 /** Plain Code 128 (ISO/IEC 15417), e.g. a super tag code; 10-module quiet zones. */
 export function code128Png(text: string, options: BarcodeOptions = {}): Promise<Buffer> {
-  return cached(`c128\0${JSON.stringify(options)}\0${text}`, () => bwipjs.toBuffer({ ...common, ...linear(options), bcid: 'code128', text }));
+  return cached(`c128\0${JSON.stringify(options)}\0${text}`, () =>
+    bwipjs.toBuffer({ ...common, ...linear(options), bcid: 'code128', text }),
+  );
 }

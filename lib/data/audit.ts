@@ -29,7 +29,15 @@ export async function recordAudit(entry: AuditInput, transaction: Transaction): 
   );
 }
 
-export type AuditRow = { id: number; action: string; actorName: string | null; before: unknown; after: unknown; reason: string | null; createdAt: Date };
+export type AuditRow = {
+  id: number;
+  action: string;
+  actorName: string | null;
+  before: unknown;
+  after: unknown;
+  reason: string | null;
+  createdAt: Date;
+};
 
 export async function listAudit(entityType: string, entityId: string | number, limit = 200): Promise<AuditRow[]> {
   const { AuditEntry, User } = getDb().models;
@@ -41,6 +49,14 @@ export async function listAudit(entityType: string, entityId: string | number, l
   });
   return rows.map((r) => {
     const actor = (r as unknown as { actor?: { name: string } }).actor;
-    return { id: Number(r.id), action: r.action, actorName: actor?.name ?? null, before: r.before, after: r.after, reason: r.reason ?? null, createdAt: r.createdAt };
+    return {
+      id: Number(r.id),
+      action: r.action,
+      actorName: actor?.name ?? null,
+      before: r.before,
+      after: r.after,
+      reason: r.reason ?? null,
+      createdAt: r.createdAt,
+    };
   });
 }

@@ -8,7 +8,8 @@ pg.types.setTypeParser(20, (v) => Number(v));
 // NUMERIC as numbers too (water %, refractive index): precision we store fits a double. Sequelize
 // parses DECIMAL itself (to strings), ahead of pg's parser, so its parser is replaced as well.
 pg.types.setTypeParser(1700, (v) => Number(v));
-(DataTypes as unknown as { postgres: { DECIMAL: { parse: (v: string) => number } } }).postgres.DECIMAL.parse = (v) => Number(v);
+(DataTypes as unknown as { postgres: { DECIMAL: { parse: (v: string) => number } } }).postgres.DECIMAL.parse = (v) =>
+  Number(v);
 // DATE columns stay 'YYYY-MM-DD' strings: a calendar day has no time zone.
 pg.types.setTypeParser(1082, (v) => v);
 

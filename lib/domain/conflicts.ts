@@ -56,7 +56,8 @@ export function superConflicts(
 ): SuperConflicts {
   const on = dayNumber(superOnColony.putOn);
   const off = dayNumber(superOnColony.pulled);
-  if (off < on) throw new RangeError(`Super pulled (${superOnColony.pulled}) before it was put on (${superOnColony.putOn})`);
+  if (off < on)
+    throw new RangeError(`Super pulled (${superOnColony.pulled}) before it was put on (${superOnColony.putOn})`);
   const reasons: string[] = [];
 
   for (const f of records.feedings) {
@@ -77,10 +78,11 @@ export function superConflicts(
     const start = dayNumber(t.appliedOn);
     const end = t.removedOn === null ? off : dayNumber(t.removedOn) + t.waitingDays;
     if (!overlaps(on, off, start, end)) continue;
-    const span = t.removedOn === null
-      ? `applied ${t.appliedOn} (still on)`
-      : `applied ${t.appliedOn}, removed ${t.removedOn}` +
-        (t.waitingDays > 0 ? `, waiting period to ${isoDate(end)}` : '');
+    const span =
+      t.removedOn === null
+        ? `applied ${t.appliedOn} (still on)`
+        : `applied ${t.appliedOn}, removed ${t.removedOn}` +
+          (t.waitingDays > 0 ? `, waiting period to ${isoDate(end)}` : '');
     reasons.push(`${treatmentName(t)} ${span} while this super was on; its label does not allow honey supers`);
   }
 

@@ -3,7 +3,8 @@
  * carries a message a person understands. lib/http maps the kind to an HTTP status and a server
  * action to `{ ok: false, message }`; nothing below the edge knows about HTTP.
  */
-export type RefusalKind = 'invalid' | 'forbidden' | 'not-found' | 'conflict' | 'too-large' | 'unsupported-type' | 'unavailable';
+export type RefusalKind =
+  'invalid' | 'forbidden' | 'not-found' | 'conflict' | 'too-large' | 'unsupported-type' | 'unavailable';
 
 export class DomainError extends Error {
   constructor(

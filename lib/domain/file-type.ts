@@ -39,7 +39,9 @@ export function labFileRefusal(bytes: Uint8Array): string | null {
   if (bytes.length > LAB_FILE_MAX_BYTES) return 'The file is larger than 10 MB.';
   if (sniffLabFileType(bytes)) return null;
   const head = new TextDecoder('utf-8', { fatal: false }).decode(bytes.slice(0, 512)).trimStart().toLowerCase();
-  if (head.startsWith('<svg') || (head.startsWith('<?xml') && head.includes('<svg'))) return 'SVG images are not accepted: upload a PDF, PNG, JPEG or WebP file.';
-  if (head.startsWith('<!doctype html') || head.startsWith('<html') || head.startsWith('<')) return 'This file is a web page or markup, not a lab report: upload a PDF, PNG, JPEG or WebP file.';
+  if (head.startsWith('<svg') || (head.startsWith('<?xml') && head.includes('<svg')))
+    return 'SVG images are not accepted: upload a PDF, PNG, JPEG or WebP file.';
+  if (head.startsWith('<!doctype html') || head.startsWith('<html') || head.startsWith('<'))
+    return 'This file is a web page or markup, not a lab report: upload a PDF, PNG, JPEG or WebP file.';
   return 'This file is not a PDF, PNG, JPEG or WebP file (checked from its content, not its name).';
 }

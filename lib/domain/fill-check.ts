@@ -47,8 +47,15 @@ function meanOf(samples: number[]): number {
 const EPS = 1e-9;
 
 export type FillAssessment = {
-  pass: boolean; mean: number; tne: number; t1: number; t2: number;
-  belowT1: number; belowT2: number; allowedBelowT1: number; reasons: string[];
+  pass: boolean;
+  mean: number;
+  tne: number;
+  t1: number;
+  t2: number;
+  belowT1: number;
+  belowT2: number;
+  allowedBelowT1: number;
+  reasons: string[];
 };
 
 /**
@@ -66,7 +73,9 @@ export function assessFill(nominalGrams: number, sampleGrams: number[]): FillAss
   const reasons: string[] = [];
   if (mean < nominalGrams - EPS) reasons.push(`Mean fill ${mean.toFixed(1)} g is below the nominal ${nominalGrams} g`);
   if (belowT1 > allowedBelowT1) {
-    reasons.push(`${belowT1} of ${sampleGrams.length} jars are below T1 (${t1.toFixed(1)} g); at most ${allowedBelowT1} allowed`);
+    reasons.push(
+      `${belowT1} of ${sampleGrams.length} jars are below T1 (${t1.toFixed(1)} g); at most ${allowedBelowT1} allowed`,
+    );
   }
   if (belowT2 > 0) reasons.push(`${belowT2} jar(s) below T2 (${t2.toFixed(1)} g); none allowed`);
   return { pass: reasons.length === 0, mean, tne, t1, t2, belowT1, belowT2, allowedBelowT1, reasons };
@@ -84,9 +93,12 @@ export function assessFillUs(
   const lowerLimit = nominalGrams - mavGrams;
   const shortBeyondMav = sampleGrams.filter((s) => s < lowerLimit - EPS).length;
   const reasons: string[] = [];
-  if (mean < nominalGrams - EPS) reasons.push(`Average fill ${mean.toFixed(1)} g is below the labeled ${nominalGrams} g`);
+  if (mean < nominalGrams - EPS)
+    reasons.push(`Average fill ${mean.toFixed(1)} g is below the labeled ${nominalGrams} g`);
   if (shortBeyondMav > 0) {
-    reasons.push(`${shortBeyondMav} jar(s) short by more than the MAV of ${mavGrams} g (below ${lowerLimit.toFixed(1)} g)`);
+    reasons.push(
+      `${shortBeyondMav} jar(s) short by more than the MAV of ${mavGrams} g (below ${lowerLimit.toFixed(1)} g)`,
+    );
   }
   return { pass: reasons.length === 0, mean, mav: mavGrams, lowerLimit, shortBeyondMav, reasons };
 }

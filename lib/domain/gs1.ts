@@ -84,7 +84,15 @@ export function assertGs1Lot(lot: string): void {
  * Specifications §7.8, concatenation — section from memory).
  * A Date contributes its UTC year, month and day.
  */
-export function gs1HumanReadable({ gtin, bestBefore, lot }: { gtin: string; bestBefore: Date | string; lot: string }): string {
+export function gs1HumanReadable({
+  gtin,
+  bestBefore,
+  lot,
+}: {
+  gtin: string;
+  bestBefore: Date | string;
+  lot: string;
+}): string {
   if (!isValidGtin(gtin)) throw new Error(`Invalid GTIN "${gtin}"`);
   assertGs1Lot(lot);
   return `(01)${gtin14(gtin)}(15)${yymmdd(bestBefore)}(10)${lot}`;
@@ -98,9 +106,28 @@ export type Gs1Fields = { gtin?: string; bestBefore?: string; lot?: string };
  * variable-length and ends at a GS (FNC1) or at the end of the data.
  */
 const PREDEFINED_LENGTH: Record<string, number> = {
-  '00': 20, '01': 16, '02': 16, '03': 16, '04': 18, '11': 8, '12': 8, '13': 8, '14': 8,
-  '15': 8, '16': 8, '17': 8, '18': 8, '19': 8, '20': 4, '31': 10, '32': 10, '33': 10,
-  '34': 10, '35': 10, '36': 10, '41': 16,
+  '00': 20,
+  '01': 16,
+  '02': 16,
+  '03': 16,
+  '04': 18,
+  '11': 8,
+  '12': 8,
+  '13': 8,
+  '14': 8,
+  '15': 8,
+  '16': 8,
+  '17': 8,
+  '18': 8,
+  '19': 8,
+  '20': 4,
+  '31': 10,
+  '32': 10,
+  '33': 10,
+  '34': 10,
+  '35': 10,
+  '36': 10,
+  '41': 16,
 };
 
 const GS = '\x1d';
@@ -135,7 +162,10 @@ function splitBracketed(s: string): { ai: string; value: string }[] {
   const marks: { ai: string; start: number; end: number }[] = [];
   for (let m = re.exec(s); m; m = re.exec(s)) marks.push({ ai: m[1], start: m.index, end: re.lastIndex });
   if (marks.length === 0 || marks[0].start !== 0) return [];
-  return marks.map((mark, i) => ({ ai: mark.ai, value: s.slice(mark.end, i + 1 < marks.length ? marks[i + 1].start : s.length) }));
+  return marks.map((mark, i) => ({
+    ai: mark.ai,
+    value: s.slice(mark.end, i + 1 < marks.length ? marks[i + 1].start : s.length),
+  }));
 }
 
 function parseBracketed(s: string): Gs1Fields {
@@ -164,7 +194,10 @@ function parseRaw(s: string): Gs1Fields {
   const out: Gs1Fields = {};
   let i = 0;
   while (i < s.length) {
-    if (s[i] === GS) { i++; continue; }
+    if (s[i] === GS) {
+      i++;
+      continue;
+    }
     const head = s.slice(i, i + 2);
     if (!/^\d\d$/.test(head)) return out;
     const fixed = PREDEFINED_LENGTH[head];

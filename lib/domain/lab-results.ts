@@ -28,10 +28,14 @@ export function checkLabResults(
     failures.push(`HMF ${results.hmfMgKg} mg/kg is above the ${limits.hmfMaxMgKg} mg/kg limit`);
   }
   if (present(results.diastaseSchade, 'Diastase activity') && results.diastaseSchade < limits.diastaseMinSchade) {
-    failures.push(`Diastase activity ${results.diastaseSchade} Schade is below the ${limits.diastaseMinSchade} Schade minimum`);
+    failures.push(
+      `Diastase activity ${results.diastaseSchade} Schade is below the ${limits.diastaseMinSchade} Schade minimum`,
+    );
   }
   if (present(results.insolubleG100g, 'Water-insoluble content') && results.insolubleG100g > limits.insolubleMaxG100g) {
-    failures.push(`Water-insoluble content ${results.insolubleG100g} g/100 g is above the ${limits.insolubleMaxG100g} g/100 g limit`);
+    failures.push(
+      `Water-insoluble content ${results.insolubleG100g} g/100 g is above the ${limits.insolubleMaxG100g} g/100 g limit`,
+    );
   }
   return { pass: failures.length === 0, failures };
 }

@@ -44,12 +44,14 @@ function pageSizeMm(layout: LabelLayout): { widthMm: number; heightMm: number } 
 export function validateLayout(layout: LabelLayout): string[] {
   const errors: string[] = [];
   const finite = (v: number) => Number.isFinite(v);
-  if (!(layout.labelWidthMm > 0) || !(layout.labelHeightMm > 0)) errors.push('Label width and height must be above 0 mm.');
+  if (!(layout.labelWidthMm > 0) || !(layout.labelHeightMm > 0))
+    errors.push('Label width and height must be above 0 mm.');
   for (const key of ['marginTopMm', 'marginLeftMm', 'gapXMm', 'gapYMm', 'offsetXMm', 'offsetYMm'] as const) {
     if (!finite(layout[key])) errors.push(`${key} must be a number.`);
   }
   if (layout.paper === 'roll') return errors;
-  if (!Number.isInteger(layout.columns) || layout.columns < 1) errors.push('Columns must be a whole number of at least 1.');
+  if (!Number.isInteger(layout.columns) || layout.columns < 1)
+    errors.push('Columns must be a whole number of at least 1.');
   if (!Number.isInteger(layout.rows) || layout.rows < 1) errors.push('Rows must be a whole number of at least 1.');
   if (layout.marginTopMm < 0 || layout.marginLeftMm < 0) errors.push('Margins cannot be negative.');
   if (layout.gapXMm < 0 || layout.gapYMm < 0) errors.push('Gaps cannot be negative.');
@@ -63,10 +65,14 @@ export function validateLayout(layout: LabelLayout): string[] {
   if (left < -FIT_TOLERANCE_MM) errors.push('Labels start left of the paper edge (check margin and offset).');
   if (top < -FIT_TOLERANCE_MM) errors.push('Labels start above the paper edge (check margin and offset).');
   if (right > paper.widthMm + FIT_TOLERANCE_MM) {
-    errors.push(`Labels are ${(right - paper.widthMm).toFixed(1)} mm too wide for ${layout.paper.toUpperCase()} paper.`);
+    errors.push(
+      `Labels are ${(right - paper.widthMm).toFixed(1)} mm too wide for ${layout.paper.toUpperCase()} paper.`,
+    );
   }
   if (bottom > paper.heightMm + FIT_TOLERANCE_MM) {
-    errors.push(`Labels are ${(bottom - paper.heightMm).toFixed(1)} mm too tall for ${layout.paper.toUpperCase()} paper.`);
+    errors.push(
+      `Labels are ${(bottom - paper.heightMm).toFixed(1)} mm too tall for ${layout.paper.toUpperCase()} paper.`,
+    );
   }
   return errors;
 }
@@ -96,11 +102,66 @@ const base = { gapYMm: 0, offsetXMm: 0, offsetYMm: 0 };
 
 /** Common generic sheet sizes (common practice; measure your own stock and adjust). */
 export const BUILT_IN_LAYOUTS: readonly LabelLayout[] = [
-  { ...base, name: 'A4 3×7 — 63.5 × 38.1 mm', paper: 'a4', labelWidthMm: 63.5, labelHeightMm: 38.1, columns: 3, rows: 7, marginTopMm: 15.15, marginLeftMm: 7.25, gapXMm: 2.5 },
-  { ...base, name: 'A4 2×7 — 99.1 × 38.1 mm', paper: 'a4', labelWidthMm: 99.1, labelHeightMm: 38.1, columns: 2, rows: 7, marginTopMm: 15.15, marginLeftMm: 4.65, gapXMm: 2.5 },
-  { ...base, name: 'Letter 3×10 — 66.7 × 25.4 mm', paper: 'letter', labelWidthMm: 66.675, labelHeightMm: 25.4, columns: 3, rows: 10, marginTopMm: 12.7, marginLeftMm: 4.7625, gapXMm: 3.175 },
-  { ...base, name: 'Letter 2×5 — 101.6 × 50.8 mm', paper: 'letter', labelWidthMm: 101.6, labelHeightMm: 50.8, columns: 2, rows: 5, marginTopMm: 12.7, marginLeftMm: 3.96875, gapXMm: 4.7625 },
-  { ...base, name: 'Roll 60 × 40 mm', paper: 'roll', labelWidthMm: 60, labelHeightMm: 40, columns: 1, rows: 1, marginTopMm: 0, marginLeftMm: 0, gapXMm: 0 },
+  {
+    ...base,
+    name: 'A4 3×7 — 63.5 × 38.1 mm',
+    paper: 'a4',
+    labelWidthMm: 63.5,
+    labelHeightMm: 38.1,
+    columns: 3,
+    rows: 7,
+    marginTopMm: 15.15,
+    marginLeftMm: 7.25,
+    gapXMm: 2.5,
+  },
+  {
+    ...base,
+    name: 'A4 2×7 — 99.1 × 38.1 mm',
+    paper: 'a4',
+    labelWidthMm: 99.1,
+    labelHeightMm: 38.1,
+    columns: 2,
+    rows: 7,
+    marginTopMm: 15.15,
+    marginLeftMm: 4.65,
+    gapXMm: 2.5,
+  },
+  {
+    ...base,
+    name: 'Letter 3×10 — 66.7 × 25.4 mm',
+    paper: 'letter',
+    labelWidthMm: 66.675,
+    labelHeightMm: 25.4,
+    columns: 3,
+    rows: 10,
+    marginTopMm: 12.7,
+    marginLeftMm: 4.7625,
+    gapXMm: 3.175,
+  },
+  {
+    ...base,
+    name: 'Letter 2×5 — 101.6 × 50.8 mm',
+    paper: 'letter',
+    labelWidthMm: 101.6,
+    labelHeightMm: 50.8,
+    columns: 2,
+    rows: 5,
+    marginTopMm: 12.7,
+    marginLeftMm: 3.96875,
+    gapXMm: 4.7625,
+  },
+  {
+    ...base,
+    name: 'Roll 60 × 40 mm',
+    paper: 'roll',
+    labelWidthMm: 60,
+    labelHeightMm: 40,
+    columns: 1,
+    rows: 1,
+    marginTopMm: 0,
+    marginLeftMm: 0,
+    gapXMm: 0,
+  },
 ];
 
 /** A built-in layout by its name, or undefined. */

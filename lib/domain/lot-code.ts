@@ -14,7 +14,8 @@ const CODE = /^([A-Za-z0-9]{0,8}?)(\d{2})-(\d{3,})$/;
 export function lotCode(prefix: string, year: number, sequence: number): string {
   if (!PREFIX.test(prefix)) throw new RangeError(`Lot-code prefix must be up to 8 letters or digits: "${prefix}"`);
   if (!Number.isInteger(year) || year < 0) throw new RangeError(`Not a calendar year: ${year}`);
-  if (!Number.isInteger(sequence) || sequence < 1) throw new RangeError(`Lot sequence must be a whole number ≥ 1: ${sequence}`);
+  if (!Number.isInteger(sequence) || sequence < 1)
+    throw new RangeError(`Lot sequence must be a whole number ≥ 1: ${sequence}`);
   return `${prefix}${String(year % 100).padStart(2, '0')}-${String(sequence).padStart(3, '0')}`;
 }
 

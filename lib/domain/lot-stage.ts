@@ -27,7 +27,8 @@ export type StageContext = {
   remainingGrams: number;
   reason?: string;
 };
-export type StageResult = { ok: true; stage: LotStage; holdReasons?: string[] } | { ok: false; error: string; holdReasons?: string[] };
+export type StageResult =
+  { ok: true; stage: LotStage; holdReasons?: string[] } | { ok: false; error: string; holdReasons?: string[] };
 
 const MIN_REASON_LENGTH = 5;
 
@@ -61,14 +62,17 @@ export function nextStage(current: LotStage, target: LotStage, ctx: StageContext
   }
 
   if (current === 'held') {
-    if (target !== 'released' && target !== 'extracted') return refuse(`A held lot cannot go to ${target.replace('_', ' ')}`);
+    if (target !== 'released' && target !== 'extracted')
+      return refuse(`A held lot cannot go to ${target.replace('_', ' ')}`);
     if (ctx.role !== 'owner') return refuse('Only the owner can take a lot out of held');
     if (!hasReason(ctx)) return refuse('Write a reason (at least 5 characters) to take the lot out of held');
     return { ok: true, stage: target };
   }
 
   if (current === 'gathering' && target === 'extracted') {
-    return ctx.hasWeights ? { ok: true, stage: 'extracted' } : refuse('Record the container weights before marking the lot extracted');
+    return ctx.hasWeights
+      ? { ok: true, stage: 'extracted' }
+      : refuse('Record the container weights before marking the lot extracted');
   }
 
   if (current === 'extracted' && target === 'released') {

@@ -11,7 +11,8 @@ export function containersNetGrams(containers: ContainerWeight[]): number {
   let net = 0;
   for (const c of containers) {
     if (c.voided) continue;
-    if (!Number.isInteger(c.grossGrams) || !Number.isInteger(c.tareGrams)) throw new RangeError('Weights must be whole grams');
+    if (!Number.isInteger(c.grossGrams) || !Number.isInteger(c.tareGrams))
+      throw new RangeError('Weights must be whole grams');
     if (c.tareGrams < 0 || c.grossGrams <= c.tareGrams) throw new RangeError('Gross weight must be above the tare');
     net += c.grossGrams - c.tareGrams;
   }
@@ -22,8 +23,14 @@ export function containersNetGrams(containers: ContainerWeight[]): number {
  * Extraction yield: the lot's net weight against the honey its supers held (measured
  * full − empty, or estimated). Null when the supers hold nothing to compare against.
  */
-export function extractionYield(lotNetGrams: number, superHoney: { grams: number; measured: boolean }[]): {
-  expectedGrams: number; pct: number | null; measuredCount: number; estimatedCount: number;
+export function extractionYield(
+  lotNetGrams: number,
+  superHoney: { grams: number; measured: boolean }[],
+): {
+  expectedGrams: number;
+  pct: number | null;
+  measuredCount: number;
+  estimatedCount: number;
 } {
   const expectedGrams = superHoney.reduce((sum, s) => sum + Math.max(0, s.grams), 0);
   const measuredCount = superHoney.filter((s) => s.measured).length;

@@ -27,7 +27,9 @@ function correctedTo20(refractiveIndex: number, temperatureC: number): number {
   }
   const nD20 = refractiveIndex + RI_PER_DEGREE * (temperatureC - 20);
   if (nD20 < MIN_HONEY_RI || nD20 > MAX_HONEY_RI) {
-    throw new RangeError(`Refractive index ${nD20.toFixed(4)} at 20 °C is not a honey reading (${MIN_HONEY_RI}–${MAX_HONEY_RI})`);
+    throw new RangeError(
+      `Refractive index ${nD20.toFixed(4)} at 20 °C is not a honey reading (${MIN_HONEY_RI}–${MAX_HONEY_RI})`,
+    );
   }
   return nD20;
 }

@@ -24,8 +24,14 @@ export function shippingCents(weightGrams: number, bands: ShippingBand[]): numbe
 export function parcelWeightGrams(lines: ParcelLine[]): number {
   let total = 0;
   for (const line of lines) {
-    if (!Number.isInteger(line.quantity) || line.quantity < 0) throw new RangeError('Quantity must be a whole number ≥ 0');
-    if (!Number.isFinite(line.netGrams) || line.netGrams < 0 || !Number.isFinite(line.containerGrams) || line.containerGrams < 0) {
+    if (!Number.isInteger(line.quantity) || line.quantity < 0)
+      throw new RangeError('Quantity must be a whole number ≥ 0');
+    if (
+      !Number.isFinite(line.netGrams) ||
+      line.netGrams < 0 ||
+      !Number.isFinite(line.containerGrams) ||
+      line.containerGrams < 0
+    ) {
       throw new RangeError('Net and container weights must be numbers ≥ 0');
     }
     total += line.quantity * (line.netGrams + line.containerGrams);

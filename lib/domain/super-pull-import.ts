@@ -11,12 +11,24 @@ import { z } from 'zod';
 import { toGrams } from './units';
 
 export type PullMapping = {
-  colonyCode: string; pulledOn: string; depth: string;
-  frameCount?: string; fullWeight?: string; weightUnit?: string; cappedFrames?: string; tagCode?: string;
+  colonyCode: string;
+  pulledOn: string;
+  depth: string;
+  frameCount?: string;
+  fullWeight?: string;
+  weightUnit?: string;
+  cappedFrames?: string;
+  tagCode?: string;
 };
 export type ValidPullRow = {
-  row: number; colonyCode: string; pulledOn: string; depth: 'deep' | 'medium' | 'shallow';
-  frameCount: number; fullGrams: number | null; cappedFrames: number | null; tagCode: string | null;
+  row: number;
+  colonyCode: string;
+  pulledOn: string;
+  depth: 'deep' | 'medium' | 'shallow';
+  frameCount: number;
+  fullGrams: number | null;
+  cappedFrames: number | null;
+  tagCode: string | null;
 };
 export type PullRowError = { row: number; messages: string[]; raw: Record<string, string> };
 export type PullImportOptions = { today?: string; defaultWeightUnit?: 'kg' | 'lb'; defaultFrameCount?: number };
@@ -64,14 +76,17 @@ export function validatePullRows(
 
     const pulledOn = get(mapping.pulledOn);
     if (!pulledOn) messages.push('Pull date is missing');
-    else if (!isoDate.safeParse(pulledOn).success) messages.push(`Date "${pulledOn}" is not a YYYY-MM-DD date (only ISO dates are accepted)`);
+    else if (!isoDate.safeParse(pulledOn).success)
+      messages.push(`Date "${pulledOn}" is not a YYYY-MM-DD date (only ISO dates are accepted)`);
     else if (pulledOn > today) messages.push(`Date ${pulledOn} is in the future`);
 
     const depth = depthSchema.safeParse(get(mapping.depth).toLowerCase());
     if (!depth.success) messages.push(`Box depth "${get(mapping.depth)}" is not deep, medium or shallow`);
 
     const frameText = get(mapping.frameCount);
-    const frameCount = frameText ? frameCountSchema.safeParse(decimal(frameText)) : frameCountSchema.safeParse(opts.defaultFrameCount ?? 10);
+    const frameCount = frameText
+      ? frameCountSchema.safeParse(decimal(frameText))
+      : frameCountSchema.safeParse(opts.defaultFrameCount ?? 10);
     if (!frameCount.success) messages.push(`Frame count "${frameText}" must be a whole number from 1 to 12`);
 
     let cappedFrames: number | null = null;
@@ -79,7 +94,8 @@ export function validatePullRows(
     if (cappedText) {
       const capped = decimal(cappedText);
       const max = frameCount.success ? frameCount.data : 12;
-      if (capped === null || !Number.isInteger(capped) || capped > max) messages.push(`Capped frames "${cappedText}" must be a whole number from 0 to ${max}`);
+      if (capped === null || !Number.isInteger(capped) || capped > max)
+        messages.push(`Capped frames "${cappedText}" must be a whole number from 0 to ${max}`);
       else cappedFrames = capped;
     }
 
@@ -93,7 +109,8 @@ export function validatePullRows(
       if (value === null) messages.push(`Full weight "${weightText}" is not a number`);
       else if (unit.success) {
         const grams = toGrams(value, unit.data.startsWith('kg') ? 'kg' : 'lb');
-        if (grams < MIN_FULL_GRAMS || grams > MAX_FULL_GRAMS) messages.push(`Full weight ${weightText} ${unit.data} is outside 2–45 kg for a full super`);
+        if (grams < MIN_FULL_GRAMS || grams > MAX_FULL_GRAMS)
+          messages.push(`Full weight ${weightText} ${unit.data} is outside 2–45 kg for a full super`);
         else fullGrams = grams;
       }
     }
@@ -102,7 +119,8 @@ export function validatePullRows(
     const key = colonyText && pulledOn ? `${colonyCode ?? colonyText}|${pulledOn}|${tagCode ?? ''}` : null;
     const firstRow = key === null ? undefined : seenKeys.get(key);
     if (firstRow !== undefined) messages.push(`Same colony, date and tag as row ${firstRow}`);
-    else if (tagCode && seenTags.has(tagCode)) messages.push(`Tag code ${tagCode} is also on row ${seenTags.get(tagCode)}`);
+    else if (tagCode && seenTags.has(tagCode))
+      messages.push(`Tag code ${tagCode} is also on row ${seenTags.get(tagCode)}`);
     if (tagCode && known.existingTagCodes.has(tagCode)) messages.push(`Tag code ${tagCode} is already used`);
     if (key !== null && firstRow === undefined) seenKeys.set(key, row);
     if (tagCode && !seenTags.has(tagCode)) seenTags.set(tagCode, row);
@@ -111,7 +129,16 @@ export function validatePullRows(
       errors.push({ row, messages, raw });
       return;
     }
-    valid.push({ row, colonyCode, pulledOn, depth: depth.data, frameCount: frameCount.data, fullGrams, cappedFrames, tagCode });
+    valid.push({
+      row,
+      colonyCode,
+      pulledOn,
+      depth: depth.data,
+      frameCount: frameCount.data,
+      fullGrams,
+      cappedFrames,
+      tagCode,
+    });
   });
 
   return { valid, errors };

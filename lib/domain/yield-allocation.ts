@@ -21,7 +21,8 @@ export const DEFAULT_SUPER_ESTIMATES: SuperEstimates = {
 
 /** Split a whole-number total across shares in proportion to their weights (Hamilton). */
 export function allocateByWeight(totalGrams: number, shares: Share[]): Record<string, number> {
-  if (!Number.isInteger(totalGrams) || totalGrams < 0) throw new RangeError(`Total must be a whole number ≥ 0: ${totalGrams}`);
+  if (!Number.isInteger(totalGrams) || totalGrams < 0)
+    throw new RangeError(`Total must be a whole number ≥ 0: ${totalGrams}`);
   const ids = new Set(shares.map((s) => s.id));
   if (ids.size !== shares.length) throw new RangeError('Share ids must be unique');
   const weighted = shares.filter((s) => Number.isFinite(s.grams) && s.grams > 0);
@@ -32,7 +33,8 @@ export function allocateByWeight(totalGrams: number, shares: Share[]): Record<st
   for (const s of shares) result[s.id] = 0;
   // Integer weights (the usual case: grams, cents) use exact integer remainders, so
   // ties are real ties; otherwise floating point.
-  const exactInts = weighted.every((s) => Number.isInteger(s.grams)) && totalGrams * weightSum <= Number.MAX_SAFE_INTEGER;
+  const exactInts =
+    weighted.every((s) => Number.isInteger(s.grams)) && totalGrams * weightSum <= Number.MAX_SAFE_INTEGER;
   const parts = weighted.map((s) => {
     if (exactInts) {
       const remainder = (totalGrams * s.grams) % weightSum;
@@ -61,10 +63,22 @@ export function allocateRevenue(totalCents: number, shares: { id: string; grams:
  * capped frames (or the frame count when capped frames are unknown).
  */
 export function superHoneyGrams(
-  s: { fullGrams: number | null; emptyGrams: number | null; depth: SuperDepth; frameCount: number; cappedFrames: number | null },
+  s: {
+    fullGrams: number | null;
+    emptyGrams: number | null;
+    depth: SuperDepth;
+    frameCount: number;
+    cappedFrames: number | null;
+  },
   estimates: SuperEstimates = DEFAULT_SUPER_ESTIMATES,
 ): { grams: number; measured: boolean } {
-  if (s.fullGrams !== null && s.emptyGrams !== null && s.fullGrams > 0 && s.emptyGrams > 0 && s.fullGrams > s.emptyGrams) {
+  if (
+    s.fullGrams !== null &&
+    s.emptyGrams !== null &&
+    s.fullGrams > 0 &&
+    s.emptyGrams > 0 &&
+    s.fullGrams > s.emptyGrams
+  ) {
     return { grams: Math.round(s.fullGrams - s.emptyGrams), measured: true };
   }
   const { gramsPerBox, framesPerBox } = estimates[s.depth];
@@ -93,7 +107,8 @@ export function allocateLotTree(lots: LotNode[], lotId: string): Record<string, 
       ...lot.parents.map((p) => ({ id: `l:${p.lotId}`, grams: p.grams })),
     ];
     const hasWeight = shares.some((s) => Number.isFinite(s.grams) && s.grams > 0);
-    if (grams > 0 && !hasWeight) throw new RangeError(`Lot ${id} has no weighed or estimated source to share ${grams} g to`);
+    if (grams > 0 && !hasWeight)
+      throw new RangeError(`Lot ${id} has no weighed or estimated source to share ${grams} g to`);
     const split = hasWeight ? allocateByWeight(grams, shares) : Object.fromEntries(shares.map((s) => [s.id, 0]));
     for (const s of lot.supers) result[s.id] = (result[s.id] ?? 0) + split[`s:${s.id}`];
     for (const p of lot.parents) pass(p.lotId, split[`l:${p.lotId}`], [...path, id]);
@@ -115,7 +130,9 @@ export const NOT_ATTRIBUTED = 'none';
  * rather than being pushed onto the colonies that are known.
  */
 export function roundLotShares(
-  ownGrams: number, revenueCents: number, shares: { id: string; frac: number }[],
+  ownGrams: number,
+  revenueCents: number,
+  shares: { id: string; frac: number }[],
 ): { grams: Record<string, number>; cents: Record<string, number> } {
   const fracSum = shares.reduce((a, s) => a + (s.frac > 0 ? s.frac : 0), 0);
   const list: Share[] = shares.map((s) => ({ id: s.id, grams: s.frac }));

@@ -5,7 +5,11 @@ import { toFieldErrors } from '@/lib/schemas/result';
 import { DomainError, type RefusalKind } from '@/lib/domain/errors';
 
 /** A JSON answer with a message a person understands. */
-export function jsonError(status: 400 | 401 | 403 | 404 | 409 | 413 | 415 | 422 | 429 | 503, message: string, extra?: Record<string, unknown>): Response {
+export function jsonError(
+  status: 400 | 401 | 403 | 404 | 409 | 413 | 415 | 422 | 429 | 503,
+  message: string,
+  extra?: Record<string, unknown>,
+): Response {
   return Response.json({ error: message, ...extra }, { status, headers: { 'Cache-Control': 'no-store' } });
 }
 
@@ -22,7 +26,10 @@ export const STATUS_OF: Record<RefusalKind, 400 | 403 | 404 | 409 | 413 | 415 | 
 
 /** A refusal made at the edge itself (route handlers, uploads, request bodies): a status and a message. */
 export class HttpError extends Error {
-  constructor(public status: 400 | 404 | 409 | 413 | 415 | 422 | 503, message: string) {
+  constructor(
+    public status: 400 | 404 | 409 | 413 | 415 | 422 | 503,
+    message: string,
+  ) {
     super(message);
   }
 }

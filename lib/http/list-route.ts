@@ -8,7 +8,11 @@ import { handleRouteError } from './json';
  * A GET handler for one page of a list as JSON: the caller's permission, the query string through
  * its zod schema (blank parameters dropped), then `list` for that user; never cached.
  */
-export function listRoute<Q>(permission: Permission, schema: z.ZodType<Q>, list: (user: SessionUser, query: Q) => Promise<unknown>) {
+export function listRoute<Q>(
+  permission: Permission,
+  schema: z.ZodType<Q>,
+  list: (user: SessionUser, query: Q) => Promise<unknown>,
+) {
   return async function GET(req: Request): Promise<Response> {
     try {
       const user = await authorize(permission);

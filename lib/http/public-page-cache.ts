@@ -23,7 +23,16 @@ const SESSION_COOKIE = /(?:^|;\s*)(?:__Secure-)?next-auth\.session-token(?:\.\d+
 /** Client-side navigation, prefetches and server actions ask for other things than the HTML page. */
 const NOT_A_PAGE_VIEW = ['rsc', 'next-router-prefetch', 'next-router-state-tree', 'next-action', RENDER_HEADER];
 /** Headers that describe one transfer (or one visitor), never copied into a stored page. */
-const NOT_STORED = new Set(['set-cookie', 'content-length', 'content-encoding', 'transfer-encoding', 'connection', 'keep-alive', 'date', 'content-security-policy']);
+const NOT_STORED = new Set([
+  'set-cookie',
+  'content-length',
+  'content-encoding',
+  'transfer-encoding',
+  'connection',
+  'keep-alive',
+  'date',
+  'content-security-policy',
+]);
 
 export type StoredPage = { body: string; nonce: string; status: number; headers: [string, string][] };
 
@@ -50,12 +59,19 @@ export function respondWithNonce(page: StoredPage, nonce: string): Response {
  */
 export async function storablePage(res: Response): Promise<StoredPage | null> {
   const nonce = nonceOf(res.headers.get('content-security-policy'));
-  if (res.status !== 200 || !nonce || res.headers.has('set-cookie') || !res.headers.get('content-type')?.startsWith('text/html')) {
+  if (
+    res.status !== 200 ||
+    !nonce ||
+    res.headers.has('set-cookie') ||
+    !res.headers.get('content-type')?.startsWith('text/html')
+  ) {
     await res.body?.cancel();
     return null;
   }
   const headers: [string, string][] = [];
-  res.headers.forEach((value, name) => { if (!NOT_STORED.has(name)) headers.push([name, value]); });
+  res.headers.forEach((value, name) => {
+    if (!NOT_STORED.has(name)) headers.push([name, value]);
+  });
   return { body: await res.text(), nonce, status: res.status, headers };
 }
 
@@ -64,7 +80,11 @@ export class PublicPageCache {
   private readonly pages = new Map<string, StoredPage & { expires: number }>();
   private readonly rendering = new Map<string, Promise<StoredPage | null>>();
 
-  constructor(private readonly ttlMs: number, private readonly maxEntries = 200, private readonly now: () => number = Date.now) {}
+  constructor(
+    private readonly ttlMs: number,
+    private readonly maxEntries = 200,
+    private readonly now: () => number = Date.now,
+  ) {}
 
   get enabled(): boolean {
     return this.ttlMs > 0;
@@ -81,7 +101,13 @@ export class PublicPageCache {
     let pending = this.rendering.get(key);
     if (!pending) {
       pending = render()
-        .then((page) => { if (page) this.store(key, page); return page; }, () => null)
+        .then(
+          (page) => {
+            if (page) this.store(key, page);
+            return page;
+          },
+          () => null,
+        )
         .finally(() => this.rendering.delete(key));
       this.rendering.set(key, pending);
     }

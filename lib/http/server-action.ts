@@ -26,7 +26,13 @@ export function guardedAction<S extends z.ZodType, R = undefined>(
       if (!parsed.success) return fail('Please fix the marked fields.', toFieldErrors(parsed.error));
       return await run(user, parsed.data);
     } catch (err) {
-      if (err instanceof AuthError || err instanceof OriginError || err instanceof HttpError || err instanceof DomainError) return fail(err.message);
+      if (
+        err instanceof AuthError ||
+        err instanceof OriginError ||
+        err instanceof HttpError ||
+        err instanceof DomainError
+      )
+        return fail(err.message);
       throw err;
     }
   };

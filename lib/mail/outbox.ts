@@ -67,9 +67,16 @@ export async function deliverDueMail(limit = 20): Promise<{ sent: number; failed
           subject: msg.subject,
           text: msg.textBody,
           html: msg.htmlBody ?? undefined,
-          attachments: msg.attachments.map((a) => ({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.base64, 'base64') })),
+          attachments: msg.attachments.map((a) => ({
+            filename: a.filename,
+            contentType: a.contentType,
+            content: Buffer.from(a.base64, 'base64'),
+          })),
         });
-        await msg.update({ status: 'sent', sentAt: new Date(), attempts: msg.attempts + 1, lastError: null }, { transaction: t });
+        await msg.update(
+          { status: 'sent', sentAt: new Date(), attempts: msg.attempts + 1, lastError: null },
+          { transaction: t },
+        );
         return 'sent';
       } catch (err) {
         const attempts = msg.attempts + 1;
@@ -88,7 +95,10 @@ export async function deliverDueMail(limit = 20): Promise<{ sent: number; failed
     });
     if (done === null) break;
     if (done === 'sent') sent++;
-    else { failed++; break; }
+    else {
+      failed++;
+      break;
+    }
   }
   return { sent, failed };
 }

@@ -2,7 +2,10 @@ import type { MailInput } from './outbox';
 
 /** Text from people (names, notes) goes into HTML mail escaped, never as markup (ASVS 1.2.1). */
 export function escapeHtml(value: string): string {
-  return value.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] as string);
+  return value.replace(
+    /[&<>"']/g,
+    (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c] as string,
+  );
 }
 
 /** A plain, readable HTML wrapper in our palette; every caller passes already-escaped body HTML. */
@@ -15,15 +18,25 @@ ${bodyHtml}
 </div></body></html>`;
 }
 
-export function passwordMail(p: { kind: 'set' | 'reset'; to: string; name: string; business: string; link: string }): MailInput {
+export function passwordMail(p: {
+  kind: 'set' | 'reset';
+  to: string;
+  name: string;
+  business: string;
+  link: string;
+}): MailInput {
   const subject = p.kind === 'set' ? `Set your password for ${p.business}` : `Reset your password for ${p.business}`;
-  const lead = p.kind === 'set'
-    ? `An account has been made for you at ${p.business}. Choose a password to sign in (the link works for 72 hours, once).`
-    : 'Someone asked to reset the password for this e-mail address. If it was you, choose a new password (the link works for one hour, once). If not, ignore this message.';
+  const lead =
+    p.kind === 'set'
+      ? `An account has been made for you at ${p.business}. Choose a password to sign in (the link works for 72 hours, once).`
+      : 'Someone asked to reset the password for this e-mail address. If it was you, choose a new password (the link works for one hour, once). If not, ignore this message.';
   return {
     to: p.to,
     subject,
     text: `Hello ${p.name},\n\n${lead}\n\n${p.link}\n`,
-    html: mailHtml(p.business, `<p>Hello ${escapeHtml(p.name)},</p><p>${escapeHtml(lead)}</p><p><a href="${escapeHtml(p.link)}" style="background:#234a35;color:#fff;padding:10px 16px;border-radius:6px;text-decoration:none">Choose a password</a></p><p style="font-size:13px">Or paste this link: ${escapeHtml(p.link)}</p>`),
+    html: mailHtml(
+      p.business,
+      `<p>Hello ${escapeHtml(p.name)},</p><p>${escapeHtml(lead)}</p><p><a href="${escapeHtml(p.link)}" style="background:#234a35;color:#fff;padding:10px 16px;border-radius:6px;text-decoration:none">Choose a password</a></p><p style="font-size:13px">Or paste this link: ${escapeHtml(p.link)}</p>`,
+    ),
   };
 }

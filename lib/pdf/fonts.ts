@@ -50,5 +50,8 @@ export function embedLora(doc: PDFDocument, weight: LoraWeight): Promise<PDFFont
  * whitespace collapse to one.
  */
 export function cleanText(text: string): string {
-  return text.replace(/[\u0000-\u001f\u007f-\u009f\u2028\u2029]/g, ' ').replace(/\s+/g, ' ').trim();
+  return text
+    .replace(/[\u0000-\u001f\u007f-\u009f\u2028\u2029]/g, ' ')
+    .replace(/\s+/g, ' ')
+    .trim();
 }

@@ -21,7 +21,14 @@ const PDF_2D_SCALE = 3;
 
 export type LabelFonts = { regular: PDFFont; bold: PDFFont };
 type PlacedText = { text: string; font: PDFFont; size: number; x: number; y: number };
-export type PlacedImage = { key: string; load: () => Promise<Buffer>; x: number; y: number; width: number; height: number };
+export type PlacedImage = {
+  key: string;
+  load: () => Promise<Buffer>;
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+};
 export type LabelPlan = { texts: PlacedText[]; images: PlacedImage[] };
 
 const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v));
@@ -31,7 +38,14 @@ function textBlocks(label: LabelContent, fonts: LabelFonts, hri: string | null):
   const bestBefore = cleanText(label.bestBeforeText);
   const blocks: TextBlock[] = [
     { text: cleanText(label.productName), font: fonts.bold, size: 10, minSize: 5, maxLines: 2 },
-    { text: floral ? `Honey — ${floral}` : 'Honey', font: fonts.regular, size: 7, minSize: 4.5, maxLines: 1, dropPriority: 3 },
+    {
+      text: floral ? `Honey — ${floral}` : 'Honey',
+      font: fonts.regular,
+      size: 7,
+      minSize: 4.5,
+      maxLines: 1,
+      dropPriority: 3,
+    },
     // The declaration keeps a larger minimum: it is what weights-and-measures inspectors read.
     { text: cleanText(label.netQuantity), font: fonts.bold, size: 8, minSize: 5.5, maxLines: 2 },
     { text: cleanText(label.businessName), font: fonts.regular, size: 6, minSize: 4, maxLines: 2 },
@@ -39,7 +53,10 @@ function textBlocks(label: LabelContent, fonts: LabelFonts, hri: string | null):
     { text: `Lot ${cleanText(label.lotCode)}`, font: fonts.bold, size: 6.5, minSize: 4.5, maxLines: 1 },
     {
       text: /^best before/i.test(bestBefore) ? bestBefore : `Best before ${bestBefore}`,
-      font: fonts.regular, size: 6.5, minSize: 4.5, maxLines: 2,
+      font: fonts.regular,
+      size: 6.5,
+      minSize: 4.5,
+      maxLines: 2,
     },
     { text: INFANT_CAUTION, font: fonts.regular, size: 5.5, minSize: 4, maxLines: 2 },
   ];
@@ -48,7 +65,14 @@ function textBlocks(label: LabelContent, fonts: LabelFonts, hri: string | null):
 }
 
 /** Top-aligned column of fitted text, starting at (x, top). */
-function placeColumn(blocks: TextBlock[], x: number, top: number, width: number, height: number, maxScale: number): PlacedText[] {
+function placeColumn(
+  blocks: TextBlock[],
+  x: number,
+  top: number,
+  width: number,
+  height: number,
+  maxScale: number,
+): PlacedText[] {
   const placed: PlacedText[] = [];
   let cursor = top;
   for (const block of fitBlocks(blocks, width, height, maxScale).blocks) {
@@ -61,7 +85,13 @@ function placeColumn(blocks: TextBlock[], x: number, top: number, width: number,
 }
 
 /** Where everything goes on one label, relative to the label's bottom-left corner. */
-export function planLabel(label: LabelContent, width: number, height: number, kind: Gs1BarcodeKind, fonts: LabelFonts): LabelPlan {
+export function planLabel(
+  label: LabelContent,
+  width: number,
+  height: number,
+  kind: Gs1BarcodeKind,
+  fonts: LabelFonts,
+): LabelPlan {
   const element = gs1HumanReadable({ gtin: label.gtin, bestBefore: label.bestBefore, lot: label.lotCode });
   const url = label.publicUrl.trim();
   const pad = clamp(Math.min(width, height) * 0.06, 4, 8);
@@ -69,7 +99,14 @@ export function planLabel(label: LabelContent, width: number, height: number, ki
   const w = width - 2 * pad;
   const h = height - 2 * pad;
   const maxScale = clamp(h / 95, 1, 1.6); // 95 pt: the inner height of a 38.1 mm label
-  const qr = (x: number, y: number, s: number): PlacedImage => ({ key: `qr:${url}`, load: () => qrPng(url, { scale: PDF_2D_SCALE }), x, y, width: s, height: s });
+  const qr = (x: number, y: number, s: number): PlacedImage => ({
+    key: `qr:${url}`,
+    load: () => qrPng(url, { scale: PDF_2D_SCALE }),
+    x,
+    y,
+    width: s,
+    height: s,
+  });
 
   if (kind === 'gs1-128') {
     // Bars across the full width with the HRI below (GS1 General Specifications §4.15, HRI rules — from memory).
@@ -86,7 +123,14 @@ export function planLabel(label: LabelContent, width: number, height: number, ki
       ],
       images: [
         // A one-module-high strip: the PDF stretches bars vertically without loss.
-        { key: `128:${element}`, load: () => gs1BarcodePng(element, 'gs1-128', { includeText: false, scale: 3, barHeightMm: 1 }), x: pad, y: barY, width: w, height: barHeight },
+        {
+          key: `128:${element}`,
+          load: () => gs1BarcodePng(element, 'gs1-128', { includeText: false, scale: 3, barHeightMm: 1 }),
+          x: pad,
+          y: barY,
+          width: w,
+          height: barHeight,
+        },
         ...(url ? [qr(pad + w - q, pad + h - q, q)] : []),
       ],
     };
@@ -98,7 +142,12 @@ export function planLabel(label: LabelContent, width: number, height: number, ki
   const images: PlacedImage[] = [];
   let codesWidth: number;
   const dm = (x: number, y: number, s: number): PlacedImage => ({
-    key: `dm:${element}`, load: () => gs1BarcodePng(element, 'gs1datamatrix', { scale: PDF_2D_SCALE }), x, y, width: s, height: s,
+    key: `dm:${element}`,
+    load: () => gs1BarcodePng(element, 'gs1datamatrix', { scale: PDF_2D_SCALE }),
+    x,
+    y,
+    width: s,
+    height: s,
   });
   if (stacked >= sideBySide || !url) {
     const s = url ? stacked : Math.min(w * 0.3, h);
@@ -106,10 +155,12 @@ export function planLabel(label: LabelContent, width: number, height: number, ki
     if (url) images.push(qr(pad + w - s, pad, s));
     codesWidth = s;
   } else {
-    images.push(dm(pad + w - 2 * sideBySide - gap, pad + h - sideBySide, sideBySide), qr(pad + w - sideBySide, pad + h - sideBySide, sideBySide));
+    images.push(
+      dm(pad + w - 2 * sideBySide - gap, pad + h - sideBySide, sideBySide),
+      qr(pad + w - sideBySide, pad + h - sideBySide, sideBySide),
+    );
     codesWidth = 2 * sideBySide + gap;
   }
   const hri = element.replace('(15)', ' (15)').replace('(10)', ' (10)');
   return { texts: placeColumn(textBlocks(label, fonts, hri), pad, pad + h, w - codesWidth - gap, h, maxScale), images };
 }
-

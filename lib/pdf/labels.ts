@@ -1,6 +1,12 @@
 import 'server-only';
 import {
-  PDFDocument, concatTransformationMatrix, degrees, drawImage, drawObject, drawText, popGraphicsState,
+  PDFDocument,
+  concatTransformationMatrix,
+  degrees,
+  drawImage,
+  drawObject,
+  drawText,
+  popGraphicsState,
   pushGraphicsState,
 } from 'pdf-lib';
 import type { PDFFont, PDFImage, PDFName, PDFOperator, PDFPage, PDFRef } from 'pdf-lib';
@@ -12,7 +18,12 @@ import { INK, planLabel } from './label-plan';
 import type { LabelFonts, LabelPlan, PlacedImage } from './label-plan';
 import type { LabelContent } from './label-content';
 
-export type LabelSheetInput = { layout: LabelLayout; labels: LabelContent[]; barcodeKind: Gs1BarcodeKind; startSlot?: number };
+export type LabelSheetInput = {
+  layout: LabelLayout;
+  labels: LabelContent[];
+  barcodeKind: Gs1BarcodeKind;
+  startSlot?: number;
+};
 
 /** A sheet request larger than this is refused (about 480 A4 sheets of 21). */
 const MAX_LABELS_PER_DOCUMENT = 10_000;
@@ -39,7 +50,7 @@ export async function renderLabelSheet(input: LabelSheetInput): Promise<Uint8Arr
   if (total === 0) throw new RangeError('No labels to print');
   if (total > MAX_LABELS_PER_DOCUMENT) throw new RangeError(`At most ${MAX_LABELS_PER_DOCUMENT} labels per document`);
   const { pageWidthPt, pageHeightPt, slots } = labelPositions(layout);
-  const startSlot = layout.paper === 'roll' ? 0 : input.startSlot ?? 0;
+  const startSlot = layout.paper === 'roll' ? 0 : (input.startSlot ?? 0);
   if (!Number.isInteger(startSlot) || startSlot < 0 || startSlot >= slots.length) {
     throw new RangeError(`Start slot must be 0–${slots.length - 1}`);
   }
@@ -94,7 +105,12 @@ export async function renderLabelSheet(input: LabelSheetInput): Promise<Uint8Arr
         pageNames.set(form, name);
       }
       const slot = slots[slotIndex];
-      page.pushOperators(pushGraphicsState(), concatTransformationMatrix(1, 0, 0, 1, slot.xPt, slot.yPt), drawObject(name), popGraphicsState());
+      page.pushOperators(
+        pushGraphicsState(),
+        concatTransformationMatrix(1, 0, 0, 1, slot.xPt, slot.yPt),
+        drawObject(name),
+        popGraphicsState(),
+      );
       slotIndex += 1;
     }
   }
@@ -118,11 +134,30 @@ const upright = { rotate: degrees(0), xSkew: degrees(0), ySkew: degrees(0) };
  * One distinct label as a form XObject (ISO 32000-1 §8.10): drawn once, placed on
  * every copy. Its BBox clips it to the label, so nothing prints onto a neighbour.
  */
-async function labelForm(doc: PDFDocument, plan: LabelPlan, width: number, height: number, fonts: LabelFonts, embedded: Map<string, Promise<PDFImage>>): Promise<PDFRef> {
-  const fontNames = new Map<PDFFont, string>([[fonts.regular, 'F0'], [fonts.bold, 'F1']]);
+async function labelForm(
+  doc: PDFDocument,
+  plan: LabelPlan,
+  width: number,
+  height: number,
+  fonts: LabelFonts,
+  embedded: Map<string, Promise<PDFImage>>,
+): Promise<PDFRef> {
+  const fontNames = new Map<PDFFont, string>([
+    [fonts.regular, 'F0'],
+    [fonts.bold, 'F1'],
+  ]);
   const operators: PDFOperator[] = [];
   for (const t of plan.texts) {
-    operators.push(...drawText(t.font.encodeText(t.text), { ...upright, color: INK, font: fontNames.get(t.font) ?? 'F0', size: t.size, x: t.x, y: t.y }));
+    operators.push(
+      ...drawText(t.font.encodeText(t.text), {
+        ...upright,
+        color: INK,
+        font: fontNames.get(t.font) ?? 'F0',
+        size: t.size,
+        x: t.x,
+        y: t.y,
+      }),
+    );
   }
   const xObjects: Record<string, PDFRef> = {};
   for (const [i, img] of plan.images.entries()) {

@@ -53,13 +53,25 @@ export async function renderSuperTagSheet(tags: SuperTag[], layout: LabelLayout)
     const captionSize = Math.min(9, Math.max(5, h * 0.09));
     let y = slot.yPt + pad;
     if (caption) {
-      page.drawText(ellipsize(caption, regular, captionSize, w), { x: slot.xPt + pad, y: y + captionSize * 0.25, size: captionSize, font: regular, color: INK });
+      page.drawText(ellipsize(caption, regular, captionSize, w), {
+        x: slot.xPt + pad,
+        y: y + captionSize * 0.25,
+        size: captionSize,
+        font: regular,
+        color: INK,
+      });
       y += captionSize * 1.3;
     }
     // The code as large as fits: at most 30 % of the label's height.
     const codeSize = Math.max(6, Math.min(h * 0.3, w / textWidth(bold, tag.code, 1)));
     const codeWidth = textWidth(bold, tag.code, codeSize);
-    page.drawText(tag.code, { x: slot.xPt + pad + Math.max(0, (w - codeWidth) / 2), y: y + codeSize * 0.2, size: codeSize, font: bold, color: INK });
+    page.drawText(tag.code, {
+      x: slot.xPt + pad + Math.max(0, (w - codeWidth) / 2),
+      y: y + codeSize * 0.2,
+      size: codeSize,
+      font: bold,
+      color: INK,
+    });
     y += codeSize * 1.1;
     const barHeight = slot.yPt + pad + h - y;
     if (barHeight > 6) page.drawImage(await image, { x: slot.xPt + pad, y, width: w, height: barHeight });

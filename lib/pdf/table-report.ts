@@ -60,11 +60,21 @@ function columnWidths(columns: string[], rows: string[][], fonts: Fonts, availab
   return natural.map((w) => (w * available) / sum);
 }
 
-function drawRow(c: Cursor, cells: string[], widths: number[], font: PDFFont, rightAlign: boolean[], color = INK): void {
+function drawRow(
+  c: Cursor,
+  cells: string[],
+  widths: number[],
+  font: PDFFont,
+  rightAlign: boolean[],
+  color = INK,
+): void {
   const wrapped = cells.map((cell, i) => {
     const lines = wrapText(cell, font, BODY, widths[i] - 2 * CELL_PAD_X);
     if (lines.length <= MAX_CELL_LINES) return lines;
-    return [...lines.slice(0, MAX_CELL_LINES - 1), ellipsize(lines[MAX_CELL_LINES - 1], font, BODY, widths[i] - 2 * CELL_PAD_X, true)];
+    return [
+      ...lines.slice(0, MAX_CELL_LINES - 1),
+      ellipsize(lines[MAX_CELL_LINES - 1], font, BODY, widths[i] - 2 * CELL_PAD_X, true),
+    ];
   });
   const height = Math.max(1, ...wrapped.map((l) => l.length)) * BODY * LINE_HEIGHT + 2 * CELL_PAD_Y;
   let x = MARGIN;
@@ -72,7 +82,13 @@ function drawRow(c: Cursor, cells: string[], widths: number[], font: PDFFont, ri
     lines.forEach((line, n) => {
       const lineWidth = textWidth(font, line, BODY);
       const lx = rightAlign[i] ? x + widths[i] - CELL_PAD_X - lineWidth : x + CELL_PAD_X;
-      c.page.drawText(line, { x: lx, y: c.y - CELL_PAD_Y - BODY * 0.92 - n * BODY * LINE_HEIGHT, size: BODY, font, color });
+      c.page.drawText(line, {
+        x: lx,
+        y: c.y - CELL_PAD_Y - BODY * 0.92 - n * BODY * LINE_HEIGHT,
+        size: BODY,
+        font,
+        color,
+      });
     });
     x += widths[i];
   });
@@ -80,7 +96,9 @@ function drawRow(c: Cursor, cells: string[], widths: number[], font: PDFFont, ri
 }
 
 function rowHeight(cells: string[], widths: number[], font: PDFFont): number {
-  const lines = cells.map((cell, i) => Math.min(MAX_CELL_LINES, wrapText(cell, font, BODY, widths[i] - 2 * CELL_PAD_X).length));
+  const lines = cells.map((cell, i) =>
+    Math.min(MAX_CELL_LINES, wrapText(cell, font, BODY, widths[i] - 2 * CELL_PAD_X).length),
+  );
   return Math.max(1, ...lines) * BODY * LINE_HEIGHT + 2 * CELL_PAD_Y;
 }
 
@@ -93,7 +111,9 @@ function drawSection(c: Cursor, section: ReportSection, fonts: Fonts): void {
   const columns = section.columns.map(cleanText);
   const rows = section.rows.map((row) => columns.map((_, i) => cleanText(row[i] ?? '')));
   const widths = columnWidths(columns, rows, fonts, available);
-  const rightAlign = columns.map((_, i) => rows.some((r) => r[i] !== '') && rows.every((r) => r[i] === '' || NUMERIC.test(r[i])));
+  const rightAlign = columns.map(
+    (_, i) => rows.some((r) => r[i] !== '') && rows.every((r) => r[i] === '' || NUMERIC.test(r[i])),
+  );
   const header = () => {
     drawRow(c, columns, widths, fonts.bold, rightAlign, GREEN);
     rule(c, 0.8, GREEN);
@@ -140,7 +160,13 @@ export async function renderTableReport(report: TableReport): Promise<Uint8Array
     const labelWidth = textWidth(regular, label, 8);
     page.drawText(label, { x: PAGE.width - MARGIN - labelWidth, y: MARGIN - 4, size: 8, font: regular, color: INK });
     if (footer) {
-      page.drawText(ellipsize(footer, regular, 8, PAGE.width - 2 * MARGIN - labelWidth - 12), { x: MARGIN, y: MARGIN - 4, size: 8, font: regular, color: INK });
+      page.drawText(ellipsize(footer, regular, 8, PAGE.width - 2 * MARGIN - labelWidth - 12), {
+        x: MARGIN,
+        y: MARGIN - 4,
+        size: 8,
+        font: regular,
+        color: INK,
+      });
     }
   });
   return doc.save();

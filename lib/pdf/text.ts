@@ -87,7 +87,12 @@ export type TextBlock = {
 
 export type FittedBlock = { lines: string[]; font: PDFFont; size: number };
 
-function layoutAt(blocks: TextBlock[], scale: number, width: number, maxLines: number[]): { fitted: FittedBlock[]; height: number; truncated: boolean } {
+function layoutAt(
+  blocks: TextBlock[],
+  scale: number,
+  width: number,
+  maxLines: number[],
+): { fitted: FittedBlock[]; height: number; truncated: boolean } {
   let height = 0;
   let truncated = false;
   const fitted = blocks.map((block, i) => {
@@ -109,7 +114,12 @@ function layoutAt(blocks: TextBlock[], scale: number, width: number, maxLines: n
  * fit the box. If even the minimum sizes overflow, blocks with a drop priority lose
  * lines, then disappear; `overflow` tells the caller anything is still too tall.
  */
-export function fitBlocks(blocks: TextBlock[], width: number, height: number, maxScale = 1): { blocks: FittedBlock[]; overflow: boolean } {
+export function fitBlocks(
+  blocks: TextBlock[],
+  width: number,
+  height: number,
+  maxScale = 1,
+): { blocks: FittedBlock[]; overflow: boolean } {
   const maxLines = blocks.map((b) => b.maxLines);
   const attempts: ReturnType<typeof layoutAt>[] = [];
   for (let scale = maxScale; scale > 0.3; scale -= 0.05) {

@@ -18,14 +18,22 @@ export async function keeperReportPdf(viewer: SessionUser, keeperId: number, sea
   const t = seasonTables(report, units);
   const strip = (table: (typeof t)['colonies'], drop: string[]) => {
     const keep = table.columns.map((c, i) => (drop.includes(c) ? -1 : i)).filter((i) => i >= 0);
-    return { heading: table.title, columns: keep.map((i) => table.columns[i]), rows: table.rows.map((r) => keep.map((i) => r.cells[i])) };
+    return {
+      heading: table.title,
+      columns: keep.map((i) => table.columns[i]),
+      rows: table.rows.map((r) => keep.map((i) => r.cells[i])),
+    };
   };
   const bytes = await renderTableReport({
     title: `Season ${season} yield report: ${keeperName}`,
-    subtitle: `${settings.businessName}. ${report.colonies.length} colonies, ${formatWeight(report.totals.honeyGrams, units.weightSystem)} of honey, `
-      + `${formatMoney(report.totals.revenueCents, units.currency)} of jar sales shared back by weight.`,
+    subtitle:
+      `${settings.businessName}. ${report.colonies.length} colonies, ${formatWeight(report.totals.honeyGrams, units.weightSystem)} of honey, ` +
+      `${formatMoney(report.totals.revenueCents, units.currency)} of jar sales shared back by weight.`,
     sections: [
-      { ...strip(t.colonies, ['Keeper']), note: 'Honey is each lot\'s net weight shared back to the supers by measured honey (full minus empty), or by an estimate from box depth and capped frames where a super was not weighed. Rank is among all colonies in the yard.' },
+      {
+        ...strip(t.colonies, ['Keeper']),
+        note: "Honey is each lot's net weight shared back to the supers by measured honey (full minus empty), or by an estimate from box depth and capped frames where a super was not weighed. Rank is among all colonies in the yard.",
+      },
       strip(t.yards, []),
       strip(t.lines, []),
       strip(t.shares, []),

@@ -22,7 +22,11 @@ export async function seasonReportRecipients(season: number) {
  * Puts one keeper's season report (PDF attached) in the outbox. The dedupe key makes a second
  * send of the same season to the same keeper a no-op: `queued` is false then.
  */
-export async function sendKeeperSeasonReport(owner: SessionUser, season: number, keeperId: number): Promise<{ queued: boolean; name: string }> {
+export async function sendKeeperSeasonReport(
+  owner: SessionUser,
+  season: number,
+  keeperId: number,
+): Promise<{ queued: boolean; name: string }> {
   const recipients = await keepersWithColonies(season);
   const keeper = recipients.find((k) => k.id === keeperId);
   if (!keeper) throw new NotFoundError('That keeper has no colonies in this season.');
@@ -33,19 +37,40 @@ export async function sendKeeperSeasonReport(owner: SessionUser, season: number,
   const [pdf, settings] = await Promise.all([keeperReportPdf(owner, keeperId, season, keeper.name), getSettings()]);
   if (!pdf) throw new NotFoundError('There is no such report.');
   const honey = formatWeight(pdf.report.totals.honeyGrams, settings.weightSystem);
-  const lead = `Here is the yield report of your ${pdf.report.colonies.length} colonies for the ${season} season: ${honey} of honey in all. `
-    + 'The PDF lists every colony with its supers, its share of each lot, water content, revenue and rank in its yard.';
+  const lead =
+    `Here is the yield report of your ${pdf.report.colonies.length} colonies for the ${season} season: ${honey} of honey in all. ` +
+    'The PDF lists every colony with its supers, its share of each lot, water content, revenue and rank in its yard.';
   const queued = await sequelize.transaction(async (t) => {
-    const created = await enqueueMail({
-      to: keeper.email,
-      subject: `Your ${season} season yield report from ${settings.businessName}`,
-      text: `Hello ${keeper.name},\n\n${lead}\n`,
-      html: mailHtml(settings.businessName, `<p>Hello ${escapeHtml(keeper.name)},</p><p>${escapeHtml(lead)}</p>`),
-      attachments: [{ filename: safePdfFilename(pdf.filename), contentType: 'application/pdf', base64: Buffer.from(pdf.bytes).toString('base64') }],
-      dedupeKey: key,
-    }, t);
+    const created = await enqueueMail(
+      {
+        to: keeper.email,
+        subject: `Your ${season} season yield report from ${settings.businessName}`,
+        text: `Hello ${keeper.name},\n\n${lead}\n`,
+        html: mailHtml(settings.businessName, `<p>Hello ${escapeHtml(keeper.name)},</p><p>${escapeHtml(lead)}</p>`),
+        attachments: [
+          {
+            filename: safePdfFilename(pdf.filename),
+            contentType: 'application/pdf',
+            base64: Buffer.from(pdf.bytes).toString('base64'),
+          },
+        ],
+        dedupeKey: key,
+      },
+      t,
+    );
     if (created) {
-      await recordAudit({ actorUserId: owner.id, action: 'report.send', entityType: 'user', entityId: keeperId, before: null, after: { season }, reason: null }, t);
+      await recordAudit(
+        {
+          actorUserId: owner.id,
+          action: 'report.send',
+          entityType: 'user',
+          entityId: keeperId,
+          before: null,
+          after: { season },
+          reason: null,
+        },
+        t,
+      );
     }
     return created;
   });

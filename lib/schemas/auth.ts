@@ -1,7 +1,12 @@
 import { z } from 'zod';
 import { passwordProblem } from '@/lib/domain/password-rules';
 
-export const email = z.string().trim().toLowerCase().max(254, 'That e-mail address is too long.').email('Enter a valid e-mail address.');
+export const email = z
+  .string()
+  .trim()
+  .toLowerCase()
+  .max(254, 'That e-mail address is too long.')
+  .email('Enter a valid e-mail address.');
 export const personName = z.string().trim().min(1, 'Enter a name.').max(120, 'Keep the name under 120 characters.');
 
 export const password = z.string().superRefine((value, ctx) => {

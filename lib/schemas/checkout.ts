@@ -5,7 +5,12 @@ const text = (max: number) => z.string().trim().max(max);
 export const checkoutInput = z
   .object({
     items: z
-      .array(z.object({ productId: z.number().int().positive(), quantity: z.number().int().min(1, 'At least one jar').max(48, 'At most 48 jars per product') }))
+      .array(
+        z.object({
+          productId: z.number().int().positive(),
+          quantity: z.number().int().min(1, 'At least one jar').max(48, 'At most 48 jars per product'),
+        }),
+      )
       .min(1, 'Your cart is empty.')
       .max(30),
     email: z.string().trim().toLowerCase().email('Enter a valid e-mail address').max(254),

@@ -2,11 +2,15 @@ import { z } from 'zod';
 import { blankToNull, code, id, idempotencyKey, isoDay, optionalDay } from './fields';
 import { listQuery } from './list-query';
 
-export const colonyListQuery = listQuery(['code', 'yard', 'status', 'queenYear'], {
-  yardId: id.optional(),
-  status: z.enum(['active', 'dead_out', 'combined', 'sold']).optional(),
-  q: z.string().trim().max(30).optional(),
-}, 'code');
+export const colonyListQuery = listQuery(
+  ['code', 'yard', 'status', 'queenYear'],
+  {
+    yardId: id.optional(),
+    status: z.enum(['active', 'dead_out', 'combined', 'sold']).optional(),
+    q: z.string().trim().max(30).optional(),
+  },
+  'code',
+);
 export type ColonyListQuery = z.output<typeof colonyListQuery>;
 
 export const COLONY_ORIGINS = ['package', 'nucleus', 'swarm', 'purchased', 'split'] as const;
@@ -24,7 +28,12 @@ export const colonyInput = z.object({
 export type ColonyInput = z.input<typeof colonyInput>;
 export const colonyUpdateInput = colonyInput.omit({ yardId: true }).extend({ colonyId: id });
 
-export const moveInput = z.object({ colonyId: id, yardId: id, occurredOn: isoDay, note: z.string().trim().max(500).default('') });
+export const moveInput = z.object({
+  colonyId: id,
+  yardId: id,
+  occurredOn: isoDay,
+  note: z.string().trim().max(500).default(''),
+});
 export const statusInput = z.object({
   colonyId: id,
   status: z.enum(['active', 'dead_out', 'combined', 'sold']),
@@ -32,32 +41,52 @@ export const statusInput = z.object({
   occurredOn: isoDay,
   note: z.string().trim().max(500).default(''),
 });
-export const splitInput = z.object({ colonyId: id, newCode: code, occurredOn: isoDay, queenYear, note: z.string().trim().max(500).default(''), idempotencyKey });
-export const noteInput = z.object({ colonyId: id, occurredOn: isoDay, note: z.string().trim().min(1, 'Write the note').max(2000), idempotencyKey });
+export const splitInput = z.object({
+  colonyId: id,
+  newCode: code,
+  occurredOn: isoDay,
+  queenYear,
+  note: z.string().trim().max(500).default(''),
+  idempotencyKey,
+});
+export const noteInput = z.object({
+  colonyId: id,
+  occurredOn: isoDay,
+  note: z.string().trim().min(1, 'Write the note').max(2000),
+  idempotencyKey,
+});
 
 // ---- feedings and treatments ----
 export const FEEDING_KINDS = ['sugar_syrup', 'fondant', 'pollen_substitute', 'other'] as const;
-const endAfterStart = <T extends { startedOn: string; endedOn: string | null }>(v: T) => v.endedOn === null || v.endedOn >= v.startedOn;
-export const feedingInput = z.object({
-  colonyId: id,
-  kind: z.enum(FEEDING_KINDS),
-  amount: z.string().trim().max(60).default(''),
-  startedOn: isoDay,
-  endedOn: optionalDay,
-  note: z.string().trim().max(500).default(''),
-  idempotencyKey,
-}).refine(endAfterStart, { path: ['endedOn'], message: 'Ends before it starts' });
+const endAfterStart = <T extends { startedOn: string; endedOn: string | null }>(v: T) =>
+  v.endedOn === null || v.endedOn >= v.startedOn;
+export const feedingInput = z
+  .object({
+    colonyId: id,
+    kind: z.enum(FEEDING_KINDS),
+    amount: z.string().trim().max(60).default(''),
+    startedOn: isoDay,
+    endedOn: optionalDay,
+    note: z.string().trim().max(500).default(''),
+    idempotencyKey,
+  })
+  .refine(endAfterStart, { path: ['endedOn'], message: 'Ends before it starts' });
 export const feedingEndInput = z.object({ feedingId: id, endedOn: isoDay });
 
-export const treatmentInput = z.object({
-  colonyId: id,
-  treatmentKindId: id,
-  productName: z.string().trim().max(120).default(''),
-  appliedOn: isoDay,
-  removedOn: optionalDay,
-  note: z.string().trim().max(500).default(''),
-  idempotencyKey,
-}).refine((v) => v.removedOn === null || v.removedOn >= v.appliedOn, { path: ['removedOn'], message: 'Removed before it was applied' });
+export const treatmentInput = z
+  .object({
+    colonyId: id,
+    treatmentKindId: id,
+    productName: z.string().trim().max(120).default(''),
+    appliedOn: isoDay,
+    removedOn: optionalDay,
+    note: z.string().trim().max(500).default(''),
+    idempotencyKey,
+  })
+  .refine((v) => v.removedOn === null || v.removedOn >= v.appliedOn, {
+    path: ['removedOn'],
+    message: 'Removed before it was applied',
+  });
 export const treatmentEndInput = z.object({ treatmentId: id, removedOn: isoDay });
 
 /** One colony with its supers, by id. */

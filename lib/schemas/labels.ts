@@ -1,6 +1,10 @@
 import { z } from 'zod';
 
-const mm = (label: string, min = 0) => z.coerce.number({ error: `${label}: enter millimetres.` }).min(min).max(500);
+const mm = (label: string, min = 0) =>
+  z.coerce
+    .number({ error: `${label}: enter millimetres.` })
+    .min(min)
+    .max(500);
 export const labelLayoutInput = z.object({
   layoutId: z.coerce.number().int().positive().optional(),
   name: z.string().trim().min(1, 'Name the layout.').max(60),
@@ -23,7 +27,10 @@ export type LabelLayoutIdInput = z.input<typeof labelLayoutIdInput>;
 
 /** A run's label sheet: layout (built-in b… or saved s…), first slot, copies, or a one-page preview. */
 export const runLabelsQuery = z.object({
-  layout: z.string().regex(/^[bs]\d{1,9}$/).optional(),
+  layout: z
+    .string()
+    .regex(/^[bs]\d{1,9}$/)
+    .optional(),
   start: z.coerce.number().int().min(0).max(500).optional(),
   copies: z.coerce.number().int().min(1).max(10_000).optional(),
   preview: z.enum(['1']).optional(),

@@ -10,7 +10,10 @@ export type ListQueryOptions = {
  * dir asc|desc, plus the route's own filters. Unknown sort fields are refused, never passed to SQL.
  */
 export function listQuery<const S extends readonly [string, ...string[]], F extends z.ZodRawShape>(
-  sortFields: S, filters: F, defaultSort: S[number], options: ListQueryOptions = {},
+  sortFields: S,
+  filters: F,
+  defaultSort: S[number],
+  options: ListQueryOptions = {},
 ) {
   return z.object({
     page: z.coerce.number().int().min(1, 'Page starts at 1.').max(100_000).default(1),
@@ -25,7 +28,12 @@ export function listQuery<const S extends readonly [string, ...string[]], F exte
 export type Page<Row> = { rows: Row[]; total: number; page: number; pageSize: number };
 
 /** URLSearchParams or a Next searchParams object → a plain record with blanks dropped. */
-export function queryRecord(params: URLSearchParams | Record<string, string | string[] | undefined>): Record<string, string> {
-  const entries = params instanceof URLSearchParams ? [...params.entries()] : Object.entries(params).map(([k, v]) => [k, Array.isArray(v) ? v[0] : v] as const);
+export function queryRecord(
+  params: URLSearchParams | Record<string, string | string[] | undefined>,
+): Record<string, string> {
+  const entries =
+    params instanceof URLSearchParams
+      ? [...params.entries()]
+      : Object.entries(params).map(([k, v]) => [k, Array.isArray(v) ? v[0] : v] as const);
   return Object.fromEntries(entries.filter((e): e is [string, string] => typeof e[1] === 'string' && e[1] !== ''));
 }

@@ -17,7 +17,9 @@ export const refundInput = z.object({
   orderId: z.number().int().positive(),
   amount: refundAmount,
   /** Jars coming back per order line; 0 for a money-only refund. */
-  jars: z.array(z.object({ lineId: z.number().int().positive(), quantity: z.number().int().min(0).max(1000) })).default([]),
+  jars: z
+    .array(z.object({ lineId: z.number().int().positive(), quantity: z.number().int().min(0).max(1000) }))
+    .default([]),
   /** true: the jars go back on the shelf; false: they are written off (broken, opened). */
   restock: z.boolean(),
   reason: z.string().trim().max(500).default(''),
@@ -26,17 +28,36 @@ export type RefundInput = z.input<typeof refundInput>;
 
 /** The order desk's refund form: the amount as typed in its text field ("12,50" reads as 12.50), then the same checks. */
 export const refundFormInput = refundInput.extend({
-  amount: z.preprocess((v) => (typeof v === 'string' ? (v.trim() === '' ? undefined : Number(v.trim().replace(',', '.'))) : v), refundAmount),
+  amount: z.preprocess(
+    (v) => (typeof v === 'string' ? (v.trim() === '' ? undefined : Number(v.trim().replace(',', '.'))) : v),
+    refundAmount,
+  ),
 });
 
 /** The order desk's filters: the orders still to pack and send (paid or packed), all, or one status. */
-export const ORDER_DESK_FILTERS = ['open', 'all', 'awaiting_payment', 'paid', 'packed', 'shipped', 'picked_up', 'cancelled', 'expired', 'refunded'] as const satisfies readonly (OrderStatus | 'open' | 'all')[];
+export const ORDER_DESK_FILTERS = [
+  'open',
+  'all',
+  'awaiting_payment',
+  'paid',
+  'packed',
+  'shipped',
+  'picked_up',
+  'cancelled',
+  'expired',
+  'refunded',
+] as const satisfies readonly (OrderStatus | 'open' | 'all')[];
 export type OrderDeskFilter = (typeof ORDER_DESK_FILTERS)[number];
 
-export const orderListQuery = listQuery(['createdAt', 'totalCents'], {
-  status: z.enum(ORDER_DESK_FILTERS).default('open'),
-  q: z.string().trim().max(80).optional(),
-}, 'createdAt', { defaultDir: 'desc' });
+export const orderListQuery = listQuery(
+  ['createdAt', 'totalCents'],
+  {
+    status: z.enum(ORDER_DESK_FILTERS).default('open'),
+    q: z.string().trim().max(80).optional(),
+  },
+  'createdAt',
+  { defaultDir: 'desc' },
+);
 export type OrderListQuery = z.output<typeof orderListQuery>;
 
 /** A customer's own orders, newest first. */

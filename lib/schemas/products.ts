@@ -2,19 +2,32 @@ import { z } from 'zod';
 import { isValidGtin } from '@/lib/domain/gs1';
 import { chosenFile } from './fields';
 
-const money = z.coerce.number({ error: 'Enter a price.' }).min(0, 'A price cannot be negative.').max(100_000, 'That price is too high.');
+const money = z.coerce
+  .number({ error: 'Enter a price.' })
+  .min(0, 'A price cannot be negative.')
+  .max(100_000, 'That price is too high.');
 
 /** A product as the owner types it: net quantity in g or oz, price in money (stored as cents). */
 export const productInput = z
   .object({
     productId: z.coerce.number().int().positive().optional(),
     name: z.string().trim().min(1, 'Enter a name.').max(120),
-    slug: z.string().trim().max(80).regex(/^([a-z0-9]+(-[a-z0-9]+)*)?$/, 'Lower-case letters, digits and dashes only.').optional().default(''),
+    slug: z
+      .string()
+      .trim()
+      .max(80)
+      .regex(/^([a-z0-9]+(-[a-z0-9]+)*)?$/, 'Lower-case letters, digits and dashes only.')
+      .optional()
+      .default(''),
     description: z.string().trim().max(2000).optional().default(''),
     netAmount: z.coerce.number({ error: 'Enter the net quantity.' }).positive('Enter the net quantity.').max(100_000),
     netUnit: z.enum(['g', 'oz']),
     containerKind: z.string().trim().min(1, 'Say what the honey goes in (e.g. glass jar).').max(60),
-    containerGrams: z.coerce.number({ error: 'Enter the empty container weight.' }).int('Whole grams.').min(0).max(20_000),
+    containerGrams: z.coerce
+      .number({ error: 'Enter the empty container weight.' })
+      .int('Whole grams.')
+      .min(0)
+      .max(20_000),
     price: money,
     active: z.boolean().default(true),
     gtinMode: z.enum(['none', 'typed', 'made']),
@@ -23,7 +36,11 @@ export const productInput = z
   })
   .superRefine((v, ctx) => {
     if (v.gtinMode === 'typed' && !isValidGtin(v.gtin)) {
-      ctx.addIssue({ code: 'custom', path: ['gtin'], message: 'Not a valid GTIN: 8, 12, 13 or 14 digits with a correct check digit.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['gtin'],
+        message: 'Not a valid GTIN: 8, 12, 13 or 14 digits with a correct check digit.',
+      });
     }
     if (v.gtinMode === 'made' && !/^\d{1,6}$/.test(v.itemReference)) {
       ctx.addIssue({ code: 'custom', path: ['itemReference'], message: 'Enter the item reference (digits).' });

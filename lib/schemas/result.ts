@@ -14,6 +14,9 @@ export function toFieldErrors(error: z.ZodError): Record<string, string> {
   return out;
 }
 
-export function fail(message: string, fieldErrors?: Record<string, string>): { ok: false; message: string; fieldErrors?: Record<string, string> } {
+export function fail(
+  message: string,
+  fieldErrors?: Record<string, string>,
+): { ok: false; message: string; fieldErrors?: Record<string, string> } {
   return { ok: false, message, fieldErrors };
 }

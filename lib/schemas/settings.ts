@@ -1,6 +1,10 @@
 import { z } from 'zod';
 
-const pct = (label: string) => z.coerce.number({ error: `${label}: enter a number.` }).min(5, `${label}: at least 5 %.`).max(40, `${label}: at most 40 %.`);
+const pct = (label: string) =>
+  z.coerce
+    .number({ error: `${label}: enter a number.` })
+    .min(5, `${label}: at least 5 %.`)
+    .max(40, `${label}: at most 40 %.`);
 
 /** What the owner may change on the settings page. Unknown fields are dropped, never trusted. */
 export const settingsInput = z.object({
@@ -10,11 +14,23 @@ export const settingsInput = z.object({
   contactEmail: z.union([z.literal(''), z.string().trim().email('Enter a valid e-mail address.')]),
   story: z.string().trim().max(2000),
   publicLotNote: z.string().trim().max(1000),
-  timeZone: z.string().trim().refine((tz) => Intl.supportedValuesOf('timeZone').includes(tz) || tz === 'UTC', 'Pick a time zone such as Europe/London.'),
+  timeZone: z
+    .string()
+    .trim()
+    .refine(
+      (tz) => Intl.supportedValuesOf('timeZone').includes(tz) || tz === 'UTC',
+      'Pick a time zone such as Europe/London.',
+    ),
   currency: z.enum(['usd', 'eur', 'gbp', 'cad', 'aud', 'nzd'], 'Pick a currency.'),
   weightSystem: z.enum(['metric', 'us']),
-  gs1CompanyPrefix: z.string().trim().regex(/^(\d{6,11})?$/, 'A GS1 company prefix is 6 to 11 digits.'),
-  lotCodePrefix: z.string().trim().regex(/^[A-Z]{1,4}$/, 'Use 1 to 4 capital letters.'),
+  gs1CompanyPrefix: z
+    .string()
+    .trim()
+    .regex(/^(\d{6,11})?$/, 'A GS1 company prefix is 6 to 11 digits.'),
+  lotCodePrefix: z
+    .string()
+    .trim()
+    .regex(/^[A-Z]{1,4}$/, 'Use 1 to 4 capital letters.'),
   moistureLimitPct: pct('General moisture limit'),
   moistureLimitHeatherPct: pct('Heather moisture limit'),
   moistureGradeAPct: pct('Grade A/B line'),

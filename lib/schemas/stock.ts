@@ -8,18 +8,28 @@ export const stockAdjustInput = z
     productId: z.coerce.number().int().positive('Pick a product.'),
     lotId: z.coerce.number().int().positive('Pick a lot.'),
     kind: z.enum(ADJUSTMENT_KINDS),
-    delta: z.coerce.number({ error: 'Enter a number of jars.' }).int('Whole jars.').refine((n) => n !== 0, 'Enter a change other than 0.'),
+    delta: z.coerce
+      .number({ error: 'Enter a number of jars.' })
+      .int('Whole jars.')
+      .refine((n) => n !== 0, 'Enter a change other than 0.'),
     reason: z.string().trim().min(3, 'Say why (at least 3 characters).').max(500),
   })
   .superRefine((v, ctx) => {
-    if (v.kind === 'breakage' && v.delta > 0) ctx.addIssue({ code: 'custom', path: ['delta'], message: 'Breakage takes jars away: enter a negative number.' });
-    if (v.kind === 'return' && v.delta < 0) ctx.addIssue({ code: 'custom', path: ['delta'], message: 'A return adds jars: enter a positive number.' });
+    if (v.kind === 'breakage' && v.delta > 0)
+      ctx.addIssue({ code: 'custom', path: ['delta'], message: 'Breakage takes jars away: enter a negative number.' });
+    if (v.kind === 'return' && v.delta < 0)
+      ctx.addIssue({ code: 'custom', path: ['delta'], message: 'A return adds jars: enter a positive number.' });
   });
 export type StockAdjustInput = z.input<typeof stockAdjustInput>;
 
 /** The stock ledger's query: newest entries first, optionally for one product or lot. */
-export const ledgerListQuery = listQuery(['createdAt'], {
-  productId: id.optional(),
-  lotId: id.optional(),
-}, 'createdAt', { defaultDir: 'desc' });
+export const ledgerListQuery = listQuery(
+  ['createdAt'],
+  {
+    productId: id.optional(),
+    lotId: id.optional(),
+  },
+  'createdAt',
+  { defaultDir: 'desc' },
+);
 export type LedgerListQuery = z.output<typeof ledgerListQuery>;

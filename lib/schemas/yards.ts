@@ -2,14 +2,23 @@ import { z } from 'zod';
 import { blankToNull, id } from './fields';
 import { listQuery } from './list-query';
 
-export const yardListQuery = listQuery(['name', 'colonies'], {
-  q: z.string().trim().max(80).optional(),
-}, 'name');
+export const yardListQuery = listQuery(
+  ['name', 'colonies'],
+  {
+    q: z.string().trim().max(80).optional(),
+  },
+  'name',
+);
 export type YardListQuery = z.output<typeof yardListQuery>;
 
 const coordinate = (max: number) => blankToNull(z.coerce.number().min(-max).max(max, `Between -${max} and ${max}`));
 export const yardInput = z.object({
-  name: z.string().trim().min(1, 'Give the yard a name').max(80).regex(/^[\p{L}\p{N}]/u, 'Start the name with a letter or digit'),
+  name: z
+    .string()
+    .trim()
+    .min(1, 'Give the yard a name')
+    .max(80)
+    .regex(/^[\p{L}\p{N}]/u, 'Start the name with a letter or digit'),
   place: z.string().trim().max(500).default(''),
   latitude: coordinate(90),
   longitude: coordinate(180),
@@ -18,4 +27,3 @@ export const yardInput = z.object({
 });
 export type YardInput = z.input<typeof yardInput>;
 export const yardUpdateInput = yardInput.extend({ yardId: id });
-

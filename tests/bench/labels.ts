@@ -14,7 +14,11 @@ const LIMIT_MB = 300;
 // lib/pdf imports 'server-only', which throws outside the react-server condition that
 // Next.js sets; re-run this script under that condition (the package then is empty).
 if (!process.execArgv.includes('--conditions=react-server')) {
-  const run = spawnSync(process.execPath, ['--conditions=react-server', ...process.execArgv, fileURLToPath(import.meta.url), ...process.argv.slice(2)], { stdio: 'inherit' });
+  const run = spawnSync(
+    process.execPath,
+    ['--conditions=react-server', ...process.execArgv, fileURLToPath(import.meta.url), ...process.argv.slice(2)],
+    { stdio: 'inherit' },
+  );
   process.exit(run.status ?? 1);
 }
 
@@ -62,7 +66,9 @@ mkdirSync(path.dirname(out), { recursive: true });
 writeFileSync(out, pdf);
 console.log(`labels: 1000 (${kind}, ${layout.name})`);
 console.log(`elapsed: ${seconds.toFixed(2)} s (limit ${LIMIT_SECONDS} s)`);
-console.log(`peak RSS: ${peakMb.toFixed(0)} MB (limit ${LIMIT_MB} MB; sampled ${(peakRss / 2 ** 20).toFixed(0)} MB; ${(baselineRss / 2 ** 20).toFixed(0)} MB before rendering)`);
+console.log(
+  `peak RSS: ${peakMb.toFixed(0)} MB (limit ${LIMIT_MB} MB; sampled ${(peakRss / 2 ** 20).toFixed(0)} MB; ${(baselineRss / 2 ** 20).toFixed(0)} MB before rendering)`,
+);
 console.log(`file: ${(pdf.byteLength / 1024).toFixed(0)} KiB → ${path.relative(process.cwd(), out)}`);
 if (seconds > LIMIT_SECONDS || peakMb > LIMIT_MB) {
   console.error('FAIL: over the limit');

@@ -34,24 +34,48 @@ async function main() {
     for (let i = 0; i < RUNS; i++) {
       const dir = mkdtempSync(path.join(tmpdir(), 'lh-'));
       const out = path.join(dir, 'r.json');
-      const args = ['--yes', 'lighthouse@12.8.2', p.url, '--quiet', '--output=json', `--output-path=${out}`, '--only-categories=performance,accessibility',
-        '--throttling-method=provided', '--form-factor=desktop', '--screenEmulation.disabled',
-        `--chrome-flags=--headless=new --no-sandbox --disable-gpu --disable-background-networking --disable-component-update --disable-sync --no-first-run --user-data-dir=${dir}/profile`];
+      const args = [
+        '--yes',
+        'lighthouse@12.8.2',
+        p.url,
+        '--quiet',
+        '--output=json',
+        `--output-path=${out}`,
+        '--only-categories=performance,accessibility',
+        '--throttling-method=provided',
+        '--form-factor=desktop',
+        '--screenEmulation.disabled',
+        `--chrome-flags=--headless=new --no-sandbox --disable-gpu --disable-background-networking --disable-component-update --disable-sync --no-first-run --user-data-dir=${dir}/profile`,
+      ];
       if (p.cookie) args.push(`--extra-headers=${JSON.stringify({ Cookie: p.cookie })}`);
-      execFileSync('npx', args, { stdio: 'ignore', env: { ...process.env, CHROME_PATH: process.env.CHROME_PATH ?? '/usr/bin/chromium' } });
+      execFileSync('npx', args, {
+        stdio: 'ignore',
+        env: { ...process.env, CHROME_PATH: process.env.CHROME_PATH ?? '/usr/bin/chromium' },
+      });
       const r = JSON.parse(readFileSync(out, 'utf8')) as { categories: Record<string, { score: number }> };
-      scores.push({ performance: Math.round(r.categories.performance.score * 100), accessibility: Math.round(r.categories.accessibility.score * 100) });
+      scores.push({
+        performance: Math.round(r.categories.performance.score * 100),
+        accessibility: Math.round(r.categories.accessibility.score * 100),
+      });
     }
-    const median = (k: 'performance' | 'accessibility') => scores.map((s) => s[k]).sort((a, b) => a - b)[Math.floor(scores.length / 2)];
+    const median = (k: 'performance' | 'accessibility') =>
+      scores.map((s) => s[k]).sort((a, b) => a - b)[Math.floor(scores.length / 2)];
     const perf = median('performance');
     const a11y = median('accessibility');
     const ok = perf >= TARGET.performance && a11y >= TARGET.accessibility;
     failed ||= !ok;
-    rows.push(`${p.name.padEnd(24)} ${String(perf).padStart(11)} ${String(a11y).padStart(13)}  ${ok ? 'ok' : 'BELOW TARGET'}`);
+    rows.push(
+      `${p.name.padEnd(24)} ${String(perf).padStart(11)} ${String(a11y).padStart(13)}  ${ok ? 'ok' : 'BELOW TARGET'}`,
+    );
   }
-  console.log(`${'page'.padEnd(24)} ${'performance'.padStart(11)} ${'accessibility'.padStart(13)}  (median of ${RUNS}; targets ${TARGET.performance}/${TARGET.accessibility})`);
+  console.log(
+    `${'page'.padEnd(24)} ${'performance'.padStart(11)} ${'accessibility'.padStart(13)}  (median of ${RUNS}; targets ${TARGET.performance}/${TARGET.accessibility})`,
+  );
   for (const r of rows) console.log(r);
   process.exit(failed ? 1 : 0);
 }
 
-main().catch((err) => { console.error(err); process.exit(1); });
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});

@@ -15,7 +15,11 @@ export const BENCH_DB = 'combtrace_bench';
 export const BENCH_SEASON = 2026;
 
 function psql(db: string, sql: string): void {
-  execFileSync('psql', ['-h', '127.0.0.1', '-p', TEST_PGPORT, '-U', 'postgres', '-d', db, '-v', 'ON_ERROR_STOP=1', '-qc', sql], { stdio: 'inherit' });
+  execFileSync(
+    'psql',
+    ['-h', '127.0.0.1', '-p', TEST_PGPORT, '-U', 'postgres', '-d', db, '-v', 'ON_ERROR_STOP=1', '-qc', sql],
+    { stdio: 'inherit' },
+  );
 }
 
 const SEED_SQL = `
@@ -103,10 +107,20 @@ async function main() {
   psql('postgres', `DROP DATABASE IF EXISTS ${BENCH_DB} WITH (FORCE)`);
   psql('postgres', `CREATE DATABASE ${BENCH_DB}`);
   const url = testDbUrl(BENCH_DB);
-  execFileSync('npx', ['tsx', path.join(ROOT, 'lib/db/migrate.ts'), 'up'], { cwd: ROOT, env: { ...process.env, DATABASE_URL: url }, stdio: 'inherit' });
+  execFileSync('npx', ['tsx', path.join(ROOT, 'lib/db/migrate.ts'), 'up'], {
+    cwd: ROOT,
+    env: { ...process.env, DATABASE_URL: url },
+    stdio: 'inherit',
+  });
   psql(BENCH_DB, SEED_SQL);
-  psql(BENCH_DB, `SELECT (SELECT count(*) FROM colonies) AS colonies, (SELECT count(*) FROM super_pulls) AS super_pulls,
-    (SELECT count(*) FROM lots) AS lots, (SELECT count(*) FROM orders) AS orders, (SELECT count(*) FROM order_allocations) AS allocations`.replace('-qc', ''));
+  psql(
+    BENCH_DB,
+    `SELECT (SELECT count(*) FROM colonies) AS colonies, (SELECT count(*) FROM super_pulls) AS super_pulls,
+    (SELECT count(*) FROM lots) AS lots, (SELECT count(*) FROM orders) AS orders, (SELECT count(*) FROM order_allocations) AS allocations`.replace(
+      '-qc',
+      '',
+    ),
+  );
   console.log(`Seeded ${BENCH_DB} in ${((Date.now() - started) / 1000).toFixed(1)} s: ${url}`);
 }
 

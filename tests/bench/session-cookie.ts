@@ -19,6 +19,7 @@ export async function sessionCookie(base: string, email: string, password: strin
     body: new URLSearchParams({ csrfToken, email, password, json: 'true' }),
   });
   keep(res);
-  if (![...jar.keys()].some((k) => k.includes('session-token'))) throw new Error(`Sign-in failed for ${email} (${res.status})`);
+  if (![...jar.keys()].some((k) => k.includes('session-token')))
+    throw new Error(`Sign-in failed for ${email} (${res.status})`);
   return cookie();
 }

@@ -39,16 +39,35 @@ for (const r of routes) {
 const results: { name: string; rps: number; p50: number; p99: number; failed: number }[] = [];
 for (const r of routes) {
   const out = await autocannon({ url: base + r.path, connections, duration: seconds });
-  results.push({ name: r.name, rps: out.requests.average, p50: out.latency.p50, p99: out.latency.p99, failed: out.non2xx + out.errors + out.timeouts });
+  results.push({
+    name: r.name,
+    rps: out.requests.average,
+    p50: out.latency.p50,
+    p99: out.latency.p99,
+    failed: out.non2xx + out.errors + out.timeouts,
+  });
 }
 
 const [health] = results;
 console.log(`\n${base}  ${connections} connections × ${seconds} s per route\n`);
-console.log('route'.padEnd(20) + 'req/s'.padStart(9) + 'p50 ms'.padStart(9) + 'p99 ms'.padStart(9) + '  req/s vs health' + '  p99 vs health' + '  failed');
+console.log(
+  'route'.padEnd(20) +
+    'req/s'.padStart(9) +
+    'p50 ms'.padStart(9) +
+    'p99 ms'.padStart(9) +
+    '  req/s vs health' +
+    '  p99 vs health' +
+    '  failed',
+);
 for (const r of results) {
   console.log(
-    r.name.padEnd(20) + r.rps.toFixed(0).padStart(9) + String(r.p50).padStart(9) + String(r.p99).padStart(9) +
-    (r.rps / health.rps).toFixed(2).padStart(17) + (r.p99 / Math.max(1, health.p99)).toFixed(2).padStart(15) + String(r.failed).padStart(8),
+    r.name.padEnd(20) +
+      r.rps.toFixed(0).padStart(9) +
+      String(r.p50).padStart(9) +
+      String(r.p99).padStart(9) +
+      (r.rps / health.rps).toFixed(2).padStart(17) +
+      (r.p99 / Math.max(1, health.p99)).toFixed(2).padStart(15) +
+      String(r.failed).padStart(8),
   );
 }
 if (results.some((r) => r.failed > 0)) process.exit(1);

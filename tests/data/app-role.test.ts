@@ -60,28 +60,52 @@ async function expectPermissionDenied(sql: string, what: RegExp = /^permission d
 
 describe(`the app's database role (${APP_ROLE})`, () => {
   it('is what the app connects as: no superuser, no role or database creation, owns no table', async () => {
-    const [[me]] = (await q(`SELECT current_user AS "user", r.rolsuper, r.rolcreatedb, r.rolcreaterole, r.rolreplication, r.rolbypassrls,
+    const [[me]] =
+      (await q(`SELECT current_user AS "user", r.rolsuper, r.rolcreatedb, r.rolcreaterole, r.rolreplication, r.rolbypassrls,
         (SELECT count(*)::int FROM pg_tables WHERE schemaname = 'public' AND tableowner = current_user) AS owned,
         pg_has_role(current_user, (SELECT tableowner FROM pg_tables WHERE tablename = 'audit_entries'), 'MEMBER') AS owner_rights
       FROM pg_roles r WHERE r.rolname = current_user`)) as [Record<string, unknown>[], unknown];
-    expect(me).toEqual({ user: APP_ROLE, rolsuper: false, rolcreatedb: false, rolcreaterole: false, rolreplication: false, rolbypassrls: false, owned: 0, owner_rights: false });
+    expect(me).toEqual({
+      user: APP_ROLE,
+      rolsuper: false,
+      rolcreatedb: false,
+      rolcreaterole: false,
+      rolreplication: false,
+      rolbypassrls: false,
+      owned: 0,
+      owner_rights: false,
+    });
   });
 
   it('runs the lot flow through the real actions: a lot, a reading, a voided reading, and its audit trail', async () => {
     await signInAs(DEMO.crew);
     const lot = await createLotAction({ floralSource: 'Role check clover', heather: false, notes: '' });
     if (!lot.ok) throw new Error(lot.message);
-    expect(await addReadingAction({ lotId: lot.data.id, method: 'scale', scaleWaterPct: 17.4, takenOn: '2026-08-01' })).toMatchObject({ ok: true });
+    expect(
+      await addReadingAction({ lotId: lot.data.id, method: 'scale', scaleWaterPct: 17.4, takenOn: '2026-08-01' }),
+    ).toMatchObject({ ok: true });
     const reading = await getDb().models.MoistureReading.findOne({ where: { lotId: lot.data.id } });
     // Voiding locks the reading row (SELECT … FOR UPDATE), which needs UPDATE: kept on readings.
-    expect(await voidRecordAction({ lotId: lot.data.id, kind: 'reading', recordId: reading!.id, reason: 'Sample taken from the wrong bucket' })).toMatchObject({ ok: true });
+    expect(
+      await voidRecordAction({
+        lotId: lot.data.id,
+        kind: 'reading',
+        recordId: reading!.id,
+        reason: 'Sample taken from the wrong bucket',
+      }),
+    ).toMatchObject({ ok: true });
     const trail = await listAudit('lot', lot.data.id);
     expect(trail.map((a) => a.action)).toContain('lot.create');
   });
 
   it('inserts an audit row and reads it back, but cannot update, delete or truncate the audit log', async () => {
-    const [[row]] = (await q(`INSERT INTO audit_entries (action, entity_type, entity_id, reason, created_at) VALUES ('role.check', 'test', 'app-role', 'written by ${APP_ROLE}', now()) RETURNING id`)) as [{ id: number }[], unknown];
-    const [[back]] = (await q(`SELECT reason FROM audit_entries WHERE id = ${Number(row.id)}`)) as [{ reason: string }[], unknown];
+    const [[row]] = (await q(
+      `INSERT INTO audit_entries (action, entity_type, entity_id, reason, created_at) VALUES ('role.check', 'test', 'app-role', 'written by ${APP_ROLE}', now()) RETURNING id`,
+    )) as [{ id: number }[], unknown];
+    const [[back]] = (await q(`SELECT reason FROM audit_entries WHERE id = ${Number(row.id)}`)) as [
+      { reason: string }[],
+      unknown,
+    ];
     expect(back.reason).toBe(`written by ${APP_ROLE}`);
     await expectPermissionDenied(`UPDATE audit_entries SET reason = 'rewritten' WHERE id = ${Number(row.id)}`);
     await expectPermissionDenied(`DELETE FROM audit_entries WHERE id = ${Number(row.id)}`);
@@ -101,9 +125,14 @@ describe(`the app's database role (${APP_ROLE})`, () => {
   it('updates and locks lots (stage changes) but cannot delete or truncate lots, containers, readings, lab files or blend parents', async () => {
     const t = await getDb().sequelize.transaction();
     try {
-      const [locked] = await getDb().sequelize.query(`SELECT id FROM lots ORDER BY id LIMIT 1 FOR UPDATE`, { transaction: t });
+      const [locked] = await getDb().sequelize.query(`SELECT id FROM lots ORDER BY id LIMIT 1 FOR UPDATE`, {
+        transaction: t,
+      });
       expect(locked).toHaveLength(1);
-      const [, meta] = await getDb().sequelize.query(`UPDATE lots SET notes = notes WHERE id = ${(locked[0] as { id: number }).id}`, { transaction: t });
+      const [, meta] = await getDb().sequelize.query(
+        `UPDATE lots SET notes = notes WHERE id = ${(locked[0] as { id: number }).id}`,
+        { transaction: t },
+      );
       expect((meta as { rowCount: number }).rowCount).toBe(1);
     } finally {
       await t.rollback();
@@ -115,12 +144,26 @@ describe(`the app's database role (${APP_ROLE})`, () => {
   });
 
   it('cannot switch the append-only triggers off, change the schema or touch migration bookkeeping', async () => {
-    await expectPermissionDenied(`ALTER TABLE audit_entries DISABLE TRIGGER ALL`, /^must be owner of table audit_entries/);
+    await expectPermissionDenied(
+      `ALTER TABLE audit_entries DISABLE TRIGGER ALL`,
+      /^must be owner of table audit_entries/,
+    );
     await expectPermissionDenied(`DROP TRIGGER audit_entries_append_only ON audit_entries`, /^must be owner of/);
-    await expectPermissionDenied(`SET session_replication_role = replica`, /^permission denied to set parameter "session_replication_role"/);
-    await expectPermissionDenied(`CREATE TABLE public.role_check_scratch (id int)`, /^permission denied for schema public/);
-    await expectPermissionDenied(`CREATE TRIGGER role_check BEFORE INSERT ON lots FOR EACH ROW EXECUTE FUNCTION combtrace_append_only()`);
-    await expectPermissionDenied(`SELECT setval('order_number_seq', 1)`, /^permission denied for sequence order_number_seq/);
+    await expectPermissionDenied(
+      `SET session_replication_role = replica`,
+      /^permission denied to set parameter "session_replication_role"/,
+    );
+    await expectPermissionDenied(
+      `CREATE TABLE public.role_check_scratch (id int)`,
+      /^permission denied for schema public/,
+    );
+    await expectPermissionDenied(
+      `CREATE TRIGGER role_check BEFORE INSERT ON lots FOR EACH ROW EXECUTE FUNCTION combtrace_append_only()`,
+    );
+    await expectPermissionDenied(
+      `SELECT setval('order_number_seq', 1)`,
+      /^permission denied for sequence order_number_seq/,
+    );
     await expectPermissionDenied(`SELECT name FROM schema_migrations`);
     await expectPermissionDenied(`DELETE FROM schema_seeds`);
   });
@@ -128,9 +171,12 @@ describe(`the app's database role (${APP_ROLE})`, () => {
   it('tables made by later migrations get row grants by default; an append-only one has to revoke them itself', async () => {
     await owner.query(`CREATE TABLE role_check_later (id serial PRIMARY KEY, note text)`);
     try {
-      const { rows } = await owner.query(`SELECT has_table_privilege($1, 'role_check_later', 'SELECT, INSERT') AS write,
+      const { rows } = await owner.query(
+        `SELECT has_table_privilege($1, 'role_check_later', 'SELECT, INSERT') AS write,
           has_table_privilege($1, 'role_check_later', 'DELETE') AS del, has_table_privilege($1, 'role_check_later', 'TRUNCATE') AS truncate,
-          has_sequence_privilege($1, 'role_check_later_id_seq', 'USAGE') AS seq`, [APP_ROLE]);
+          has_sequence_privilege($1, 'role_check_later_id_seq', 'USAGE') AS seq`,
+        [APP_ROLE],
+      );
       expect(rows[0]).toEqual({ write: true, del: true, truncate: false, seq: true });
     } finally {
       await owner.query(`DROP TABLE role_check_later`);
@@ -144,11 +190,14 @@ describe('the app-role migration in a cluster shared by several databases', () =
     const db = new pg.Client({ connectionString: url });
     await db.connect();
     try {
-      const { rows } = await db.query(`SELECT
+      const { rows } = await db.query(
+        `SELECT
           (SELECT count(*)::int FROM pg_roles WHERE rolname = $1) AS roles,
           (SELECT count(*)::int FROM pg_shdepend d JOIN pg_roles r ON r.oid = d.refobjid
             WHERE r.rolname = $1 AND d.dbid = (SELECT oid FROM pg_database WHERE datname = current_database())) AS grants,
-          (SELECT coalesce(datacl::text, '') LIKE '%' || $1 || '=%' FROM pg_database WHERE datname = current_database()) AS connect`, [APP_ROLE]);
+          (SELECT coalesce(datacl::text, '') LIKE '%' || $1 || '=%' FROM pg_database WHERE datname = current_database()) AS connect`,
+        [APP_ROLE],
+      );
       return rows[0] as { roles: number; grants: number; connect: boolean };
     } finally {
       await db.end();

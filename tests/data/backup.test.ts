@@ -8,7 +8,10 @@ import { closeDb, getDb } from '@/lib/db';
 import { dropDatabase } from '@/tests/support/pg';
 
 const restored = `combtrace_restore_${process.pid}`;
-afterAll(async () => { await closeDb(); dropDatabase(restored); });
+afterAll(async () => {
+  await closeDb();
+  dropDatabase(restored);
+});
 
 // The figures a restore must bring back exactly: row counts and the sums that carry money and stock.
 const CHECKS = `SELECT
@@ -48,7 +51,12 @@ describe('backups (npm run db:backup / db:restore)', () => {
       expect((ck as { n: number }[])[0].n).toBe(1);
       const [aclsAfter] = await copy.query(ACLS);
       expect(aclsAfter).toEqual(aclsBefore);
-      expect(await copy.query(APP_RIGHTS, { plain: true })).toEqual({ audit_insert: true, audit_delete: false, lots_update: true, lots_delete: false });
+      expect(await copy.query(APP_RIGHTS, { plain: true })).toEqual({
+        audit_insert: true,
+        audit_delete: false,
+        lots_update: true,
+        lots_delete: false,
+      });
     } finally {
       await copy.close();
     }

@@ -12,7 +12,9 @@ afterEach(() => vi.restoreAllMocks());
 /** Everything written to the console while `run` runs, one string per call. */
 async function logsOf(run: () => Promise<unknown>): Promise<string[]> {
   const lines: string[] = [];
-  const keep = (...args: unknown[]) => { lines.push(args.map((a) => (a instanceof Error ? `${a.message}\n${a.stack}` : String(a))).join(' ')); };
+  const keep = (...args: unknown[]) => {
+    lines.push(args.map((a) => (a instanceof Error ? `${a.message}\n${a.stack}` : String(a))).join(' '));
+  };
   for (const level of ['log', 'info', 'warn', 'error'] as const) vi.spyOn(console, level).mockImplementation(keep);
   await run().catch(() => undefined);
   return lines;
@@ -20,9 +22,15 @@ async function logsOf(run: () => Promise<unknown>): Promise<string[]> {
 
 describe('errors and logs (ASVS 16)', () => {
   it('an unexpected failure answers a plain 500 with a reference; the SQL and stack stay in the log under that reference', async () => {
-    const sqlError = new DatabaseError(Object.assign(new Error('column "secret_col" does not exist'), { sql: 'SELECT secret_col FROM users WHERE id = 1' }));
+    const sqlError = new DatabaseError(
+      Object.assign(new Error('column "secret_col" does not exist'), {
+        sql: 'SELECT secret_col FROM users WHERE id = 1',
+      }),
+    );
     let res: Response | undefined;
-    const logged = await logsOf(async () => { res = handleRouteError(sqlError); });
+    const logged = await logsOf(async () => {
+      res = handleRouteError(sqlError);
+    });
     expect(res?.status).toBe(500);
     const body = (await res!.json()) as { error: string };
     expect(body.error).toMatch(/^Something went wrong on our side\. Reference [0-9a-f]{8}\.$/);
@@ -61,10 +69,12 @@ describe('the session cookie (ASVS 3.3)', () => {
   it('is HttpOnly and SameSite=Lax always, and Secure with the __Secure- prefix when the app is served over https', async () => {
     const { sessionCookie, authOptions } = await import('@/lib/auth/options');
     expect(sessionCookie('https://shop.example')).toEqual({
-      name: '__Secure-next-auth.session-token', options: { httpOnly: true, sameSite: 'lax', path: '/', secure: true },
+      name: '__Secure-next-auth.session-token',
+      options: { httpOnly: true, sameSite: 'lax', path: '/', secure: true },
     });
     expect(sessionCookie('http://127.0.0.1:3100')).toEqual({
-      name: 'next-auth.session-token', options: { httpOnly: true, sameSite: 'lax', path: '/', secure: false },
+      name: 'next-auth.session-token',
+      options: { httpOnly: true, sameSite: 'lax', path: '/', secure: false },
     });
     expect(authOptions.cookies?.sessionToken?.options.httpOnly).toBe(true);
   });

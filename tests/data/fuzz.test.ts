@@ -11,9 +11,47 @@ afterAll(closeDb);
 const actionModules = import.meta.glob<Record<string, unknown>>(['/app/**/actions.ts']);
 const routeModules = import.meta.glob<Record<string, unknown>>(['/app/**/route.ts']);
 
-const FIELDS = ['id', 'userId', 'yardId', 'colonyId', 'lotId', 'productId', 'orderId', 'runId', 'name', 'email', 'password', 'code', 'tagCode',
-  'role', 'status', 'stage', 'reason', 'notes', 'quantity', 'jarCount', 'grossKg', 'tareKg', 'weight', 'fullWeight', 'priceCents', 'amountCents',
-  'page', 'pageSize', 'sort', 'dir', 'date', 'pulledOn', 'refractiveIndex', 'temperatureC', 'items', 'lines', 'samples', 'token', 'businessName'];
+const FIELDS = [
+  'id',
+  'userId',
+  'yardId',
+  'colonyId',
+  'lotId',
+  'productId',
+  'orderId',
+  'runId',
+  'name',
+  'email',
+  'password',
+  'code',
+  'tagCode',
+  'role',
+  'status',
+  'stage',
+  'reason',
+  'notes',
+  'quantity',
+  'jarCount',
+  'grossKg',
+  'tareKg',
+  'weight',
+  'fullWeight',
+  'priceCents',
+  'amountCents',
+  'page',
+  'pageSize',
+  'sort',
+  'dir',
+  'date',
+  'pulledOn',
+  'refractiveIndex',
+  'temperatureC',
+  'items',
+  'lines',
+  'samples',
+  'token',
+  'businessName',
+];
 const fill = (value: unknown) => Object.fromEntries(FIELDS.map((f) => [f, value]));
 const MB = 'x'.repeat(1_000_000);
 const PAYLOADS: [string, unknown][] = [
@@ -23,15 +61,27 @@ const PAYLOADS: [string, unknown][] = [
   ['negative quantities', fill(-5)],
   ['1 MB strings', fill(MB)],
   ['SQL metacharacters', fill("'; DROP TABLE users; --")],
-  ['__proto__ keys', JSON.parse('{"__proto__": {"role": "owner", "ok": true}, "constructor": {"prototype": {"polluted": 1}}}')],
+  [
+    '__proto__ keys',
+    JSON.parse('{"__proto__": {"role": "owner", "ok": true}, "constructor": {"prototype": {"polluted": 1}}}'),
+  ],
   ['not an object', 'just a string'],
   ['null', null],
 ];
-const QUERIES = ['?page=-1&pageSize=1e309&sort=__proto__&dir=sideways', "?page=1&sort=id;DROP TABLE lots&q=%27%20OR%201%3D1--", `?q=${'y'.repeat(20_000)}`];
+const QUERIES = [
+  '?page=-1&pageSize=1e309&sort=__proto__&dir=sideways',
+  '?page=1&sort=id;DROP TABLE lots&q=%27%20OR%201%3D1--',
+  `?q=${'y'.repeat(20_000)}`,
+];
 
-async function allExports(modules: Record<string, () => Promise<Record<string, unknown>>>, filter: (n: string) => boolean) {
+async function allExports(
+  modules: Record<string, () => Promise<Record<string, unknown>>>,
+  filter: (n: string) => boolean,
+) {
   const out: { file: string; name: string; fn: unknown }[] = [];
-  for (const [file, load] of Object.entries(modules)) for (const [name, fn] of Object.entries(await load())) if (typeof fn === 'function' && filter(name)) out.push({ file: file.slice(1), name, fn });
+  for (const [file, load] of Object.entries(modules))
+    for (const [name, fn] of Object.entries(await load()))
+      if (typeof fn === 'function' && filter(name)) out.push({ file: file.slice(1), name, fn });
   return out;
 }
 
@@ -46,7 +96,8 @@ describe('fuzzing every action and route handler', () => {
         try {
           const r = (await (a.fn as ActionFn)(payload)) as { ok?: boolean; message?: string };
           if (r?.ok !== false) problems.push(`${a.file}#${a.name} accepted ${label}`);
-          else if (!r.message || r.message.length > 300) problems.push(`${a.file}#${a.name} gave no readable message for ${label}`);
+          else if (!r.message || r.message.length > 300)
+            problems.push(`${a.file}#${a.name} gave no readable message for ${label}`);
         } catch (err) {
           problems.push(`${a.file}#${a.name} threw on ${label}: ${(err as Error).message.slice(0, 120)}`);
         }
@@ -64,7 +115,10 @@ describe('fuzzing every action and route handler', () => {
     const problems: string[] = [];
     for (const r of await allExports(routeModules, (n) => ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'].includes(n))) {
       if (r.file.includes('[...nextauth]')) continue; // next-auth's own handler, fronted by our throttle
-      const cases: [string, unknown, string][] = r.name === 'GET' ? QUERIES.map((q) => [`query ${q.slice(0, 40)}`, undefined, q]) : PAYLOADS.map(([l, p]) => [l, p, '']);
+      const cases: [string, unknown, string][] =
+        r.name === 'GET'
+          ? QUERIES.map((q) => [`query ${q.slice(0, 40)}`, undefined, q])
+          : PAYLOADS.map(([l, p]) => [l, p, '']);
       for (const [label, body, query] of cases) {
         const status = await callRoute(r.file, r.name, r.fn as RouteFn, body, query);
         if (status >= 500) problems.push(`${r.file}#${r.name} → ${status} on ${label}`);

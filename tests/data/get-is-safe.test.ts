@@ -18,7 +18,8 @@ const routeModules = import.meta.glob<Record<string, unknown>>(['/app/**/route.t
 const WRITES_BY_DESIGN: Record<string, string> = {
   'app/(storefront)/checkout/cancelled/route.ts':
     "Stripe's cancel_url is a browser navigation; it releases the jars held for the order its HMAC token names (tests/data/shop/checkout.test.ts)",
-  'app/api/auth/[...nextauth]/route.ts': "next-auth's own session/csrf/providers endpoints; sign-in and sign-out are POSTs",
+  'app/api/auth/[...nextauth]/route.ts':
+    "next-auth's own session/csrf/providers endpoints; sign-in and sign-out are POSTs",
 };
 
 const one = async (sql: string) => {
@@ -39,10 +40,22 @@ beforeAll(async () => {
   // A lab file and a product photo to read back (uploaded before the fingerprint is taken).
   const lab = new FormData();
   lab.set('file', new File([TINY_PDF], 'pollen.pdf', { type: 'application/pdf' }));
-  expect((await uploadLabFile(new Request(`http://t/api/lots/${lotId}/lab-files`, { method: 'POST', body: lab }), { params: Promise.resolve({ id: String(lotId) }) })).status).toBe(201);
+  expect(
+    (
+      await uploadLabFile(new Request(`http://t/api/lots/${lotId}/lab-files`, { method: 'POST', body: lab }), {
+        params: Promise.resolve({ id: String(lotId) }),
+      })
+    ).status,
+  ).toBe(201);
   const photo = new FormData();
   photo.set('photo', new File([TINY_PNG], 'jar.png', { type: 'image/png' }));
-  expect((await uploadPhoto(new Request(`http://t/api/products/${productId}/photo`, { method: 'POST', body: photo }), { params: Promise.resolve({ id: String(productId) }) })).status).toBe(201);
+  expect(
+    (
+      await uploadPhoto(new Request(`http://t/api/products/${productId}/photo`, { method: 'POST', body: photo }), {
+        params: Promise.resolve({ id: String(productId) }),
+      })
+    ).status,
+  ).toBe(201);
 
   const orderId = await one(`SELECT id FROM orders WHERE status <> 'pending' ORDER BY id LIMIT 1`);
   const runId = await one(`SELECT id FROM jarring_runs ORDER BY id LIMIT 1`);
@@ -56,7 +69,10 @@ beforeAll(async () => {
     'app/api/colonies/route.ts': [{ query: '?page=1&pageSize=25', expect: 200 }],
     'app/api/health/route.ts': [{ expect: 200 }],
     'app/api/jarring/route.ts': [{ query: '?page=1&pageSize=25', expect: 200 }],
-    'app/api/jarring/[id]/labels/route.ts': [{ params: { id: String(runId) }, query: '?preview=1', expect: 200 }, { params: { id: String(runId) }, expect: 200 }],
+    'app/api/jarring/[id]/labels/route.ts': [
+      { params: { id: String(runId) }, query: '?preview=1', expect: 200 },
+      { params: { id: String(runId) }, expect: 200 },
+    ],
     'app/api/lab-files/[id]/route.ts': [{ params: { id: String(labFileId) }, expect: 200 }],
     'app/api/lots/route.ts': [{ query: '?page=1&pageSize=25', expect: 200 }],
     'app/api/orders/route.ts': [{ query: '?page=1&pageSize=25&status=all', expect: 200 }],
@@ -68,7 +84,10 @@ beforeAll(async () => {
     'app/api/stock/ledger/route.ts': [{ query: '?page=1&pageSize=25', expect: 200 }],
     'app/api/super-pulls/route.ts': [{ query: '?page=1&pageSize=25', expect: 200 }],
     'app/api/super-tags/sheet/route.ts': [{ expect: 200 }],
-    'app/api/trace/recall/route.ts': [{ query: `?lot=${lotId}&format=csv`, expect: 200 }, { query: `?lot=${lotId}&format=pdf`, expect: 200 }],
+    'app/api/trace/recall/route.ts': [
+      { query: `?lot=${lotId}&format=csv`, expect: 200 },
+      { query: `?lot=${lotId}&format=pdf`, expect: 200 },
+    ],
     'app/api/yards/route.ts': [{ query: '?page=1&pageSize=25', expect: 200 }],
     'app/welcome/route.ts': [{ expect: 303 }],
   };
@@ -92,10 +111,17 @@ async function call(file: string, fn: RouteFn, c: Call): Promise<number> {
 describe('GET never changes state', () => {
   it('every GET route handler is either called here with a real record or listed with its reason', async () => {
     const gets: string[] = [];
-    for (const [file, load] of Object.entries(routeModules)) if (typeof (await load()).GET === 'function') gets.push(file.slice(1));
+    for (const [file, load] of Object.entries(routeModules))
+      if (typeof (await load()).GET === 'function') gets.push(file.slice(1));
     const covered = new Set([...Object.keys(calls), ...Object.keys(WRITES_BY_DESIGN)]);
-    expect(gets.filter((f) => !covered.has(f)), 'GET handlers with no row here').toEqual([]);
-    expect([...covered].filter((f) => !gets.includes(f)), 'rows for GET handlers that no longer exist').toEqual([]);
+    expect(
+      gets.filter((f) => !covered.has(f)),
+      'GET handlers with no row here',
+    ).toEqual([]);
+    expect(
+      [...covered].filter((f) => !gets.includes(f)),
+      'rows for GET handlers that no longer exist',
+    ).toEqual([]);
   });
 
   it('reading every list, detail, download, report and label sheet as the owner writes nothing', async () => {
@@ -103,7 +129,8 @@ describe('GET never changes state', () => {
     const answers: string[] = [];
     for (const [file, cases] of Object.entries(calls)) {
       const { GET } = await routeModules[`/${file}`]();
-      for (const c of cases) answers.push(`${file}${c.query ?? ''} → ${await call(file, GET as RouteFn, c)} (want ${c.expect})`);
+      for (const c of cases)
+        answers.push(`${file}${c.query ?? ''} → ${await call(file, GET as RouteFn, c)} (want ${c.expect})`);
     }
     expect(answers.filter((a) => !/→ (\d+) \(want \1\)$/.test(a))).toEqual([]);
     expect(await dbFingerprint()).toBe(before);

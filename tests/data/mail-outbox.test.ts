@@ -23,18 +23,25 @@ beforeAll(async () => {
 });
 afterAll(closeDb);
 
-const inbox = async (to: string) => (await (await fetch(`http://127.0.0.1:${webPort}/api/messages?to=${encodeURIComponent(to)}`)).json()) as { subject: string }[];
+const inbox = async (to: string) =>
+  (await (await fetch(`http://127.0.0.1:${webPort}/api/messages?to=${encodeURIComponent(to)}`)).json()) as {
+    subject: string;
+  }[];
 
 describe('mail outbox', () => {
   it('queues while the mail server is down and delivers each message exactly once when it is back', async () => {
     const { OutboxMessage } = getDb().models;
     const to = `queue-${Date.now()}@example.test`;
-    for (const n of [1, 2, 3]) await enqueueMail({ to, subject: `Queued ${n}`, text: 'hello', dedupeKey: `queue-test-${to}-${n}` });
+    for (const n of [1, 2, 3])
+      await enqueueMail({ to, subject: `Queued ${n}`, text: 'hello', dedupeKey: `queue-test-${to}-${n}` });
     // Enqueueing the same key again adds nothing.
     expect(await enqueueMail({ to, subject: 'Queued 1', text: 'hello', dedupeKey: `queue-test-${to}-1` })).toBe(false);
 
     // Mail queued by other test files is not this test's business: keep it out of the way.
-    await OutboxMessage.update({ nextAttemptAt: new Date(Date.now() + 86_400_000) }, { where: { status: 'pending', toAddress: { [Op.ne]: to } } });
+    await OutboxMessage.update(
+      { nextAttemptAt: new Date(Date.now() + 86_400_000) },
+      { where: { status: 'pending', toAddress: { [Op.ne]: to } } },
+    );
     const down = await deliverDueMail();
     expect(down.sent).toBe(0);
     expect(down.failed).toBe(1);

@@ -15,19 +15,31 @@ afterAll(closeDb);
 const MARKUP = '<img src=x onerror="alert(1)">Ada & <b>Bee</b>';
 
 async function paidOrderId(): Promise<number> {
-  const [row] = await getDb().sequelize.query<{ id: number }>(`SELECT id FROM orders WHERE status = 'paid' ORDER BY id LIMIT 1`, { type: QueryTypes.SELECT });
+  const [row] = await getDb().sequelize.query<{ id: number }>(
+    `SELECT id FROM orders WHERE status = 'paid' ORDER BY id LIMIT 1`,
+    { type: QueryTypes.SELECT },
+  );
   return row.id;
 }
 
 describe('markup in names and notes goes out as text', () => {
   it('in e-mails: the HTML part carries it escaped, the text part as typed', async () => {
     const order = (await getOrderDetail(await paidOrderId()))!;
-    const mail = orderConfirmationMail({ ...order, name: MARKUP, lines: order.lines.map((l) => ({ ...l, productName: MARKUP })) }, { business: MARKUP, link: 'http://127.0.0.1:3100/orders/x' });
+    const mail = orderConfirmationMail(
+      { ...order, name: MARKUP, lines: order.lines.map((l) => ({ ...l, productName: MARKUP })) },
+      { business: MARKUP, link: 'http://127.0.0.1:3100/orders/x' },
+    );
     expect(mail.html).not.toContain('<img');
     expect(mail.html).not.toContain('<b>Bee');
     expect(mail.html).toContain('&lt;img src=x onerror=&quot;alert(1)&quot;&gt;Ada &amp; &lt;b&gt;Bee&lt;/b&gt;');
     expect(mail.text).toContain(MARKUP);
-    const reset = passwordMail({ kind: 'reset', to: 'a@b.test', name: MARKUP, business: 'Hollowmere', link: 'http://127.0.0.1:3100/reset?t="><script>' });
+    const reset = passwordMail({
+      kind: 'reset',
+      to: 'a@b.test',
+      name: MARKUP,
+      business: 'Hollowmere',
+      link: 'http://127.0.0.1:3100/reset?t="><script>',
+    });
     expect(reset.html).not.toMatch(/<img|<script/);
   });
 
@@ -40,7 +52,9 @@ describe('markup in names and notes goes out as text', () => {
     try {
       await signInAs(DEMO.owner);
       setRequestHeaders({});
-      const res = await packingSlip(new Request(`http://127.0.0.1:3100/admin/orders/${id}/packing-slip`), { params: Promise.resolve({ id: String(id) }) });
+      const res = await packingSlip(new Request(`http://127.0.0.1:3100/admin/orders/${id}/packing-slip`), {
+        params: Promise.resolve({ id: String(id) }),
+      });
       expect(res.status).toBe(200);
       const text = pdfText(new Uint8Array(await res.arrayBuffer())).replace(/\s+/g, ' ');
       expect(text).toContain('<img src=x onerror="alert(1)">Ada & <b>Bee</b>');

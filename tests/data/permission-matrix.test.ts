@@ -11,7 +11,10 @@ const actionModules = import.meta.glob<Record<string, unknown>>(['/app/**/action
 const routeModules = import.meta.glob<Record<string, unknown>>(['/app/**/route.ts']);
 const WHO: Who[] = ['anonymous', 'customer', 'keeper', 'crew', 'owner'];
 const LOGIN: Record<Exclude<Who, 'anonymous'>, string> = {
-  customer: 'customer@hollowmere.test', keeper: 'keeper@hollowmere.test', crew: 'crew@hollowmere.test', owner: 'owner@hollowmere.test',
+  customer: 'customer@hollowmere.test',
+  keeper: 'keeper@hollowmere.test',
+  crew: 'crew@hollowmere.test',
+  owner: 'owner@hollowmere.test',
 };
 const HTTP = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'];
 
@@ -21,11 +24,16 @@ async function actAs(who: Who) {
   await signInAs(who === 'anonymous' ? null : LOGIN[who]);
 }
 
-async function exportsOf(modules: Record<string, () => Promise<Record<string, unknown>>>, filter: (name: string) => boolean) {
+async function exportsOf(
+  modules: Record<string, () => Promise<Record<string, unknown>>>,
+  filter: (name: string) => boolean,
+) {
   const out: { key: string; fn: unknown; file: string }[] = [];
   for (const [file, load] of Object.entries(modules)) {
     const mod = await load();
-    for (const [name, fn] of Object.entries(mod)) if (typeof fn === 'function' && filter(name)) out.push({ key: `${file.slice(1)}#${name}`, fn, file: file.slice(1) });
+    for (const [name, fn] of Object.entries(mod))
+      if (typeof fn === 'function' && filter(name))
+        out.push({ key: `${file.slice(1)}#${name}`, fn, file: file.slice(1) });
   }
   return out;
 }
@@ -34,10 +42,22 @@ describe('permission matrix (ASVS 8.1.1, 8.2.1)', () => {
   it('lists every server action and route handler, and nothing that no longer exists', async () => {
     const actions = await exportsOf(actionModules, (n) => n.endsWith('Action'));
     const routes = await exportsOf(routeModules, (n) => HTTP.includes(n));
-    expect(actions.map((a) => a.key).filter((k) => !(k in ACTIONS)), 'actions missing from the matrix').toEqual([]);
-    expect(routes.map((r) => r.key).filter((k) => !(k in ROUTES)), 'routes missing from the matrix').toEqual([]);
-    expect(Object.keys(ACTIONS).filter((k) => !actions.some((a) => a.key === k)), 'stale action rows').toEqual([]);
-    expect(Object.keys(ROUTES).filter((k) => !routes.some((r) => r.key === k)), 'stale route rows').toEqual([]);
+    expect(
+      actions.map((a) => a.key).filter((k) => !(k in ACTIONS)),
+      'actions missing from the matrix',
+    ).toEqual([]);
+    expect(
+      routes.map((r) => r.key).filter((k) => !(k in ROUTES)),
+      'routes missing from the matrix',
+    ).toEqual([]);
+    expect(
+      Object.keys(ACTIONS).filter((k) => !actions.some((a) => a.key === k)),
+      'stale action rows',
+    ).toEqual([]);
+    expect(
+      Object.keys(ROUTES).filter((k) => !routes.some((r) => r.key === k)),
+      'stale route rows',
+    ).toEqual([]);
   });
 
   it('server actions refuse every role the matrix does not list, and only those', async () => {
@@ -49,7 +69,10 @@ describe('permission matrix (ASVS 8.1.1, 8.2.1)', () => {
         const allowed = ACTIONS[a.key];
         if (!allowed || allowed === 'anyone') continue;
         // Empty input: an allowed role gets a validation answer, a refused one an auth refusal.
-        const result = await (a.fn as ActionFn)({}).catch((err: Error) => ({ ok: false, message: `threw ${err.message}` }));
+        const result = await (a.fn as ActionFn)({}).catch((err: Error) => ({
+          ok: false,
+          message: `threw ${err.message}`,
+        }));
         const refused = isAuthRefusal(result);
         if (allows(allowed, who) === refused) wrong.push(`${a.key} as ${who}: ${JSON.stringify(result).slice(0, 160)}`);
       }

@@ -5,7 +5,15 @@ const onSuper = { putOn: '2026-05-10', pulled: '2026-07-20' };
 const none = { feedings: [] as FeedingRecord[], treatments: [] as TreatmentRecord[] };
 
 function treatment(over: Partial<TreatmentRecord>): TreatmentRecord {
-  return { kindName: 'Formic acid', productName: null, supersAllowed: false, waitingDays: 0, appliedOn: '2026-04-01', removedOn: '2026-04-20', ...over };
+  return {
+    kindName: 'Formic acid',
+    productName: null,
+    supersAllowed: false,
+    waitingDays: 0,
+    appliedOn: '2026-04-01',
+    removedOn: '2026-04-20',
+    ...over,
+  };
 }
 
 describe('superConflicts: feedings', () => {
@@ -14,7 +22,10 @@ describe('superConflicts: feedings', () => {
   });
 
   it('flags sugar syrup fed while the super was on, with dates', () => {
-    const result = superConflicts(onSuper, { ...none, feedings: [{ kind: 'sugar_syrup', startedOn: '2026-05-02', endedOn: '2026-05-12' }] });
+    const result = superConflicts(onSuper, {
+      ...none,
+      feedings: [{ kind: 'sugar_syrup', startedOn: '2026-05-02', endedOn: '2026-05-12' }],
+    });
     expect(result.flagged).toBe(true);
     expect(result.reasons).toEqual(['Sugar syrup fed 2026-05-02 to 2026-05-12 while this super was on']);
   });
@@ -31,9 +42,15 @@ describe('superConflicts: feedings', () => {
   });
 
   it('treats an open feeding as running through the pull date', () => {
-    const open = superConflicts(onSuper, { ...none, feedings: [{ kind: 'fondant', startedOn: '2026-03-01', endedOn: null }] });
+    const open = superConflicts(onSuper, {
+      ...none,
+      feedings: [{ kind: 'fondant', startedOn: '2026-03-01', endedOn: null }],
+    });
     expect(open.reasons).toEqual(['Fondant fed from 2026-03-01 (still ongoing) while this super was on']);
-    const afterPull = superConflicts(onSuper, { ...none, feedings: [{ kind: 'fondant', startedOn: '2026-08-01', endedOn: null }] });
+    const afterPull = superConflicts(onSuper, {
+      ...none,
+      feedings: [{ kind: 'fondant', startedOn: '2026-08-01', endedOn: null }],
+    });
     expect(afterPull.flagged).toBe(false);
   });
 
@@ -75,7 +92,9 @@ describe('superConflicts: treatments', () => {
   it('crosses month and year ends by calendar days, not clock time', () => {
     const winterSuper = { putOn: '2027-01-01', pulled: '2027-01-31' };
     const t = treatment({ appliedOn: '2026-12-01', removedOn: '2026-12-30', waitingDays: 2 }); // ends 2027-01-01
-    expect(superConflicts(winterSuper, { ...none, treatments: [t] }).reasons[0]).toContain('waiting period to 2027-01-01');
+    expect(superConflicts(winterSuper, { ...none, treatments: [t] }).reasons[0]).toContain(
+      'waiting period to 2027-01-01',
+    );
   });
 
   it('collects every reason', () => {
@@ -93,6 +112,8 @@ describe('superConflicts: bad input', () => {
     expect(() => superConflicts({ putOn: '10/05/2026', pulled: '2026-07-20' }, none)).toThrow(RangeError);
     expect(() => superConflicts({ putOn: '2026-02-30', pulled: '2026-07-20' }, none)).toThrow(RangeError);
     expect(() => superConflicts({ putOn: '2026-07-21', pulled: '2026-07-20' }, none)).toThrow(RangeError);
-    expect(() => superConflicts(onSuper, { ...none, treatments: [treatment({ waitingDays: -1 })] })).toThrow(RangeError);
+    expect(() => superConflicts(onSuper, { ...none, treatments: [treatment({ waitingDays: -1 })] })).toThrow(
+      RangeError,
+    );
   });
 });

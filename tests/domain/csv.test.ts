@@ -3,9 +3,12 @@ import { neutraliseCsvCell, toCsv } from '@/lib/domain/csv';
 
 describe('neutraliseCsvCell', () => {
   // OWASP CSV Injection guidance: cells starting with = + - @ tab or carriage return
-  it.each(['=1+1', '+1', '-2+3', '@SUM(A1)', '\tcmd', '\rcmd', '=HYPERLINK("http://example.invalid")'])('prefixes %j', (text) => {
-    expect(neutraliseCsvCell(text)).toBe(`'${text}`);
-  });
+  it.each(['=1+1', '+1', '-2+3', '@SUM(A1)', '\tcmd', '\rcmd', '=HYPERLINK("http://example.invalid")'])(
+    'prefixes %j',
+    (text) => {
+      expect(neutraliseCsvCell(text)).toBe(`'${text}`);
+    },
+  );
 
   it('leaves ordinary text and real numbers alone', () => {
     expect(neutraliseCsvCell('Linden Row')).toBe('Linden Row');
@@ -25,12 +28,25 @@ describe('neutraliseCsvCell', () => {
 describe('toCsv', () => {
   it('quotes per RFC 4180 with CRLF line ends', () => {
     // RFC 4180 §2: CRLF line breaks; fields with commas, quotes or line breaks quoted; quotes doubled
-    const csv = toCsv(['lot', 'note'], [['HH26-014', 'linden, light'], ['HH26-015', 'said "dark"'], ['HH26-016', 'two\nlines']]);
+    const csv = toCsv(
+      ['lot', 'note'],
+      [
+        ['HH26-014', 'linden, light'],
+        ['HH26-015', 'said "dark"'],
+        ['HH26-016', 'two\nlines'],
+      ],
+    );
     expect(csv).toBe('lot,note\r\nHH26-014,"linden, light"\r\nHH26-015,"said ""dark"""\r\nHH26-016,"two\nlines"');
   });
 
   it('neutralises every cell, headers included', () => {
-    const csv = toCsv(['=name', 'grams'], [['=cmd|calc', -340], ['@x', 340]]);
+    const csv = toCsv(
+      ['=name', 'grams'],
+      [
+        ['=cmd|calc', -340],
+        ['@x', 340],
+      ],
+    );
     expect(csv).toBe("'=name,grams\r\n'=cmd|calc,-340\r\n'@x,340");
   });
 

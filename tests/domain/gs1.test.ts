@@ -1,6 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import {
-  gs1CheckDigit, gs1HumanReadable, gs1RawElementString, gtin14, isGs1Cset82, isValidGtin, makeGtin,
+  gs1CheckDigit,
+  gs1HumanReadable,
+  gs1RawElementString,
+  gtin14,
+  isGs1Cset82,
+  isValidGtin,
+  makeGtin,
   parseGs1ElementString,
 } from '@/lib/domain/gs1';
 
@@ -75,12 +81,14 @@ describe('character set 82', () => {
 
 describe('human-readable element string', () => {
   it('matches the GS1 human-readable form, fixed-length AIs first', () => {
-    expect(gs1HumanReadable({ gtin: '09521234543213', bestBefore: '2027-12-31', lot: 'HH26-014' }))
-      .toBe('(01)09521234543213(15)271231(10)HH26-014'); // GS1 General Specifications: AIs in parentheses, fixed-length (01) and (15) before (10)
+    expect(gs1HumanReadable({ gtin: '09521234543213', bestBefore: '2027-12-31', lot: 'HH26-014' })).toBe(
+      '(01)09521234543213(15)271231(10)HH26-014',
+    ); // GS1 General Specifications: AIs in parentheses, fixed-length (01) and (15) before (10)
   });
   it('pads shorter GTINs and reads a Date in UTC', () => {
-    expect(gs1HumanReadable({ gtin: '9521234543213', bestBefore: new Date('2027-12-31T23:30:00Z'), lot: 'A1' }))
-      .toBe('(01)09521234543213(15)271231(10)A1');
+    expect(gs1HumanReadable({ gtin: '9521234543213', bestBefore: new Date('2027-12-31T23:30:00Z'), lot: 'A1' })).toBe(
+      '(01)09521234543213(15)271231(10)A1',
+    );
   });
   it('throws on a bad GTIN, lot or date', () => {
     const ok = { gtin: '09521234543213', bestBefore: '2027-12-31', lot: 'HH26-014' };
@@ -93,7 +101,9 @@ describe('human-readable element string', () => {
     expect(() => gs1HumanReadable({ ...ok, bestBefore: new Date('nope') })).toThrow();
   });
   it('accepts a 20-character lot', () => {
-    expect(gs1HumanReadable({ gtin: '09521234543213', bestBefore: '2027-12-31', lot: 'X'.repeat(20) })).toMatch(/\(10\)X{20}$/);
+    expect(gs1HumanReadable({ gtin: '09521234543213', bestBefore: '2027-12-31', lot: 'X'.repeat(20) })).toMatch(
+      /\(10\)X{20}$/,
+    );
   });
 });
 
@@ -112,16 +122,25 @@ describe('parsing scanned and typed element strings', () => {
   });
   it('uses GS to end a variable-length lot that is not last', () => {
     // @zxing/library Code128 output with ASSUME_GS1: "]C1…10LOT-24-017\x1d15261231"
-    expect(parseGs1ElementString(`]C1010950110153000310LOT-24-017${GS}15261231`))
-      .toEqual({ gtin: '09501101530003', lot: 'LOT-24-017', bestBefore: '2026-12-31' });
+    expect(parseGs1ElementString(`]C1010950110153000310LOT-24-017${GS}15261231`)).toEqual({
+      gtin: '09501101530003',
+      lot: 'LOT-24-017',
+      bestBefore: '2026-12-31',
+    });
   });
   it('treats DD = 00 as the last day of the month (GS1 General Specifications, AI (15))', () => {
     expect(parseGs1ElementString('(15)270200').bestBefore).toBe('2027-02-28');
     expect(parseGs1ElementString('(15)280200').bestBefore).toBe('2028-02-29'); // leap year
   });
   it('skips AIs it does not use, fixed or variable length', () => {
-    expect(parseGs1ElementString('(01)09521234543213(21)SER9(17)281231(10)L7')).toEqual({ gtin: '09521234543213', lot: 'L7' });
-    expect(parseGs1ElementString(`010952123454321321SER9${GS}1728123110L7`)).toEqual({ gtin: '09521234543213', lot: 'L7' });
+    expect(parseGs1ElementString('(01)09521234543213(21)SER9(17)281231(10)L7')).toEqual({
+      gtin: '09521234543213',
+      lot: 'L7',
+    });
+    expect(parseGs1ElementString(`010952123454321321SER9${GS}1728123110L7`)).toEqual({
+      gtin: '09521234543213',
+      lot: 'L7',
+    });
   });
   it('accepts a bare GTIN from a retail barcode', () => {
     expect(parseGs1ElementString('9521234543213')).toEqual({ gtin: '09521234543213' });
@@ -141,7 +160,9 @@ describe('parsing scanned and typed element strings', () => {
     }
   });
   it('puts GS only after a variable-length value that is not last', () => {
-    expect(gs1RawElementString('(01)09521234543213(10)HH26-014(15)271231')).toBe(`0109521234543213${'10HH26-014'}${GS}15271231`);
+    expect(gs1RawElementString('(01)09521234543213(10)HH26-014(15)271231')).toBe(
+      `0109521234543213${'10HH26-014'}${GS}15271231`,
+    );
     expect(gs1RawElementString('(01)09521234543213(15)271231(10)HH26-014')).toBe('01095212345432131527123110HH26-014');
   });
 });

@@ -11,7 +11,10 @@ describe('DEFAULT_LAB_LIMITS', () => {
 describe('checkLabResults', () => {
   it('passes values on the limits', () => {
     // EU Council Directive 2001/110/EC Annex II: HMF ≤ 40, diastase ≥ 8, insoluble ≤ 0.1 — the limit itself passes
-    expect(checkLabResults({ hmfMgKg: 40, diastaseSchade: 8, insolubleG100g: 0.1 }, DEFAULT_LAB_LIMITS)).toEqual({ pass: true, failures: [] });
+    expect(checkLabResults({ hmfMgKg: 40, diastaseSchade: 8, insolubleG100g: 0.1 }, DEFAULT_LAB_LIMITS)).toEqual({
+      pass: true,
+      failures: [],
+    });
   });
 
   it('fails each value just past its limit, in words', () => {

@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { BUILT_IN_LAYOUTS, PAPER_SIZES_MM, builtInLayout, labelPositions, mmToPt, validateLayout } from '@/lib/domain/label-layout';
+import {
+  BUILT_IN_LAYOUTS,
+  PAPER_SIZES_MM,
+  builtInLayout,
+  labelPositions,
+  mmToPt,
+  validateLayout,
+} from '@/lib/domain/label-layout';
 import type { LabelLayout } from '@/lib/domain/label-layout';
 
 const a4x21 = BUILT_IN_LAYOUTS.find((l) => l.paper === 'a4' && l.columns === 3 && l.rows === 7) as LabelLayout;
@@ -23,8 +30,12 @@ describe('built-in layouts', () => {
   });
   it('includes the generic sizes: A4 3 × 7, Letter 3 × 10, a 60 × 40 mm roll', () => {
     expect(a4x21).toMatchObject({ labelWidthMm: 63.5, labelHeightMm: 38.1 });
-    expect(BUILT_IN_LAYOUTS.some((l) => l.paper === 'letter' && l.columns * l.rows === 30 && l.labelHeightMm === 25.4)).toBe(true);
-    expect(BUILT_IN_LAYOUTS.some((l) => l.paper === 'roll' && l.labelWidthMm === 60 && l.labelHeightMm === 40)).toBe(true);
+    expect(
+      BUILT_IN_LAYOUTS.some((l) => l.paper === 'letter' && l.columns * l.rows === 30 && l.labelHeightMm === 25.4),
+    ).toBe(true);
+    expect(BUILT_IN_LAYOUTS.some((l) => l.paper === 'roll' && l.labelWidthMm === 60 && l.labelHeightMm === 40)).toBe(
+      true,
+    );
     expect(builtInLayout(a4x21.name)).toBe(a4x21);
     expect(builtInLayout('no such')).toBeUndefined();
   });
@@ -37,8 +48,11 @@ describe('built-in layouts', () => {
         expect(a.xPt + a.widthPt).toBeLessThanOrEqual(pageWidthPt + 1e-6);
         expect(a.yPt + a.heightPt).toBeLessThanOrEqual(pageHeightPt + 1e-6);
         for (const b of slots.slice(i + 1)) {
-          const apart = a.xPt + a.widthPt <= b.xPt + 1e-6 || b.xPt + b.widthPt <= a.xPt + 1e-6
-            || a.yPt + a.heightPt <= b.yPt + 1e-6 || b.yPt + b.heightPt <= a.yPt + 1e-6;
+          const apart =
+            a.xPt + a.widthPt <= b.xPt + 1e-6 ||
+            b.xPt + b.widthPt <= a.xPt + 1e-6 ||
+            a.yPt + a.heightPt <= b.yPt + 1e-6 ||
+            b.yPt + b.heightPt <= a.yPt + 1e-6;
           expect(apart).toBe(true);
         }
       }
@@ -62,7 +76,15 @@ describe('labelPositions', () => {
     expect(base.yPt - moved.yPt).toBeCloseTo(mmToPt(2), 9);
   });
   it('makes a roll page the size of one label', () => {
-    const roll: LabelLayout = { ...a4x21, name: 'roll', paper: 'roll', labelWidthMm: 60, labelHeightMm: 40, columns: 3, rows: 7 };
+    const roll: LabelLayout = {
+      ...a4x21,
+      name: 'roll',
+      paper: 'roll',
+      labelWidthMm: 60,
+      labelHeightMm: 40,
+      columns: 3,
+      rows: 7,
+    };
     const { pageWidthPt, pageHeightPt, slots } = labelPositions(roll);
     expect(pageWidthPt).toBeCloseTo(mmToPt(60), 9);
     expect(pageHeightPt).toBeCloseTo(mmToPt(40), 9);

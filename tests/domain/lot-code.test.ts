@@ -43,7 +43,11 @@ describe('parseLotCode', () => {
   });
 
   it('round-trips with lotCode', () => {
-    for (const [prefix, year, seq] of [['HH', 2026, 14], ['Q9', 2031, 1000], ['', 2099, 5]] as const) {
+    for (const [prefix, year, seq] of [
+      ['HH', 2026, 14],
+      ['Q9', 2031, 1000],
+      ['', 2099, 5],
+    ] as const) {
       const parsed = parseLotCode(lotCode(prefix, year, seq));
       expect(parsed).toEqual({ prefix, year2: year % 100, sequence: seq });
     }

@@ -2,7 +2,12 @@ import { describe, expect, it } from 'vitest';
 import { LOT_STAGES, nextStage, type LotStage, type StageContext } from '@/lib/domain/lot-stage';
 
 const good: StageContext = {
-  role: 'crew', hasWeights: true, moistureOk: true, labOk: null, unresolvedFlaggedSupers: 0, remainingGrams: 0,
+  role: 'crew',
+  hasWeights: true,
+  moistureOk: true,
+  labOk: null,
+  unresolvedFlaggedSupers: 0,
+  remainingGrams: 0,
 };
 const ctx = (over: Partial<StageContext>): StageContext => ({ ...good, ...over });
 
@@ -22,7 +27,10 @@ describe('gathering → extracted', () => {
 describe('extracted → released', () => {
   it('releases when every check passes', () => {
     expect(nextStage('extracted', 'released', good)).toEqual({ ok: true, stage: 'released' });
-    expect(nextStage('extracted', 'released', ctx({ labOk: true, role: 'owner' }))).toEqual({ ok: true, stage: 'released' });
+    expect(nextStage('extracted', 'released', ctx({ labOk: true, role: 'owner' }))).toEqual({
+      ok: true,
+      stage: 'released',
+    });
   });
 
   it('refuses without a moisture reading', () => {
@@ -32,12 +40,26 @@ describe('extracted → released', () => {
 
   it('holds the lot for each failed check, listing every reason', () => {
     // a lot is held whenever a check fails (moisture over the limit, a treatment or feeding conflict)
-    expect(nextStage('extracted', 'released', ctx({ moistureOk: false }))).toEqual({ ok: true, stage: 'held', holdReasons: ['Moisture is over the limit'] });
-    expect(nextStage('extracted', 'released', ctx({ labOk: false }))).toEqual({ ok: true, stage: 'held', holdReasons: ['Lab results fail the limits'] });
-    expect(nextStage('extracted', 'released', ctx({ unresolvedFlaggedSupers: 1 }))).toEqual({
-      ok: true, stage: 'held', holdReasons: ['1 super flagged for a feeding or treatment conflict, not resolved'],
+    expect(nextStage('extracted', 'released', ctx({ moistureOk: false }))).toEqual({
+      ok: true,
+      stage: 'held',
+      holdReasons: ['Moisture is over the limit'],
     });
-    const all = nextStage('extracted', 'released', ctx({ moistureOk: false, labOk: false, unresolvedFlaggedSupers: 3 }));
+    expect(nextStage('extracted', 'released', ctx({ labOk: false }))).toEqual({
+      ok: true,
+      stage: 'held',
+      holdReasons: ['Lab results fail the limits'],
+    });
+    expect(nextStage('extracted', 'released', ctx({ unresolvedFlaggedSupers: 1 }))).toEqual({
+      ok: true,
+      stage: 'held',
+      holdReasons: ['1 super flagged for a feeding or treatment conflict, not resolved'],
+    });
+    const all = nextStage(
+      'extracted',
+      'released',
+      ctx({ moistureOk: false, labOk: false, unresolvedFlaggedSupers: 3 }),
+    );
     expect(all.ok && all.holdReasons).toHaveLength(3);
   });
 });
@@ -70,18 +92,31 @@ describe('released → packed_out', () => {
 });
 
 describe('any stage → held', () => {
-  it.each(['gathering', 'extracted', 'released', 'packed_out'] as const)('from %s for owner and crew with a reason', (from) => {
-    for (const role of ['owner', 'crew'] as const) {
-      expect(nextStage(from, 'held', ctx({ role, reason: 'Customer complaint' }))).toEqual({ ok: true, stage: 'held' });
-      expect(nextStage(from, 'held', ctx({ role })).ok).toBe(false);
-    }
-  });
+  it.each(['gathering', 'extracted', 'released', 'packed_out'] as const)(
+    'from %s for owner and crew with a reason',
+    (from) => {
+      for (const role of ['owner', 'crew'] as const) {
+        expect(nextStage(from, 'held', ctx({ role, reason: 'Customer complaint' }))).toEqual({
+          ok: true,
+          stage: 'held',
+        });
+        expect(nextStage(from, 'held', ctx({ role })).ok).toBe(false);
+      }
+    },
+  );
 });
 
 describe('everything else is refused', () => {
   const allowed = new Set([
-    'gathering>extracted', 'extracted>released', 'held>released', 'held>extracted', 'released>packed_out',
-    'gathering>held', 'extracted>held', 'released>held', 'packed_out>held',
+    'gathering>extracted',
+    'extracted>released',
+    'held>released',
+    'held>extracted',
+    'released>packed_out',
+    'gathering>held',
+    'extracted>held',
+    'released>held',
+    'packed_out>held',
   ]);
   const owner = ctx({ role: 'owner', reason: 'a long enough reason' });
 

@@ -3,19 +3,25 @@ import { blendWaterPct, containersNetGrams, extractionYield, remainingGrams } fr
 
 describe('containersNetGrams', () => {
   it('sums gross − tare and skips voided containers', () => {
-    expect(containersNetGrams([
-      { grossGrams: 30_500, tareGrams: 1_200 },
-      { grossGrams: 29_000, tareGrams: 1_200 },
-      { grossGrams: 99_000, tareGrams: 1_000, voided: true },
-    ])).toBe(57_100);
+    expect(
+      containersNetGrams([
+        { grossGrams: 30_500, tareGrams: 1_200 },
+        { grossGrams: 29_000, tareGrams: 1_200 },
+        { grossGrams: 99_000, tareGrams: 1_000, voided: true },
+      ]),
+    ).toBe(57_100);
   });
   it('is 0 with no containers', () => expect(containersNetGrams([])).toBe(0));
-  it('refuses gross at or below tare', () => expect(() => containersNetGrams([{ grossGrams: 1000, tareGrams: 1000 }])).toThrow(RangeError));
+  it('refuses gross at or below tare', () =>
+    expect(() => containersNetGrams([{ grossGrams: 1000, tareGrams: 1000 }])).toThrow(RangeError));
 });
 
 describe('extractionYield', () => {
   it('compares net against the supers’ measured and estimated honey', () => {
-    const y = extractionYield(36_000, [{ grams: 20_000, measured: true }, { grams: 20_000, measured: false }]);
+    const y = extractionYield(36_000, [
+      { grams: 20_000, measured: true },
+      { grams: 20_000, measured: false },
+    ]);
     expect(y).toEqual({ expectedGrams: 40_000, pct: 90, measuredCount: 1, estimatedCount: 1 });
   });
   it('has no percentage without supers', () => expect(extractionYield(1000, []).pct).toBeNull());
@@ -24,10 +30,22 @@ describe('extractionYield', () => {
 describe('blendWaterPct (weight-weighted mean)', () => {
   it('weights each parent by grams', () => {
     // 30 kg at 17 % and 10 kg at 19 % → (30·17 + 10·19) / 40 = 17.5 %
-    expect(blendWaterPct([{ grams: 30_000, waterPct: 17 }, { grams: 10_000, waterPct: 19 }])).toBeCloseTo(17.5, 10);
+    expect(
+      blendWaterPct([
+        { grams: 30_000, waterPct: 17 },
+        { grams: 10_000, waterPct: 19 },
+      ]),
+    ).toBeCloseTo(17.5, 10);
   });
-  it('is null when a parent has no water figure', () => expect(blendWaterPct([{ grams: 1, waterPct: 17 }, { grams: 1, waterPct: null }])).toBeNull());
-  it('refuses a part without weight', () => expect(() => blendWaterPct([{ grams: 0, waterPct: 17 }])).toThrow(RangeError));
+  it('is null when a parent has no water figure', () =>
+    expect(
+      blendWaterPct([
+        { grams: 1, waterPct: 17 },
+        { grams: 1, waterPct: null },
+      ]),
+    ).toBeNull());
+  it('refuses a part without weight', () =>
+    expect(() => blendWaterPct([{ grams: 0, waterPct: 17 }])).toThrow(RangeError));
 });
 
 it('remainingGrams never goes below 0', () => {

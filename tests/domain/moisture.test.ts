@@ -1,20 +1,26 @@
 import { describe, expect, it } from 'vitest';
 import {
-  DEFAULT_MOISTURE_LIMITS, fermentationRisk, gradeMoisture, moistureSummary, refractiveIndexFromWater,
-  waterFromRefractiveIndex, waterFromScaleReading,
+  DEFAULT_MOISTURE_LIMITS,
+  fermentationRisk,
+  gradeMoisture,
+  moistureSummary,
+  refractiveIndexFromWater,
+  waterFromRefractiveIndex,
+  waterFromScaleReading,
 } from '@/lib/domain/moisture';
 
 // The Wedmore formula reproduces the Chataway/Wedmore table to within about 0.02 % water;
 // the table's 4-decimal refractive index adds up to ±0.00005 (≈ 0.02 %), hence 0.03.
 const TABLE_TOLERANCE = 0.03;
-const near = (actual: number, expected: number) => expect(Math.abs(actual - expected)).toBeLessThanOrEqual(TABLE_TOLERANCE);
+const near = (actual: number, expected: number) =>
+  expect(Math.abs(actual - expected)).toBeLessThanOrEqual(TABLE_TOLERANCE);
 
 describe('waterFromRefractiveIndex at 20 °C against the Chataway/Wedmore table', () => {
   const published: [number, number, string][] = [
     [1.5044, 13.0, 'Chataway/Wedmore table, AOAC 969.38 B'],
     [1.4992, 15.0, 'Chataway/Wedmore table, AOAC 969.38 B'],
     [1.4966, 16.0, 'Chataway/Wedmore table, AOAC 969.38 B'],
-    [1.4890, 19.0, 'Chataway/Wedmore table, AOAC 969.38 B'],
+    [1.489, 19.0, 'Chataway/Wedmore table, AOAC 969.38 B'],
     [1.4865, 20.0, 'Chataway/Wedmore table, AOAC 969.38 B'],
     [1.4815, 22.0, 'Chataway/Wedmore table, AOAC 969.38 B'],
   ];
@@ -23,10 +29,18 @@ describe('waterFromRefractiveIndex at 20 °C against the Chataway/Wedmore table'
   // from memory: further rows of the same Chataway/Wedmore table (AOAC 969.38 B), whole
   // per cents 14–25 and the 18.6 % US grade edge; each agrees with the formula within 0.03.
   const fromMemory: [number, number][] = [
-    [1.5018, 14.0], [1.4940, 17.0], [1.4915, 18.0], [1.4900, 18.6], [1.4840, 21.0],
-    [1.4790, 23.0], [1.4765, 24.0], [1.4740, 25.0],
+    [1.5018, 14.0],
+    [1.494, 17.0],
+    [1.4915, 18.0],
+    [1.49, 18.6],
+    [1.484, 21.0],
+    [1.479, 23.0],
+    [1.4765, 24.0],
+    [1.474, 25.0],
   ];
-  it.each(fromMemory)('%f → %f %% (from memory, Chataway/Wedmore table)', (ri, water) => near(waterFromRefractiveIndex(ri), water));
+  it.each(fromMemory)('%f → %f %% (from memory, Chataway/Wedmore table)', (ri, water) =>
+    near(waterFromRefractiveIndex(ri), water),
+  );
 
   it('falls as the refractive index rises (13–25 % water)', () => {
     let previous = Number.POSITIVE_INFINITY;
@@ -53,7 +67,7 @@ describe('temperature correction', () => {
   it('subtracts 0.00023 per °C below 20 °C', () => {
     // Refractometer temperature correction (AOAC 969.38 B; IHC Harmonised methods): −0.00023 per °C below 20 → 1.4913 at 10 °C reads as 1.4890 (19.0 %)
     near(waterFromRefractiveIndex(1.4913, 10), 19.0);
-    expect(waterFromRefractiveIndex(1.4913, 10)).toBeCloseTo(waterFromRefractiveIndex(1.4890), 10);
+    expect(waterFromRefractiveIndex(1.4913, 10)).toBeCloseTo(waterFromRefractiveIndex(1.489), 10);
   });
 });
 
@@ -62,11 +76,11 @@ describe('bad readings throw RangeError', () => {
     expect(() => waterFromRefractiveIndex(ri)).toThrow(RangeError);
   });
   it('checks the range after temperature correction', () => {
-    expect(() => waterFromRefractiveIndex(1.4710, 5)).toThrow(RangeError); // 1.4710 − 15·0.00023 = 1.46755
-    expect(() => waterFromRefractiveIndex(1.5050, 45)).toThrow(RangeError); // 1.5050 + 25·0.00023 = 1.51075
+    expect(() => waterFromRefractiveIndex(1.471, 5)).toThrow(RangeError); // 1.4710 − 15·0.00023 = 1.46755
+    expect(() => waterFromRefractiveIndex(1.505, 45)).toThrow(RangeError); // 1.5050 + 25·0.00023 = 1.51075
   });
   it.each([4.9, 45.1, -20, Number.NaN])('temperature %f °C', (t) => {
-    expect(() => waterFromRefractiveIndex(1.4900, t)).toThrow(RangeError);
+    expect(() => waterFromRefractiveIndex(1.49, t)).toThrow(RangeError);
   });
 });
 
@@ -120,7 +134,10 @@ describe('gradeMoisture', () => {
 
   it('uses the heather limit when asked', () => {
     // EU Council Directive 2001/110/EC Annex II, heather (Calluna) ≤ 23 %
-    expect(gradeMoisture(22.5, DEFAULT_MOISTURE_LIMITS, { heather: true })).toMatchObject({ withinLimit: true, limitPct: 23 });
+    expect(gradeMoisture(22.5, DEFAULT_MOISTURE_LIMITS, { heather: true })).toMatchObject({
+      withinLimit: true,
+      limitPct: 23,
+    });
     expect(gradeMoisture(23.2, DEFAULT_MOISTURE_LIMITS, { heather: true }).withinLimit).toBe(false);
   });
 
@@ -140,9 +157,15 @@ describe('fermentationRisk', () => {
   // USDA Agriculture Handbook 335 after Lochhead (common practice):
   // < 17.1 low; 17.1–18.0 yeast ≤ 1000/g; 18.1–19.0 yeast ≤ 10/g; > 19 likely
   const cases: [number, string][] = [
-    [13, 'low'], [17.0, 'low'], [17.1, 'yeast-dependent'], [18.0, 'yeast-dependent'],
-    [18.05, 'high-yeast-dependent'], [18.1, 'high-yeast-dependent'], [19.0, 'high-yeast-dependent'],
-    [19.1, 'likely'], [25, 'likely'],
+    [13, 'low'],
+    [17.0, 'low'],
+    [17.1, 'yeast-dependent'],
+    [18.0, 'yeast-dependent'],
+    [18.05, 'high-yeast-dependent'],
+    [18.1, 'high-yeast-dependent'],
+    [19.0, 'high-yeast-dependent'],
+    [19.1, 'likely'],
+    [25, 'likely'],
   ];
   it.each(cases)('%f %% → %s', (water, band) => expect(fermentationRisk(water).band).toBe(band));
 

@@ -72,6 +72,8 @@ describe('declaration for a product', () => {
     const jar = { netGrams: 500, declaredUnit: 'g' as const, declaredAmount: 500 };
     expect(declareNetQuantity(jar, 'metric')).toBe('500 g');
     expect(declareNetQuantity(jar, 'us-dual')).toBe('NET WT 1 LB 1.6 OZ (500 g)'); // 17.637 oz → 17.6
-    expect(declareNetQuantity({ netGrams: 340, declaredUnit: 'g', declaredAmount: 340 }, 'us-dual')).toBe('NET WT 11.9 OZ (340 g)'); // 11.99 → 11.9
+    expect(declareNetQuantity({ netGrams: 340, declaredUnit: 'g', declaredAmount: 340 }, 'us-dual')).toBe(
+      'NET WT 11.9 OZ (340 g)',
+    ); // 11.99 → 11.9
   });
 });

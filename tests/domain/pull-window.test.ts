@@ -4,24 +4,37 @@ import { superConflicts } from '@/lib/domain/conflicts';
 
 describe('pullWindow', () => {
   it('uses the recorded put-on date', () => {
-    expect(pullWindow('2026-07-20', '2026-06-01', ['2026-05-30'])).toEqual({ putOn: '2026-06-01', pulled: '2026-07-20', putOnKnown: true });
+    expect(pullWindow('2026-07-20', '2026-06-01', ['2026-05-30'])).toEqual({
+      putOn: '2026-06-01',
+      pulled: '2026-07-20',
+      putOnKnown: true,
+    });
   });
   it('refuses a put-on date after the pull', () => {
     expect(() => pullWindow('2026-07-20', '2026-07-21', [])).toThrow(RangeError);
   });
   it('starts the day after the previous pull of the same season when put-on is unknown', () => {
-    expect(pullWindow('2026-07-20', null, ['2025-08-01', '2026-06-30', '2026-06-10', '2026-07-20', '2026-08-01']).putOn).toBe('2026-07-01');
+    expect(
+      pullWindow('2026-07-20', null, ['2025-08-01', '2026-06-30', '2026-06-10', '2026-07-20', '2026-08-01']).putOn,
+    ).toBe('2026-07-01');
   });
   it('rolls over month and year ends', () => {
     expect(pullWindow('2026-03-02', null, ['2026-02-28']).putOn).toBe('2026-03-01');
     expect(pullWindow('2024-03-02', null, ['2024-02-28']).putOn).toBe('2024-02-29'); // leap year
   });
   it('falls back to 1 January when there is no earlier pull that year', () => {
-    expect(pullWindow('2026-07-20', null, ['2025-09-01'])).toEqual({ putOn: '2026-01-01', pulled: '2026-07-20', putOnKnown: false });
+    expect(pullWindow('2026-07-20', null, ['2025-09-01'])).toEqual({
+      putOn: '2026-01-01',
+      pulled: '2026-07-20',
+      putOnKnown: false,
+    });
   });
   it('an unknown put-on date can only widen the check: spring syrup flags an unweighed first pull', () => {
     const w = pullWindow('2026-06-15', null, []);
-    const c = superConflicts(w, { feedings: [{ kind: 'sugar_syrup', startedOn: '2026-03-10', endedOn: '2026-03-20' }], treatments: [] });
+    const c = superConflicts(w, {
+      feedings: [{ kind: 'sugar_syrup', startedOn: '2026-03-10', endedOn: '2026-03-20' }],
+      treatments: [],
+    });
     expect(c.flagged).toBe(true);
     expect(flagReasons(w, c.reasons).at(-1)).toBe('Put-on date not recorded: checked from 2026-01-01');
   });

@@ -4,11 +4,16 @@ import { queenMarkColour } from '@/lib/domain/queen-colour';
 describe('queenMarkColour', () => {
   // common practice: international queen-marking cycle, by last digit of the year
   const cycle: [number, string][] = [
-    [2021, 'white'], [2026, 'white'],
-    [2022, 'yellow'], [2027, 'yellow'],
-    [2023, 'red'], [2028, 'red'],
-    [2024, 'green'], [2029, 'green'],
-    [2025, 'blue'], [2030, 'blue'],
+    [2021, 'white'],
+    [2026, 'white'],
+    [2022, 'yellow'],
+    [2027, 'yellow'],
+    [2023, 'red'],
+    [2028, 'red'],
+    [2024, 'green'],
+    [2029, 'green'],
+    [2025, 'blue'],
+    [2030, 'blue'],
   ];
   it.each(cycle)('%i → %s', (year, colour) => {
     expect(queenMarkColour(year)).toBe(colour);

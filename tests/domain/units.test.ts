@@ -1,7 +1,16 @@
 import { describe, expect, it } from 'vitest';
 import {
-  GRAMS_PER_OUNCE, GRAMS_PER_POUND, formatMoney, formatWeight, gramsToKg, gramsToLb, gramsToOz,
-  kgToGrams, lbToGrams, ozToGrams, toGrams,
+  GRAMS_PER_OUNCE,
+  GRAMS_PER_POUND,
+  formatMoney,
+  formatWeight,
+  gramsToKg,
+  gramsToLb,
+  gramsToOz,
+  kgToGrams,
+  lbToGrams,
+  ozToGrams,
+  toGrams,
 } from '@/lib/domain/units';
 
 describe('exact factors', () => {

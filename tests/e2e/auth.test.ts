@@ -5,8 +5,13 @@ import { closeDb, getDb } from '@/lib/db/index';
 import { BASE, DEMO_LOGINS, openBrowser, signIn, waitForMail } from './support';
 
 let browser: BrowserContext;
-beforeAll(async () => { browser = await openBrowser(); });
-afterAll(async () => { await browser?.close(); await closeDb(); });
+beforeAll(async () => {
+  browser = await openBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await closeDb();
+});
 
 async function freshPage() {
   for (const p of browser.pages()) await p.close();
@@ -108,9 +113,15 @@ describe('accounts', () => {
 describe('output (ASVS 1.2.1)', () => {
   it('markup typed into a product description shows as text on the shop page and runs nothing', async () => {
     const { sequelize } = getDb();
-    const [product] = await sequelize.query<{ id: number; slug: string; description: string }>(`SELECT id, slug, description FROM products WHERE active ORDER BY id LIMIT 1`, { type: QueryTypes.SELECT });
-    const markup = '<img src=x onerror="document.title=\'pwned\'"><script>document.title=\'pwned\'</script>Clover & <b>lime</b>';
-    await sequelize.query(`UPDATE products SET description = :markup WHERE id = :id`, { replacements: { markup, id: product.id } });
+    const [product] = await sequelize.query<{ id: number; slug: string; description: string }>(
+      `SELECT id, slug, description FROM products WHERE active ORDER BY id LIMIT 1`,
+      { type: QueryTypes.SELECT },
+    );
+    const markup =
+      "<img src=x onerror=\"document.title='pwned'\"><script>document.title='pwned'</script>Clover & <b>lime</b>";
+    await sequelize.query(`UPDATE products SET description = :markup WHERE id = :id`, {
+      replacements: { markup, id: product.id },
+    });
     try {
       const page = await freshPage();
       await signIn(page, DEMO_LOGINS.customer.email, DEMO_LOGINS.customer.password); // signed in: rendered now, not from the public cache
@@ -119,7 +130,9 @@ describe('output (ASVS 1.2.1)', () => {
       expect(await page.locator('main img[src="x"], main b').count()).toBe(0);
       expect(await page.title()).not.toBe('pwned');
     } finally {
-      await sequelize.query(`UPDATE products SET description = :d WHERE id = :id`, { replacements: { d: product.description, id: product.id } });
+      await sequelize.query(`UPDATE products SET description = :d WHERE id = :id`, {
+        replacements: { d: product.description, id: product.id },
+      });
     }
   });
 });
@@ -164,7 +177,9 @@ describe('security headers (ASVS 3.4)', () => {
   it('a page renders and runs its scripts under the CSP (no blocked script)', async () => {
     const page = await browser.newPage();
     const violations: string[] = [];
-    page.on('console', (m) => { if (/Content Security Policy/i.test(m.text())) violations.push(m.text()); });
+    page.on('console', (m) => {
+      if (/Content Security Policy/i.test(m.text())) violations.push(m.text());
+    });
     await page.goto(`${BASE()}/sign-up`);
     await page.getByLabel('Your name').fill('x');
     await page.getByRole('button', { name: 'Create account' }).click();
@@ -194,7 +209,9 @@ describe('security headers (ASVS 3.4)', () => {
     // as client-side navigation and nothing is blocked.
     const page = await freshPage();
     const violations: string[] = [];
-    page.on('console', (m) => { if (/Content Security Policy/i.test(m.text())) violations.push(m.text()); });
+    page.on('console', (m) => {
+      if (/Content Security Policy/i.test(m.text())) violations.push(m.text());
+    });
     await page.goto(`${BASE()}/products`);
     await page.goto(`${BASE()}/products`);
     await page.locator('main h2 a').first().click();

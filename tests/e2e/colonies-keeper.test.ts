@@ -16,12 +16,38 @@ beforeAll(async () => {
   const owner = await User.findOne({ where: { email: DEMO_LOGINS.owner.email } });
   const keeper = await User.findOne({ where: { email: DEMO_LOGINS.keeper.email } });
   if (!owner || !keeper) throw new Error('demo users missing');
-  const yardId = await saveYard(owner.id, null, { name: 'Hawthorn Gate (e2e)', place: 'Marrow Valley, top field', latitude: null, longitude: null, forageNotes: '', keeperIds: [keeper.id] });
+  const yardId = await saveYard(owner.id, null, {
+    name: 'Hawthorn Gate (e2e)',
+    place: 'Marrow Valley, top field',
+    latitude: null,
+    longitude: null,
+    forageNotes: '',
+    keeperIds: [keeper.id],
+  });
   for (const code of codes) {
-    ids.push(await createColony(owner, { code, yardId, keeperId: keeper.id, origin: 'nucleus', parentColonyId: null, queenYear: 2026, startedOn: null, notes: '' }));
+    ids.push(
+      await createColony(owner, {
+        code,
+        yardId,
+        keeperId: keeper.id,
+        origin: 'nucleus',
+        parentColonyId: null,
+        queenYear: 2026,
+        startedOn: null,
+        notes: '',
+      }),
+    );
   }
   const started = new Date(Date.now() - 10 * 86_400_000).toISOString().slice(0, 10);
-  await addFeeding(keeper, { colonyId: ids[2], kind: 'sugar_syrup', amount: '2 L', startedOn: started, endedOn: null, note: '', idempotencyKey: crypto.randomUUID() });
+  await addFeeding(keeper, {
+    colonyId: ids[2],
+    kind: 'sugar_syrup',
+    amount: '2 L',
+    startedOn: started,
+    endedOn: null,
+    note: '',
+    idempotencyKey: crypto.randomUUID(),
+  });
   browser = await openBrowser(PHONE);
 });
 afterAll(async () => {
@@ -40,18 +66,26 @@ describe('keeper on a phone', () => {
 
     for (const code of codes) {
       await page.getByRole('button', { name: `Pulled a super from ${code}` }).click();
-      await page.getByRole('listitem', { name: `Colony ${code}` }).getByText('Super 1: recorded').waitFor();
+      await page
+        .getByRole('listitem', { name: `Colony ${code}` })
+        .getByText('Super 1: recorded')
+        .waitFor();
     }
     await page.getByText('3 supers recorded in this pass.').waitFor();
     const flaggedEntry = await page.getByRole('listitem', { name: 'Colony HW-03' }).textContent();
     expect(flaggedEntry).toMatch(/Flagged:\s*Sugar syrup fed .* \(still ongoing\) while this super was on/);
-    for (const code of ['HW-01', 'HW-02']) expect(await page.getByRole('listitem', { name: `Colony ${code}` }).textContent()).not.toMatch(/Flagged/);
+    for (const code of ['HW-01', 'HW-02'])
+      expect(await page.getByRole('listitem', { name: `Colony ${code}` }).textContent()).not.toMatch(/Flagged/);
     // Works at 360 px: nothing wider than the screen.
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
     // The box depth is remembered on this phone for the next pass.
     await page.reload();
     // (read after hydration: the remembered depth is applied in an effect)
-    await page.waitForFunction(() => document.querySelector('[role=radio][aria-checked=true]')?.textContent === 'shallow', undefined, { timeout: 10_000 });
+    await page.waitForFunction(
+      () => document.querySelector('[role=radio][aria-checked=true]')?.textContent === 'shallow',
+      undefined,
+      { timeout: 10_000 },
+    );
     expect(await page.getByRole('radio', { name: 'shallow' }).getAttribute('aria-checked')).toBe('true');
 
     for (const [i, code] of codes.entries()) {
@@ -87,7 +121,9 @@ describe('keeper on a phone', () => {
     expect(await timeline.getByRole('button', { name: /Void this pull/ }).count()).toBe(0);
     expect(await page.getByRole('region', { name: 'Supers' }).getByText('voided', { exact: true }).count()).toBe(1);
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
-    expect((await getDb().models.SuperPull.findOne({ where: { colonyId: ids[0] } }))?.voidReason).toBe('Tapped the wrong colony in the pass');
+    expect((await getDb().models.SuperPull.findOne({ where: { colonyId: ids[0] } }))?.voidReason).toBe(
+      'Tapped the wrong colony in the pass',
+    );
 
     // The pull list keeps it (struck through) under the "Voided only" filter.
     await page.goto(`${BASE()}/admin/supers?voided=yes`);

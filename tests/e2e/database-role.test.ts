@@ -4,8 +4,12 @@ import type { BrowserContext } from 'playwright-core';
 import { BASE, DEMO_LOGINS, openBrowser, signIn } from './support';
 
 let browser: BrowserContext;
-beforeAll(async () => { browser = await openBrowser(); });
-afterAll(async () => { await browser?.close(); });
+beforeAll(async () => {
+  browser = await openBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
 
 // The server runs as the app's own role (tests/support/e2e-setup.ts gives it only
 // APP_DATABASE_URL); every other e2e file then shows the whole app works under that role.
@@ -20,7 +24,8 @@ describe("the server's database role", () => {
     await db.connect();
     try {
       const { rows } = await db.query<{ usename: string }>(
-        `SELECT DISTINCT usename FROM pg_stat_activity WHERE datname = current_database() AND application_name = 'combtrace'`);
+        `SELECT DISTINCT usename FROM pg_stat_activity WHERE datname = current_database() AND application_name = 'combtrace'`,
+      );
       expect(rows.map((r) => r.usename)).toEqual(['combtrace_app']);
     } finally {
       await db.end();

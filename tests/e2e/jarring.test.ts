@@ -16,10 +16,26 @@ let productName = '';
 beforeAll(async () => {
   const { Lot, Product } = getDb().models;
   const tag = Date.now().toString(36).slice(-5).toUpperCase();
-  const lot = await Lot.create({ code: `EJ-${tag}`, floralSource: 'Linden', extractedOn: '2026-07-10', stage: 'released', netGrams: 40_000, usedGrams: 0, createdBy: null });
+  const lot = await Lot.create({
+    code: `EJ-${tag}`,
+    floralSource: 'Linden',
+    extractedOn: '2026-07-10',
+    stage: 'released',
+    netGrams: 40_000,
+    usedGrams: 0,
+    createdBy: null,
+  });
   const product = await Product.create({
-    slug: `e2e-linden-${tag.toLowerCase()}`, name: `Linden jar ${tag}`, netGrams: 340, declaredUnit: 'g', declaredAmount: 340, containerKind: 'glass jar',
-    containerGrams: 200, priceCents: 950, gtin: makeGtin('0614141', `9${String(Date.now() % 10_000).padStart(4, '0')}`), active: true,
+    slug: `e2e-linden-${tag.toLowerCase()}`,
+    name: `Linden jar ${tag}`,
+    netGrams: 340,
+    declaredUnit: 'g',
+    declaredAmount: 340,
+    containerKind: 'glass jar',
+    containerGrams: 200,
+    priceCents: 950,
+    gtin: makeGtin('0614141', `9${String(Date.now() % 10_000).padStart(4, '0')}`),
+    active: true,
   });
   [lotId, lotCode, productId, productName] = [lot.id, lot.code, product.id, product.name];
   browser = await openBrowser();
@@ -67,14 +83,23 @@ describe('jarring in the honey house', () => {
     await page.goto(`${BASE()}/admin/jarring`);
     await page.screenshot({ path: 'tests/.artifacts/jarring-page.png', fullPage: true });
     const preview = page.waitForResponse((r) => r.url().includes('/labels?') && r.url().includes('preview=1'));
-    await page.getByRole('row').filter({ hasText: lotCode }).filter({ hasText: 'passed' }).first().getByRole('link').click();
+    await page
+      .getByRole('row')
+      .filter({ hasText: lotCode })
+      .filter({ hasText: 'passed' })
+      .first()
+      .getByRole('link')
+      .click();
     await page.getByRole('heading', { name: /Jarring run #\d+/ }).waitFor();
     // The print preview frame loads the first page of the run's PDF.
     const previewRes = await preview;
     expect(previewRes.status()).toBe(200);
     expect(previewRes.headers()['content-type']).toBe('application/pdf');
     await page.screenshot({ path: 'tests/.artifacts/jarring-run.png', fullPage: true });
-    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: /Download 24 labels/ }).click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('link', { name: /Download 24 labels/ }).click(),
+    ]);
     expect(download.suggestedFilename()).toMatch(new RegExp(`^labels-${lotCode}.*\\.pdf$`));
     const bytes = readFileSync((await download.path())!);
     expect(bytes.subarray(0, 5).toString()).toBe('%PDF-');

@@ -60,7 +60,10 @@ describe('honey house', () => {
     expect(await page.evaluate(() => document.activeElement?.id)).toBe('scan-tag');
     for (const tag of tags.slice(0, 3)) await scan(tag);
     expect(await page.locator('#scan-tag').inputValue()).toBe('');
-    await page.getByRole('table', { name: 'Supers in this lot' }).getByRole('cell', { name: tags[2], exact: true }).waitFor();
+    await page
+      .getByRole('table', { name: 'Supers in this lot' })
+      .getByRole('cell', { name: tags[2], exact: true })
+      .waitFor();
 
     await addContainer('30', '1');
     await addContainer('26.5', '1.5');
@@ -73,7 +76,9 @@ describe('honey house', () => {
     await page.getByRole('button', { name: 'Release the lot' }).click();
     await page.getByRole('region', { name: 'Stage' }).getByText('The lot is now released.').waitFor();
     // The page refresh that carries the new stage can land just after the action's answer.
-    await stageChip().filter({ hasText: /^released$/ }).waitFor();
+    await stageChip()
+      .filter({ hasText: /^released$/ })
+      .waitFor();
     expect(await stageChip().textContent()).toBe('released');
     await page.getByRole('list', { name: 'Lot history' }).getByText('Released').first().waitFor();
   });
@@ -87,9 +92,13 @@ describe('honey house', () => {
     await addScaleReading('21.4');
     await page.getByRole('button', { name: 'Release the lot' }).click();
     await page.getByRole('list', { name: 'Why the lot is held' }).waitFor();
-    await stageChip().filter({ hasText: /^held$/ }).waitFor();
+    await stageChip()
+      .filter({ hasText: /^held$/ })
+      .waitFor();
     expect(await stageChip().textContent()).toBe('held');
-    expect(await page.getByRole('list', { name: 'Why the lot is held' }).textContent()).toMatch(/over the limit of 20 %/);
+    expect(await page.getByRole('list', { name: 'Why the lot is held' }).textContent()).toMatch(
+      /over the limit of 20 %/,
+    );
     // The crew cannot take it out of held: only the owner can.
     expect(await page.getByRole('button', { name: 'Release held lot' }).count()).toBe(0);
   });

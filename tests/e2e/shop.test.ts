@@ -4,12 +4,18 @@ import { closeDb, getDb } from '@/lib/db';
 import { BASE, DEMO_LOGINS, openBrowser, signIn, waitForMail } from './support';
 
 let browser: BrowserContext;
-beforeAll(async () => { browser = await openBrowser(); });
-afterAll(async () => { await browser?.close(); await closeDb(); });
+beforeAll(async () => {
+  browser = await openBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await closeDb();
+});
 
 type Live = { id: number; slug: string; name: string; available: number };
 const catalogue = async () => ((await (await fetch(`${BASE()}/api/products`)).json()) as { products: Live[] }).products;
-const onHand = async (productId: number) => (await getDb().models.StockLevel.sum('onHand', { where: { productId } })) ?? 0;
+const onHand = async (productId: number) =>
+  (await getDb().models.StockLevel.sum('onHand', { where: { productId } })) ?? 0;
 
 const customer = { name: 'Ash Merriden', email: `ash-${Date.now()}@example.test`, password: 'quiet meadow bees' };
 
@@ -64,7 +70,9 @@ describe('the shop', () => {
     // The lots the webhook allocated (oldest best-before first; other tests may have added lots).
     const [rows] = await getDb().sequelize.query(
       `SELECT DISTINCT l.code FROM orders o JOIN order_lines ol ON ol.order_id = o.id JOIN order_allocations a ON a.order_line_id = ol.id
-       JOIN lots l ON l.id = a.lot_id WHERE o.number = :number AND a.state = 'sold'`, { replacements: { number: paidNumber } });
+       JOIN lots l ON l.id = a.lot_id WHERE o.number = :number AND a.state = 'sold'`,
+      { replacements: { number: paidNumber } },
+    );
     const codes = (rows as { code: string }[]).map((r) => r.code);
     expect(codes.length).toBeGreaterThanOrEqual(1);
     for (const code of codes) expect(table).toContain(code);
@@ -81,7 +89,10 @@ describe('the shop', () => {
   it('a declined card leaves the stock and the order unpaid; leaving the card page releases the jars', async () => {
     const page = await browser.newPage();
     const p = bought[0];
-    const [stockBefore, availableBefore] = [await onHand(p.id), (await catalogue()).find((x) => x.id === p.id)?.available];
+    const [stockBefore, availableBefore] = [
+      await onHand(p.id),
+      (await catalogue()).find((x) => x.id === p.id)?.available,
+    ];
     await addToCart(page, p.slug);
     await checkOut(page);
     await payOnFakePage(page, '4000 0000 0000 0002');

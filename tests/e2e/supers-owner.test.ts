@@ -12,7 +12,9 @@ beforeAll(async () => {
   page = await browser.newPage();
   await signIn(page, DEMO_LOGINS.owner.email, DEMO_LOGINS.owner.password);
 });
-afterAll(async () => { await browser?.close(); });
+afterAll(async () => {
+  await browser?.close();
+});
 
 async function open(pathname: string) {
   const res = await page.goto(`${BASE()}${pathname}`);
@@ -22,7 +24,15 @@ async function open(pathname: string) {
 
 describe('owner yard, colony and super screens on the demo season', () => {
   it('every yards, colonies and supers page renders', async () => {
-    for (const p of ['/admin/yards', '/admin/yards/new', '/admin/supers', '/admin/supers/import', '/admin/supers/tags', '/admin/treatment-kinds']) await open(p);
+    for (const p of [
+      '/admin/yards',
+      '/admin/yards/new',
+      '/admin/supers',
+      '/admin/supers/import',
+      '/admin/supers/tags',
+      '/admin/treatment-kinds',
+    ])
+      await open(p);
     await open('/admin/yards');
     await page.getByRole('link', { name: /Orchard Terrace/ }).click();
     await page.getByRole('heading', { name: 'Orchard Terrace' }).waitFor();
@@ -31,7 +41,9 @@ describe('owner yard, colony and super screens on the demo season', () => {
     expect(await page.getByRole('region', { name: 'Timeline' }).getByText('Split').count()).toBeGreaterThan(0);
     // The treatment form carries the caution.
     await page.getByText('Mite treatment', { exact: true }).click();
-    expect(await page.getByRole('note', { name: 'Treatment caution' }).first().textContent()).toMatch(/product label governs/);
+    expect(await page.getByRole('note', { name: 'Treatment caution' }).first().textContent()).toMatch(
+      /product label governs/,
+    );
   });
 
   it('the flagged filter shows only flagged supers, each with its reason', async () => {
@@ -50,7 +62,10 @@ describe('owner yard, colony and super screens on the demo season', () => {
   it('a field sheet is previewed row by row, and the valid rows are imported together', async () => {
     const dir = mkdtempSync(path.join(tmpdir(), 'sheet-'));
     const file = path.join(dir, 'field-sheet.csv');
-    writeFileSync(file, 'Colony,Date,Box,Weight,Unit,Tag\nOT-04,2026-09-01,medium,21.5,kg,E2E-IMP-1\nOT-04,2026-09-01,medium,21.5,kg,E2E-IMP-1\nXX-99,2026-09-01,deep,20,kg,\n');
+    writeFileSync(
+      file,
+      'Colony,Date,Box,Weight,Unit,Tag\nOT-04,2026-09-01,medium,21.5,kg,E2E-IMP-1\nOT-04,2026-09-01,medium,21.5,kg,E2E-IMP-1\nXX-99,2026-09-01,deep,20,kg,\n',
+    );
     await open('/admin/supers/import');
     await page.getByLabel(/Field sheet/).setInputFiles(file);
     await page.getByText('3 rows: 1 ready, 2 with problems.').waitFor();

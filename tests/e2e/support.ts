@@ -17,7 +17,16 @@ export async function openBrowser(viewport = DESKTOP): Promise<BrowserContext> {
     headless: true,
     viewport,
     acceptDownloads: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'],
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-dev-shm-usage',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--no-first-run',
+      '--disable-quic',
+    ],
   });
 }
 
@@ -26,10 +35,19 @@ export async function signIn(page: Page, email: string, password: string): Promi
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in') && !url.pathname.startsWith('/welcome'), { timeout: 30_000 });
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in') && !url.pathname.startsWith('/welcome'), {
+    timeout: 30_000,
+  });
 }
 
-export type FakeMail = { id: string; subject: string; text: string; html: string | null; to: string; attachments: { index: number; filename: string; contentType: string; size: number; url: string }[] };
+export type FakeMail = {
+  id: string;
+  subject: string;
+  text: string;
+  html: string | null;
+  to: string;
+  attachments: { index: number; filename: string; contentType: string; size: number; url: string }[];
+};
 
 /** Polls the fake inbox until a message for `to` matching `subject` arrives. */
 export async function waitForMail(to: string, subject: RegExp, timeoutMs = 30_000): Promise<FakeMail> {

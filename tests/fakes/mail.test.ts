@@ -43,21 +43,40 @@ describe('mail catcher', () => {
       html: '<p>Thanks for your order.</p>',
       attachments: [{ filename: 'invoice-42.pdf', content: pdf, contentType: 'application/pdf' }],
     });
-    await transport.sendMail({ from: 'shop@combtrace.test', to: 'someone-else@example.test', subject: 'Other', text: 'x' });
+    await transport.sendMail({
+      from: 'shop@combtrace.test',
+      to: 'someone-else@example.test',
+      subject: 'Other',
+      text: 'x',
+    });
 
     const [message, ...rest] = await messagesTo('Buyer@Example.test');
     expect(rest).toHaveLength(0);
-    expect(message).toMatchObject({ subject: 'Your order 42', to: 'buyer@example.test', html: '<p>Thanks for your order.</p>' });
+    expect(message).toMatchObject({
+      subject: 'Your order 42',
+      to: 'buyer@example.test',
+      html: '<p>Thanks for your order.</p>',
+    });
     expect(message.from).toContain('shop@combtrace.test');
     expect(message.text?.trim()).toBe('Thanks for your order.');
-    expect(message.attachments[0]).toMatchObject({ filename: 'invoice-42.pdf', contentType: 'application/pdf', size: pdf.length });
+    expect(message.attachments[0]).toMatchObject({
+      filename: 'invoice-42.pdf',
+      contentType: 'application/pdf',
+      size: pdf.length,
+    });
     const res = await fetch(`${mail.webUrl}${message.attachments[0].url}`);
     expect(res.headers.get('content-type')).toBe('application/pdf');
     expect(Buffer.from(await res.arrayBuffer()).equals(pdf)).toBe(true);
   });
 
   it('lists newest first and finds Bcc recipients through the envelope', async () => {
-    await transport.sendMail({ from: 'shop@combtrace.test', to: 'a@example.test', bcc: 'audit@example.test', subject: 'first', text: '1' });
+    await transport.sendMail({
+      from: 'shop@combtrace.test',
+      to: 'a@example.test',
+      bcc: 'audit@example.test',
+      subject: 'first',
+      text: '1',
+    });
     await transport.sendMail({ from: 'shop@combtrace.test', to: 'a@example.test', subject: 'second', text: '2' });
     expect((await messagesTo('a@example.test')).map((m) => m.subject)).toEqual(['second', 'first']);
     expect((await messagesTo('audit@example.test')).map((m) => m.subject)).toEqual(['first']);
@@ -65,7 +84,12 @@ describe('mail catcher', () => {
 
   it('escapes mail content on the inbox page and sandboxes HTML on the message page', async () => {
     const evil = '<script>alert(1)</script>';
-    await transport.sendMail({ from: 'x@example.test', to: 'buyer@example.test', subject: `Hi ${evil}`, html: `<b>bold</b>${evil}` });
+    await transport.sendMail({
+      from: 'x@example.test',
+      to: 'buyer@example.test',
+      subject: `Hi ${evil}`,
+      html: `<b>bold</b>${evil}`,
+    });
     const inbox = await (await fetch(`${mail.webUrl}/`)).text();
     expect(inbox).not.toContain(evil);
     expect(inbox).toContain('Hi &lt;script&gt;alert(1)&lt;/script&gt;');

@@ -25,7 +25,8 @@ describe('paying', () => {
   it('serves an accessible card form with a cancel link', async () => {
     const session = await stripe.checkout.sessions.create(sessionParams());
     const html = await (await fetch(String(session.url))).text();
-    for (const label of ['Card number', 'Expiry (MM / YY)', 'Security code (CVC)', 'Name on card']) expect(html).toContain(`>${label}</label>`);
+    for (const label of ['Card number', 'Expiry (MM / YY)', 'Security code (CVC)', 'Name on card'])
+      expect(html).toContain(`>${label}</label>`);
     expect(html).toContain('autocomplete="cc-number"');
     expect(html).toContain('href="http://127.0.0.1:3100/cart"');
   });
@@ -77,13 +78,21 @@ describe('refunds', () => {
 
   it('refunds partly, then fully, with charge.refunded after each', async () => {
     const paymentIntent = await paid();
-    const partial = await stripe.refunds.create({ payment_intent: paymentIntent, amount: 1000 }, { idempotencyKey: 'refund-42-1' });
+    const partial = await stripe.refunds.create(
+      { payment_intent: paymentIntent, amount: 1000 },
+      { idempotencyKey: 'refund-42-1' },
+    );
     expect(partial).toMatchObject({ amount: 1000, status: 'succeeded', payment_intent: paymentIntent });
     const rest = await stripe.refunds.create({ payment_intent: paymentIntent });
     expect(rest.amount).toBe(1400);
     const charges = await chargeEvents();
-    expect(charges.map((c) => [c.amount_refunded, c.refunded])).toEqual([[1000, false], [2400, true]]);
-    const refundCreated = (await (await fetch(`${fake.url}/_fake/events?type=refund.created`)).json()) as { data: unknown[] };
+    expect(charges.map((c) => [c.amount_refunded, c.refunded])).toEqual([
+      [1000, false],
+      [2400, true],
+    ]);
+    const refundCreated = (await (await fetch(`${fake.url}/_fake/events?type=refund.created`)).json()) as {
+      data: unknown[];
+    };
     expect(refundCreated.data).toHaveLength(2);
   });
 

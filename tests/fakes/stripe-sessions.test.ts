@@ -13,20 +13,32 @@ describe('checkout sessions', () => {
   it('creates, retrieves with line items, lists line items and expires', async () => {
     const created = await stripe.checkout.sessions.create(sessionParams());
     expect(created.id).toMatch(/^cs_test_/);
-    expect(created).toMatchObject({ status: 'open', payment_status: 'unpaid', amount_total: 2400, currency: 'usd', payment_intent: null });
+    expect(created).toMatchObject({
+      status: 'open',
+      payment_status: 'unpaid',
+      amount_total: 2400,
+      currency: 'usd',
+      payment_intent: null,
+    });
     expect(created.url).toBe(`${fake.url}/pay/${created.id}`);
     expect(created.expires_at - created.created).toBe(24 * 60 * 60);
 
     const read = await stripe.checkout.sessions.retrieve(created.id, { expand: ['line_items'] });
     expect(read.metadata).toEqual({ orderId: '42' });
-    expect(read.line_items?.data[0]).toMatchObject({ description: 'Wildflower 340 g', quantity: 2, amount_total: 2400 });
+    expect(read.line_items?.data[0]).toMatchObject({
+      description: 'Wildflower 340 g',
+      quantity: 2,
+      amount_total: 2400,
+    });
     const items = await stripe.checkout.sessions.listLineItems(created.id, { limit: 100 });
     expect(items.data).toHaveLength(1);
     expect(items.has_more).toBe(false);
 
     const expired = await stripe.checkout.sessions.expire(created.id);
     expect(expired).toMatchObject({ status: 'expired', url: null });
-    await expect(stripe.checkout.sessions.expire(created.id)).rejects.toBeInstanceOf(Stripe.errors.StripeInvalidRequestError);
+    await expect(stripe.checkout.sessions.expire(created.id)).rejects.toBeInstanceOf(
+      Stripe.errors.StripeInvalidRequestError,
+    );
   });
 
   it('answers 404 with an invalid_request_error for an unknown session', async () => {
@@ -56,7 +68,9 @@ describe('checkout sessions', () => {
   it('rejects the same key with different parameters as an idempotency error', async () => {
     const key = 'checkout-order-43-v1';
     await stripe.checkout.sessions.create(sessionParams(2), { idempotencyKey: key });
-    const err = await stripe.checkout.sessions.create(sessionParams(3), { idempotencyKey: key }).catch((e: unknown) => e);
+    const err = await stripe.checkout.sessions
+      .create(sessionParams(3), { idempotencyKey: key })
+      .catch((e: unknown) => e);
     expect(err).toBeInstanceOf(Stripe.errors.StripeIdempotencyError);
     expect(err).toMatchObject({ statusCode: 400 });
   });
@@ -76,7 +90,9 @@ describe('checkout sessions', () => {
   it('fails the next N API requests with a 500 without saving the key', async () => {
     await hook(fake, '/_fake/config', { failNext: 1 });
     const key = 'checkout-order-45-v1';
-    const err = await stripe.checkout.sessions.create(sessionParams(), { idempotencyKey: key }).catch((e: unknown) => e);
+    const err = await stripe.checkout.sessions
+      .create(sessionParams(), { idempotencyKey: key })
+      .catch((e: unknown) => e);
     expect(err).toBeInstanceOf(Stripe.errors.StripeAPIError);
     const retried = await stripe.checkout.sessions.create(sessionParams(), { idempotencyKey: key });
     expect(retried.status).toBe('open');

@@ -34,7 +34,12 @@ describe('webhooks', () => {
     const event = verifier.webhooks.constructEvent(delivery.body, delivery.signature, WEBHOOK_SECRET);
     expect(event.type).toBe('checkout.session.completed');
     const object = event.data.object as Stripe.Checkout.Session;
-    expect(object).toMatchObject({ id: session.id, status: 'complete', payment_status: 'paid', metadata: { orderId: '42' } });
+    expect(object).toMatchObject({
+      id: session.id,
+      status: 'complete',
+      payment_status: 'paid',
+      metadata: { orderId: '42' },
+    });
     expect(object.payment_intent).toMatch(/^pi_/);
     expect(() => verifier.webhooks.constructEvent(delivery.body, delivery.signature, 'whsec_other')).toThrow(
       Stripe.errors.StripeSignatureVerificationError,
@@ -50,7 +55,10 @@ describe('webhooks', () => {
       data: { state: string; attempts: { attempt: number; status: number }[] }[];
     };
     expect(events.data[0].state).toBe('delivered');
-    expect(events.data[0].attempts.map((a) => [a.attempt, a.status])).toEqual([[1, 500], [2, 200]]);
+    expect(events.data[0].attempts.map((a) => [a.attempt, a.status])).toEqual([
+      [1, 500],
+      [2, 200],
+    ]);
   });
 
   it('retries when the endpoint is unreachable, then gives up after five retries', async () => {
@@ -62,7 +70,9 @@ describe('webhooks', () => {
     let attempts = 0;
     while (state !== 'failed' && Date.now() < until) {
       await new Promise((res) => setTimeout(res, 50));
-      const body = (await (await fetch(`${f.url}/_fake/events`)).json()) as { data: { state: string; attempts: unknown[] }[] };
+      const body = (await (await fetch(`${f.url}/_fake/events`)).json()) as {
+        data: { state: string; attempts: unknown[] }[];
+      };
       state = body.data[0].state;
       attempts = body.data[0].attempts.length;
     }

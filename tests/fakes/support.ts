@@ -31,7 +31,12 @@ export async function startReceiver(status: (n: number) => number = () => 200): 
   const server = createServer(async (req, res) => {
     const body = await text(req);
     const parsed = JSON.parse(body) as { id: string; type: string };
-    deliveries.push({ body, signature: String(req.headers['stripe-signature']), type: parsed.type, eventId: parsed.id });
+    deliveries.push({
+      body,
+      signature: String(req.headers['stripe-signature']),
+      type: parsed.type,
+      eventId: parsed.id,
+    });
     res.writeHead(status(deliveries.length)).end();
   });
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
@@ -62,8 +67,17 @@ export function sdk(port: number): Stripe {
   return new Stripe('sk_test_x', { host: '127.0.0.1', port, protocol: 'http', telemetry: false, maxNetworkRetries: 0 });
 }
 
-export async function startFake(receiver: Receiver, extra: { retryBaseMs?: number; reverseHoldMs?: number } = {}): Promise<StripeFake> {
-  return startStripeFake({ port: 0, webhookUrl: receiver.url, webhookSecret: WEBHOOK_SECRET, retryBaseMs: 20, ...extra });
+export async function startFake(
+  receiver: Receiver,
+  extra: { retryBaseMs?: number; reverseHoldMs?: number } = {},
+): Promise<StripeFake> {
+  return startStripeFake({
+    port: 0,
+    webhookUrl: receiver.url,
+    webhookSecret: WEBHOOK_SECRET,
+    retryBaseMs: 20,
+    ...extra,
+  });
 }
 
 export const sessionParams = (quantity = 2): Stripe.Checkout.SessionCreateParams => ({
@@ -72,11 +86,17 @@ export const sessionParams = (quantity = 2): Stripe.Checkout.SessionCreateParams
   cancel_url: 'http://127.0.0.1:3100/cart',
   customer_email: 'buyer@example.test',
   metadata: { orderId: '42' },
-  line_items: [{ quantity, price_data: { currency: 'usd', unit_amount: 1200, product_data: { name: 'Wildflower 340 g' } } }],
+  line_items: [
+    { quantity, price_data: { currency: 'usd', unit_amount: 1200, product_data: { name: 'Wildflower 340 g' } } },
+  ],
 });
 
 /** POST JSON to a `/_fake` hook. */
-export async function hook(fake: StripeFake, path: string, body: unknown = {}): Promise<{ status: number; json: Record<string, unknown> }> {
+export async function hook(
+  fake: StripeFake,
+  path: string,
+  body: unknown = {},
+): Promise<{ status: number; json: Record<string, unknown> }> {
   const res = await fetch(`${fake.url}${path}`, { method: 'POST', body: JSON.stringify(body) });
   return { status: res.status, json: (await res.json()) as Record<string, unknown> };
 }

@@ -13,8 +13,16 @@ export function decodePng(png: Buffer, kind: 'code128' | 'datamatrix' | 'qr'): s
   }
   const source = new zxing.RGBLuminanceSource(luminance, image.width, image.height);
   const bitmap = new zxing.BinaryBitmap(new zxing.HybridBinarizer(source));
-  const hints = new Map<zxing.DecodeHintType, unknown>([[zxing.DecodeHintType.ASSUME_GS1, true], [zxing.DecodeHintType.TRY_HARDER, true]]);
-  const reader = kind === 'code128' ? new zxing.Code128Reader() : kind === 'datamatrix' ? new zxing.DataMatrixReader() : new zxing.QRCodeReader();
+  const hints = new Map<zxing.DecodeHintType, unknown>([
+    [zxing.DecodeHintType.ASSUME_GS1, true],
+    [zxing.DecodeHintType.TRY_HARDER, true],
+  ]);
+  const reader =
+    kind === 'code128'
+      ? new zxing.Code128Reader()
+      : kind === 'datamatrix'
+        ? new zxing.DataMatrixReader()
+        : new zxing.QRCodeReader();
   const text = reader.decode(bitmap, hints).getText();
   // @zxing/library 0.21 reads a Code 128 check character of value 102 in code set C as FNC1 and
   // appends a GS after the data (seen with lot TJ-UDJD30). A GS1 element string never ends with a
@@ -23,7 +31,12 @@ export function decodePng(png: Buffer, kind: 'code128' | 'datamatrix' | 'qr'): s
 }
 
 /** Cuts a rectangle (in PDF points, measured from the top-left) out of a page rendered at `dpi`, with a white margin. */
-export function cropPng(png: Buffer, dpi: number, box: { x: number; top: number; width: number; height: number }, marginPt = 4): Buffer {
+export function cropPng(
+  png: Buffer,
+  dpi: number,
+  box: { x: number; top: number; width: number; height: number },
+  marginPt = 4,
+): Buffer {
   const page = PNG.sync.read(png);
   const px = (pt: number) => Math.round((pt * dpi) / 72);
   const x0 = Math.max(0, px(box.x - marginPt));

@@ -13,7 +13,10 @@ const a4x21 = BUILT_IN_LAYOUTS.find((l) => l.paper === 'a4' && l.columns * l.row
 const roll = BUILT_IN_LAYOUTS.find((l) => l.paper === 'roll') as LabelLayout;
 
 describe('super tag sheet', () => {
-  const tags = Array.from({ length: 25 }, (_, i) => ({ code: `SUP-${String(i + 1).padStart(4, '0')}`, caption: 'Quarry Meadow' }));
+  const tags = Array.from({ length: 25 }, (_, i) => ({
+    code: `SUP-${String(i + 1).padStart(4, '0')}`,
+    caption: 'Quarry Meadow',
+  }));
 
   it('is a valid PDF with one label per tag', async () => {
     const doc = await PDFDocument.load(await renderSuperTagSheet(tags, a4x21));
@@ -32,12 +35,21 @@ describe('super tag sheet', () => {
 });
 
 describe('table report', () => {
-  const rows = Array.from({ length: 120 }, (_, i) => [`C-${i + 1}`, ['Orchard Terrace', 'Linden Row', 'Quarry Meadow', 'Fernbank'][i % 4], (i * 1.5).toFixed(1)]);
+  const rows = Array.from({ length: 120 }, (_, i) => [
+    `C-${i + 1}`,
+    ['Orchard Terrace', 'Linden Row', 'Quarry Meadow', 'Fernbank'][i % 4],
+    (i * 1.5).toFixed(1),
+  ]);
   const report = {
     title: 'Yield by colony — 2026',
     subtitle: 'Hollowmere Apiaries, Marrow Valley',
     sections: [
-      { heading: 'Colonies', columns: ['Colony', 'Yard', 'Honey (kg)'], rows, note: 'Lot weight shared back by measured honey weight.' },
+      {
+        heading: 'Colonies',
+        columns: ['Colony', 'Yard', 'Honey (kg)'],
+        rows,
+        note: 'Lot weight shared back by measured honey weight.',
+      },
       { heading: 'Held lots', columns: ['Lot', 'Reason'], rows: [] },
     ],
     footer: 'Combtrace records and warns; it does not certify.',

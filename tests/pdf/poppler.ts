@@ -5,7 +5,10 @@ import path from 'node:path';
 
 /** poppler-utils present? (apt-get install -y poppler-utils.) */
 export const hasPoppler = !spawnSync('pdftotext', ['-v']).error && !spawnSync('pdftoppm', ['-v']).error;
-if (!hasPoppler) console.warn('poppler-utils (pdftotext, pdftoppm) not found: PDF text and raster checks are skipped. Install with apt-get install -y poppler-utils.');
+if (!hasPoppler)
+  console.warn(
+    'poppler-utils (pdftotext, pdftoppm) not found: PDF text and raster checks are skipped. Install with apt-get install -y poppler-utils.',
+  );
 
 function tempPdf(bytes: Uint8Array): { dir: string; file: string } {
   const dir = mkdtempSync(path.join(tmpdir(), 'combtrace-pdf-'));

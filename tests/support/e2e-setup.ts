@@ -23,7 +23,9 @@ async function waitFor(url: string, what: string, timeoutMs = 60_000): Promise<v
     try {
       const res = await fetch(url);
       if (res.ok) return;
-    } catch { /* not up yet */ }
+    } catch {
+      /* not up yet */
+    }
     await new Promise((r) => setTimeout(r, 250));
   }
   throw new Error(`${what} did not start; see tests/.artifacts/*.log`);
@@ -42,7 +44,11 @@ export default async function setup() {
   migrate(dbUrl, 'seed');
 
   if (process.env.E2E_SKIP_BUILD !== '1' || !existsSync(path.join(ROOT, '.next/BUILD_ID'))) {
-    execFileSync('node', ['node_modules/next/dist/bin/next', 'build'], { cwd: ROOT, stdio: 'inherit', env: { ...process.env, NEXT_TELEMETRY_DISABLED: '1' } });
+    execFileSync('node', ['node_modules/next/dist/bin/next', 'build'], {
+      cwd: ROOT,
+      stdio: 'inherit',
+      env: { ...process.env, NEXT_TELEMETRY_DISABLED: '1' },
+    });
   }
 
   const baseUrl = `http://127.0.0.1:${E2E_PORT}`;
@@ -71,7 +77,12 @@ export default async function setup() {
   delete env.NEXT_RUNTIME;
   delete env.DATABASE_URL;
   startDetached('fakes', 'node', ['node_modules/tsx/dist/cli.mjs', 'fakes/run.ts'], env);
-  startDetached('app', 'node', ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(E2E_PORT)], env);
+  startDetached(
+    'app',
+    'node',
+    ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(E2E_PORT)],
+    env,
+  );
   await waitFor(`http://127.0.0.1:${E2E_MAIL_WEB_PORT}/api/messages`, 'The mail fake');
   await waitFor(`${baseUrl}/api/health`, 'The app');
 
@@ -82,7 +93,11 @@ export default async function setup() {
 
   return async () => {
     for (const child of children) {
-      try { if (child.pid) process.kill(-child.pid, 'SIGTERM'); } catch { /* already gone */ }
+      try {
+        if (child.pid) process.kill(-child.pid, 'SIGTERM');
+      } catch {
+        /* already gone */
+      }
     }
   };
 }

@@ -1,6 +1,9 @@
 /** Helpers to call actions and route handlers directly, the way the permission and fuzz tests do. */
 export type ActionFn = (input: unknown) => Promise<unknown>;
-export type RouteFn = (req: Request, ctx: { params: Promise<Record<string, string | string[]>> }) => Promise<Response> | Response;
+export type RouteFn = (
+  req: Request,
+  ctx: { params: Promise<Record<string, string | string[]>> },
+) => Promise<Response> | Response;
 
 /** An auth refusal from guardedAction/authorize: "Please sign in first." or "…not allowed…". */
 export function isAuthRefusal(result: unknown): boolean {
@@ -21,7 +24,10 @@ export function paramsFor(file: string): Record<string, string | string[]> {
 }
 
 export function urlFor(file: string, params: Record<string, string | string[]>): string {
-  const path = file.replace(/^app/, '').replace(/\/route\.ts$/, '').replace(/\/\([^)]+\)/g, '')
+  const path = file
+    .replace(/^app/, '')
+    .replace(/\/route\.ts$/, '')
+    .replace(/\/\([^)]+\)/g, '')
     .replace(/\[(\.\.\.)?([^\]]+)\]/g, (_, __, name: string) => [params[name]].flat().join('/'));
   return `http://127.0.0.1:3100${path}`;
 }
@@ -37,7 +43,8 @@ export async function callRoute(file: string, method: string, fn: RouteFn, body:
     // redirect()/notFound() from next/navigation are stubbed to throw in tests.
     const e = err as { redirectTo?: string; notFound?: boolean };
     if (e.notFound) return 404;
-    if (e.redirectTo) return e.redirectTo.startsWith('/sign-in') ? 401 : e.redirectTo.startsWith('/forbidden') ? 403 : 303;
+    if (e.redirectTo)
+      return e.redirectTo.startsWith('/sign-in') ? 401 : e.redirectTo.startsWith('/forbidden') ? 403 : 303;
     return 500;
   }
 }

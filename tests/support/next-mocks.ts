@@ -16,10 +16,24 @@ vi.mock('next-auth', async (orig) => ({
 }));
 vi.mock('next/headers', () => ({
   headers: async () => new Headers(state.__testHeaders),
-  cookies: async () => ({ get: () => undefined, getAll: () => [], set: () => undefined, delete: () => undefined, has: () => false }),
+  cookies: async () => ({
+    get: () => undefined,
+    getAll: () => [],
+    set: () => undefined,
+    delete: () => undefined,
+    has: () => false,
+  }),
 }));
-vi.mock('next/cache', () => ({ revalidatePath: () => undefined, revalidateTag: () => undefined, unstable_cache: <T>(fn: T) => fn }));
+vi.mock('next/cache', () => ({
+  revalidatePath: () => undefined,
+  revalidateTag: () => undefined,
+  unstable_cache: <T>(fn: T) => fn,
+}));
 vi.mock('next/navigation', () => ({
-  redirect: (url: string) => { throw Object.assign(new Error(`NEXT_REDIRECT ${url}`), { redirectTo: url }); },
-  notFound: () => { throw Object.assign(new Error('NEXT_NOT_FOUND'), { notFound: true }); },
+  redirect: (url: string) => {
+    throw Object.assign(new Error(`NEXT_REDIRECT ${url}`), { redirectTo: url });
+  },
+  notFound: () => {
+    throw Object.assign(new Error('NEXT_NOT_FOUND'), { notFound: true });
+  },
 }));

@@ -21,10 +21,22 @@ export const ACTIONS: Record<string, Allowed> = {
   'app/(back-office)/admin/settings/actions.ts#saveSettingsAction': OWNER,
   'app/(back-office)/admin/staff/actions.ts#createStaffAction': OWNER,
   'app/(back-office)/admin/staff/actions.ts#updateStaffAction': OWNER,
-  ...Object.fromEntries([
-    'createLotAction', 'updateLotAction', 'scanSuperAction', 'pickSupersAction', 'removeSuperAction', 'emptyWeightAction', 'addContainerAction',
-    'waxAction', 'addReadingAction', 'voidRecordAction', 'changeStageAction', 'createBlendAction',
-  ].map((name) => [`app/(back-office)/admin/lots/actions.ts#${name}`, HOUSE])),
+  ...Object.fromEntries(
+    [
+      'createLotAction',
+      'updateLotAction',
+      'scanSuperAction',
+      'pickSupersAction',
+      'removeSuperAction',
+      'emptyWeightAction',
+      'addContainerAction',
+      'waxAction',
+      'addReadingAction',
+      'voidRecordAction',
+      'changeStageAction',
+      'createBlendAction',
+    ].map((name) => [`app/(back-office)/admin/lots/actions.ts#${name}`, HOUSE]),
+  ),
   'app/(back-office)/admin/lots/actions.ts#saveContainerTypeAction': OWNER,
   // Yards, colonies and supers. Scope (a keeper's own yards) is checked in lib/data: tests/data/yards/scope.test.ts.
   'app/(back-office)/admin/yards/actions.ts#createYardAction': OWNER,

@@ -7,7 +7,9 @@ export function startTestCluster(): void {
 }
 
 function psql(sql: string): void {
-  execFileSync('psql', ['-h', '127.0.0.1', '-p', TEST_PGPORT, '-U', 'postgres', '-d', 'postgres', '-qc', sql], { stdio: 'inherit' });
+  execFileSync('psql', ['-h', '127.0.0.1', '-p', TEST_PGPORT, '-U', 'postgres', '-d', 'postgres', '-qc', sql], {
+    stdio: 'inherit',
+  });
 }
 
 export function recreateDatabase(name: string): string {

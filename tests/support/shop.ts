@@ -19,7 +19,10 @@ export async function startShopFake(options: { retryBaseMs?: number } = {}): Pro
     for await (const c of req) chunks.push(c as Buffer);
     const request = new Request('http://127.0.0.1/api/stripe/webhook', {
       method: 'POST',
-      headers: { 'content-type': 'application/json', 'stripe-signature': String(req.headers['stripe-signature'] ?? '') },
+      headers: {
+        'content-type': 'application/json',
+        'stripe-signature': String(req.headers['stripe-signature'] ?? ''),
+      },
       body: Buffer.concat(chunks).toString('utf8'),
     });
     const answer = await webhookPOST(request);
@@ -28,7 +31,12 @@ export async function startShopFake(options: { retryBaseMs?: number } = {}): Pro
   });
   await new Promise<void>((r) => receiver.listen(0, '127.0.0.1', r));
   const { port } = receiver.address() as AddressInfo;
-  const fake = await startStripeFake({ port: 0, webhookUrl: `http://127.0.0.1:${port}/api/stripe/webhook`, webhookSecret: SHOP_WEBHOOK_SECRET, retryBaseMs: options.retryBaseMs ?? 50 });
+  const fake = await startStripeFake({
+    port: 0,
+    webhookUrl: `http://127.0.0.1:${port}/api/stripe/webhook`,
+    webhookSecret: SHOP_WEBHOOK_SECRET,
+    retryBaseMs: options.retryBaseMs ?? 50,
+  });
   Object.assign(process.env, {
     STRIPE_SECRET_KEY: 'sk_test_shop',
     STRIPE_API_HOST: '127.0.0.1',
@@ -43,22 +51,49 @@ export async function startShopFake(options: { retryBaseMs?: number } = {}): Pro
     webhookStatuses,
     async close() {
       await fake.close();
-      await new Promise<void>((r) => { receiver.close(() => r()); receiver.closeAllConnections(); });
+      await new Promise<void>((r) => {
+        receiver.close(() => r());
+        receiver.closeAllConnections();
+      });
     },
   };
 }
 
 let seq = 0;
 /** A product with `lots` released lots holding the given jar counts (oldest best-before first). */
-export async function makeProduct(tag: string, jarsPerLot: number[], priceCents = 1200): Promise<{ productId: number; lotIds: number[]; name: string }> {
+export async function makeProduct(
+  tag: string,
+  jarsPerLot: number[],
+  priceCents = 1200,
+): Promise<{ productId: number; lotIds: number[]; name: string }> {
   const { Product, Lot, StockLevel } = getDb().models;
   const u = `${tag}-${process.pid}-${++seq}`.toLowerCase();
   const name = `Test honey ${u}`;
-  const p = await Product.create({ slug: `t-${u}`, name, netGrams: 340, declaredAmount: 340, containerKind: 'glass jar', containerGrams: 180, priceCents });
+  const p = await Product.create({
+    slug: `t-${u}`,
+    name,
+    netGrams: 340,
+    declaredAmount: 340,
+    containerKind: 'glass jar',
+    containerGrams: 180,
+    priceCents,
+  });
   const lotIds: number[] = [];
   for (let i = 0; i < jarsPerLot.length; i++) {
-    const lot = await Lot.create({ code: `T${seq}-${process.pid % 10000}-${i}`.slice(0, 20), floralSource: i === 0 ? 'Clover' : 'Linden', stage: 'released', bestBeforeOn: `202${8 + i}-06-30`, createdBy: null });
-    await StockLevel.create({ productId: p.id, lotId: lot.id, onHand: jarsPerLot[i], reserved: 0, bestBeforeOn: `202${8 + i}-06-30` });
+    const lot = await Lot.create({
+      code: `T${seq}-${process.pid % 10000}-${i}`.slice(0, 20),
+      floralSource: i === 0 ? 'Clover' : 'Linden',
+      stage: 'released',
+      bestBeforeOn: `202${8 + i}-06-30`,
+      createdBy: null,
+    });
+    await StockLevel.create({
+      productId: p.id,
+      lotId: lot.id,
+      onHand: jarsPerLot[i],
+      reserved: 0,
+      bestBeforeOn: `202${8 + i}-06-30`,
+    });
     lotIds.push(lot.id);
   }
   return { productId: p.id, lotIds, name };
@@ -79,18 +114,27 @@ export async function waitUntil<T>(read: () => Promise<T>, ok: (v: T) => boolean
 }
 
 export function hook(fake: StripeFake, path: string, body: unknown = {}) {
-  return fetch(`${fake.url}${path}`, { method: 'POST', body: JSON.stringify(body) }).then(async (r) => ({ status: r.status, json: (await r.json()) as Record<string, unknown> }));
+  return fetch(`${fake.url}${path}`, { method: 'POST', body: JSON.stringify(body) }).then(async (r) => ({
+    status: r.status,
+    json: (await r.json()) as Record<string, unknown>,
+  }));
 }
 
 export const guest = (items: { productId: number; quantity: number }[], email = `guest-${++seq}@example.test`) => ({
-  items, email, name: 'Ada Fenwick', phone: '', fulfilment: 'pickup' as const,
+  items,
+  email,
+  name: 'Ada Fenwick',
+  phone: '',
+  fulfilment: 'pickup' as const,
 });
 
 export const orderOf = (number: string) => getDb().models.Order.findOne({ where: { number } });
 
 /** A guest checkout through the real route handler (it must succeed); the order it made. */
 export async function startOrder(items: { productId: number; quantity: number }[]) {
-  const res = await checkoutPOST(new Request('http://127.0.0.1/api/checkout', { method: 'POST', body: JSON.stringify(guest(items)) }));
+  const res = await checkoutPOST(
+    new Request('http://127.0.0.1/api/checkout', { method: 'POST', body: JSON.stringify(guest(items)) }),
+  );
   if (res.status !== 200) throw new Error(`checkout answered ${res.status}: ${await res.text()}`);
   return (await orderOf(((await res.json()) as { number: string }).number))!;
 }

@@ -5,7 +5,9 @@ describe('appUrl: the one public base URL for links we send out', () => {
   it('a reset link has no double slash when APP_URL ends with /', () => {
     const link = `${appUrl({ APP_URL: 'https://honey.example/' })}/reset-password?token=abc`;
     expect(link).toBe('https://honey.example/reset-password?token=abc');
-    expect(`${appUrl({ APP_URL: 'https://honey.example/shop//' })}/reset-password`).toBe('https://honey.example/shop/reset-password');
+    expect(`${appUrl({ APP_URL: 'https://honey.example/shop//' })}/reset-password`).toBe(
+      'https://honey.example/shop/reset-password',
+    );
   });
 
   it('takes APP_URL, then NEXTAUTH_URL, then the local default; an empty variable counts as unset', () => {

@@ -1,12 +1,23 @@
 import { describe, expect, it } from 'vitest';
 import { contentSecurityPolicy, nonceOf } from '@/lib/http/csp';
-import { PublicPageCache, RENDER_HEADER, isPublicPageView, respondWithNonce, storablePage, type StoredPage } from '@/lib/http/public-page-cache';
+import {
+  PublicPageCache,
+  RENDER_HEADER,
+  isPublicPageView,
+  respondWithNonce,
+  storablePage,
+  type StoredPage,
+} from '@/lib/http/public-page-cache';
 
 const page = (nonce = 'cmVuZGVyZWQ='): StoredPage => ({
   body: `<script nonce="${nonce}">self.__next_f.push([0])</script><p>Our honey</p><script nonce="${nonce}" src="/a.js"></script>`,
   nonce,
   status: 200,
-  headers: [['content-type', 'text/html; charset=utf-8'], ['x-frame-options', 'DENY'], ['link', `</a.css>; rel=preload; as="style"; nonce="${nonce}"`]],
+  headers: [
+    ['content-type', 'text/html; charset=utf-8'],
+    ['x-frame-options', 'DENY'],
+    ['link', `</a.css>; rel=preload; as="style"; nonce="${nonce}"`],
+  ],
 });
 
 describe('which requests the public page cache may answer', () => {
@@ -45,15 +56,22 @@ describe('answering from a stored page', () => {
   });
 
   it('stores only a plain 200 HTML page that sets no cookie and whose nonce is known', async () => {
-    const csp = { 'content-security-policy': contentSecurityPolicy('cmVuZGVyZWQ='), 'content-type': 'text/html; charset=utf-8' };
-    const ok = await storablePage(new Response(page().body, { headers: { ...csp, 'content-length': '10', 'set-cookie2': 'x' } }));
+    const csp = {
+      'content-security-policy': contentSecurityPolicy('cmVuZGVyZWQ='),
+      'content-type': 'text/html; charset=utf-8',
+    };
+    const ok = await storablePage(
+      new Response(page().body, { headers: { ...csp, 'content-length': '10', 'set-cookie2': 'x' } }),
+    );
     expect(ok?.nonce).toBe('cmVuZGVyZWQ=');
     expect(ok?.headers.map(([k]) => k)).not.toContain('content-length');
     expect(ok?.headers.map(([k]) => k)).not.toContain('content-security-policy');
     expect(await storablePage(new Response('gone', { status: 404, headers: csp }))).toBeNull();
     expect(await storablePage(new Response('x', { headers: { ...csp, 'set-cookie': 'a=b' } }))).toBeNull();
     expect(await storablePage(new Response('x', { headers: { 'content-type': 'text/html' } }))).toBeNull();
-    expect(await storablePage(new Response('{}', { headers: { ...csp, 'content-type': 'application/json' } }))).toBeNull();
+    expect(
+      await storablePage(new Response('{}', { headers: { ...csp, 'content-type': 'application/json' } })),
+    ).toBeNull();
   });
 });
 
@@ -62,7 +80,11 @@ describe('PublicPageCache', () => {
     let clock = 0;
     let renders = 0;
     const cache = new PublicPageCache(5000, 10, () => clock);
-    const render = async () => { renders++; await new Promise((r) => setTimeout(r, 5)); return page(); };
+    const render = async () => {
+      renders++;
+      await new Promise((r) => setTimeout(r, 5));
+      return page();
+    };
     const first = await Promise.all(Array.from({ length: 10 }, () => cache.get('/products', render)));
     expect(renders).toBe(1);
     expect(first.every((p) => p?.body === page().body)).toBe(true);
@@ -77,12 +99,29 @@ describe('PublicPageCache', () => {
   it('does not keep what cannot be stored, survives a failed render, and drops the least recently used', async () => {
     const cache = new PublicPageCache(5000, 2, () => 0);
     let renders = 0;
-    expect(await cache.get('/lot/NOPE', async () => { renders++; return null; })).toBeNull();
-    expect(await cache.get('/lot/NOPE', async () => { renders++; return null; })).toBeNull();
+    expect(
+      await cache.get('/lot/NOPE', async () => {
+        renders++;
+        return null;
+      }),
+    ).toBeNull();
+    expect(
+      await cache.get('/lot/NOPE', async () => {
+        renders++;
+        return null;
+      }),
+    ).toBeNull();
     expect(renders).toBe(2);
-    expect(await cache.get('/', async () => { throw new Error('connection refused'); })).toBeNull();
+    expect(
+      await cache.get('/', async () => {
+        throw new Error('connection refused');
+      }),
+    ).toBeNull();
 
-    const counted = (name: string) => async () => { renders++; return { ...page(), body: name }; };
+    const counted = (name: string) => async () => {
+      renders++;
+      return { ...page(), body: name };
+    };
     renders = 0;
     await cache.get('/a', counted('a'));
     await cache.get('/b', counted('b'));

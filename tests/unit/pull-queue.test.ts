@@ -1,12 +1,36 @@
 import { describe, expect, it, vi } from 'vitest';
 import {
-  NoAnswer, answerWithin, changeWaiting, markRefused, notShown, parseWaiting, pullOutcome, readWaiting, toSend, waitingKey, withoutWaiting, withWaiting,
+  NoAnswer,
+  answerWithin,
+  changeWaiting,
+  markRefused,
+  notShown,
+  parseWaiting,
+  pullOutcome,
+  readWaiting,
+  toSend,
+  waitingKey,
+  withoutWaiting,
+  withWaiting,
   type WaitingPull,
 } from '@/components/yards/pull-queue';
 
 const item = (key: string, colonyId = 1, extra: Partial<WaitingPull> = {}): WaitingPull => ({
-  entry: { colonyId, pulledOn: '2026-07-14', depth: 'medium', frameCount: 10, weight: null, weightUnit: 'kg', cappedFrames: null, tagCode: null, idempotencyKey: key },
-  colonyCode: `QT-${colonyId}`, yardName: 'Test yard', savedAt: '2026-07-14T09:00:00.000Z', ...extra,
+  entry: {
+    colonyId,
+    pulledOn: '2026-07-14',
+    depth: 'medium',
+    frameCount: 10,
+    weight: null,
+    weightUnit: 'kg',
+    cappedFrames: null,
+    tagCode: null,
+    idempotencyKey: key,
+  },
+  colonyCode: `QT-${colonyId}`,
+  yardName: 'Test yard',
+  savedAt: '2026-07-14T09:00:00.000Z',
+  ...extra,
 });
 const keys = (list: WaitingPull[]) => list.map((w) => w.entry.idempotencyKey);
 
@@ -16,8 +40,13 @@ function memoryStore(full = false) {
   return {
     data,
     getItem: (k: string) => data.get(k) ?? null,
-    setItem: (k: string, v: string) => { if (full) throw new Error('QuotaExceededError'); data.set(k, v); },
-    removeItem: (k: string) => { data.delete(k); },
+    setItem: (k: string, v: string) => {
+      if (full) throw new Error('QuotaExceededError');
+      data.set(k, v);
+    },
+    removeItem: (k: string) => {
+      data.delete(k);
+    },
   };
 }
 
@@ -36,7 +65,11 @@ describe('the list of waiting pulls', () => {
   });
 
   it('a refused entry is kept with its message but is never sent again; entries on their way are not sent twice', () => {
-    const list = markRefused([item('key-aaaa-1'), item('key-bbbb-2'), item('key-cccc-3')], 'key-bbbb-2', 'No such colony.');
+    const list = markRefused(
+      [item('key-aaaa-1'), item('key-bbbb-2'), item('key-cccc-3')],
+      'key-bbbb-2',
+      'No such colony.',
+    );
     expect(list[1].refused).toBe('No such colony.');
     expect(list[0].refused).toBeUndefined();
     expect(keys(toSend(list))).toEqual(['key-aaaa-1', 'key-cccc-3']);
@@ -53,8 +86,18 @@ describe('the list of waiting pulls', () => {
     const good = item('key-aaaa-1');
     const raw = JSON.stringify([
       good,
-      { entry: { colonyId: 'x', pulledOn: '2026-07-14', idempotencyKey: 'key-bad-colony' }, colonyCode: 'A', yardName: 'Y', savedAt: 's' },
-      { entry: { colonyId: 2, pulledOn: '2026-07-14', idempotencyKey: 'short' }, colonyCode: 'A', yardName: 'Y', savedAt: 's' },
+      {
+        entry: { colonyId: 'x', pulledOn: '2026-07-14', idempotencyKey: 'key-bad-colony' },
+        colonyCode: 'A',
+        yardName: 'Y',
+        savedAt: 's',
+      },
+      {
+        entry: { colonyId: 2, pulledOn: '2026-07-14', idempotencyKey: 'short' },
+        colonyCode: 'A',
+        yardName: 'Y',
+        savedAt: 's',
+      },
       { ...item('key-dddd-4'), refused: 42 },
       null,
       { ...good, colonyCode: 'second copy' },
@@ -67,7 +110,7 @@ describe('the list of waiting pulls', () => {
 });
 
 describe('keeping the list in the browser', () => {
-  it('keeps one list per user, so two people on one phone never send each other\'s pulls', () => {
+  it("keeps one list per user, so two people on one phone never send each other's pulls", () => {
     const store = memoryStore();
     expect(waitingKey(7)).not.toBe(waitingKey(8));
     changeWaiting(store, waitingKey(7), (l) => withWaiting(l, item('key-aaaa-1')));
@@ -101,21 +144,40 @@ describe('what a send attempt means for a waiting pull', () => {
     expect(pullOutcome(key, undefined)).toEqual({ kind: 'waiting' });
   });
   it('signed out or not allowed keeps it waiting with the reason, since the entry itself is fine', () => {
-    expect(pullOutcome(key, { ok: false, message: 'Please sign in first.' })).toEqual({ kind: 'waiting', message: 'Please sign in first.' });
+    expect(pullOutcome(key, { ok: false, message: 'Please sign in first.' })).toEqual({
+      kind: 'waiting',
+      message: 'Please sign in first.',
+    });
   });
   it('an invalid entry is refused, with the field named in words', () => {
-    expect(pullOutcome(key, { ok: false, message: 'Please fix the marked fields.', fieldErrors: { 'entries.0.weight': 'Too heavy for a super' } }))
-      .toEqual({ kind: 'refused', message: 'Full weight: Too heavy for a super' });
+    expect(
+      pullOutcome(key, {
+        ok: false,
+        message: 'Please fix the marked fields.',
+        fieldErrors: { 'entries.0.weight': 'Too heavy for a super' },
+      }),
+    ).toEqual({ kind: 'refused', message: 'Full weight: Too heavy for a super' });
   });
-  it('the server\'s own refusal for this entry is refused with its message', () => {
-    expect(pullOutcome(key, { ok: true, data: { results: [{ ok: false, key, message: 'No such colony.' }] } })).toEqual({ kind: 'refused', message: 'No such colony.' });
+  it("the server's own refusal for this entry is refused with its message", () => {
+    expect(pullOutcome(key, { ok: true, data: { results: [{ ok: false, key, message: 'No such colony.' }] } })).toEqual(
+      { kind: 'refused', message: 'No such colony.' },
+    );
   });
   it('saved (also when the key was already recorded) carries the flag and its reasons', () => {
-    expect(pullOutcome(key, { ok: true, data: { results: [{ ok: true, key, id: 5, flagged: true, flagReasons: ['Sugar syrup fed'] }] } }))
-      .toEqual({ kind: 'saved', flagged: true, flagReasons: ['Sugar syrup fed'] });
+    expect(
+      pullOutcome(key, {
+        ok: true,
+        data: { results: [{ ok: true, key, id: 5, flagged: true, flagReasons: ['Sugar syrup fed'] }] },
+      }),
+    ).toEqual({ kind: 'saved', flagged: true, flagReasons: ['Sugar syrup fed'] });
   });
   it('an answer about another key, or none, is not taken as saved', () => {
-    expect(pullOutcome(key, { ok: true, data: { results: [{ ok: true, key: 'key-other-9', flagged: false, flagReasons: [] }] } }).kind).toBe('waiting');
+    expect(
+      pullOutcome(key, {
+        ok: true,
+        data: { results: [{ ok: true, key: 'key-other-9', flagged: false, flagReasons: [] }] },
+      }).kind,
+    ).toBe('waiting');
     expect(pullOutcome(key, { ok: true, data: undefined }).kind).toBe('waiting');
   });
 });
@@ -125,8 +187,13 @@ describe('answerWithin', () => {
     vi.useFakeTimers();
     try {
       await expect(answerWithin(Promise.resolve('saved'), 1000)).resolves.toBe('saved');
-      await expect(answerWithin(Promise.reject(new TypeError('Failed to fetch')), 1000)).rejects.toBeInstanceOf(TypeError);
-      const outcome = answerWithin(new Promise(() => undefined), 1000).then(() => 'answered', (e: unknown) => e);
+      await expect(answerWithin(Promise.reject(new TypeError('Failed to fetch')), 1000)).rejects.toBeInstanceOf(
+        TypeError,
+      );
+      const outcome = answerWithin(new Promise(() => undefined), 1000).then(
+        () => 'answered',
+        (e: unknown) => e,
+      );
       await vi.advanceTimersByTimeAsync(999);
       expect(await Promise.race([outcome, Promise.resolve('still waiting')])).toBe('still waiting');
       await vi.advanceTimersByTimeAsync(1);

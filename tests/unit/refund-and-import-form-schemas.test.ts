@@ -10,7 +10,10 @@ describe('the refund form reads the amount as typed', () => {
     expect(refundInput.safeParse(sent).success).toBe(true);
   });
   it('a blank or a word is no amount, and zero is refused', () => {
-    for (const amount of ['', 'twelve']) expect(refundFormInput.safeParse({ ...typed, amount }).error?.issues[0]?.message).toBe('Enter the amount to refund');
+    for (const amount of ['', 'twelve'])
+      expect(refundFormInput.safeParse({ ...typed, amount }).error?.issues[0]?.message).toBe(
+        'Enter the amount to refund',
+      );
     expect(refundFormInput.safeParse({ ...typed, amount: '0' }).error?.issues[0]?.message).toBe('More than zero');
   });
 });
@@ -21,7 +24,12 @@ describe('the pull import checks the chosen file before posting it', () => {
     expect(importSheetInput.safeParse({ file: sheet('field-sheet.CSV'), mode: 'preview' }).success).toBe(true);
   });
   it('refuses another kind of file and a file over 5 MB, with the wizard’s words', () => {
-    expect(importSheetInput.safeParse({ file: sheet('field-sheet.xlsx'), mode: 'preview' }).error?.issues[0]?.message).toMatch(/^Only CSV files \(\.csv\) can be imported/);
-    expect(importSheetInput.safeParse({ file: sheet('big.csv', 5 * 1024 * 1024 + 1), mode: 'preview' }).error?.issues[0]?.message).toBe('The file is larger than 5 MB. Split it into smaller files.');
+    expect(
+      importSheetInput.safeParse({ file: sheet('field-sheet.xlsx'), mode: 'preview' }).error?.issues[0]?.message,
+    ).toMatch(/^Only CSV files \(\.csv\) can be imported/);
+    expect(
+      importSheetInput.safeParse({ file: sheet('big.csv', 5 * 1024 * 1024 + 1), mode: 'preview' }).error?.issues[0]
+        ?.message,
+    ).toBe('The file is larger than 5 MB. Split it into smaller files.');
   });
 });

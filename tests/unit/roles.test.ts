@@ -15,7 +15,14 @@ describe('permission table', () => {
   });
 
   it('keeps owner-only powers with the owner', () => {
-    for (const p of ['settings.manage', 'staff.manage', 'lots.override', 'jarring.override', 'reports.send', 'products.manage'] as const) {
+    for (const p of [
+      'settings.manage',
+      'staff.manage',
+      'lots.override',
+      'jarring.override',
+      'reports.send',
+      'products.manage',
+    ] as const) {
       expect(can('owner', p)).toBe(true);
       expect(can('keeper', p)).toBe(false);
       expect(can('crew', p)).toBe(false);

@@ -9,8 +9,12 @@ export default async function ResetPasswordPage({ searchParams }: { searchParams
   return (
     <div className="space-y-4">
       <h1>Choose a password</h1>
-      {token ? <ResetPasswordForm token={token} onReset={resetPasswordAction} /> : (
-        <p>This link is incomplete. <Link href="/forgot-password">Ask for a new one.</Link></p>
+      {token ? (
+        <ResetPasswordForm token={token} onReset={resetPasswordAction} />
+      ) : (
+        <p>
+          This link is incomplete. <Link href="/forgot-password">Ask for a new one.</Link>
+        </p>
       )}
     </div>
   );

@@ -16,16 +16,25 @@ export default async function BackOfficeLayout({ children }: { children: React.R
     <div className="min-h-screen">
       <header className="bg-forest-800 text-paper">
         <div className="mx-auto flex max-w-7xl flex-wrap items-center justify-between gap-2 px-4 py-3">
-          <Link href="/admin" className="font-heading text-lg font-bold text-paper no-underline">{settings.businessName}</Link>
+          <Link href="/admin" className="font-heading text-lg font-bold text-paper no-underline">
+            {settings.businessName}
+          </Link>
           <div className="flex items-center gap-3 text-sm">
-            <span><span className="sr-only">Signed in as </span>{user.name} · {ROLE_NAMES[user.role]}</span>
+            <span>
+              <span className="sr-only">Signed in as </span>
+              {user.name} · {ROLE_NAMES[user.role]}
+            </span>
             <SignOutButton />
           </div>
         </div>
       </header>
       <div className="mx-auto flex max-w-7xl flex-col gap-6 px-4 py-6 lg:flex-row">
-        <aside className="lg:w-52 lg:shrink-0"><AdminNav items={menuFor(user.role).map(({ href, label }) => ({ href, label }))} /></aside>
-        <main id="main" className="min-w-0 flex-1">{children}</main>
+        <aside className="lg:w-52 lg:shrink-0">
+          <AdminNav items={menuFor(user.role).map(({ href, label }) => ({ href, label }))} />
+        </aside>
+        <main id="main" className="min-w-0 flex-1">
+          {children}
+        </main>
       </div>
     </div>
   );

@@ -28,7 +28,7 @@ export default async function AdminHome() {
       <ul className="grid gap-3 sm:grid-cols-2 xl:grid-cols-3">
         {items.map((m) => (
           <li key={m.href}>
-            <Link href={m.href} className="card block h-full no-underline hover:border-forest-600">
+            <Link href={m.href} className="block h-full card no-underline hover:border-forest-600">
               <h2 className="text-lg">{m.label}</h2>
               <p className="mt-1 text-sm text-ink-soft">{BLURBS[m.href]}</p>
             </Link>

@@ -24,7 +24,9 @@ export default async function AccountPage() {
       <section className="space-y-3">
         <h2>Your orders</h2>
         {orders.total === 0 ? (
-          <p className="card text-ink-soft">Orders you place while signed in as {user.email} appear here. <Link href="/products">Browse the jars</Link>.</p>
+          <p className="card text-ink-soft">
+            Orders you place while signed in as {user.email} appear here. <Link href="/products">Browse the jars</Link>.
+          </p>
         ) : (
           <AccountOrdersTable initial={orders} timeZone={timeZone} />
         )}

@@ -10,7 +10,10 @@ export default async function CheckoutPage() {
   const [settings, user] = await Promise.all([getSettings(), currentUser()]);
   return (
     <div>
-      <PageHeader title="Check out" lead="You pay on the card page of our payment provider; we never see your card number." />
+      <PageHeader
+        title="Check out"
+        lead="You pay on the card page of our payment provider; we never see your card number."
+      />
       <CheckoutForm
         currency={settings.currency}
         bands={settings.shippingBands ?? []}

@@ -11,10 +11,15 @@ export default async function CataloguePage() {
   const [settings, catalogue] = await Promise.all([getSettings(), listCatalogue()]);
   return (
     <div className="space-y-6">
-      <PageHeader title="Our honey" lead="Every jar carries a lot code that leads back to the yards and colonies it came from." />
+      <PageHeader
+        title="Our honey"
+        lead="Every jar carries a lot code that leads back to the yards and colonies it came from."
+      />
       {catalogue.length ? (
         <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
-          {catalogue.map((item) => <ProductCard key={item.id} item={item} currency={settings.currency} system={settings.weightSystem} />)}
+          {catalogue.map((item) => (
+            <ProductCard key={item.id} item={item} currency={settings.currency} system={settings.weightSystem} />
+          ))}
         </ul>
       ) : (
         <p className="text-ink-soft">Nothing is for sale yet.</p>

@@ -8,7 +8,18 @@ export async function GET(): Promise<Response> {
   try {
     const items = await listCatalogue();
     return Response.json(
-      { products: items.map(({ id, slug, name, netGrams, containerGrams, priceCents, available, floralSources }) => ({ id, slug, name, netGrams, containerGrams, priceCents, available, floralSources })) },
+      {
+        products: items.map(({ id, slug, name, netGrams, containerGrams, priceCents, available, floralSources }) => ({
+          id,
+          slug,
+          name,
+          netGrams,
+          containerGrams,
+          priceCents,
+          available,
+          floralSources,
+        })),
+      },
       { headers: { 'Cache-Control': 'no-store' } },
     );
   } catch (err) {

@@ -38,5 +38,8 @@ export async function authenticate(email: string, password: string, ip: string):
   await SignInAttempt.create({ email: normalised, ip, succeeded });
   console.info(`[auth] sign-in ${succeeded ? 'succeeded' : 'failed'} ip=${ip}${user ? ` user=${user.id}` : ''}`);
   if (!succeeded || !user) return { status: 'invalid' };
-  return { status: 'ok', user: { id: user.id, email: user.email, name: user.name, role: user.role, sessionVersion: user.sessionVersion } };
+  return {
+    status: 'ok',
+    user: { id: user.id, email: user.email, name: user.name, role: user.role, sessionVersion: user.sessionVersion },
+  };
 }

@@ -9,9 +9,19 @@ import { queenMarkColour, type QueenMarkColour } from '@/lib/domain/queen-colour
 import { colonyInScope, yardScope } from '@/lib/data/yards/scope';
 
 export type ColonyRow = {
-  id: number; code: string; yardId: number; yardName: string; keeperId: number; keeperName: string;
-  origin: ColonyOrigin; status: ColonyStatus; queenYear: number | null; queenColour: QueenMarkColour | null;
-  startedOn: string | null; lastPulledOn: string | null; flaggedSupers: number;
+  id: number;
+  code: string;
+  yardId: number;
+  yardName: string;
+  keeperId: number;
+  keeperName: string;
+  origin: ColonyOrigin;
+  status: ColonyStatus;
+  queenYear: number | null;
+  queenColour: QueenMarkColour | null;
+  startedOn: string | null;
+  lastPulledOn: string | null;
+  flaggedSupers: number;
 };
 export type ColonyDetail = ColonyRow & {
   notes: string;
@@ -23,15 +33,27 @@ export type ColonyDetail = ColonyRow & {
 // The main table's alias is the model's class name, which a production build minifies: ask the class.
 const alias = () => getDb().models.Colony.name;
 // A voided pull (recorded by mistake) counts for nothing here.
-const lastPull = () => `(SELECT max(p.pulled_on) FROM super_pulls p WHERE p.colony_id = "${alias()}"."id" AND p.voided_at IS NULL)`;
-const flaggedCount = () => `(SELECT count(*)::int FROM super_pulls p WHERE p.colony_id = "${alias()}"."id" AND p.flagged AND p.voided_at IS NULL)`;
+const lastPull = () =>
+  `(SELECT max(p.pulled_on) FROM super_pulls p WHERE p.colony_id = "${alias()}"."id" AND p.voided_at IS NULL)`;
+const flaggedCount = () =>
+  `(SELECT count(*)::int FROM super_pulls p WHERE p.colony_id = "${alias()}"."id" AND p.flagged AND p.voided_at IS NULL)`;
 const SORTS = { code: 'code', yard: '$yard.name$', status: 'status', queenYear: 'queenYear' } as const;
 
 function toRow(c: Colony): ColonyRow {
   return {
-    id: c.id, code: c.code, yardId: c.yardId, yardName: c.yard?.name ?? '', keeperId: c.keeperId, keeperName: c.keeper?.name ?? '',
-    origin: c.origin, status: c.status, queenYear: c.queenYear ?? null, queenColour: c.queenYear ? queenMarkColour(c.queenYear) : null,
-    startedOn: c.startedOn ?? null, lastPulledOn: (c.get('lastPulledOn') as string | null) ?? null, flaggedSupers: Number(c.get('flaggedSupers') ?? 0),
+    id: c.id,
+    code: c.code,
+    yardId: c.yardId,
+    yardName: c.yard?.name ?? '',
+    keeperId: c.keeperId,
+    keeperName: c.keeper?.name ?? '',
+    origin: c.origin,
+    status: c.status,
+    queenYear: c.queenYear ?? null,
+    queenColour: c.queenYear ? queenMarkColour(c.queenYear) : null,
+    startedOn: c.startedOn ?? null,
+    lastPulledOn: (c.get('lastPulledOn') as string | null) ?? null,
+    flaggedSupers: Number(c.get('flaggedSupers') ?? 0),
   };
 }
 
@@ -51,11 +73,23 @@ export async function listColonies(user: SessionUser, query: ColonyListQuery): P
   const sortKey = SORTS[query.sort];
   const { rows, count } = await models.Colony.findAndCountAll({
     where: { [Op.and]: and },
-    attributes: { include: [[sequelize.literal(lastPull()), 'lastPulledOn'], [sequelize.literal(flaggedCount()), 'flaggedSupers']] },
+    attributes: {
+      include: [
+        [sequelize.literal(lastPull()), 'lastPulledOn'],
+        [sequelize.literal(flaggedCount()), 'flaggedSupers'],
+      ],
+    },
     include: baseInclude,
-    order: sortKey === '$yard.name$'
-      ? [[{ model: models.Yard, as: 'yard' }, 'name', query.dir], ['code', 'ASC']]
-      : [[sortKey, query.dir], ['code', 'ASC']],
+    order:
+      sortKey === '$yard.name$'
+        ? [
+            [{ model: models.Yard, as: 'yard' }, 'name', query.dir],
+            ['code', 'ASC'],
+          ]
+        : [
+            [sortKey, query.dir],
+            ['code', 'ASC'],
+          ],
     limit: query.pageSize,
     offset: (query.page - 1) * query.pageSize,
   });
@@ -68,7 +102,12 @@ export async function getColony(user: SessionUser, colonyId: number): Promise<Co
   const scoped = await colonyInScope(user, colonyId);
   if (!scoped) return null;
   const c = await models.Colony.findByPk(colonyId, {
-    attributes: { include: [[sequelize.literal(lastPull()), 'lastPulledOn'], [sequelize.literal(flaggedCount()), 'flaggedSupers']] },
+    attributes: {
+      include: [
+        [sequelize.literal(lastPull()), 'lastPulledOn'],
+        [sequelize.literal(flaggedCount()), 'flaggedSupers'],
+      ],
+    },
     include: [
       ...baseInclude,
       { association: 'parent', attributes: ['id', 'code'] },
@@ -78,9 +117,12 @@ export async function getColony(user: SessionUser, colonyId: number): Promise<Co
   });
   if (!c) return null;
   return {
-    ...toRow(c), notes: c.notes,
+    ...toRow(c),
+    notes: c.notes,
     parent: c.parent ? { id: c.parent.id, code: c.parent.code } : null,
-    splits: (c.splits ?? []).map((s) => ({ id: s.id, code: s.code, status: s.status })).sort((a, b) => a.code.localeCompare(b.code)),
+    splits: (c.splits ?? [])
+      .map((s) => ({ id: s.id, code: s.code, status: s.status }))
+      .sort((a, b) => a.code.localeCompare(b.code)),
     combinedInto: c.combinedInto ? { id: c.combinedInto.id, code: c.combinedInto.code } : null,
   };
 }

@@ -8,18 +8,42 @@ import { writableColony } from './write';
 import { recomputeColonyFlags } from '@/lib/data/supers/flags';
 
 /** Adds a feeding (idempotent by key) and re-checks the colony's pulled supers. */
-export async function addFeeding(user: SessionUser, input: { colonyId: number; kind: FeedingKind; amount: string; startedOn: string; endedOn: string | null; note: string; idempotencyKey: string }): Promise<{ reflagged: number }> {
+export async function addFeeding(
+  user: SessionUser,
+  input: {
+    colonyId: number;
+    kind: FeedingKind;
+    amount: string;
+    startedOn: string;
+    endedOn: string | null;
+    note: string;
+    idempotencyKey: string;
+  },
+): Promise<{ reflagged: number }> {
   const { sequelize, models } = getDb();
   if (await models.Feeding.findOne({ where: { idempotencyKey: input.idempotencyKey } })) return { reflagged: 0 };
   return sequelize.transaction(async (t) => {
     const colony = await writableColony(user, input.colonyId, t);
     const row = await models.Feeding.create({ ...input, colonyId: colony.id, recordedBy: user.id }, { transaction: t });
-    await recordAudit({ actorUserId: user.id, action: 'feeding.create', entityType: 'colony', entityId: colony.id, after: row.get({ plain: true }) }, t);
+    await recordAudit(
+      {
+        actorUserId: user.id,
+        action: 'feeding.create',
+        entityType: 'colony',
+        entityId: colony.id,
+        after: row.get({ plain: true }),
+      },
+      t,
+    );
     return { reflagged: await recomputeColonyFlags(colony.id, t) };
   });
 }
 
-export async function endFeeding(user: SessionUser, feedingId: number, endedOn: string): Promise<{ reflagged: number }> {
+export async function endFeeding(
+  user: SessionUser,
+  feedingId: number,
+  endedOn: string,
+): Promise<{ reflagged: number }> {
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (t) => {
     const row = await models.Feeding.findByPk(feedingId, { transaction: t, lock: t.LOCK.UPDATE });
@@ -28,26 +52,69 @@ export async function endFeeding(user: SessionUser, feedingId: number, endedOn: 
     if (endedOn < row.startedOn) throw new InvalidError('The feeding cannot end before it started.');
     const before = { endedOn: row.endedOn };
     await row.update({ endedOn }, { transaction: t });
-    await recordAudit({ actorUserId: user.id, action: 'feeding.update', entityType: 'colony', entityId: row.colonyId, before, after: { feedingId, endedOn } }, t);
+    await recordAudit(
+      {
+        actorUserId: user.id,
+        action: 'feeding.update',
+        entityType: 'colony',
+        entityId: row.colonyId,
+        before,
+        after: { feedingId, endedOn },
+      },
+      t,
+    );
     return { reflagged: await recomputeColonyFlags(row.colonyId, t) };
   });
 }
 
 /** Copies the kind's supers-allowed and waiting days onto the record, so later edits of the list do not rewrite history. */
-export async function addTreatment(user: SessionUser, input: { colonyId: number; treatmentKindId: number; productName: string; appliedOn: string; removedOn: string | null; note: string; idempotencyKey: string }): Promise<{ reflagged: number }> {
+export async function addTreatment(
+  user: SessionUser,
+  input: {
+    colonyId: number;
+    treatmentKindId: number;
+    productName: string;
+    appliedOn: string;
+    removedOn: string | null;
+    note: string;
+    idempotencyKey: string;
+  },
+): Promise<{ reflagged: number }> {
   const { sequelize, models } = getDb();
   if (await models.Treatment.findOne({ where: { idempotencyKey: input.idempotencyKey } })) return { reflagged: 0 };
   return sequelize.transaction(async (t) => {
     const colony = await writableColony(user, input.colonyId, t);
     const kind = await models.TreatmentKind.findByPk(input.treatmentKindId, { transaction: t });
     if (!kind || !kind.active) throw new InvalidError('Choose a treatment kind from the list.');
-    const row = await models.Treatment.create({ ...input, colonyId: colony.id, supersAllowed: kind.supersAllowed, waitingDays: kind.waitingDays, recordedBy: user.id }, { transaction: t });
-    await recordAudit({ actorUserId: user.id, action: 'treatment.create', entityType: 'colony', entityId: colony.id, after: row.get({ plain: true }) }, t);
+    const row = await models.Treatment.create(
+      {
+        ...input,
+        colonyId: colony.id,
+        supersAllowed: kind.supersAllowed,
+        waitingDays: kind.waitingDays,
+        recordedBy: user.id,
+      },
+      { transaction: t },
+    );
+    await recordAudit(
+      {
+        actorUserId: user.id,
+        action: 'treatment.create',
+        entityType: 'colony',
+        entityId: colony.id,
+        after: row.get({ plain: true }),
+      },
+      t,
+    );
     return { reflagged: await recomputeColonyFlags(colony.id, t) };
   });
 }
 
-export async function endTreatment(user: SessionUser, treatmentId: number, removedOn: string): Promise<{ reflagged: number }> {
+export async function endTreatment(
+  user: SessionUser,
+  treatmentId: number,
+  removedOn: string,
+): Promise<{ reflagged: number }> {
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (t) => {
     const row = await models.Treatment.findByPk(treatmentId, { transaction: t, lock: t.LOCK.UPDATE });
@@ -56,20 +123,50 @@ export async function endTreatment(user: SessionUser, treatmentId: number, remov
     if (removedOn < row.appliedOn) throw new InvalidError('The treatment cannot be removed before it was applied.');
     const before = { removedOn: row.removedOn };
     await row.update({ removedOn }, { transaction: t });
-    await recordAudit({ actorUserId: user.id, action: 'treatment.update', entityType: 'colony', entityId: row.colonyId, before, after: { treatmentId, removedOn } }, t);
+    await recordAudit(
+      {
+        actorUserId: user.id,
+        action: 'treatment.update',
+        entityType: 'colony',
+        entityId: row.colonyId,
+        before,
+        after: { treatmentId, removedOn },
+      },
+      t,
+    );
     return { reflagged: await recomputeColonyFlags(row.colonyId, t) };
   });
 }
 
-export type TreatmentKindRow = { id: number; name: string; supersAllowed: boolean; waitingDays: number; notes: string; active: boolean };
+export type TreatmentKindRow = {
+  id: number;
+  name: string;
+  supersAllowed: boolean;
+  waitingDays: number;
+  notes: string;
+  active: boolean;
+};
 
 export async function listTreatmentKinds(activeOnly = false): Promise<TreatmentKindRow[]> {
-  const rows = await getDb().models.TreatmentKind.findAll({ where: activeOnly ? { active: true } : {}, order: [['name', 'ASC']] });
-  return rows.map(({ id, name, supersAllowed, waitingDays, notes, active }) => ({ id, name, supersAllowed, waitingDays, notes, active }));
+  const rows = await getDb().models.TreatmentKind.findAll({
+    where: activeOnly ? { active: true } : {},
+    order: [['name', 'ASC']],
+  });
+  return rows.map(({ id, name, supersAllowed, waitingDays, notes, active }) => ({
+    id,
+    name,
+    supersAllowed,
+    waitingDays,
+    notes,
+    active,
+  }));
 }
 
 /** Owner only. Existing treatments keep the values they were recorded with. */
-export async function saveTreatmentKind(actorUserId: number, input: Omit<TreatmentKindRow, 'id'> & { id?: number }): Promise<number> {
+export async function saveTreatmentKind(
+  actorUserId: number,
+  input: Omit<TreatmentKindRow, 'id'> & { id?: number },
+): Promise<number> {
   const { sequelize, models } = getDb();
   const clash = await models.TreatmentKind.findOne({ where: { name: input.name } });
   if (clash && clash.id !== input.id) throw new ConflictError(`There is already a kind called ${input.name}.`);
@@ -80,11 +177,24 @@ export async function saveTreatmentKind(actorUserId: number, input: Omit<Treatme
       if (!row) throw new NotFoundError('No such treatment kind.');
       const before = row.get({ plain: true });
       await row.update(fields, { transaction: t });
-      await recordAudit({ actorUserId, action: 'treatmentKind.update', entityType: 'treatmentKind', entityId: id, before, after: fields }, t);
+      await recordAudit(
+        {
+          actorUserId,
+          action: 'treatmentKind.update',
+          entityType: 'treatmentKind',
+          entityId: id,
+          before,
+          after: fields,
+        },
+        t,
+      );
       return id;
     }
     const row = await models.TreatmentKind.create(fields, { transaction: t });
-    await recordAudit({ actorUserId, action: 'treatmentKind.create', entityType: 'treatmentKind', entityId: row.id, after: fields }, t);
+    await recordAudit(
+      { actorUserId, action: 'treatmentKind.create', entityType: 'treatmentKind', entityId: row.id, after: fields },
+      t,
+    );
     return row.id;
   });
 }

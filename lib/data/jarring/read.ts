@@ -10,7 +10,13 @@ import type { Page } from '@/lib/schemas/list-query';
 /** What the jarring pages read: lots that can still be jarred, and runs already made. */
 
 export type JarrableLot = {
-  id: number; code: string; floralSource: string; extractedOn: string | null; netGrams: number; usedGrams: number; remainingGrams: number;
+  id: number;
+  code: string;
+  floralSource: string;
+  extractedOn: string | null;
+  netGrams: number;
+  usedGrams: number;
+  remainingGrams: number;
   jars: { productId: number; productName: string; jars: number }[];
 };
 
@@ -19,29 +25,80 @@ export async function listJarrableLots(): Promise<JarrableLot[]> {
   const { Lot, Product } = getDb().models;
   const settings = await getSettings();
   const [lots, products] = await Promise.all([
-    Lot.findAll({ where: { stage: 'released' }, order: [['extractedOn', 'ASC'], ['code', 'ASC']] }),
-    Product.findAll({ where: { active: true }, order: [['sortOrder', 'ASC'], ['name', 'ASC']] }),
+    Lot.findAll({
+      where: { stage: 'released' },
+      order: [
+        ['extractedOn', 'ASC'],
+        ['code', 'ASC'],
+      ],
+    }),
+    Product.findAll({
+      where: { active: true },
+      order: [
+        ['sortOrder', 'ASC'],
+        ['name', 'ASC'],
+      ],
+    }),
   ]);
   return lots.map((l) => {
     const remainingGrams = Math.max(0, l.netGrams - l.usedGrams);
     return {
-      id: l.id, code: l.code, floralSource: l.floralSource, extractedOn: l.extractedOn ?? null, netGrams: l.netGrams, usedGrams: l.usedGrams, remainingGrams,
-      jars: products.map((p) => ({ productId: p.id, productName: p.name, jars: jarsLotCanFill(remainingGrams, p.netGrams, Number(settings.expectedLossPct)) })),
+      id: l.id,
+      code: l.code,
+      floralSource: l.floralSource,
+      extractedOn: l.extractedOn ?? null,
+      netGrams: l.netGrams,
+      usedGrams: l.usedGrams,
+      remainingGrams,
+      jars: products.map((p) => ({
+        productId: p.id,
+        productName: p.name,
+        jars: jarsLotCanFill(remainingGrams, p.netGrams, Number(settings.expectedLossPct)),
+      })),
     };
   });
 }
 
 export type RunRow = {
-  id: number; runOn: string; lotId: number; lotCode: string; floralSource: string; productId: number; productName: string; jarCount: number; honeyUsedGrams: number;
-  ruleSet: FillRuleSet; pass: boolean; reasons: string[]; mean: number; samples: number[]; overrideReason: string | null; stocked: boolean; byName: string | null;
+  id: number;
+  runOn: string;
+  lotId: number;
+  lotCode: string;
+  floralSource: string;
+  productId: number;
+  productName: string;
+  jarCount: number;
+  honeyUsedGrams: number;
+  ruleSet: FillRuleSet;
+  pass: boolean;
+  reasons: string[];
+  mean: number;
+  samples: number[];
+  overrideReason: string | null;
+  stocked: boolean;
+  byName: string | null;
 };
 
 type RunModel = InstanceType<ReturnType<typeof getDb>['models']['JarringRun']> & { createdByUser?: { name: string } };
 function toRunRow(r: RunModel): RunRow {
   return {
-    id: r.id, runOn: r.runOn, lotId: r.lotId, lotCode: r.lot?.code ?? '', floralSource: r.lot?.floralSource ?? '', productId: r.productId, productName: r.product?.name ?? '',
-    jarCount: r.jarCount, honeyUsedGrams: r.honeyUsedGrams, ruleSet: r.ruleSet, pass: r.fillPass, reasons: r.fillReport?.reasons ?? [], mean: r.fillReport?.mean ?? 0,
-    samples: r.sampleGrams, overrideReason: r.overrideReason ?? null, stocked: r.fillPass || !!r.overrideReason, byName: null,
+    id: r.id,
+    runOn: r.runOn,
+    lotId: r.lotId,
+    lotCode: r.lot?.code ?? '',
+    floralSource: r.lot?.floralSource ?? '',
+    productId: r.productId,
+    productName: r.product?.name ?? '',
+    jarCount: r.jarCount,
+    honeyUsedGrams: r.honeyUsedGrams,
+    ruleSet: r.ruleSet,
+    pass: r.fillPass,
+    reasons: r.fillReport?.reasons ?? [],
+    mean: r.fillReport?.mean ?? 0,
+    samples: r.sampleGrams,
+    overrideReason: r.overrideReason ?? null,
+    stocked: r.fillPass || !!r.overrideReason,
+    byName: null,
   };
 }
 
@@ -55,9 +112,16 @@ export async function listJarringRuns(_user: SessionUser, query: JarringRunListQ
     JarringRun.count({ where }),
     JarringRun.findAll({
       where,
-      include: [{ model: Lot, as: 'lot', attributes: ['code', 'floralSource'] }, { model: Product, as: 'product', attributes: ['name'] }],
-      order: [['runOn', dir], ['id', dir]],
-      limit: pageSize, offset: (page - 1) * pageSize,
+      include: [
+        { model: Lot, as: 'lot', attributes: ['code', 'floralSource'] },
+        { model: Product, as: 'product', attributes: ['name'] },
+      ],
+      order: [
+        ['runOn', dir],
+        ['id', dir],
+      ],
+      limit: pageSize,
+      offset: (page - 1) * pageSize,
     }),
   ]);
   return { rows: rows.map(toRunRow), total, page, pageSize };
@@ -65,7 +129,12 @@ export async function listJarringRuns(_user: SessionUser, query: JarringRunListQ
 
 export async function getJarringRun(id: number): Promise<RunRow | null> {
   const { JarringRun, Lot, Product, User } = getDb().models;
-  const r = await JarringRun.findByPk(id, { include: [{ model: Lot, as: 'lot', attributes: ['code', 'floralSource'] }, { model: Product, as: 'product', attributes: ['name'] }] });
+  const r = await JarringRun.findByPk(id, {
+    include: [
+      { model: Lot, as: 'lot', attributes: ['code', 'floralSource'] },
+      { model: Product, as: 'product', attributes: ['name'] },
+    ],
+  });
   if (!r) return null;
   const row = toRunRow(r);
   if (r.createdBy) row.byName = (await User.findByPk(r.createdBy, { attributes: ['name'] }))?.name ?? null;

@@ -16,7 +16,9 @@ import { addStockEntry } from '@/lib/data/stock/stock';
 /** Raised when the US rule set is chosen and no MAV is encoded for this size (the form asks for it). */
 export class MavNeededError extends InvalidError {
   constructor(nominalGrams: number) {
-    super(`Enter the MAV for a ${Math.round(nominalGrams)} g package, in grams, from NIST Handbook 133 (Appendix A, Table 2-5): Combtrace does not hold that table.`);
+    super(
+      `Enter the MAV for a ${Math.round(nominalGrams)} g package, in grams, from NIST Handbook 133 (Appendix A, Table 2-5): Combtrace does not hold that table.`,
+    );
   }
 }
 
@@ -35,19 +37,36 @@ function checkFill(ruleSet: FillRuleSet, nominal: number, samples: number[], mav
   return assessFillUs(nominal, samples, mav);
 }
 
-export type RunResult = { runId: number; pass: boolean; reasons: string[]; stocked: boolean; packedOut: boolean; duplicate: boolean };
+export type RunResult = {
+  runId: number;
+  pass: boolean;
+  reasons: string[];
+  stocked: boolean;
+  packedOut: boolean;
+  duplicate: boolean;
+};
 
 async function existingRun(key: string, t?: Transaction): Promise<RunResult | null> {
   const run = await getDb().models.JarringRun.findOne({ where: { idempotencyKey: key }, transaction: t });
   if (!run) return null;
-  return { runId: run.id, pass: run.fillPass, reasons: run.fillReport.reasons, stocked: run.fillPass || !!run.overrideReason, packedOut: false, duplicate: true };
+  return {
+    runId: run.id,
+    pass: run.fillPass,
+    reasons: run.fillReport.reasons,
+    stocked: run.fillPass || !!run.overrideReason,
+    packedOut: false,
+    duplicate: true,
+  };
 }
 
 /** Net sample weights: as typed, or gross minus the product's empty container. */
 function netSamples(data: JarringRunData, containerGrams: number): number[] {
   const typed = parseSampleWeights(data.samples);
   const net = data.sampleMode === 'gross' ? typed.map((g) => g - containerGrams) : typed;
-  if (net.some((g) => g <= 0)) throw new InvalidError(`A gross weight is not above the empty ${containerGrams} g container: check the weights or choose “net”.`);
+  if (net.some((g) => g <= 0))
+    throw new InvalidError(
+      `A gross weight is not above the empty ${containerGrams} g container: check the weights or choose “net”.`,
+    );
   return net.map((g) => Math.round(g * 10) / 10);
 }
 
@@ -67,7 +86,10 @@ export async function createJarringRun(user: SessionUser, data: JarringRunData):
       if (again) return again;
       const lot = await models.Lot.findByPk(data.lotId, { transaction: t, lock: t.LOCK.UPDATE });
       if (!lot) throw new NotFoundError('No such lot.');
-      if (lot.stage !== 'released') throw new ConflictError(`Lot ${lot.code} is ${lot.stage.replace('_', ' ')}; only a released lot can be jarred.`);
+      if (lot.stage !== 'released')
+        throw new ConflictError(
+          `Lot ${lot.code} is ${lot.stage.replace('_', ' ')}; only a released lot can be jarred.`,
+        );
       const product = await models.Product.findByPk(data.productId, { transaction: t });
       if (!product) throw new NotFoundError('No such product.');
       if (!product.active) throw new ConflictError(`${product.name} is not active.`);
@@ -79,30 +101,70 @@ export async function createJarringRun(user: SessionUser, data: JarringRunData):
       const remaining = lot.netGrams - lot.usedGrams;
       if (used > remaining) {
         const system = settings.weightSystem;
-        throw new ConflictError(`This run takes ${formatWeight(used, system)} of honey; lot ${lot.code} has only ${formatWeight(Math.max(remaining, 0), system)} left.`);
+        throw new ConflictError(
+          `This run takes ${formatWeight(used, system)} of honey; lot ${lot.code} has only ${formatWeight(Math.max(remaining, 0), system)} left.`,
+        );
       }
 
       const bestBeforeOn = lot.bestBeforeOn ?? bestBeforeDate(lot.extractedOn ?? data.runOn, settings.bestBeforeMonths);
       const run = await models.JarringRun.create(
         {
-          lotId: lot.id, productId: product.id, jarCount: data.jarCount, runOn: data.runOn, sampleGrams: samples, ruleSet: settings.fillRuleSet,
-          fillPass: report.pass, fillReport: report, honeyUsedGrams: used, createdBy: user.id, idempotencyKey: data.idempotencyKey,
+          lotId: lot.id,
+          productId: product.id,
+          jarCount: data.jarCount,
+          runOn: data.runOn,
+          sampleGrams: samples,
+          ruleSet: settings.fillRuleSet,
+          fillPass: report.pass,
+          fillReport: report,
+          honeyUsedGrams: used,
+          createdBy: user.id,
+          idempotencyKey: data.idempotencyKey,
         },
         { transaction: t },
       );
       await lot.update({ usedGrams: lot.usedGrams + used, bestBeforeOn }, { transaction: t });
       if (report.pass) {
-        await addStockEntry({ productId: product.id, lotId: lot.id, delta: data.jarCount, kind: 'jarring', reason: `Jarring run ${run.id}`, jarringRunId: run.id, createdBy: user.id }, t);
+        await addStockEntry(
+          {
+            productId: product.id,
+            lotId: lot.id,
+            delta: data.jarCount,
+            kind: 'jarring',
+            reason: `Jarring run ${run.id}`,
+            jarringRunId: run.id,
+            createdBy: user.id,
+          },
+          t,
+        );
       }
       const packedOut = await packOutIfEmpty(lot, user, t);
       await recordAudit(
         {
-          actorUserId: user.id, action: 'jarring.run', entityType: 'jarring_run', entityId: run.id,
-          after: { lot: lot.code, product: product.name, jarCount: data.jarCount, honeyUsedGrams: used, pass: report.pass, reasons: report.reasons, packedOut },
+          actorUserId: user.id,
+          action: 'jarring.run',
+          entityType: 'jarring_run',
+          entityId: run.id,
+          after: {
+            lot: lot.code,
+            product: product.name,
+            jarCount: data.jarCount,
+            honeyUsedGrams: used,
+            pass: report.pass,
+            reasons: report.reasons,
+            packedOut,
+          },
         },
         t,
       );
-      return { runId: run.id, pass: report.pass, reasons: report.reasons, stocked: report.pass, packedOut, duplicate: false };
+      return {
+        runId: run.id,
+        pass: report.pass,
+        reasons: report.reasons,
+        stocked: report.pass,
+        packedOut,
+        duplicate: false,
+      };
     });
   } catch (err) {
     if (err instanceof UniqueConstraintError) {
@@ -114,20 +176,39 @@ export async function createJarringRun(user: SessionUser, data: JarringRunData):
 }
 
 /** Packs the lot out when its remaining honey cannot fill one jar of the smallest active product. */
-async function packOutIfEmpty(lot: InstanceType<ReturnType<typeof getDb>['models']['Lot']>, user: SessionUser, t: Transaction): Promise<boolean> {
+async function packOutIfEmpty(
+  lot: InstanceType<ReturnType<typeof getDb>['models']['Lot']>,
+  user: SessionUser,
+  t: Transaction,
+): Promise<boolean> {
   const { Product } = getDb().models;
   const settings = await getSettings();
   const smallest = await Product.findOne({ where: { active: true }, order: [['netGrams', 'ASC']], transaction: t });
   const remaining = Math.max(0, lot.netGrams - lot.usedGrams);
   // "Worth jarring": whole jars of the smallest product after the expected loss; the rest is loss in the tank.
-  const worthJarring = smallest ? jarsLotCanFill(remaining, smallest.netGrams, Number(settings.expectedLossPct)) * smallest.netGrams : remaining;
+  const worthJarring = smallest
+    ? jarsLotCanFill(remaining, smallest.netGrams, Number(settings.expectedLossPct)) * smallest.netGrams
+    : remaining;
   const result = nextStage(lot.stage, 'packed_out', {
-    role: user.role as LotRole, hasWeights: true, moistureOk: null, labOk: null, unresolvedFlaggedSupers: 0, remainingGrams: worthJarring,
+    role: user.role as LotRole,
+    hasWeights: true,
+    moistureOk: null,
+    labOk: null,
+    unresolvedFlaggedSupers: 0,
+    remainingGrams: worthJarring,
   });
   if (!result.ok) return false;
   await lot.update({ stage: result.stage }, { transaction: t });
   await recordAudit(
-    { actorUserId: user.id, action: 'lot.stage', entityType: 'lot', entityId: lot.id, before: { stage: 'released' }, after: { stage: result.stage, leftInTankGrams: remaining }, reason: 'Nothing worth jarring remains' },
+    {
+      actorUserId: user.id,
+      action: 'lot.stage',
+      entityType: 'lot',
+      entityId: lot.id,
+      before: { stage: 'released' },
+      after: { stage: result.stage, leftInTankGrams: remaining },
+      reason: 'Nothing worth jarring remains',
+    },
     t,
   );
   return true;
@@ -142,7 +223,29 @@ export async function overrideJarringRun(user: SessionUser, runId: number, reaso
     if (run.fillPass) throw new ConflictError('This run passed its fill check; its jars are already in stock.');
     if (run.overrideReason) throw new ConflictError('This run was already overridden.');
     await run.update({ overrideReason: reason, overrideBy: user.id }, { transaction: t });
-    await addStockEntry({ productId: run.productId, lotId: run.lotId, delta: run.jarCount, kind: 'jarring', reason: `Jarring run ${run.id} (override)`, jarringRunId: run.id, createdBy: user.id }, t);
-    await recordAudit({ actorUserId: user.id, action: 'jarring.override', entityType: 'jarring_run', entityId: run.id, before: { stocked: false }, after: { stocked: true, jarCount: run.jarCount }, reason }, t);
+    await addStockEntry(
+      {
+        productId: run.productId,
+        lotId: run.lotId,
+        delta: run.jarCount,
+        kind: 'jarring',
+        reason: `Jarring run ${run.id} (override)`,
+        jarringRunId: run.id,
+        createdBy: user.id,
+      },
+      t,
+    );
+    await recordAudit(
+      {
+        actorUserId: user.id,
+        action: 'jarring.override',
+        entityType: 'jarring_run',
+        entityId: run.id,
+        before: { stocked: false },
+        after: { stocked: true, jarCount: run.jarCount },
+        reason,
+      },
+      t,
+    );
   });
 }

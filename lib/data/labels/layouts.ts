@@ -24,11 +24,15 @@ export async function getLabelLayout(key: string | null | undefined): Promise<La
 }
 
 /** Saves a named layout after checking it fits its paper. */
-export async function saveLabelLayout(actorUserId: number, input: LabelLayout & { layoutId?: number }): Promise<{ id: number }> {
+export async function saveLabelLayout(
+  actorUserId: number,
+  input: LabelLayout & { layoutId?: number },
+): Promise<{ id: number }> {
   const { layoutId, ...layout } = input;
   const errors = validateLayout(layout);
   if (errors.length > 0) throw new InvalidError(errors.join(' '));
-  if (BUILT_IN_LAYOUTS.some((b) => b.name === layout.name)) throw new ConflictError('That name belongs to a built-in layout; choose another.');
+  if (BUILT_IN_LAYOUTS.some((b) => b.name === layout.name))
+    throw new ConflictError('That name belongs to a built-in layout; choose another.');
   const { sequelize, models } = getDb();
   try {
     return await sequelize.transaction(async (t) => {
@@ -37,11 +41,24 @@ export async function saveLabelLayout(actorUserId: number, input: LabelLayout & 
         if (!row) throw new NotFoundError('No such label layout.');
         const before = row.layout;
         await row.update({ name: layout.name, layout }, { transaction: t });
-        await recordAudit({ actorUserId, action: 'labelLayout.update', entityType: 'label_layout', entityId: row.id, before, after: layout }, t);
+        await recordAudit(
+          {
+            actorUserId,
+            action: 'labelLayout.update',
+            entityType: 'label_layout',
+            entityId: row.id,
+            before,
+            after: layout,
+          },
+          t,
+        );
         return { id: row.id };
       }
       const row = await models.LabelLayoutRecord.create({ name: layout.name, layout }, { transaction: t });
-      await recordAudit({ actorUserId, action: 'labelLayout.create', entityType: 'label_layout', entityId: row.id, after: layout }, t);
+      await recordAudit(
+        { actorUserId, action: 'labelLayout.create', entityType: 'label_layout', entityId: row.id, after: layout },
+        t,
+      );
       return { id: row.id };
     });
   } catch (err) {
@@ -55,7 +72,10 @@ export async function deleteLabelLayout(actorUserId: number, id: number): Promis
   await sequelize.transaction(async (t) => {
     const row = await models.LabelLayoutRecord.findByPk(id, { transaction: t });
     if (!row) throw new NotFoundError('No such label layout.');
-    await recordAudit({ actorUserId, action: 'labelLayout.delete', entityType: 'label_layout', entityId: id, before: row.layout }, t);
+    await recordAudit(
+      { actorUserId, action: 'labelLayout.delete', entityType: 'label_layout', entityId: id, before: row.layout },
+      t,
+    );
     await row.destroy({ transaction: t });
   });
 }

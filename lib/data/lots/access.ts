@@ -22,9 +22,13 @@ export const KEEPER_LOTS_SQL = `
 export async function canReadLot(user: SessionUser, lotId: number): Promise<boolean> {
   if (user.role === 'owner' || user.role === 'crew') return true;
   if (user.role !== 'keeper') return false;
-  const rows = await getDb().sequelize.query<{ id: number }>(`SELECT 1 AS id FROM (${KEEPER_LOTS_SQL}) k WHERE k.id = :lotId LIMIT 1`, {
-    type: QueryTypes.SELECT, replacements: { keeperId: user.id, lotId },
-  });
+  const rows = await getDb().sequelize.query<{ id: number }>(
+    `SELECT 1 AS id FROM (${KEEPER_LOTS_SQL}) k WHERE k.id = :lotId LIMIT 1`,
+    {
+      type: QueryTypes.SELECT,
+      replacements: { keeperId: user.id, lotId },
+    },
+  );
   return rows.length > 0;
 }
 
@@ -40,13 +44,23 @@ const OPEN_STAGES = ['gathering', 'extracted', 'held'];
 /** Refuses a change to the lot's records once it is released (corrections void a record instead). */
 export function assertOpen(lot: Lot, what: string): void {
   if (!OPEN_STAGES.includes(lot.stage)) {
-    throw new ConflictError(`Lot ${lot.code} is ${lot.stage.replace('_', ' ')}: ${what} is no longer possible. Correct a record by voiding it with a reason.`);
+    throw new ConflictError(
+      `Lot ${lot.code} is ${lot.stage.replace('_', ' ')}: ${what} is no longer possible. Correct a record by voiding it with a reason.`,
+    );
   }
 }
 
 export function lotSnapshot(lot: Lot): Record<string, unknown> {
   return {
-    code: lot.code, stage: lot.stage, floralSource: lot.floralSource, heather: lot.heather, extractedOn: lot.extractedOn,
-    netGrams: lot.netGrams, usedGrams: lot.usedGrams, cappingsWaxGrams: lot.cappingsWaxGrams, holdReasons: lot.holdReasons, notes: lot.notes,
+    code: lot.code,
+    stage: lot.stage,
+    floralSource: lot.floralSource,
+    heather: lot.heather,
+    extractedOn: lot.extractedOn,
+    netGrams: lot.netGrams,
+    usedGrams: lot.usedGrams,
+    cappingsWaxGrams: lot.cappingsWaxGrams,
+    holdReasons: lot.holdReasons,
+    notes: lot.notes,
   };
 }

@@ -39,16 +39,38 @@ export async function takeLotCode(prefix: string, year: number, t: Transaction):
 export type NewLot = { floralSource: string; heather?: boolean; extractedOn?: string | null; notes?: string };
 
 /** A new lot in *gathering*, with the next code; audited in the same transaction. */
-export async function createLot(actor: SessionUser, input: NewLot, extra: { isBlend?: boolean; stage?: LotStage; t?: Transaction } = {}): Promise<Lot> {
+export async function createLot(
+  actor: SessionUser,
+  input: NewLot,
+  extra: { isBlend?: boolean; stage?: LotStage; t?: Transaction } = {},
+): Promise<Lot> {
   const { sequelize, models } = getDb();
   const settings = await getSettings();
   const run = async (t: Transaction) => {
     const code = await takeLotCode(settings.lotCodePrefix, businessYear(settings.timeZone), t);
-    const lot = await models.Lot.create({
-      code, floralSource: input.floralSource.trim(), heather: input.heather ?? false, extractedOn: input.extractedOn || null,
-      notes: input.notes ?? '', createdBy: actor.id, isBlend: extra.isBlend ?? false, stage: extra.stage ?? 'gathering',
-    }, { transaction: t });
-    await recordAudit({ actorUserId: actor.id, action: extra.isBlend ? 'lot.blend' : 'lot.create', entityType: 'lot', entityId: lot.id, after: lotSnapshot(lot) }, t);
+    const lot = await models.Lot.create(
+      {
+        code,
+        floralSource: input.floralSource.trim(),
+        heather: input.heather ?? false,
+        extractedOn: input.extractedOn || null,
+        notes: input.notes ?? '',
+        createdBy: actor.id,
+        isBlend: extra.isBlend ?? false,
+        stage: extra.stage ?? 'gathering',
+      },
+      { transaction: t },
+    );
+    await recordAudit(
+      {
+        actorUserId: actor.id,
+        action: extra.isBlend ? 'lot.blend' : 'lot.create',
+        entityType: 'lot',
+        entityId: lot.id,
+        after: lotSnapshot(lot),
+      },
+      t,
+    );
     return lot;
   };
   return extra.t ? run(extra.t) : sequelize.transaction(run);
@@ -60,8 +82,26 @@ export async function updateLotDetails(actor: SessionUser, lotId: number, input:
     const lot = await lockLot(lotId, t);
     assertOpen(lot, 'changing its details');
     const before = lotSnapshot(lot);
-    await lot.update({ floralSource: input.floralSource.trim(), heather: input.heather ?? false, extractedOn: input.extractedOn || null, notes: input.notes ?? '' }, { transaction: t });
-    await recordAudit({ actorUserId: actor.id, action: 'lot.update', entityType: 'lot', entityId: lot.id, before, after: lotSnapshot(lot) }, t);
+    await lot.update(
+      {
+        floralSource: input.floralSource.trim(),
+        heather: input.heather ?? false,
+        extractedOn: input.extractedOn || null,
+        notes: input.notes ?? '',
+      },
+      { transaction: t },
+    );
+    await recordAudit(
+      {
+        actorUserId: actor.id,
+        action: 'lot.update',
+        entityType: 'lot',
+        entityId: lot.id,
+        before,
+        after: lotSnapshot(lot),
+      },
+      t,
+    );
   });
 }
 
@@ -72,7 +112,17 @@ export async function setCappingsWax(actor: SessionUser, lotId: number, grams: n
     assertOpen(lot, 'changing the cappings wax');
     const before = { cappingsWaxGrams: lot.cappingsWaxGrams };
     await lot.update({ cappingsWaxGrams: grams }, { transaction: t });
-    await recordAudit({ actorUserId: actor.id, action: 'lot.wax', entityType: 'lot', entityId: lot.id, before, after: { cappingsWaxGrams: grams } }, t);
+    await recordAudit(
+      {
+        actorUserId: actor.id,
+        action: 'lot.wax',
+        entityType: 'lot',
+        entityId: lot.id,
+        before,
+        after: { cappingsWaxGrams: grams },
+      },
+      t,
+    );
   });
 }
 
@@ -86,8 +136,16 @@ export async function floralSourceSuggestions(limit = 30): Promise<string[]> {
 }
 
 export type LotListRow = {
-  id: number; code: string; floralSource: string; stage: LotStage; isBlend: boolean; extractedOn: string | null;
-  netGrams: number; remainingGrams: number; superCount: number; createdAt: string;
+  id: number;
+  code: string;
+  floralSource: string;
+  stage: LotStage;
+  isBlend: boolean;
+  extractedOn: string | null;
+  netGrams: number;
+  remainingGrams: number;
+  superCount: number;
+  createdAt: string;
 };
 /** A page of lots, with every year that has lots (for the year filter). */
 export type LotList = Page<LotListRow> & { years: number[] };
@@ -102,12 +160,23 @@ export async function listLots(user: SessionUser, q: LotListQuery): Promise<LotL
   } else if (user.role !== 'owner' && user.role !== 'crew') {
     return { rows: [], total: 0, page: q.page, pageSize: q.pageSize, years: [] };
   }
-  if (q.stage) { where.push('l.stage = :stage'); replacements.stage = q.stage; }
-  if (q.year) { where.push('EXTRACT(YEAR FROM COALESCE(l.extracted_on, l.created_at::date)) = :year'); replacements.year = q.year; }
-  if (q.floral) { where.push(`l.floral_source ILIKE :floral ESCAPE '\\'`); replacements.floral = `%${q.floral.replace(/[\\%_]/g, (c) => `\\${c}`)}%`; }
+  if (q.stage) {
+    where.push('l.stage = :stage');
+    replacements.stage = q.stage;
+  }
+  if (q.year) {
+    where.push('EXTRACT(YEAR FROM COALESCE(l.extracted_on, l.created_at::date)) = :year');
+    replacements.year = q.year;
+  }
+  if (q.floral) {
+    where.push(`l.floral_source ILIKE :floral ESCAPE '\\'`);
+    replacements.floral = `%${q.floral.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+  }
   const whereSql = where.length ? `WHERE ${where.join(' AND ')}` : '';
   // Sort columns come from the schema's allow-list, never from the request text itself.
-  const sortSql = { createdAt: 'l.created_at', code: 'l.code', extractedOn: 'l.extracted_on', netGrams: 'l.net_grams' }[q.sort];
+  const sortSql = { createdAt: 'l.created_at', code: 'l.code', extractedOn: 'l.extracted_on', netGrams: 'l.net_grams' }[
+    q.sort
+  ];
   const dir = q.dir === 'asc' ? 'ASC' : 'DESC';
   const { sequelize } = getDb();
   const rows = await sequelize.query<Record<string, unknown>>(
@@ -117,20 +186,33 @@ export async function listLots(user: SessionUser, q: LotListQuery): Promise<LotL
     { type: QueryTypes.SELECT, replacements },
   );
   const years = await sequelize.query<{ y: number }>(
-    `SELECT DISTINCT EXTRACT(YEAR FROM COALESCE(extracted_on, created_at::date))::int AS y FROM lots ORDER BY y DESC`, { type: QueryTypes.SELECT },
+    `SELECT DISTINCT EXTRACT(YEAR FROM COALESCE(extracted_on, created_at::date))::int AS y FROM lots ORDER BY y DESC`,
+    { type: QueryTypes.SELECT },
   );
   let total = rows.length ? Number(rows[0].total) : 0;
   if (!rows.length && q.page > 1) {
-    const [c] = await sequelize.query<{ n: number }>(`SELECT count(*)::int AS n FROM lots l ${whereSql}`, { type: QueryTypes.SELECT, replacements });
+    const [c] = await sequelize.query<{ n: number }>(`SELECT count(*)::int AS n FROM lots l ${whereSql}`, {
+      type: QueryTypes.SELECT,
+      replacements,
+    });
     total = c.n;
   }
   return {
-    total, page: q.page, pageSize: q.pageSize, years: years.map((r) => r.y),
+    total,
+    page: q.page,
+    pageSize: q.pageSize,
+    years: years.map((r) => r.y),
     rows: rows.map((r) => ({
-      id: Number(r.id), code: String(r.code), floralSource: String(r.floral_source), stage: r.stage as LotStage, isBlend: Boolean(r.is_blend),
-      extractedOn: (r.extracted_on as string | null) ?? null, netGrams: Number(r.net_grams),
+      id: Number(r.id),
+      code: String(r.code),
+      floralSource: String(r.floral_source),
+      stage: r.stage as LotStage,
+      isBlend: Boolean(r.is_blend),
+      extractedOn: (r.extracted_on as string | null) ?? null,
+      netGrams: Number(r.net_grams),
       remainingGrams: remainingGrams({ netGrams: Number(r.net_grams), usedGrams: Number(r.used_grams) }),
-      superCount: Number(r.super_count), createdAt: new Date(r.created_at as string).toISOString(),
+      superCount: Number(r.super_count),
+      createdAt: new Date(r.created_at as string).toISOString(),
     })),
   };
 }

@@ -13,7 +13,12 @@ import { getSettings } from '@/lib/data/settings/settings';
  * A release whose checks fail puts the lot in *held* with the reasons; leaving *held* needs the
  * owner and a written reason. Returns the stage the lot ended in.
  */
-export async function changeLotStage(actor: SessionUser, lotId: number, target: LotStage, reason?: string): Promise<{ stage: LotStage; holdReasons: string[] }> {
+export async function changeLotStage(
+  actor: SessionUser,
+  lotId: number,
+  target: LotStage,
+  reason?: string,
+): Promise<{ stage: LotStage; holdReasons: string[] }> {
   const { sequelize } = getDb();
   const settings = await getSettings();
   return sequelize.transaction(async (t) => {
@@ -30,11 +35,30 @@ export async function changeLotStage(actor: SessionUser, lotId: number, target: 
         : [reason!.trim()];
       if (holdReasons.length === 0) holdReasons = result.holdReasons ?? [];
     }
-    const patch: { stage: LotStage; holdReasons: string[]; extractedOn?: string } = { stage: result.stage, holdReasons };
+    const patch: { stage: LotStage; holdReasons: string[]; extractedOn?: string } = {
+      stage: result.stage,
+      holdReasons,
+    };
     if (result.stage === 'extracted' && !lot.extractedOn) patch.extractedOn = new Date().toISOString().slice(0, 10);
     await lot.update(patch, { transaction: t });
-    const action = before.stage === 'held' ? (result.stage === 'released' ? 'lot.release_override' : 'lot.unhold') : `lot.stage.${result.stage}`;
-    await recordAudit({ actorUserId: actor.id, action, entityType: 'lot', entityId: lot.id, before, after: { stage: result.stage, holdReasons, asked: target }, reason: reason?.trim() || null }, t);
+    const action =
+      before.stage === 'held'
+        ? result.stage === 'released'
+          ? 'lot.release_override'
+          : 'lot.unhold'
+        : `lot.stage.${result.stage}`;
+    await recordAudit(
+      {
+        actorUserId: actor.id,
+        action,
+        entityType: 'lot',
+        entityId: lot.id,
+        before,
+        after: { stage: result.stage, holdReasons, asked: target },
+        reason: reason?.trim() || null,
+      },
+      t,
+    );
     return { stage: result.stage, holdReasons };
   });
 }

@@ -14,7 +14,10 @@ import { orderAllocations, releaseReservedLocked, returnSold } from './stock';
 
 /** The order desk's writes (owner, crew). Each locks the order row and records an audit entry. */
 
-const STEP: Record<'packed' | 'shipped' | 'picked_up', { from: OrderStatus[]; stamp: 'packedAt' | 'shippedAt' | 'pickedUpAt' }> = {
+const STEP: Record<
+  'packed' | 'shipped' | 'picked_up',
+  { from: OrderStatus[]; stamp: 'packedAt' | 'shippedAt' | 'pickedUpAt' }
+> = {
   packed: { from: ['paid'], stamp: 'packedAt' },
   shipped: { from: ['paid', 'packed'], stamp: 'shippedAt' },
   picked_up: { from: ['paid', 'packed'], stamp: 'pickedUpAt' },
@@ -22,19 +25,42 @@ const STEP: Record<'packed' | 'shipped' | 'picked_up', { from: OrderStatus[]; st
 
 const link = (number: string) => `${appUrl()}/orders/${number}?t=${orderToken(number)}`;
 
-export async function advanceOrder(actorUserId: number, orderId: number, to: 'packed' | 'shipped' | 'picked_up', tracking = ''): Promise<void> {
+export async function advanceOrder(
+  actorUserId: number,
+  orderId: number,
+  to: 'packed' | 'shipped' | 'picked_up',
+  tracking = '',
+): Promise<void> {
   const { sequelize, models } = getDb();
   const settings = await getSettings();
   await sequelize.transaction(async (t) => {
     const order = await models.Order.findByPk(orderId, { transaction: t, lock: t.LOCK.UPDATE });
     if (!order) throw new NotFoundError('No such order.');
     const step = STEP[to];
-    if (!step.from.includes(order.status)) throw new ConflictError(`Order ${order.number} is ${order.status.replace('_', ' ')}; it cannot be marked ${to.replace('_', ' ')}.`);
-    if (to === 'shipped' && order.fulfilment !== 'ship') throw new ConflictError('This order is for pickup; mark it picked up instead.');
-    if (to === 'picked_up' && order.fulfilment !== 'pickup') throw new ConflictError('This order is shipped, not picked up.');
+    if (!step.from.includes(order.status))
+      throw new ConflictError(
+        `Order ${order.number} is ${order.status.replace('_', ' ')}; it cannot be marked ${to.replace('_', ' ')}.`,
+      );
+    if (to === 'shipped' && order.fulfilment !== 'ship')
+      throw new ConflictError('This order is for pickup; mark it picked up instead.');
+    if (to === 'picked_up' && order.fulfilment !== 'pickup')
+      throw new ConflictError('This order is shipped, not picked up.');
     const before = { status: order.status };
-    await order.update({ status: to, [step.stamp]: new Date(), ...(to === 'shipped' ? { tracking: tracking || null } : {}) }, { transaction: t });
-    await recordAudit({ actorUserId, action: `order.${to}`, entityType: 'order', entityId: order.id, before, after: { status: to, ...(to === 'shipped' ? { tracking } : {}) } }, t);
+    await order.update(
+      { status: to, [step.stamp]: new Date(), ...(to === 'shipped' ? { tracking: tracking || null } : {}) },
+      { transaction: t },
+    );
+    await recordAudit(
+      {
+        actorUserId,
+        action: `order.${to}`,
+        entityType: 'order',
+        entityId: order.id,
+        before,
+        after: { status: to, ...(to === 'shipped' ? { tracking } : {}) },
+      },
+      t,
+    );
     const detail = await getOrderDetail(order.id, t);
     if (!detail) return;
     const ctx = { business: settings.businessName, link: link(order.number), address: settings.address };
@@ -49,15 +75,25 @@ export async function cancelUnpaidOrder(actorUserId: number, orderId: number): P
   const sessionId = await sequelize.transaction(async (t) => {
     const order = await models.Order.findByPk(orderId, { transaction: t, lock: t.LOCK.UPDATE });
     if (!order) throw new NotFoundError('No such order.');
-    if (order.status !== 'awaiting_payment') throw new ConflictError('Only an order still awaiting payment can be cancelled; refund a paid one.');
+    if (order.status !== 'awaiting_payment')
+      throw new ConflictError('Only an order still awaiting payment can be cancelled; refund a paid one.');
     await releaseReservedLocked(t, order, 'cancelled', actorUserId, 'Cancelled at the order desk');
     return order.stripeSessionId;
   });
   // If the buyer pays in the meantime, the webhook sees a cancelled order and takes the jars again or flags a refund.
-  if (sessionId) await stripe().checkout.sessions.expire(sessionId).catch(() => undefined);
+  if (sessionId)
+    await stripe()
+      .checkout.sessions.expire(sessionId)
+      .catch(() => undefined);
 }
 
-export type RefundRequest = { orderId: number; amountCents: number; jars: { lineId: number; quantity: number }[]; restock: boolean; reason: string };
+export type RefundRequest = {
+  orderId: number;
+  amountCents: number;
+  jars: { lineId: number; quantity: number }[];
+  restock: boolean;
+  reason: string;
+};
 
 /**
  * Refunds fully or partly through Stripe. The amount is claimed on the order first (so the
@@ -72,16 +108,24 @@ export async function refundOrder(actorUserId: number, r: RefundRequest): Promis
     const order = await models.Order.findByPk(r.orderId, { transaction: t, lock: t.LOCK.UPDATE });
     if (!order) throw new NotFoundError('No such order.');
     if (!order.paidAt) throw new ConflictError('This order was never paid; cancel it instead.');
-    if (!order.paymentIntentId) throw new ConflictError('This order was not paid by card through the shop, so it cannot be refunded here; refund it by hand.');
+    if (!order.paymentIntentId)
+      throw new ConflictError(
+        'This order was not paid by card through the shop, so it cannot be refunded here; refund it by hand.',
+      );
     const left = order.totalCents - order.refundedCents;
-    if (r.amountCents > left) throw new ConflictError(`At most ${left} cents are left to refund on order ${order.number}.`);
+    if (r.amountCents > left)
+      throw new ConflictError(`At most ${left} cents are left to refund on order ${order.number}.`);
     // Check the jars before any money moves: a refund that Stripe made must not fail afterwards.
     const sold = await orderAllocations(t, order.id, 'sold');
     for (const j of r.jars) {
       const have = sold.filter((a) => a.lineId === j.lineId).reduce((s, a) => s + a.quantity, 0);
-      if (j.quantity > have) throw new ConflictError(`Only ${have} jar${have === 1 ? '' : 's'} of that line can be returned.`);
+      if (j.quantity > have)
+        throw new ConflictError(`Only ${have} jar${have === 1 ? '' : 's'} of that line can be returned.`);
     }
-    const refund = await models.Refund.create({ orderId: order.id, amountCents: r.amountCents, restock: r.restock, reason: r.reason, createdBy: actorUserId }, { transaction: t });
+    const refund = await models.Refund.create(
+      { orderId: order.id, amountCents: r.amountCents, restock: r.restock, reason: r.reason, createdBy: actorUserId },
+      { transaction: t },
+    );
     await order.update({ refundedCents: order.refundedCents + r.amountCents }, { transaction: t });
     return { refundId: refund.id, paymentIntentId: order.paymentIntentId };
   });
@@ -89,7 +133,12 @@ export async function refundOrder(actorUserId: number, r: RefundRequest): Promis
   let stripeRefundId: string;
   try {
     const refund = await stripe().refunds.create(
-      { payment_intent: claim.paymentIntentId, amount: r.amountCents, reason: 'requested_by_customer', metadata: { orderId: String(r.orderId), refundId: String(claim.refundId) } },
+      {
+        payment_intent: claim.paymentIntentId,
+        amount: r.amountCents,
+        reason: 'requested_by_customer',
+        metadata: { orderId: String(r.orderId), refundId: String(claim.refundId) },
+      },
       { idempotencyKey: `refund-${claim.refundId}-v1` },
     );
     stripeRefundId = refund.id;
@@ -99,7 +148,10 @@ export async function refundOrder(actorUserId: number, r: RefundRequest): Promis
       await order?.update({ refundedCents: Math.max(0, order.refundedCents - r.amountCents) }, { transaction: t });
       await models.Refund.destroy({ where: { id: claim.refundId }, transaction: t });
     });
-    const message = err instanceof Error && 'type' in err ? `The card payment service refused the refund: ${err.message}` : 'The card payment service could not be reached; nothing was refunded.';
+    const message =
+      err instanceof Error && 'type' in err
+        ? `The card payment service refused the refund: ${err.message}`
+        : 'The card payment service could not be reached; nothing was refunded.';
     throw new ConflictError(message);
   }
 
@@ -109,14 +161,42 @@ export async function refundOrder(actorUserId: number, r: RefundRequest): Promis
     if (!order) throw new NotFoundError('No such order.');
     await models.Refund.update({ stripeRefundId }, { where: { id: claim.refundId }, transaction: t });
     for (const j of r.jars.filter((x) => x.quantity > 0)) {
-      await returnSold(t, { orderId: order.id, orderNumber: order.number, lineId: j.lineId, quantity: j.quantity, restock: r.restock, actorUserId });
+      await returnSold(t, {
+        orderId: order.id,
+        orderNumber: order.number,
+        lineId: j.lineId,
+        quantity: j.quantity,
+        restock: r.restock,
+        actorUserId,
+      });
     }
     const full = order.refundedCents >= order.totalCents;
     const before = { status: order.status };
-    if (full && !['expired', 'cancelled'].includes(order.status)) await order.update({ status: 'refunded' }, { transaction: t });
-    await recordAudit({ actorUserId, action: 'order.refund', entityType: 'order', entityId: order.id, before, after: { status: order.status, amountCents: r.amountCents, jars: r.jars, restock: r.restock, stripeRefundId }, reason: r.reason || null }, t);
+    if (full && !['expired', 'cancelled'].includes(order.status))
+      await order.update({ status: 'refunded' }, { transaction: t });
+    await recordAudit(
+      {
+        actorUserId,
+        action: 'order.refund',
+        entityType: 'order',
+        entityId: order.id,
+        before,
+        after: { status: order.status, amountCents: r.amountCents, jars: r.jars, restock: r.restock, stripeRefundId },
+        reason: r.reason || null,
+      },
+      t,
+    );
     const detail = await getOrderDetail(order.id, t);
-    if (detail) await enqueueMail(orderRefundMail(detail, { business: settings.businessName, link: link(order.number), amountCents: r.amountCents, refundId: claim.refundId }), t);
+    if (detail)
+      await enqueueMail(
+        orderRefundMail(detail, {
+          business: settings.businessName,
+          link: link(order.number),
+          amountCents: r.amountCents,
+          refundId: claim.refundId,
+        }),
+        t,
+      );
   });
   return { refundId: claim.refundId };
 }

@@ -51,7 +51,8 @@ export async function applyStripeEvent(event: Stripe.Event): Promise<{ outcome: 
 async function orderForSession(t: Transaction, session: Stripe.Checkout.Session): Promise<Order | null> {
   const { Order } = getDb().models;
   const id = Number(session.metadata?.orderId);
-  const byId = Number.isInteger(id) && id > 0 ? await Order.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE }) : null;
+  const byId =
+    Number.isInteger(id) && id > 0 ? await Order.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE }) : null;
   if (byId && (!byId.stripeSessionId || byId.stripeSessionId === session.id)) return byId;
   return Order.findOne({ where: { stripeSessionId: session.id }, transaction: t, lock: t.LOCK.UPDATE });
 }
@@ -60,7 +61,8 @@ async function sessionCompleted(t: Transaction, session: Stripe.Checkout.Session
   if (session.payment_status !== 'paid') return 'ignored';
   const order = await orderForSession(t, session);
   if (!order || order.paidAt) return 'ignored';
-  const paymentIntentId = typeof session.payment_intent === 'string' ? session.payment_intent : session.payment_intent?.id ?? null;
+  const paymentIntentId =
+    typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
   const settings = await getSettings();
   const link = `${appUrl()}/orders/${order.number}?t=${orderToken(order.number)}`;
   const paid = { paidAt: new Date(), paymentIntentId, stripeSessionId: session.id, reservedUntil: null };
@@ -70,7 +72,15 @@ async function sessionCompleted(t: Transaction, session: Stripe.Checkout.Session
     const lines = await getDb().models.OrderLine.findAll({ where: { orderId: order.id }, transaction: t });
     const reReserved = await getDb().sequelize.transaction({ transaction: t }, async (sp) => {
       try {
-        await reserveLines(sp, lines.map((l) => ({ lineId: l.id, productId: l.productId, productName: l.productName, quantity: l.quantity })));
+        await reserveLines(
+          sp,
+          lines.map((l) => ({
+            lineId: l.id,
+            productId: l.productId,
+            productName: l.productName,
+            quantity: l.quantity,
+          })),
+        );
         return true;
       } catch (err) {
         if (err instanceof DomainError) return false;
@@ -80,10 +90,28 @@ async function sessionCompleted(t: Transaction, session: Stripe.Checkout.Session
     if (!reReserved) {
       const before = order.status;
       await order.update(paid, { transaction: t });
-      await recordAudit({ actorUserId: null, action: 'order.paid_without_stock', entityType: 'order', entityId: order.id, before: { status: before }, after: { paymentIntentId }, reason: 'Paid after its reservation was released; not enough jars left' }, t);
+      await recordAudit(
+        {
+          actorUserId: null,
+          action: 'order.paid_without_stock',
+          entityType: 'order',
+          entityId: order.id,
+          before: { status: before },
+          after: { paymentIntentId },
+          reason: 'Paid after its reservation was released; not enough jars left',
+        },
+        t,
+      );
       const detail = await getOrderDetail(order.id, t);
       if (detail && settings.contactEmail) {
-        await enqueueMail(paidAfterReleaseMail(detail, { business: settings.businessName, link: `${appUrl()}/admin/orders/${order.id}`, to: settings.contactEmail }), t);
+        await enqueueMail(
+          paidAfterReleaseMail(detail, {
+            business: settings.businessName,
+            link: `${appUrl()}/admin/orders/${order.id}`,
+            to: settings.contactEmail,
+          }),
+          t,
+        );
       }
       return 'paid-needs-refund';
     }
@@ -94,9 +122,27 @@ async function sessionCompleted(t: Transaction, session: Stripe.Checkout.Session
   const before = order.status;
   await sellReserved(t, order.id, order.number);
   await order.update({ ...paid, status: 'paid' }, { transaction: t });
-  await recordAudit({ actorUserId: null, action: 'order.paid', entityType: 'order', entityId: order.id, before: { status: before }, after: { status: 'paid', paymentIntentId, lots: (await orderAllocations(t, order.id, 'sold')).map((a) => `${a.lotCode}×${a.quantity}`) } }, t);
+  await recordAudit(
+    {
+      actorUserId: null,
+      action: 'order.paid',
+      entityType: 'order',
+      entityId: order.id,
+      before: { status: before },
+      after: {
+        status: 'paid',
+        paymentIntentId,
+        lots: (await orderAllocations(t, order.id, 'sold')).map((a) => `${a.lotCode}×${a.quantity}`),
+      },
+    },
+    t,
+  );
   const detail = await getOrderDetail(order.id, t);
-  if (detail) await enqueueMail(orderConfirmationMail(detail, { business: settings.businessName, link, address: settings.address }), t);
+  if (detail)
+    await enqueueMail(
+      orderConfirmationMail(detail, { business: settings.businessName, link, address: settings.address }),
+      t,
+    );
   return 'paid';
 }
 
@@ -117,9 +163,22 @@ async function chargeRefunded(t: Transaction, charge: Stripe.Charge): Promise<Ev
   // Refunds made at the desk are already counted; one made elsewhere (e.g. Stripe's dashboard) is
   // caught up here. amount_refunded is a running total, so applying it twice changes nothing.
   const refunded = Math.min(order.totalCents, Math.max(order.refundedCents, charge.amount_refunded));
-  const status = refunded >= order.totalCents && order.paidAt && !['expired', 'cancelled'].includes(order.status) ? 'refunded' : order.status;
+  const status =
+    refunded >= order.totalCents && order.paidAt && !['expired', 'cancelled'].includes(order.status)
+      ? 'refunded'
+      : order.status;
   if (refunded === order.refundedCents && status === order.status) return 'ignored';
   await order.update({ refundedCents: refunded, status }, { transaction: t });
-  await recordAudit({ actorUserId: null, action: 'order.refund_seen', entityType: 'order', entityId: order.id, after: { refundedCents: refunded, status }, reason: 'Stripe reported a refund' }, t);
+  await recordAudit(
+    {
+      actorUserId: null,
+      action: 'order.refund_seen',
+      entityType: 'order',
+      entityId: order.id,
+      after: { refundedCents: refunded, status },
+      reason: 'Stripe reported a refund',
+    },
+    t,
+  );
   return 'refund-recorded';
 }

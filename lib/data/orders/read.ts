@@ -53,7 +53,10 @@ export async function getOrderDetail(orderId: number, t?: Transaction): Promise<
       { model: OrderLine, as: 'lines' },
       { model: Refund, as: 'refunds' },
     ],
-    order: [[{ model: OrderLine, as: 'lines' }, 'id', 'ASC'], [{ model: Refund, as: 'refunds' }, 'id', 'ASC']],
+    order: [
+      [{ model: OrderLine, as: 'lines' }, 'id', 'ASC'],
+      [{ model: Refund, as: 'refunds' }, 'id', 'ASC'],
+    ],
     transaction: t,
   });
   if (!o) return null;
@@ -88,9 +91,17 @@ export async function getOrderDetail(orderId: number, t?: Transaction): Promise<
       productName: l.productName,
       quantity: l.quantity,
       unitPriceCents: l.unitPriceCents,
-      lots: shown.filter((a) => a.lineId === l.id).map((a) => ({ lotId: a.lotId, code: a.lotCode, quantity: a.quantity, state: a.state })),
+      lots: shown
+        .filter((a) => a.lineId === l.id)
+        .map((a) => ({ lotId: a.lotId, code: a.lotCode, quantity: a.quantity, state: a.state })),
     })),
-    refunds: (o.refunds ?? []).map((r) => ({ id: r.id, amountCents: r.amountCents, restock: r.restock, reason: r.reason, createdAt: r.createdAt })),
+    refunds: (o.refunds ?? []).map((r) => ({
+      id: r.id,
+      amountCents: r.amountCents,
+      restock: r.restock,
+      reason: r.reason,
+      createdAt: r.createdAt,
+    })),
     needsRefund: needsRefund(o),
   };
 }
@@ -103,7 +114,11 @@ export function needsRefund(o: Pick<Order, 'status' | 'paidAt' | 'refundedCents'
  * An order as the viewer may see it: staff see all, a customer only their own, anyone holding the
  * signed link its order. Anything else is null (→ 404, so a number cannot be probed).
  */
-export async function getOrderForViewer(number: string, user: SessionUser | null, token: string | null): Promise<OrderDetail | null> {
+export async function getOrderForViewer(
+  number: string,
+  user: SessionUser | null,
+  token: string | null,
+): Promise<OrderDetail | null> {
   const { Order } = getDb().models;
   const row = await Order.findOne({ where: { number }, attributes: ['id', 'customerId'] });
   if (!row) return null;

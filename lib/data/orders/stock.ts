@@ -30,10 +30,13 @@ async function lockSellable(t: Transaction, productIds: number[]): Promise<Locke
 async function lockPairs(t: Transaction, pairs: { productId: number; lotId: number }[]): Promise<void> {
   if (pairs.length === 0) return;
   const values = pairs.map((p) => `(${Number(p.productId)},${Number(p.lotId)})`).join(',');
-  await getDb().sequelize.query(`SELECT 1 FROM stock_levels WHERE (product_id, lot_id) IN (${values}) ${ORDER} FOR UPDATE`, {
-    type: QueryTypes.SELECT,
-    transaction: t,
-  });
+  await getDb().sequelize.query(
+    `SELECT 1 FROM stock_levels WHERE (product_id, lot_id) IN (${values}) ${ORDER} FOR UPDATE`,
+    {
+      type: QueryTypes.SELECT,
+      transaction: t,
+    },
+  );
 }
 
 async function bump(t: Transaction, productId: number, lotId: number, onHand: number, reserved: number): Promise<void> {
@@ -63,7 +66,11 @@ export async function reserveLines(t: Transaction, lines: LineToReserve[]): Prom
     const mine = rows.filter((r) => r.productId === line.productId);
     const left = mine.reduce((s, r) => s + r.onHand - r.reserved, 0);
     if (left < line.quantity) {
-      short.push(left <= 0 ? `${line.productName} is sold out.` : `Only ${jars(left)} of ${line.productName} ${left === 1 ? 'is' : 'are'} left.`);
+      short.push(
+        left <= 0
+          ? `${line.productName} is sold out.`
+          : `Only ${jars(left)} of ${line.productName} ${left === 1 ? 'is' : 'are'} left.`,
+      );
       continue;
     }
     let need = line.quantity;
@@ -78,13 +85,28 @@ export async function reserveLines(t: Transaction, lines: LineToReserve[]): Prom
   if (short.length) throw new ConflictError(short.join(' '));
   for (const p of plan) {
     await bump(t, p.line.productId, p.lotId, 0, p.quantity);
-    await OrderAllocation.create({ orderLineId: p.line.lineId, lotId: p.lotId, quantity: p.quantity, state: 'reserved' }, { transaction: t });
+    await OrderAllocation.create(
+      { orderLineId: p.line.lineId, lotId: p.lotId, quantity: p.quantity, state: 'reserved' },
+      { transaction: t },
+    );
   }
 }
 
-export type AllocationRow = { id: number; lineId: number; productId: number; lotId: number; quantity: number; state: string; lotCode: string };
+export type AllocationRow = {
+  id: number;
+  lineId: number;
+  productId: number;
+  lotId: number;
+  quantity: number;
+  state: string;
+  lotCode: string;
+};
 
-export async function orderAllocations(t: Transaction | undefined, orderId: number, state?: string): Promise<AllocationRow[]> {
+export async function orderAllocations(
+  t: Transaction | undefined,
+  orderId: number,
+  state?: string,
+): Promise<AllocationRow[]> {
   return getDb().sequelize.query<AllocationRow>(
     `SELECT a.id, a.order_line_id AS "lineId", ol.product_id AS "productId", a.lot_id AS "lotId", a.quantity, a.state, l.code AS "lotCode"
      FROM order_allocations a JOIN order_lines ol ON ol.id = a.order_line_id JOIN lots l ON l.id = a.lot_id
@@ -102,7 +124,15 @@ export async function sellReserved(t: Transaction, orderId: number, orderNumber:
   for (const a of allocations) {
     await bump(t, a.productId, a.lotId, -a.quantity, -a.quantity);
     await StockEntry.create(
-      { productId: a.productId, lotId: a.lotId, delta: -a.quantity, kind: 'order', reason: `Order ${orderNumber}`, orderId, createdBy: null },
+      {
+        productId: a.productId,
+        lotId: a.lotId,
+        delta: -a.quantity,
+        kind: 'order',
+        reason: `Order ${orderNumber}`,
+        orderId,
+        createdBy: null,
+      },
       { transaction: t },
     );
     await OrderAllocation.update({ state: 'sold' }, { where: { id: a.id }, transaction: t });
@@ -123,10 +153,27 @@ async function releaseReserved(t: Transaction, orderId: number): Promise<number>
 }
 
 /** Releases a locked, unpaid order's reservation and closes it, inside the caller's transaction. */
-export async function releaseReservedLocked(t: Transaction, order: Order, status: 'expired' | 'cancelled', actorUserId: number | null, reason: string): Promise<number> {
+export async function releaseReservedLocked(
+  t: Transaction,
+  order: Order,
+  status: 'expired' | 'cancelled',
+  actorUserId: number | null,
+  reason: string,
+): Promise<number> {
   const jars = await releaseReserved(t, order.id);
   await order.update({ status, reservedUntil: null }, { transaction: t });
-  await recordAudit({ actorUserId, action: `order.${status}`, entityType: 'order', entityId: order.id, before: { status: 'awaiting_payment' }, after: { status, jarsReleased: jars }, reason }, t);
+  await recordAudit(
+    {
+      actorUserId,
+      action: `order.${status}`,
+      entityType: 'order',
+      entityId: order.id,
+      before: { status: 'awaiting_payment' },
+      after: { status, jarsReleased: jars },
+      reason,
+    },
+    t,
+  );
   return jars;
 }
 
@@ -148,15 +195,30 @@ export async function returnSold(
     if (need === 0) break;
     const take = Math.min(need, a.quantity);
     need -= take;
-    if (take === a.quantity) await OrderAllocation.update({ state: p.restock ? 'returned' : 'written_off' }, { where: { id: a.id }, transaction: t });
+    if (take === a.quantity)
+      await OrderAllocation.update(
+        { state: p.restock ? 'returned' : 'written_off' },
+        { where: { id: a.id }, transaction: t },
+      );
     else {
       await OrderAllocation.update({ quantity: a.quantity - take }, { where: { id: a.id }, transaction: t });
-      await OrderAllocation.create({ orderLineId: a.lineId, lotId: a.lotId, quantity: take, state: p.restock ? 'returned' : 'written_off' }, { transaction: t });
+      await OrderAllocation.create(
+        { orderLineId: a.lineId, lotId: a.lotId, quantity: take, state: p.restock ? 'returned' : 'written_off' },
+        { transaction: t },
+      );
     }
     if (p.restock) {
       await bump(t, a.productId, a.lotId, take, 0);
       await StockEntry.create(
-        { productId: a.productId, lotId: a.lotId, delta: take, kind: 'return', reason: `Refund of order ${p.orderNumber}`, orderId: p.orderId, createdBy: p.actorUserId },
+        {
+          productId: a.productId,
+          lotId: a.lotId,
+          delta: take,
+          kind: 'return',
+          reason: `Refund of order ${p.orderNumber}`,
+          orderId: p.orderId,
+          createdBy: p.actorUserId,
+        },
         { transaction: t },
       );
     }

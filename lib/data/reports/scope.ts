@@ -36,7 +36,9 @@ export async function keepersWithColonies(season: number): Promise<{ id: number;
 }
 
 /** Choices for the report's filters, within the user's scope. */
-export async function reportFilterChoices(user: SessionUser): Promise<{ yards: { id: number; name: string }[]; keepers: { id: number; name: string }[] }> {
+export async function reportFilterChoices(
+  user: SessionUser,
+): Promise<{ yards: { id: number; name: string }[]; keepers: { id: number; name: string }[] }> {
   const { sequelize } = getDb();
   const own = user.role === 'owner' ? null : user.id;
   const [yards, keepers] = await Promise.all([
@@ -45,7 +47,10 @@ export async function reportFilterChoices(user: SessionUser): Promise<{ yards: {
       { type: QueryTypes.SELECT, replacements: { own } },
     ),
     own === null
-      ? sequelize.query<{ id: number; name: string }>(`SELECT id, name FROM users WHERE role = 'keeper' ORDER BY name`, { type: QueryTypes.SELECT })
+      ? sequelize.query<{ id: number; name: string }>(
+          `SELECT id, name FROM users WHERE role = 'keeper' ORDER BY name`,
+          { type: QueryTypes.SELECT },
+        )
       : Promise.resolve([]),
   ]);
   return { yards, keepers };

@@ -34,7 +34,8 @@ const HONEY_SQL = (sp: string) => `(CASE
 END)`;
 
 /** A lot's season: the year it was extracted (or, still gathering, the year it was opened). */
-export const LOT_SEASON_SQL = (l: string) => `EXTRACT(YEAR FROM COALESCE(${l}.extracted_on, (${l}.created_at AT TIME ZONE 'UTC')::date))::int`;
+export const LOT_SEASON_SQL = (l: string) =>
+  `EXTRACT(YEAR FROM COALESCE(${l}.extracted_on, (${l}.created_at AT TIME ZONE 'UTC')::date))::int`;
 
 /** Revenue kept from an allocation: jars × unit price, less the order's refunds pro rata. */
 const REVENUE_SQL = `oa.quantity * ol.unit_price_cents
@@ -50,7 +51,11 @@ export const revCte = `rev AS (
 /** The same test as LOT_SEASON_SQL = :season, written as date ranges so the planner can estimate it (and use lots_extracted_on). */
 const LOT_IN_SEASON = (l: string) => `((${l}.extracted_on >= :seasonFrom AND ${l}.extracted_on < :seasonTo)
   OR (${l}.extracted_on IS NULL AND (${l}.created_at AT TIME ZONE 'UTC')::date >= :seasonFrom AND (${l}.created_at AT TIME ZONE 'UTC')::date < :seasonTo))`;
-export const seasonRange = (season: number) => ({ season, seasonFrom: `${season}-01-01`, seasonTo: `${season + 1}-01-01` });
+export const seasonRange = (season: number) => ({
+  season,
+  seasonFrom: `${season}-01-01`,
+  seasonTo: `${season + 1}-01-01`,
+});
 
 export const rootsCte = `given AS (SELECT parent_lot_id AS lot_id, SUM(grams) AS g FROM lot_parents GROUP BY parent_lot_id),
 roots AS (

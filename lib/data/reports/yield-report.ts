@@ -3,7 +3,15 @@ import { QueryTypes } from 'sequelize';
 import type { SessionUser } from '@/lib/auth/session';
 import { getDb } from '@/lib/db/index';
 import { getSettings } from '@/lib/data/settings/settings';
-import { listSeasons, seasonColonies, seasonHistory, seasonLots, seasonShares, superEstimatesFrom, type HistoryRow } from './yield-sql';
+import {
+  listSeasons,
+  seasonColonies,
+  seasonHistory,
+  seasonLots,
+  seasonShares,
+  superEstimatesFrom,
+  type HistoryRow,
+} from './yield-sql';
 import { buildReport, type SeasonReport } from './build-report';
 import { reportScope, type ReportFilter } from './scope';
 

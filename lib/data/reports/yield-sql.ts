@@ -16,15 +16,30 @@ export function superEstimatesFrom(setting: Partial<SuperEstimates> | null | und
   const out: SuperEstimates = { ...DEFAULT_SUPER_ESTIMATES };
   for (const depth of ['deep', 'medium', 'shallow'] as const) {
     const e = setting?.[depth];
-    if (e && Number.isFinite(e.gramsPerBox) && e.gramsPerBox > 0 && Number.isInteger(e.framesPerBox) && e.framesPerBox > 0) out[depth] = e;
+    if (
+      e &&
+      Number.isFinite(e.gramsPerBox) &&
+      e.gramsPerBox > 0 &&
+      Number.isInteger(e.framesPerBox) &&
+      e.framesPerBox > 0
+    )
+      out[depth] = e;
   }
   return out;
 }
 
 export type ShareRow = { lotId: number; colonyId: number; yardId: number; frac: number };
 export type LotRow = {
-  id: number; code: string; floralSource: string; stage: string; isBlend: boolean;
-  netGrams: number; ownGrams: number; revenueCents: number; waterPct: number | null; supers: number;
+  id: number;
+  code: string;
+  floralSource: string;
+  stage: string;
+  isBlend: boolean;
+  netGrams: number;
+  ownGrams: number;
+  revenueCents: number;
+  waterPct: number | null;
+  supers: number;
 };
 
 /** Exact fraction of each of the season's lots that each colony made (unrounded). */
@@ -58,12 +73,25 @@ export async function seasonLots(season: number): Promise<LotRow[]> {
 }
 
 export type ColonyBase = {
-  id: number; code: string; status: string; yardId: number; yardName: string; keeperId: number; keeperName: string;
-  parentId: number | null; parentCode: string | null; splitCodes: string[] | null; supersPulled: number;
+  id: number;
+  code: string;
+  status: string;
+  yardId: number;
+  yardName: string;
+  keeperId: number;
+  keeperName: string;
+  parentId: number | null;
+  parentCode: string | null;
+  splitCodes: string[] | null;
+  supersPulled: number;
 };
 
 /** The colonies that belong in a season: any super pulled, honey in the season's lots, or alive then. */
-export async function seasonColonies(season: number, withHoney: number[], scope: { yardId?: number; keeperId?: number }): Promise<ColonyBase[]> {
+export async function seasonColonies(
+  season: number,
+  withHoney: number[],
+  scope: { yardId?: number; keeperId?: number },
+): Promise<ColonyBase[]> {
   const { sequelize } = getDb();
   const from = `${season}-01-01`;
   const to = `${season + 1}-01-01`;
@@ -82,7 +110,13 @@ export async function seasonColonies(season: number, withHoney: number[], scope:
      ORDER BY y.name, c.code`,
     {
       type: QueryTypes.SELECT,
-      replacements: { from, to, withHoney: `{${withHoney.join(',')}}`, yardId: scope.yardId ?? null, keeperId: scope.keeperId ?? null },
+      replacements: {
+        from,
+        to,
+        withHoney: `{${withHoney.join(',')}}`,
+        yardId: scope.yardId ?? null,
+        keeperId: scope.keeperId ?? null,
+      },
     },
   );
 }
@@ -90,7 +124,10 @@ export async function seasonColonies(season: number, withHoney: number[], scope:
 export type HistoryRow = { season: number; yardId: number; yardName: string; honeyGrams: number };
 
 /** Season over season: honey per yard for every season, unrounded shares summed in SQL. */
-export async function seasonHistory(est: SuperEstimates, scope: { yardId?: number; keeperId?: number }): Promise<HistoryRow[]> {
+export async function seasonHistory(
+  est: SuperEstimates,
+  scope: { yardId?: number; keeperId?: number },
+): Promise<HistoryRow[]> {
   const { sequelize } = getDb();
   return sequelize.query<HistoryRow>(
     `WITH RECURSIVE given AS (SELECT parent_lot_id AS lot_id, SUM(grams) AS g FROM lot_parents GROUP BY parent_lot_id),
@@ -102,7 +139,10 @@ export async function seasonHistory(est: SuperEstimates, scope: { yardId?: numbe
      FROM fracs f JOIN roots r ON r.id = f.root_id JOIN colonies c ON c.id = f.colony_id JOIN yards y ON y.id = c.yard_id
      WHERE (:yardId::int IS NULL OR c.yard_id = :yardId) AND (:keeperId::int IS NULL OR c.keeper_id = :keeperId)
      GROUP BY 1, 2, 3 ORDER BY 1, 3`,
-    { type: QueryTypes.SELECT, replacements: { ...estimateParams(est), yardId: scope.yardId ?? null, keeperId: scope.keeperId ?? null } },
+    {
+      type: QueryTypes.SELECT,
+      replacements: { ...estimateParams(est), yardId: scope.yardId ?? null, keeperId: scope.keeperId ?? null },
+    },
   );
 }
 

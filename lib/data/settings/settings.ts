@@ -19,7 +19,11 @@ export const getSettings = cache(async (): Promise<Settings> => {
     // Depths the owner has not set fall back to the common-practice defaults.
     return { ...rest, superEstimates: { ...DEFAULT_SUPER_ESTIMATES, ...rest.superEstimates } };
   }
-  const { createdAt: _c, updatedAt: _u, ...rest } = BusinessSetting.build({ id: 1, businessName: FALLBACK_NAME }).get({ plain: true });
+  const {
+    createdAt: _c,
+    updatedAt: _u,
+    ...rest
+  } = BusinessSetting.build({ id: 1, businessName: FALLBACK_NAME }).get({ plain: true });
   return rest;
 });
 

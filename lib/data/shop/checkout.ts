@@ -30,23 +30,34 @@ export async function startCheckout(input: CheckoutData, user: SessionUser | nul
   const wanted = new Map<number, number>();
   for (const i of input.items) wanted.set(i.productId, (wanted.get(i.productId) ?? 0) + i.quantity);
   const products = await models.Product.findAll({ where: { id: [...wanted.keys()], active: true } });
-  if (products.length !== wanted.size) throw new ConflictError('Something in your cart is no longer sold. Please check your cart.');
+  if (products.length !== wanted.size)
+    throw new ConflictError('Something in your cart is no longer sold. Please check your cart.');
   const lines = products
     .map((p) => ({ product: p, quantity: wanted.get(p.id) as number }))
     .sort((a, b) => a.product.id - b.product.id);
   const subtotal = lines.reduce((s, l) => s + l.quantity * l.product.priceCents, 0);
   let shipping = 0;
   if (input.fulfilment === 'ship') {
-    const weight = parcelWeightGrams(lines.map((l) => ({ quantity: l.quantity, netGrams: l.product.netGrams, containerGrams: l.product.containerGrams })));
+    const weight = parcelWeightGrams(
+      lines.map((l) => ({
+        quantity: l.quantity,
+        netGrams: l.product.netGrams,
+        containerGrams: l.product.containerGrams,
+      })),
+    );
     const price = shippingCents(weight, settings.shippingBands ?? []);
-    if (price === null) throw new ConflictError('This parcel is heavier than we ship. Please choose pickup or fewer jars.');
+    if (price === null)
+      throw new ConflictError('This parcel is heavier than we ship. Please choose pickup or fewer jars.');
     shipping = price;
   }
   const expiresAt = Math.floor(Date.now() / 1000) + RESERVE_MINUTES * 60 + SLACK_SECONDS;
   await releaseOverdueReservations();
 
   const order = await sequelize.transaction(async (t) => {
-    const [{ n }] = await sequelize.query<{ n: number }>(`SELECT nextval('order_number_seq')::int AS n`, { type: QueryTypes.SELECT, transaction: t });
+    const [{ n }] = await sequelize.query<{ n: number }>(`SELECT nextval('order_number_seq')::int AS n`, {
+      type: QueryTypes.SELECT,
+      transaction: t,
+    });
     const created = await models.Order.create(
       {
         number: `C-${n}`,
@@ -67,7 +78,13 @@ export async function startCheckout(input: CheckoutData, user: SessionUser | nul
     const toReserve = [];
     for (const l of lines) {
       const line = await models.OrderLine.create(
-        { orderId: created.id, productId: l.product.id, productName: l.product.name, quantity: l.quantity, unitPriceCents: l.product.priceCents },
+        {
+          orderId: created.id,
+          productId: l.product.id,
+          productName: l.product.name,
+          quantity: l.quantity,
+          unitPriceCents: l.product.priceCents,
+        },
         { transaction: t },
       );
       toReserve.push({ lineId: line.id, productId: l.product.id, productName: l.product.name, quantity: l.quantity });
@@ -88,9 +105,24 @@ export async function startCheckout(input: CheckoutData, user: SessionUser | nul
         line_items: [
           ...lines.map((l) => ({
             quantity: l.quantity,
-            price_data: { currency: settings.currency, unit_amount: l.product.priceCents, product_data: { name: l.product.name } },
+            price_data: {
+              currency: settings.currency,
+              unit_amount: l.product.priceCents,
+              product_data: { name: l.product.name },
+            },
           })),
-          ...(shipping > 0 ? [{ quantity: 1, price_data: { currency: settings.currency, unit_amount: shipping, product_data: { name: 'Shipping' } } }] : []),
+          ...(shipping > 0
+            ? [
+                {
+                  quantity: 1,
+                  price_data: {
+                    currency: settings.currency,
+                    unit_amount: shipping,
+                    product_data: { name: 'Shipping' },
+                  },
+                },
+              ]
+            : []),
         ],
         success_url: `${appUrl()}/orders/${order.number}?t=${token}&session_id={CHECKOUT_SESSION_ID}`,
         cancel_url: `${appUrl()}/checkout/cancelled?order=${order.number}&t=${token}`,
@@ -104,7 +136,10 @@ export async function startCheckout(input: CheckoutData, user: SessionUser | nul
   } catch (err) {
     await releaseOrder(order.id, 'cancelled', null, 'Could not start the card payment');
     console.error(`[checkout] order ${order.number}: Stripe session not created`, err);
-    throw new DomainError('unavailable', 'The card payment service is not answering. Nothing was charged and your jars are back on the shelf; please try again in a minute.');
+    throw new DomainError(
+      'unavailable',
+      'The card payment service is not answering. Nothing was charged and your jars are back on the shelf; please try again in a minute.',
+    );
   }
 }
 
@@ -112,7 +147,12 @@ export async function startCheckout(input: CheckoutData, user: SessionUser | nul
  * Releases an unpaid order's reservation and closes it (expired session, sweep, cancel).
  * Does nothing unless the order is still awaiting payment; returns whether it changed.
  */
-async function releaseOrder(orderId: number, status: 'expired' | 'cancelled', actorUserId: number | null, reason: string): Promise<boolean> {
+async function releaseOrder(
+  orderId: number,
+  status: 'expired' | 'cancelled',
+  actorUserId: number | null,
+  reason: string,
+): Promise<boolean> {
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (t) => {
     const order = await models.Order.findByPk(orderId, { transaction: t, lock: t.LOCK.UPDATE });
@@ -129,14 +169,21 @@ async function releaseOrder(orderId: number, status: 'expired' | 'cancelled', ac
 export async function cancelCheckout(orderNumber: string): Promise<void> {
   const order = await getDb().models.Order.findOne({ where: { number: orderNumber } });
   if (!order || order.status !== 'awaiting_payment') return;
-  if (order.stripeSessionId) await stripe().checkout.sessions.expire(order.stripeSessionId).catch(() => undefined);
+  if (order.stripeSessionId)
+    await stripe()
+      .checkout.sessions.expire(order.stripeSessionId)
+      .catch(() => undefined);
   await releaseOrder(order.id, 'cancelled', null, 'The customer left the payment page');
 }
 
 /** The sweep: unpaid orders past their reservation give their jars back. */
 export async function releaseOverdueReservations(now = new Date()): Promise<number> {
   const { Order } = getDb().models;
-  const overdue = await Order.findAll({ where: { status: 'awaiting_payment', reservedUntil: { [Op.lt]: now } }, attributes: ['id'], limit: 100 });
+  const overdue = await Order.findAll({
+    where: { status: 'awaiting_payment', reservedUntil: { [Op.lt]: now } },
+    attributes: ['id'],
+    limit: 100,
+  });
   let n = 0;
   for (const o of overdue) if (await releaseOrder(o.id, 'expired', null, 'Reservation time ran out')) n++;
   return n;

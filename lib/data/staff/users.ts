@@ -9,10 +9,34 @@ import { passwordMail } from '@/lib/mail/templates';
 import { recordAudit } from '@/lib/data/audit';
 import { getSettings } from '@/lib/data/settings/settings';
 
-export type UserRow = { id: number; email: string; name: string; role: Role; disabled: boolean; sessionVersion: number; createdAt: Date };
+export type UserRow = {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  disabled: boolean;
+  sessionVersion: number;
+  createdAt: Date;
+};
 
-function toRow(u: { id: number; email: string; name: string; role: Role; disabledAt: Date | null; sessionVersion: number; createdAt: Date }): UserRow {
-  return { id: u.id, email: u.email, name: u.name, role: u.role, disabled: u.disabledAt !== null, sessionVersion: u.sessionVersion, createdAt: u.createdAt };
+function toRow(u: {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  disabledAt: Date | null;
+  sessionVersion: number;
+  createdAt: Date;
+}): UserRow {
+  return {
+    id: u.id,
+    email: u.email,
+    name: u.name,
+    role: u.role,
+    disabled: u.disabledAt !== null,
+    sessionVersion: u.sessionVersion,
+    createdAt: u.createdAt,
+  };
 }
 
 export async function getActiveUser(id: number): Promise<UserRow | null> {
@@ -39,8 +63,20 @@ export async function createCustomer(input: { email: string; name: string; passw
   const passwordHash = await hashPassword(input.password);
   try {
     return await sequelize.transaction(async (t) => {
-      const u = await models.User.create({ email: input.email.toLowerCase(), name: input.name, role: 'customer', passwordHash }, { transaction: t });
-      await recordAudit({ actorUserId: u.id, action: 'user.signup', entityType: 'user', entityId: u.id, after: { email: u.email, role: u.role } }, t);
+      const u = await models.User.create(
+        { email: input.email.toLowerCase(), name: input.name, role: 'customer', passwordHash },
+        { transaction: t },
+      );
+      await recordAudit(
+        {
+          actorUserId: u.id,
+          action: 'user.signup',
+          entityType: 'user',
+          entityId: u.id,
+          after: { email: u.email, role: u.role },
+        },
+        t,
+      );
       return toRow(u);
     });
   } catch (err) {
@@ -50,16 +86,43 @@ export async function createCustomer(input: { email: string; name: string; passw
 }
 
 /** Owner creates a staff account; the staff member gets a link to set a password (valid 72 h). */
-export async function createStaff(actorUserId: number, input: { email: string; name: string; role: Exclude<Role, 'customer'> }): Promise<UserRow> {
+export async function createStaff(
+  actorUserId: number,
+  input: { email: string; name: string; role: Exclude<Role, 'customer'> },
+): Promise<UserRow> {
   const { sequelize, models } = getDb();
   const settings = await getSettings();
   try {
     const row = await sequelize.transaction(async (t) => {
-      const u = await models.User.create({ email: input.email.toLowerCase(), name: input.name, role: input.role, passwordHash: null }, { transaction: t });
+      const u = await models.User.create(
+        { email: input.email.toLowerCase(), name: input.name, role: input.role, passwordHash: null },
+        { transaction: t },
+      );
       const { token, tokenHash } = newToken();
-      await models.PasswordToken.create({ userId: u.id, purpose: 'set', tokenHash, expiresAt: new Date(Date.now() + 72 * 3600_000) }, { transaction: t });
-      await enqueueMail(passwordMail({ kind: 'set', to: u.email, name: u.name, business: settings.businessName, link: `${appUrl()}/reset-password?token=${token}` }), t);
-      await recordAudit({ actorUserId, action: 'user.create', entityType: 'user', entityId: u.id, after: { email: u.email, role: u.role, name: u.name } }, t);
+      await models.PasswordToken.create(
+        { userId: u.id, purpose: 'set', tokenHash, expiresAt: new Date(Date.now() + 72 * 3600_000) },
+        { transaction: t },
+      );
+      await enqueueMail(
+        passwordMail({
+          kind: 'set',
+          to: u.email,
+          name: u.name,
+          business: settings.businessName,
+          link: `${appUrl()}/reset-password?token=${token}`,
+        }),
+        t,
+      );
+      await recordAudit(
+        {
+          actorUserId,
+          action: 'user.create',
+          entityType: 'user',
+          entityId: u.id,
+          after: { email: u.email, role: u.role, name: u.name },
+        },
+        t,
+      );
       return toRow(u);
     });
     kickMail();
@@ -81,8 +144,20 @@ export async function requestPasswordReset(email: string): Promise<void> {
   const settings = await getSettings();
   await sequelize.transaction(async (t) => {
     const { token, tokenHash } = newToken();
-    await models.PasswordToken.create({ userId: user.id, purpose: 'reset', tokenHash, expiresAt: new Date(Date.now() + 3600_000) }, { transaction: t });
-    await enqueueMail(passwordMail({ kind: 'reset', to: user.email, name: user.name, business: settings.businessName, link: `${appUrl()}/reset-password?token=${token}` }), t);
+    await models.PasswordToken.create(
+      { userId: user.id, purpose: 'reset', tokenHash, expiresAt: new Date(Date.now() + 3600_000) },
+      { transaction: t },
+    );
+    await enqueueMail(
+      passwordMail({
+        kind: 'reset',
+        to: user.email,
+        name: user.name,
+        business: settings.businessName,
+        link: `${appUrl()}/reset-password?token=${token}`,
+      }),
+      t,
+    );
   });
   kickMail();
 }
@@ -102,18 +177,31 @@ export async function resetPassword(token: string, password: string): Promise<'o
     const user = await models.User.findByPk(row.userId, { transaction: t, lock: t.LOCK.UPDATE });
     if (!user || user.disabledAt) return 'invalid';
     await user.update({ passwordHash, sessionVersion: user.sessionVersion + 1 }, { transaction: t });
-    await recordAudit({ actorUserId: user.id, action: `user.password.${row.purpose}`, entityType: 'user', entityId: user.id }, t);
+    await recordAudit(
+      { actorUserId: user.id, action: `user.password.${row.purpose}`, entityType: 'user', entityId: user.id },
+      t,
+    );
     return 'ok';
   });
 }
 
 export async function listStaff(): Promise<UserRow[]> {
-  const users = await getDb().models.User.findAll({ where: { role: { [Op.ne]: 'customer' } }, order: [['role', 'ASC'], ['name', 'ASC']] });
+  const users = await getDb().models.User.findAll({
+    where: { role: { [Op.ne]: 'customer' } },
+    order: [
+      ['role', 'ASC'],
+      ['name', 'ASC'],
+    ],
+  });
   return users.map(toRow);
 }
 
 /** Role change or disabling takes effect on the next request: the session version moves on. */
-export async function updateStaff(actorUserId: number, userId: number, patch: { role?: Exclude<Role, 'customer'>; disabled?: boolean }): Promise<UserRow | null> {
+export async function updateStaff(
+  actorUserId: number,
+  userId: number,
+  patch: { role?: Exclude<Role, 'customer'>; disabled?: boolean },
+): Promise<UserRow | null> {
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (t) => {
     const u = await models.User.findByPk(userId, { transaction: t, lock: t.LOCK.UPDATE });
@@ -127,8 +215,17 @@ export async function updateStaff(actorUserId: number, userId: number, patch: { 
       },
       { transaction: t },
     );
-    await recordAudit({ actorUserId, action: 'user.update', entityType: 'user', entityId: u.id, before, after: { role: u.role, disabled: u.disabledAt !== null } }, t);
+    await recordAudit(
+      {
+        actorUserId,
+        action: 'user.update',
+        entityType: 'user',
+        entityId: u.id,
+        before,
+        after: { role: u.role, disabled: u.disabledAt !== null },
+      },
+      t,
+    );
     return toRow(u);
   });
 }
-

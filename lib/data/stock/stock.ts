@@ -24,7 +24,13 @@ export type StockEntryInput = {
   reservedDelta?: number;
 };
 
-export type StockLevelRow = { productId: number; lotId: number; onHand: number; reserved: number; bestBeforeOn: string };
+export type StockLevelRow = {
+  productId: number;
+  lotId: number;
+  onHand: number;
+  reserved: number;
+  bestBeforeOn: string;
+};
 
 /** Best-before of a lot's jars: the lot's own date, else extraction (or today) + the owner's months. */
 async function lotBestBefore(lotId: number, t: Transaction): Promise<string> {
@@ -47,27 +53,41 @@ export async function addStockEntry(input: StockEntryInput, transaction: Transac
   const where = { productId: input.productId, lotId: input.lotId };
   let level = await StockLevel.findOne({ where, transaction, lock: transaction.LOCK.UPDATE });
   if (!level) {
-    if (input.delta < 0 || reservedDelta !== 0) throw new ConflictError('There are no jars of this product from this lot in stock.');
+    if (input.delta < 0 || reservedDelta !== 0)
+      throw new ConflictError('There are no jars of this product from this lot in stock.');
     const bestBeforeOn = await lotBestBefore(input.lotId, transaction);
     // Two first entries at once: the loser's insert waits on the key, then finds the row.
-    await StockLevel.bulkCreate([{ ...where, onHand: 0, reserved: 0, bestBeforeOn }], { transaction, ignoreDuplicates: true });
+    await StockLevel.bulkCreate([{ ...where, onHand: 0, reserved: 0, bestBeforeOn }], {
+      transaction,
+      ignoreDuplicates: true,
+    });
     level = await StockLevel.findOne({ where, transaction, lock: transaction.LOCK.UPDATE });
     if (!level) throw new Error('stock level row vanished');
   }
   const onHand = level.onHand + input.delta;
   const reserved = level.reserved + reservedDelta;
   if (onHand < 0) {
-    throw new ConflictError(`Only ${level.onHand} jar${level.onHand === 1 ? '' : 's'} on hand; stock cannot go below 0.`);
+    throw new ConflictError(
+      `Only ${level.onHand} jar${level.onHand === 1 ? '' : 's'} on hand; stock cannot go below 0.`,
+    );
   }
   if (reserved < 0) throw new ConflictError('Fewer jars are reserved than that.');
   if (reserved > onHand) {
-    throw new ConflictError(`${level.reserved} of the ${level.onHand} jars on hand are reserved for orders; on-hand cannot go below the reserved jars.`);
+    throw new ConflictError(
+      `${level.reserved} of the ${level.onHand} jars on hand are reserved for orders; on-hand cannot go below the reserved jars.`,
+    );
   }
   await level.update({ onHand, reserved }, { transaction });
   await StockEntry.create(
     {
-      productId: input.productId, lotId: input.lotId, delta: input.delta, kind: input.kind, reason: input.reason ?? '',
-      jarringRunId: input.jarringRunId ?? null, orderId: input.orderId ?? null, createdBy: input.createdBy,
+      productId: input.productId,
+      lotId: input.lotId,
+      delta: input.delta,
+      kind: input.kind,
+      reason: input.reason ?? '',
+      jarringRunId: input.jarringRunId ?? null,
+      orderId: input.orderId ?? null,
+      createdBy: input.createdBy,
     },
     { transaction },
   );
@@ -77,21 +97,47 @@ export async function addStockEntry(input: StockEntryInput, transaction: Transac
 /** Breakage (−), counted adjustment (±) or return (+), with the reason, audited. */
 export async function adjustStock(
   actorUserId: number,
-  input: { productId: number; lotId: number; kind: 'breakage' | 'adjustment' | 'return'; delta: number; reason: string },
+  input: {
+    productId: number;
+    lotId: number;
+    kind: 'breakage' | 'adjustment' | 'return';
+    delta: number;
+    reason: string;
+  },
 ): Promise<StockLevelRow> {
   const { sequelize } = getDb();
   return sequelize.transaction(async (t) => {
     const level = await addStockEntry({ ...input, createdBy: actorUserId }, t);
     await recordAudit(
-      { actorUserId, action: `stock.${input.kind}`, entityType: 'stock', entityId: `${input.productId}:${input.lotId}`, after: { delta: input.delta, onHand: level.onHand }, reason: input.reason },
+      {
+        actorUserId,
+        action: `stock.${input.kind}`,
+        entityType: 'stock',
+        entityId: `${input.productId}:${input.lotId}`,
+        after: { delta: input.delta, onHand: level.onHand },
+        reason: input.reason,
+      },
       t,
     );
     return level;
   });
 }
 
-export type StockLotRow = StockLevelRow & { productName: string; lotCode: string; floralSource: string; available: number };
-export type StockProductTotal = { productId: number; productName: string; onHand: number; reserved: number; available: number; lots: number; earliestBestBefore: string | null };
+export type StockLotRow = StockLevelRow & {
+  productName: string;
+  lotCode: string;
+  floralSource: string;
+  available: number;
+};
+export type StockProductTotal = {
+  productId: number;
+  productName: string;
+  onHand: number;
+  reserved: number;
+  available: number;
+  lots: number;
+  earliestBestBefore: string | null;
+};
 
 export async function listStockLevels(filter: { productId?: number } = {}): Promise<StockLotRow[]> {
   const { StockLevel, Product, Lot } = getDb().models;
@@ -101,31 +147,64 @@ export async function listStockLevels(filter: { productId?: number } = {}): Prom
       { model: Product, as: 'product', attributes: ['name', 'sortOrder'] },
       { model: Lot, as: 'lot', attributes: ['code', 'floralSource'] },
     ],
-    order: [[{ model: Product, as: 'product' }, 'sortOrder', 'ASC'], [{ model: Product, as: 'product' }, 'name', 'ASC'], ['bestBeforeOn', 'ASC']],
+    order: [
+      [{ model: Product, as: 'product' }, 'sortOrder', 'ASC'],
+      [{ model: Product, as: 'product' }, 'name', 'ASC'],
+      ['bestBeforeOn', 'ASC'],
+    ],
   });
   return rows.map((r) => ({
-    productId: r.productId, lotId: r.lotId, onHand: r.onHand, reserved: r.reserved, bestBeforeOn: r.bestBeforeOn,
-    available: r.onHand - r.reserved, productName: r.product?.name ?? '', lotCode: r.lot?.code ?? '', floralSource: r.lot?.floralSource ?? '',
+    productId: r.productId,
+    lotId: r.lotId,
+    onHand: r.onHand,
+    reserved: r.reserved,
+    bestBeforeOn: r.bestBeforeOn,
+    available: r.onHand - r.reserved,
+    productName: r.product?.name ?? '',
+    lotCode: r.lot?.code ?? '',
+    floralSource: r.lot?.floralSource ?? '',
   }));
 }
 
 /** Totals per product (every product, also those with no stock). */
 export async function stockTotals(): Promise<StockProductTotal[]> {
   const { Product } = getDb().models;
-  const [products, levels] = await Promise.all([Product.findAll({ order: [['sortOrder', 'ASC'], ['name', 'ASC']] }), listStockLevels()]);
+  const [products, levels] = await Promise.all([
+    Product.findAll({
+      order: [
+        ['sortOrder', 'ASC'],
+        ['name', 'ASC'],
+      ],
+    }),
+    listStockLevels(),
+  ]);
   return products.map((p) => {
     const mine = levels.filter((l) => l.productId === p.id);
     const withJars = mine.filter((l) => l.onHand > 0);
     return {
-      productId: p.id, productName: p.name,
-      onHand: mine.reduce((s, l) => s + l.onHand, 0), reserved: mine.reduce((s, l) => s + l.reserved, 0),
-      available: mine.reduce((s, l) => s + l.available, 0), lots: withJars.length,
+      productId: p.id,
+      productName: p.name,
+      onHand: mine.reduce((s, l) => s + l.onHand, 0),
+      reserved: mine.reduce((s, l) => s + l.reserved, 0),
+      available: mine.reduce((s, l) => s + l.available, 0),
+      lots: withJars.length,
       earliestBestBefore: withJars.map((l) => l.bestBeforeOn).sort()[0] ?? null,
     };
   });
 }
 
-export type LedgerRow = { id: number; createdAt: string; productName: string; lotCode: string; delta: number; kind: StockEntryKind; reason: string; jarringRunId: number | null; orderId: number | null; byName: string | null };
+export type LedgerRow = {
+  id: number;
+  createdAt: string;
+  productName: string;
+  lotCode: string;
+  delta: number;
+  kind: StockEntryKind;
+  reason: string;
+  jarringRunId: number | null;
+  orderId: number | null;
+  byName: string | null;
+};
 
 /** One page of the stock ledger (every staff member reads all of it). Entries are numbered in the order they were written. */
 export async function listLedger(_user: SessionUser, query: LedgerListQuery): Promise<Page<LedgerRow>> {
@@ -137,18 +216,36 @@ export async function listLedger(_user: SessionUser, query: LedgerListQuery): Pr
   const [total, entries] = await Promise.all([
     StockEntry.count({ where }),
     StockEntry.findAll({
-      where, order: [['id', query.dir === 'asc' ? 'ASC' : 'DESC']], limit: pageSize, offset: (page - 1) * pageSize,
-      include: [{ model: Product, as: 'product', attributes: ['name'] }, { model: Lot, as: 'lot', attributes: ['code'] }],
+      where,
+      order: [['id', query.dir === 'asc' ? 'ASC' : 'DESC']],
+      limit: pageSize,
+      offset: (page - 1) * pageSize,
+      include: [
+        { model: Product, as: 'product', attributes: ['name'] },
+        { model: Lot, as: 'lot', attributes: ['code'] },
+      ],
     }),
   ]);
   const userIds = [...new Set(entries.map((e) => e.createdBy).filter((id): id is number => id !== null))];
-  const users = userIds.length ? await User.findAll({ where: { id: { [Op.in]: userIds } }, attributes: ['id', 'name'] }) : [];
+  const users = userIds.length
+    ? await User.findAll({ where: { id: { [Op.in]: userIds } }, attributes: ['id', 'name'] })
+    : [];
   const names = new Map(users.map((u) => [u.id, u.name]));
   return {
-    total, page, pageSize,
+    total,
+    page,
+    pageSize,
     rows: entries.map((e) => ({
-      id: Number(e.id), createdAt: new Date(e.createdAt).toISOString(), productName: e.product?.name ?? '', lotCode: e.lot?.code ?? '', delta: e.delta, kind: e.kind,
-      reason: e.reason, jarringRunId: e.jarringRunId ?? null, orderId: e.orderId ?? null, byName: e.createdBy ? names.get(e.createdBy) ?? null : null,
+      id: Number(e.id),
+      createdAt: new Date(e.createdAt).toISOString(),
+      productName: e.product?.name ?? '',
+      lotCode: e.lot?.code ?? '',
+      delta: e.delta,
+      kind: e.kind,
+      reason: e.reason,
+      jarringRunId: e.jarringRunId ?? null,
+      orderId: e.orderId ?? null,
+      byName: e.createdBy ? (names.get(e.createdBy) ?? null) : null,
     })),
   };
 }

@@ -4,21 +4,37 @@ import { getDb } from '@/lib/db/index';
 import { superConflicts, type FeedingRecord, type TreatmentRecord } from '@/lib/domain/conflicts';
 import { flagReasons, pullWindow } from '@/lib/domain/pull-window';
 
-export type ColonyRecords = { feedings: FeedingRecord[]; treatments: TreatmentRecord[]; pulledDates: { id: number; pulledOn: string }[] };
+export type ColonyRecords = {
+  feedings: FeedingRecord[];
+  treatments: TreatmentRecord[];
+  pulledDates: { id: number; pulledOn: string }[];
+};
 
 export async function colonyRecords(colonyId: number, t: Transaction): Promise<ColonyRecords> {
   const { models } = getDb();
   // One after another: a transaction is one connection, which runs one query at a time.
   const feedings = await models.Feeding.findAll({ where: { colonyId }, transaction: t });
-  const treatments = await models.Treatment.findAll({ where: { colonyId }, include: [{ association: 'kind', attributes: ['name'] }], transaction: t });
+  const treatments = await models.Treatment.findAll({
+    where: { colonyId },
+    include: [{ association: 'kind', attributes: ['name'] }],
+    transaction: t,
+  });
   // A voided pull was never there: it neither narrows nor widens its neighbours' windows.
-  const pulls = await models.SuperPull.findAll({ where: { colonyId, pulledOn: { [Op.ne]: null }, voidedAt: null }, attributes: ['id', 'pulledOn'], transaction: t });
+  const pulls = await models.SuperPull.findAll({
+    where: { colonyId, pulledOn: { [Op.ne]: null }, voidedAt: null },
+    attributes: ['id', 'pulledOn'],
+    transaction: t,
+  });
   return {
     feedings: feedings.map((f) => ({ kind: f.kind, startedOn: f.startedOn, endedOn: f.endedOn ?? null })),
     // supers_allowed and waiting_days are the values copied onto the treatment when recorded.
     treatments: treatments.map((x) => ({
-      kindName: x.kind?.name ?? 'Treatment', productName: x.productName, supersAllowed: x.supersAllowed,
-      waitingDays: x.waitingDays, appliedOn: x.appliedOn, removedOn: x.removedOn ?? null,
+      kindName: x.kind?.name ?? 'Treatment',
+      productName: x.productName,
+      supersAllowed: x.supersAllowed,
+      waitingDays: x.waitingDays,
+      appliedOn: x.appliedOn,
+      removedOn: x.removedOn ?? null,
     })),
     pulledDates: pulls.map((p) => ({ id: p.id, pulledOn: p.pulledOn as string })),
   };
@@ -32,7 +48,11 @@ export function flagsWith(records: ColonyRecords, pull: { id?: number; pulledOn:
 }
 
 /** The conflict flag of a super about to be stored as pulled on this colony. */
-export async function flagsForPull(colonyId: number, pull: { id?: number; pulledOn: string; putOnOn: string | null }, t: Transaction) {
+export async function flagsForPull(
+  colonyId: number,
+  pull: { id?: number; pulledOn: string; putOnOn: string | null },
+  t: Transaction,
+) {
   return flagsWith(await colonyRecords(colonyId, t), pull);
 }
 
@@ -45,7 +65,12 @@ export async function recomputeColonyFlags(colonyId: number, t: Transaction): Pr
   const { models } = getDb();
   const records = await colonyRecords(colonyId, t);
   // Locked in id order, as everywhere else supers are locked, so two writers cannot deadlock.
-  const pulls = await models.SuperPull.findAll({ where: { colonyId, pulledOn: { [Op.ne]: null }, voidedAt: null }, order: [['id', 'ASC']], transaction: t, lock: t.LOCK.UPDATE });
+  const pulls = await models.SuperPull.findAll({
+    where: { colonyId, pulledOn: { [Op.ne]: null }, voidedAt: null },
+    order: [['id', 'ASC']],
+    transaction: t,
+    lock: t.LOCK.UPDATE,
+  });
   let changed = 0;
   for (const pull of pulls) {
     const next = flagsWith(records, { id: pull.id, pulledOn: pull.pulledOn as string, putOnOn: pull.putOnOn ?? null });

@@ -9,9 +9,22 @@ import type { SuperDepth } from '@/models/super-tag';
 import { yardScope } from '@/lib/data/yards/scope';
 
 export type PullRow = {
-  id: number; colonyId: number; colonyCode: string; yardId: number; yardName: string; tagCode: string | null;
-  depth: SuperDepth; frameCount: number; putOnOn: string | null; pulledOn: string | null; fullGrams: number | null;
-  cappedFrames: number | null; flagged: boolean; flagReasons: string[]; inLot: boolean; pulledByName: string | null;
+  id: number;
+  colonyId: number;
+  colonyCode: string;
+  yardId: number;
+  yardName: string;
+  tagCode: string | null;
+  depth: SuperDepth;
+  frameCount: number;
+  putOnOn: string | null;
+  pulledOn: string | null;
+  fullGrams: number | null;
+  cappedFrames: number | null;
+  flagged: boolean;
+  flagReasons: string[];
+  inLot: boolean;
+  pulledByName: string | null;
   /** Set when the pull was voided as a mistake: it stays listed, struck through, and counts for nothing. */
   voided: PullVoid | null;
 };
@@ -24,10 +37,23 @@ export function pullVoid(p: Pick<SuperPull, 'voidedAt' | 'voidReason' | 'voidedB
 
 function toRow(p: SuperPull & { pulledByUser?: { name: string } | null }): PullRow {
   return {
-    id: p.id, colonyId: p.colonyId, colonyCode: p.colony?.code ?? '', yardId: p.colony?.yardId ?? 0, yardName: p.colony?.yard?.name ?? '',
-    tagCode: p.tagCode ?? null, depth: p.depth, frameCount: p.frameCount, putOnOn: p.putOnOn ?? null, pulledOn: p.pulledOn ?? null,
-    fullGrams: p.fullGrams ?? null, cappedFrames: p.cappedFrames ?? null, flagged: p.flagged, flagReasons: p.flagReasons ?? [],
-    inLot: p.lotId != null, pulledByName: null, voided: pullVoid(p),
+    id: p.id,
+    colonyId: p.colonyId,
+    colonyCode: p.colony?.code ?? '',
+    yardId: p.colony?.yardId ?? 0,
+    yardName: p.colony?.yard?.name ?? '',
+    tagCode: p.tagCode ?? null,
+    depth: p.depth,
+    frameCount: p.frameCount,
+    putOnOn: p.putOnOn ?? null,
+    pulledOn: p.pulledOn ?? null,
+    fullGrams: p.fullGrams ?? null,
+    cappedFrames: p.cappedFrames ?? null,
+    flagged: p.flagged,
+    flagReasons: p.flagReasons ?? [],
+    inLot: p.lotId != null,
+    pulledByName: null,
+    voided: pullVoid(p),
   };
 }
 
@@ -52,11 +78,19 @@ export async function listSuperPulls(user: SessionUser, query: PullListQuery): P
   const { rows, count } = await models.SuperPull.findAndCountAll({
     where: { [Op.and]: and },
     include: [
-      { association: 'colony', attributes: ['id', 'code', 'yardId'], where: { [Op.and]: colonyWhere }, required: true, include: [{ association: 'yard', attributes: ['id', 'name'] }] },
+      {
+        association: 'colony',
+        attributes: ['id', 'code', 'yardId'],
+        where: { [Op.and]: colonyWhere },
+        required: true,
+        include: [{ association: 'yard', attributes: ['id', 'name'] }],
+      },
       voidedByInclude,
     ],
     order: [
-      sort.length === 2 ? [{ model: models.Colony, as: 'colony' }, 'code', query.dir] : [sort[0], query.dir === 'desc' ? 'DESC NULLS LAST' : 'ASC NULLS LAST'],
+      sort.length === 2
+        ? [{ model: models.Colony, as: 'colony' }, 'code', query.dir]
+        : [sort[0], query.dir === 'desc' ? 'DESC NULLS LAST' : 'ASC NULLS LAST'],
       ['id', 'DESC'],
     ],
     limit: query.pageSize,
@@ -69,8 +103,19 @@ export async function listSuperPulls(user: SessionUser, query: PullListQuery): P
 export async function listColonySupers(colonyId: number): Promise<PullRow[]> {
   const rows = await getDb().models.SuperPull.findAll({
     where: { colonyId },
-    include: [{ association: 'colony', attributes: ['id', 'code', 'yardId'], include: [{ association: 'yard', attributes: ['id', 'name'] }] }, voidedByInclude],
-    order: [['pulledOn', 'DESC NULLS FIRST'], ['putOnOn', 'DESC NULLS LAST'], ['id', 'DESC']],
+    include: [
+      {
+        association: 'colony',
+        attributes: ['id', 'code', 'yardId'],
+        include: [{ association: 'yard', attributes: ['id', 'name'] }],
+      },
+      voidedByInclude,
+    ],
+    order: [
+      ['pulledOn', 'DESC NULLS FIRST'],
+      ['putOnOn', 'DESC NULLS LAST'],
+      ['id', 'DESC'],
+    ],
   });
   return rows.map(toRow);
 }

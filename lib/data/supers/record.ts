@@ -11,7 +11,10 @@ import { flagsForPull } from './flags';
 /** A phone's entry key names one record: the row a put-on or a pull created, or the pull that closed it. */
 const byEntryKey = (key: string) => ({ [Op.or]: [{ idempotencyKey: key }, { pullKey: key }] });
 
-async function idempotent<T>(find: () => Promise<T | null>, run: () => Promise<T>): Promise<{ value: T; created: boolean }> {
+async function idempotent<T>(
+  find: () => Promise<T | null>,
+  run: () => Promise<T>,
+): Promise<{ value: T; created: boolean }> {
   const existing = await find();
   if (existing) return { value: existing, created: false };
   try {
@@ -25,20 +28,39 @@ async function idempotent<T>(find: () => Promise<T | null>, run: () => Promise<T
   }
 }
 
-export async function putSuperOn(user: SessionUser, input: { colonyId: number; depth: SuperDepth; frameCount: number; tagCode: string | null; putOnOn: string; idempotencyKey: string }): Promise<number> {
+export async function putSuperOn(
+  user: SessionUser,
+  input: {
+    colonyId: number;
+    depth: SuperDepth;
+    frameCount: number;
+    tagCode: string | null;
+    putOnOn: string;
+    idempotencyKey: string;
+  },
+): Promise<number> {
   const { sequelize, models } = getDb();
   const { value } = await idempotent(
     () => models.SuperPull.findOne({ where: byEntryKey(input.idempotencyKey) }),
-    () => sequelize.transaction(async (t) => {
-      const colony = await writableColony(user, input.colonyId, t);
-      return models.SuperPull.create({ ...input, colonyId: colony.id, putOnBy: user.id }, { transaction: t });
-    }));
+    () =>
+      sequelize.transaction(async (t) => {
+        const colony = await writableColony(user, input.colonyId, t);
+        return models.SuperPull.create({ ...input, colonyId: colony.id, putOnBy: user.id }, { transaction: t });
+      }),
+  );
   return value.id;
 }
 
 export type PullInput = {
-  colonyId: number; pulledOn: string; depth: SuperDepth; frameCount: number; weight: number | null; weightUnit: 'kg' | 'lb';
-  cappedFrames: number | null; tagCode: string | null; idempotencyKey: string;
+  colonyId: number;
+  pulledOn: string;
+  depth: SuperDepth;
+  frameCount: number;
+  weight: number | null;
+  weightUnit: 'kg' | 'lb';
+  cappedFrames: number | null;
+  tagCode: string | null;
+  idempotencyKey: string;
 };
 export type PullResult = { id: number; colonyId: number; created: boolean; flagged: boolean; flagReasons: string[] };
 
@@ -55,26 +77,57 @@ export async function recordPull(user: SessionUser, input: PullInput, outer?: Tr
   const work = async (t: Transaction) => {
     const colony = await writableColony(user, input.colonyId, t);
     const open = await models.SuperPull.findAll({
-      where: { colonyId: colony.id, pulledOn: null, voidedAt: null, ...(input.tagCode ? { tagCode: input.tagCode } : {}) },
-      order: [['putOnOn', 'ASC NULLS LAST'], ['id', 'ASC']], limit: 1, transaction: t, lock: t.LOCK.UPDATE,
+      where: {
+        colonyId: colony.id,
+        pulledOn: null,
+        voidedAt: null,
+        ...(input.tagCode ? { tagCode: input.tagCode } : {}),
+      },
+      order: [
+        ['putOnOn', 'ASC NULLS LAST'],
+        ['id', 'ASC'],
+      ],
+      limit: 1,
+      transaction: t,
+      lock: t.LOCK.UPDATE,
     });
     const onHive = open[0] && (!open[0].putOnOn || open[0].putOnOn <= input.pulledOn) ? open[0] : null;
-    const flags = await flagsForPull(colony.id, { id: onHive?.id, pulledOn: input.pulledOn, putOnOn: onHive?.putOnOn ?? null }, t);
+    const flags = await flagsForPull(
+      colony.id,
+      { id: onHive?.id, pulledOn: input.pulledOn, putOnOn: onHive?.putOnOn ?? null },
+      t,
+    );
     const fields = {
-      depth: input.depth, frameCount: input.frameCount, pulledOn: input.pulledOn, fullGrams, cappedFrames: input.cappedFrames,
-      tagCode: input.tagCode ?? onHive?.tagCode ?? null, pulledBy: user.id, pullKey: input.idempotencyKey, ...flags,
+      depth: input.depth,
+      frameCount: input.frameCount,
+      pulledOn: input.pulledOn,
+      fullGrams,
+      cappedFrames: input.cappedFrames,
+      tagCode: input.tagCode ?? onHive?.tagCode ?? null,
+      pulledBy: user.id,
+      pullKey: input.idempotencyKey,
+      ...flags,
     };
     // Closing a super that went on keeps the put-on's key, so a late retry of that put-on still finds it.
     if (onHive) return onHive.update(fields, { transaction: t });
-    return models.SuperPull.create({ ...fields, idempotencyKey: input.idempotencyKey, colonyId: colony.id }, { transaction: t });
+    return models.SuperPull.create(
+      { ...fields, idempotencyKey: input.idempotencyKey, colonyId: colony.id },
+      { transaction: t },
+    );
   };
   const { value, created } = await idempotent(find, () => (outer ? work(outer) : sequelize.transaction(work)));
-  if (!created && value.colonyId !== input.colonyId) throw new ConflictError('This entry key was already used for another colony.');
+  if (!created && value.colonyId !== input.colonyId)
+    throw new ConflictError('This entry key was already used for another colony.');
   return { id: value.id, colonyId: value.colonyId, created, flagged: value.flagged, flagReasons: value.flagReasons };
 }
 
 /** Several colonies in one pass: each entry stands alone (one failing entry does not undo the others). */
-export async function recordPulls(user: SessionUser, entries: PullInput[]): Promise<({ ok: true; key: string } & PullResult | { ok: false; key: string; colonyId: number; message: string })[]> {
+export async function recordPulls(
+  user: SessionUser,
+  entries: PullInput[],
+): Promise<
+  (({ ok: true; key: string } & PullResult) | { ok: false; key: string; colonyId: number; message: string })[]
+> {
   const out = [];
   for (const entry of entries) {
     try {

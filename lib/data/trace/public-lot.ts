@@ -32,7 +32,9 @@ async function blendWater(lotId: number): Promise<number | null> {
   let grams = 0;
   let sum = 0;
   for (const link of links) {
-    const mean = meanWater(await MoistureReading.findAll({ where: { lotId: link.parentLotId, voidedAt: null }, attributes: ['waterPct'] }));
+    const mean = meanWater(
+      await MoistureReading.findAll({ where: { lotId: link.parentLotId, voidedAt: null }, attributes: ['waterPct'] }),
+    );
     if (mean === null) return null; // one unmeasured part: no honest figure for the whole
     grams += link.grams;
     sum += mean * link.grams;
@@ -46,7 +48,10 @@ async function lotTreeIds(rootId: number): Promise<number[]> {
   const seen = new Set<number>([rootId]);
   let frontier = [rootId];
   for (let depth = 0; depth < MAX_DEPTH && frontier.length > 0; depth++) {
-    const links = await LotParent.findAll({ where: { childLotId: { [Op.in]: frontier } }, attributes: ['parentLotId'] });
+    const links = await LotParent.findAll({
+      where: { childLotId: { [Op.in]: frontier } },
+      attributes: ['parentLotId'],
+    });
     frontier = links.map((l) => l.parentLotId).filter((id) => !seen.has(id));
     frontier.forEach((id) => seen.add(id));
   }
@@ -62,7 +67,10 @@ export async function getPublicLot(code: string): Promise<PublicLot | null> {
   if (!/^[A-Za-z0-9!"%&'()*+,\-./:;<=>?_]{1,20}$/.test(code)) return null;
   const lot = await Lot.findOne({ where: { code } });
   if (!lot) return null;
-  const shelved = lot.stage === 'released' || lot.stage === 'packed_out' || (await JarringRun.count({ where: { lotId: lot.id } })) > 0;
+  const shelved =
+    lot.stage === 'released' ||
+    lot.stage === 'packed_out' ||
+    (await JarringRun.count({ where: { lotId: lot.id } })) > 0;
   if (!shelved) return null;
 
   const ids = await lotTreeIds(lot.id);
@@ -70,7 +78,14 @@ export async function getPublicLot(code: string): Promise<PublicLot | null> {
     SuperPull.findAll({
       where: { lotId: { [Op.in]: ids } },
       attributes: ['pulledOn'],
-      include: [{ model: Colony, as: 'colony', attributes: ['id'], include: [{ model: Yard, as: 'yard', attributes: ['name'] }] }],
+      include: [
+        {
+          model: Colony,
+          as: 'colony',
+          attributes: ['id'],
+          include: [{ model: Yard, as: 'yard', attributes: ['name'] }],
+        },
+      ],
     }),
     MoistureReading.findAll({ where: { lotId: lot.id, voidedAt: null }, attributes: ['waterPct'] }),
     getSettings(),
@@ -84,8 +99,17 @@ export async function getPublicLot(code: string): Promise<PublicLot | null> {
     waterFromParents = water !== null;
   }
   return {
-    code: lot.code, floralSource: lot.floralSource, isBlend: lot.isBlend, harvestMonths: months, extractedOn: lot.extractedOn ?? null,
-    region: settings.region, yardNames: yards, waterPct: water === null ? null : Math.round(water * 10) / 10, waterFromParents,
-    bestBeforeOn: lot.bestBeforeOn ?? null, note: settings.publicLotNote, businessName: settings.businessName,
+    code: lot.code,
+    floralSource: lot.floralSource,
+    isBlend: lot.isBlend,
+    harvestMonths: months,
+    extractedOn: lot.extractedOn ?? null,
+    region: settings.region,
+    yardNames: yards,
+    waterPct: water === null ? null : Math.round(water * 10) / 10,
+    waterFromParents,
+    bestBeforeOn: lot.bestBeforeOn ?? null,
+    note: settings.publicLotNote,
+    businessName: settings.businessName,
   };
 }

@@ -13,7 +13,11 @@ export type YardScope = { all: true } | { all: false; yardIds: number[] };
 export async function yardScope(user: SessionUser, transaction?: Transaction): Promise<YardScope> {
   if (user.role === 'owner' || user.role === 'crew') return { all: true };
   if (user.role !== 'keeper') return { all: false, yardIds: [] };
-  const rows = await getDb().models.YardKeeper.findAll({ where: { userId: user.id }, attributes: ['yardId'], transaction });
+  const rows = await getDb().models.YardKeeper.findAll({
+    where: { userId: user.id },
+    attributes: ['yardId'],
+    transaction,
+  });
   return { all: false, yardIds: rows.map((r) => r.yardId) };
 }
 
@@ -28,7 +32,10 @@ export async function colonyInScope(
   transaction?: Transaction,
 ): Promise<Colony | null> {
   if (!Number.isInteger(colonyId) || colonyId <= 0) return null;
-  const colony = await getDb().models.Colony.findByPk(colonyId, { transaction, lock: transaction ? transaction.LOCK.UPDATE : undefined });
+  const colony = await getDb().models.Colony.findByPk(colonyId, {
+    transaction,
+    lock: transaction ? transaction.LOCK.UPDATE : undefined,
+  });
   if (!colony) return null;
   return inScope(await yardScope(user, transaction), colony.yardId) ? colony : null;
 }

@@ -10,12 +10,20 @@ import { DEMO, signInAs, replaySession, currentTestSession, setRequestHeaders } 
 afterAll(closeDb);
 beforeEach(() => setRequestHeaders({}));
 
-const count = (table: string) => getDb().sequelize.query(`SELECT count(*)::int AS n FROM ${table}`, { plain: true }).then((r) => (r as { n: number }).n);
+const count = (table: string) =>
+  getDb()
+    .sequelize.query(`SELECT count(*)::int AS n FROM ${table}`, { plain: true })
+    .then((r) => (r as { n: number }).n);
 
 describe('sign-up', () => {
   it('creates a customer, never another role, even when the body asks for one', async () => {
     await signInAs(null);
-    const result = await signUpAction({ name: 'Nell Arden', email: 'Nell@Example.test', password: 'clover fields', role: 'owner' } as never);
+    const result = await signUpAction({
+      name: 'Nell Arden',
+      email: 'Nell@Example.test',
+      password: 'clover fields',
+      role: 'owner',
+    } as never);
     expect(result).toEqual({ ok: true });
     const u = await getDb().models.User.findOne({ where: { email: 'nell@example.test' } });
     expect(u?.role).toBe('customer');
@@ -39,7 +47,9 @@ describe('sign-up', () => {
 
   it('refuses a cross-site request', async () => {
     setRequestHeaders({ origin: 'https://evil.example', host: '127.0.0.1:3100' });
-    await expect(signUpAction({ name: 'X', email: 'x@example.test', password: 'long enough pass' })).rejects.toThrow(/another site/);
+    await expect(signUpAction({ name: 'X', email: 'x@example.test', password: 'long enough pass' })).rejects.toThrow(
+      /another site/,
+    );
   });
 });
 
@@ -59,10 +69,30 @@ describe('sign-in', () => {
 
 describe('roles are checked in the action itself', () => {
   it('refuses settings to a keeper and to anonymous, allows the owner', async () => {
-    const input = { businessName: 'Changed', address: '', region: '', contactEmail: '', story: '', publicLotNote: '', timeZone: 'UTC', currency: 'usd',
-      weightSystem: 'metric', gs1CompanyPrefix: '', lotCodePrefix: 'HH', moistureLimitPct: 20, moistureLimitHeatherPct: 23, moistureGradeAPct: 18.6,
-      hmfMaxMgKg: 40, diastaseMinSchade: 8, insolubleMaxG100g: 0.1, bestBeforeMonths: 24, expectedLossPct: 2, fillRuleSet: 'oiml',
-      labelDeclaration: 'metric', barcodeKind: 'gs1-128' } as const;
+    const input = {
+      businessName: 'Changed',
+      address: '',
+      region: '',
+      contactEmail: '',
+      story: '',
+      publicLotNote: '',
+      timeZone: 'UTC',
+      currency: 'usd',
+      weightSystem: 'metric',
+      gs1CompanyPrefix: '',
+      lotCodePrefix: 'HH',
+      moistureLimitPct: 20,
+      moistureLimitHeatherPct: 23,
+      moistureGradeAPct: 18.6,
+      hmfMaxMgKg: 40,
+      diastaseMinSchade: 8,
+      insolubleMaxG100g: 0.1,
+      bestBeforeMonths: 24,
+      expectedLossPct: 2,
+      fillRuleSet: 'oiml',
+      labelDeclaration: 'metric',
+      barcodeKind: 'gs1-128',
+    } as const;
     await signInAs(DEMO.keeper);
     expect(await saveSettingsAction(input)).toMatchObject({ ok: false, message: /not allowed/ });
     await signInAs(null);
@@ -70,16 +100,25 @@ describe('roles are checked in the action itself', () => {
     const s = await getDb().models.BusinessSetting.findByPk(1);
     expect(s?.businessName).toBe('Hollowmere Apiaries');
     await signInAs(DEMO.owner);
-    expect(await saveSettingsAction({ ...input, businessName: 'Hollowmere Apiaries' , story: 'New story' })).toEqual({ ok: true });
-    const audit = await getDb().models.AuditEntry.findOne({ where: { action: 'settings.update' }, order: [['id', 'DESC']] });
+    expect(await saveSettingsAction({ ...input, businessName: 'Hollowmere Apiaries', story: 'New story' })).toEqual({
+      ok: true,
+    });
+    const audit = await getDb().models.AuditEntry.findOne({
+      where: { action: 'settings.update' },
+      order: [['id', 'DESC']],
+    });
     expect(audit?.after).toMatchObject({ story: 'New story' });
   });
 
   it('lets only the owner create staff, and queues the set-password mail in the same transaction', async () => {
     await signInAs(DEMO.crew);
-    expect(await createStaffAction({ name: 'Sly', email: 'sly@hollowmere.test', role: 'owner' })).toMatchObject({ ok: false });
+    expect(await createStaffAction({ name: 'Sly', email: 'sly@hollowmere.test', role: 'owner' })).toMatchObject({
+      ok: false,
+    });
     await signInAs(DEMO.owner);
-    expect(await createStaffAction({ name: 'Bea Tarrant', email: 'bea@hollowmere.test', role: 'crew' })).toEqual({ ok: true });
+    expect(await createStaffAction({ name: 'Bea Tarrant', email: 'bea@hollowmere.test', role: 'crew' })).toEqual({
+      ok: true,
+    });
     const mail = await getDb().models.OutboxMessage.findOne({ where: { toAddress: 'bea@hollowmere.test' } });
     expect(mail?.subject).toMatch(/Set your password/);
     expect(mail?.textBody).toMatch(/reset-password\?token=/);
@@ -105,7 +144,10 @@ describe('sessions end at once (ASVS 7.4.2, 8.3.2)', () => {
     const known = await forgotPasswordAction({ email: DEMO.customer });
     const unknown = await forgotPasswordAction({ email: 'ghost@nowhere.test' });
     expect(known).toEqual(unknown);
-    expect(await resetPasswordAction({ token: 'x'.repeat(40), password: 'brand new phrase' })).toMatchObject({ ok: false, message: /expired/ });
+    expect(await resetPasswordAction({ token: 'x'.repeat(40), password: 'brand new phrase' })).toMatchObject({
+      ok: false,
+      message: /expired/,
+    });
   });
 });
 
@@ -120,7 +162,10 @@ describe('links in password e-mails', () => {
       if (saved === undefined) delete process.env.APP_URL;
       else process.env.APP_URL = saved;
     }
-    const mail = await getDb().models.OutboxMessage.findOne({ where: { toAddress: DEMO.customer }, order: [['id', 'DESC']] });
+    const mail = await getDb().models.OutboxMessage.findOne({
+      where: { toAddress: DEMO.customer },
+      order: [['id', 'DESC']],
+    });
     expect(mail?.textBody).toContain('https://honey.example/reset-password?token=');
     expect(mail?.textBody).not.toMatch(/example\/\/reset-password/);
   });

@@ -17,7 +17,15 @@ beforeAll(async () => {
   const jar = await product({ netGrams: 340 });
   lotId = lot.id;
   for (const runOn of DAYS) {
-    const res = await createJarringRunAction({ lotId, productId: jar.id, jarCount: 2, runOn, sampleMode: 'net', samples: samples(342, 341), idempotencyKey: key() });
+    const res = await createJarringRunAction({
+      lotId,
+      productId: jar.id,
+      jarCount: 2,
+      runOn,
+      sampleMode: 'net',
+      samples: samples(342, 341),
+      idempotencyKey: key(),
+    });
     expect(res.ok).toBe(true);
   }
 });

@@ -14,14 +14,25 @@ async function level(productId: number, lotId: number) {
 
 describe('jarring runs', () => {
   beforeAll(async () => {
-    await getDb().models.BusinessSetting.update({ fillRuleSet: 'oiml', expectedLossPct: 2, bestBeforeMonths: 24 }, { where: { id: 1 } });
+    await getDb().models.BusinessSetting.update(
+      { fillRuleSet: 'oiml', expectedLossPct: 2, bestBeforeMonths: 24 },
+      { where: { id: 1 } },
+    );
   });
 
   it('a passing run takes honey from the lot, puts the jars in stock and sets best-before from extraction', async () => {
     await signInAs(DEMO.crew);
     const lot = await releasedLot(20_000, { extractedOn: '2026-07-15' });
     const jar = await product({ netGrams: 340 });
-    const res = await createJarringRunAction({ lotId: lot.id, productId: jar.id, jarCount: 10, runOn: today, sampleMode: 'net', samples: samples(342, 341, 345), idempotencyKey: key() });
+    const res = await createJarringRunAction({
+      lotId: lot.id,
+      productId: jar.id,
+      jarCount: 10,
+      runOn: today,
+      sampleMode: 'net',
+      samples: samples(342, 341, 345),
+      idempotencyKey: key(),
+    });
     expect(res).toMatchObject({ ok: true, data: { pass: true, stocked: true, packedOut: false } });
     await lot.reload();
     // honeyUsedByRun: 10 jars × max(340, mean 342.67) = 3427 g
@@ -46,7 +57,15 @@ describe('jarring runs', () => {
     await signInAs(DEMO.crew);
     const lot = await releasedLot(3_000);
     const jar = await product({ netGrams: 340 });
-    const res = await createJarringRunAction({ lotId: lot.id, productId: jar.id, jarCount: 9, runOn: today, sampleMode: 'net', samples: samples(341, 340), idempotencyKey: key() });
+    const res = await createJarringRunAction({
+      lotId: lot.id,
+      productId: jar.id,
+      jarCount: 9,
+      runOn: today,
+      sampleMode: 'net',
+      samples: samples(341, 340),
+      idempotencyKey: key(),
+    });
     expect(res.ok).toBe(false);
     expect(!res.ok && res.message).toMatch(/has only 3\.00 kg left/);
     await lot.reload();
@@ -59,7 +78,16 @@ describe('jarring runs', () => {
     await signInAs(DEMO.crew);
     const lot = await releasedLot(5_000);
     const jar = await product({ netGrams: 340 });
-    const run = () => createJarringRunAction({ lotId: lot.id, productId: jar.id, jarCount: 10, runOn: today, sampleMode: 'net', samples: samples(340), idempotencyKey: key() });
+    const run = () =>
+      createJarringRunAction({
+        lotId: lot.id,
+        productId: jar.id,
+        jarCount: 10,
+        runOn: today,
+        sampleMode: 'net',
+        samples: samples(340),
+        idempotencyKey: key(),
+      });
     const results = await Promise.all([run(), run()]);
     expect(results.filter((r) => r.ok)).toHaveLength(1);
     await lot.reload();
@@ -71,7 +99,15 @@ describe('jarring runs', () => {
     const lot = await releasedLot(20_000);
     const jar = await product({ netGrams: 340 });
     // OIML R 87 / 76/211/EEC: Qn 340 g → TNE 3 % = 10.2 g; T1 = 329.8 g. One of 5 jars at 325 g is below T1 (none allowed under 40 samples).
-    const res = await createJarringRunAction({ lotId: lot.id, productId: jar.id, jarCount: 12, runOn: today, sampleMode: 'gross', samples: samples(545, 546, 525, 544, 548), idempotencyKey: key() });
+    const res = await createJarringRunAction({
+      lotId: lot.id,
+      productId: jar.id,
+      jarCount: 12,
+      runOn: today,
+      sampleMode: 'gross',
+      samples: samples(545, 546, 525, 544, 548),
+      idempotencyKey: key(),
+    });
     expect(res.ok).toBe(true);
     if (!res.ok) return;
     expect(res.data.pass).toBe(false);
@@ -88,7 +124,10 @@ describe('jarring runs', () => {
     const short = await overrideJarringRunAction({ runId: res.data.runId, reason: 'ok' });
     expect(short.ok).toBe(false);
     expect(!short.ok && short.fieldErrors?.reason).toBeTruthy();
-    const ok = await overrideJarringRunAction({ runId: res.data.runId, reason: 'Scale was off by 10 g; all 12 jars re-weighed above 335 g.' });
+    const ok = await overrideJarringRunAction({
+      runId: res.data.runId,
+      reason: 'Scale was off by 10 g; all 12 jars re-weighed above 335 g.',
+    });
     expect(ok.ok).toBe(true);
     expect((await level(jar.id, lot.id))?.onHand).toBe(12);
     const run = await getDb().models.JarringRun.findByPk(res.data.runId);
@@ -101,12 +140,28 @@ describe('jarring runs', () => {
     await signInAs(DEMO.crew);
     const lot = await releasedLot(3_404);
     const jar = await product({ netGrams: 340 });
-    const res = await createJarringRunAction({ lotId: lot.id, productId: jar.id, jarCount: 10, runOn: today, sampleMode: 'net', samples: samples(340, 340.4), idempotencyKey: key() });
+    const res = await createJarringRunAction({
+      lotId: lot.id,
+      productId: jar.id,
+      jarCount: 10,
+      runOn: today,
+      sampleMode: 'net',
+      samples: samples(340, 340.4),
+      idempotencyKey: key(),
+    });
     expect(res).toMatchObject({ ok: true, data: { packedOut: true } });
     await lot.reload();
     expect(lot.stage).toBe('packed_out');
     // 3404 − 10 × 340.2 = 2 g left: under any jar, so written off as tank loss.
-    const next = await createJarringRunAction({ lotId: lot.id, productId: jar.id, jarCount: 1, runOn: today, sampleMode: 'net', samples: samples(340), idempotencyKey: key() });
+    const next = await createJarringRunAction({
+      lotId: lot.id,
+      productId: jar.id,
+      jarCount: 1,
+      runOn: today,
+      sampleMode: 'net',
+      samples: samples(340),
+      idempotencyKey: key(),
+    });
     expect(next).toMatchObject({ ok: false, message: expect.stringMatching(/packed out/) });
   });
 
@@ -114,7 +169,15 @@ describe('jarring runs', () => {
     await signInAs(DEMO.crew);
     const held = await releasedLot(10_000, { stage: 'held' });
     const jar = await product();
-    const res = await createJarringRunAction({ lotId: held.id, productId: jar.id, jarCount: 1, runOn: today, sampleMode: 'net', samples: samples(345), idempotencyKey: key() });
+    const res = await createJarringRunAction({
+      lotId: held.id,
+      productId: jar.id,
+      jarCount: 1,
+      runOn: today,
+      sampleMode: 'net',
+      samples: samples(345),
+      idempotencyKey: key(),
+    });
     expect(res).toMatchObject({ ok: false, message: expect.stringMatching(/only a released lot/) });
   });
 
@@ -122,7 +185,15 @@ describe('jarring runs', () => {
     await signInAs(DEMO.crew);
     const lot = await releasedLot(20_000);
     const jar = await product();
-    const input = { lotId: lot.id, productId: jar.id, jarCount: 5, runOn: today, sampleMode: 'net' as const, samples: samples(345), idempotencyKey: key() };
+    const input = {
+      lotId: lot.id,
+      productId: jar.id,
+      jarCount: 5,
+      runOn: today,
+      sampleMode: 'net' as const,
+      samples: samples(345),
+      idempotencyKey: key(),
+    };
     const [a, b] = await Promise.all([createJarringRunAction(input), createJarringRunAction(input)]);
     expect(a.ok && b.ok && a.data.runId === b.data.runId).toBe(true);
     expect((await level(jar.id, lot.id))?.onHand).toBe(5);
@@ -132,19 +203,38 @@ describe('jarring runs', () => {
     await signInAs(DEMO.keeper);
     const lot = await releasedLot(20_000);
     const jar = await product();
-    const res = await createJarringRunAction({ lotId: lot.id, productId: jar.id, jarCount: 1, runOn: today, sampleMode: 'net', samples: samples(345), idempotencyKey: key() });
+    const res = await createJarringRunAction({
+      lotId: lot.id,
+      productId: jar.id,
+      jarCount: 1,
+      runOn: today,
+      sampleMode: 'net',
+      samples: samples(345),
+      idempotencyKey: key(),
+    });
     expect(res).toMatchObject({ ok: false, message: expect.stringMatching(/not allowed/) });
   });
 
   describe('US rule set (NIST Handbook 133)', () => {
-    beforeAll(async () => { await getDb().models.BusinessSetting.update({ fillRuleSet: 'nist' }, { where: { id: 1 } }); });
-    afterAll(async () => { await getDb().models.BusinessSetting.update({ fillRuleSet: 'oiml' }, { where: { id: 1 } }); });
+    beforeAll(async () => {
+      await getDb().models.BusinessSetting.update({ fillRuleSet: 'nist' }, { where: { id: 1 } });
+    });
+    afterAll(async () => {
+      await getDb().models.BusinessSetting.update({ fillRuleSet: 'oiml' }, { where: { id: 1 } });
+    });
 
     it('asks for the MAV (the handbook table is not encoded) and then checks average and MAV', async () => {
       await signInAs(DEMO.crew);
       const lot = await releasedLot(20_000);
       const jar = await product({ netGrams: 340, declaredUnit: 'oz', declaredAmount: 12 });
-      const base = { lotId: lot.id, productId: jar.id, jarCount: 4, runOn: today, sampleMode: 'net' as const, samples: samples(341, 342, 343) };
+      const base = {
+        lotId: lot.id,
+        productId: jar.id,
+        jarCount: 4,
+        runOn: today,
+        sampleMode: 'net' as const,
+        samples: samples(341, 342, 343),
+      };
       const noMav = await createJarringRunAction({ ...base, idempotencyKey: key() });
       expect(noMav.ok).toBe(false);
       expect(!noMav.ok && noMav.fieldErrors?.mavGrams).toMatch(/Handbook 133/);

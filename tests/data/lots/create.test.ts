@@ -1,7 +1,15 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/lib/db/index';
 import { parseLotCode } from '@/lib/domain/lot-code';
-import { saveContainerTypeAction, createLotAction, scanSuperAction, pickSupersAction, removeSuperAction, addContainerAction, changeStageAction } from '@/app/(back-office)/admin/lots/actions';
+import {
+  saveContainerTypeAction,
+  createLotAction,
+  scanSuperAction,
+  pickSupersAction,
+  removeSuperAction,
+  addContainerAction,
+  changeStageAction,
+} from '@/app/(back-office)/admin/lots/actions';
 import { GET as listLotsRoute } from '@/app/api/lots/route';
 import { DEMO, signInAs } from '@/tests/support/session';
 import { makePulledSupers } from '@/tests/support/lot-fixtures';
@@ -13,7 +21,11 @@ afterAll(closeDb);
 describe('lot codes', () => {
   it('20 lots created at once get 20 consecutive codes: no duplicate, no gap', async () => {
     await signInAs(DEMO.crew);
-    const results = await Promise.all(Array.from({ length: 20 }, (_, i) => createLotAction({ floralSource: `Parallel ${i}`, heather: false, notes: '' })));
+    const results = await Promise.all(
+      Array.from({ length: 20 }, (_, i) =>
+        createLotAction({ floralSource: `Parallel ${i}`, heather: false, notes: '' }),
+      ),
+    );
     expect(results.every((r) => r.ok)).toBe(true);
     const codes = results.map((r) => (r.ok ? r.data.code : ''));
     expect(new Set(codes).size).toBe(20);
@@ -21,9 +33,14 @@ describe('lot codes', () => {
     for (let i = 1; i < seqs.length; i++) expect(seqs[i]).toBe(seqs[i - 1] + 1);
     // and the sequence row agrees with the highest code handed out
     const { prefix, year2 } = parseLotCode(codes[0])!;
-    const [row] = await getDb().sequelize.query(`SELECT last_value FROM lot_sequences WHERE prefix = :prefix AND year % 100 = :y`, { replacements: { prefix, y: year2 }, plain: false });
+    const [row] = await getDb().sequelize.query(
+      `SELECT last_value FROM lot_sequences WHERE prefix = :prefix AND year % 100 = :y`,
+      { replacements: { prefix, y: year2 }, plain: false },
+    );
     expect(Math.max(...(row as { last_value: number }[]).map((r) => r.last_value))).toBe(seqs[seqs.length - 1]);
-    const audits = await getDb().models.AuditEntry.count({ where: { action: 'lot.create', entityId: results.map((r) => String(r.ok ? r.data.id : 0)) } });
+    const audits = await getDb().models.AuditEntry.count({
+      where: { action: 'lot.create', entityId: results.map((r) => String(r.ok ? r.data.id : 0)) },
+    });
     expect(audits).toBe(20);
   });
 
@@ -36,7 +53,10 @@ describe('lot codes', () => {
     const cleanUp = await failOnce('ct_fail_lot_insert', 'lots', `NEW.floral_source = 'Fails once'`, 'NEW.code');
     let failedCode = '';
     try {
-      const failed = await createLotAction({ floralSource: 'Fails once', heather: false, notes: '' }).then(() => null, (e: unknown) => e);
+      const failed = await createLotAction({ floralSource: 'Fails once', heather: false, notes: '' }).then(
+        () => null,
+        (e: unknown) => e,
+      );
       failedCode = /injected failure \(ct_fail_lot_insert\): (\S+)/.exec(String(failed))?.[1] ?? '';
     } finally {
       await cleanUp();
@@ -49,7 +69,10 @@ describe('lot codes', () => {
 
   it('keepers and customers cannot create lots', async () => {
     await signInAs(DEMO.keeper);
-    expect(await createLotAction({ floralSource: 'No', heather: false, notes: '' })).toMatchObject({ ok: false, message: /not allowed/ });
+    expect(await createLotAction({ floralSource: 'No', heather: false, notes: '' })).toMatchObject({
+      ok: false,
+      message: /not allowed/,
+    });
     await signInAs(DEMO.customer);
     expect(await createLotAction({ floralSource: 'No', heather: false, notes: '' })).toMatchObject({ ok: false });
   });
@@ -62,9 +85,18 @@ describe('supers into a lot', () => {
     const lot1 = await createLotAction({ floralSource: 'Linden', heather: false, notes: '' });
     const lot2 = await createLotAction({ floralSource: 'Linden', heather: false, notes: '' });
     if (!lot1.ok || !lot2.ok) throw new Error('lot not made');
-    expect(await scanSuperAction({ lotId: lot1.data.id, tagCode: ` ${tags[0].toLowerCase()} ` })).toMatchObject({ ok: true, data: { tagCode: tags[0] } });
-    expect(await scanSuperAction({ lotId: lot2.data.id, tagCode: tags[0] })).toMatchObject({ ok: false, message: new RegExp(`already in lot ${lot1.data.code}`) });
-    expect(await scanSuperAction({ lotId: lot1.data.id, tagCode: 'NO-SUCH-TAG' })).toMatchObject({ ok: false, message: /No super with tag/ });
+    expect(await scanSuperAction({ lotId: lot1.data.id, tagCode: ` ${tags[0].toLowerCase()} ` })).toMatchObject({
+      ok: true,
+      data: { tagCode: tags[0] },
+    });
+    expect(await scanSuperAction({ lotId: lot2.data.id, tagCode: tags[0] })).toMatchObject({
+      ok: false,
+      message: new RegExp(`already in lot ${lot1.data.code}`),
+    });
+    expect(await scanSuperAction({ lotId: lot1.data.id, tagCode: 'NO-SUCH-TAG' })).toMatchObject({
+      ok: false,
+      message: /No super with tag/,
+    });
   });
 
   it('a flagged super is refused without an owner override, and recorded when the owner overrides', async () => {
@@ -72,22 +104,38 @@ describe('supers into a lot', () => {
     await signInAs(DEMO.crew);
     const lot = await createLotAction({ floralSource: 'Wildflower', heather: false, notes: '' });
     if (!lot.ok) throw new Error('lot not made');
-    const crewTry = await scanSuperAction({ lotId: lot.data.id, tagCode: tags[0], overrideReason: 'crew says it is fine' });
+    const crewTry = await scanSuperAction({
+      lotId: lot.data.id,
+      tagCode: tags[0],
+      overrideReason: 'crew says it is fine',
+    });
     expect(crewTry).toMatchObject({ ok: false, message: /flagged.*Only the owner/ });
-    expect(await pickSupersAction({ lotId: lot.data.id, superPullIds: [supers[1].id, supers[0].id] })).toMatchObject({ ok: false, message: /flagged/ });
+    expect(await pickSupersAction({ lotId: lot.data.id, superPullIds: [supers[1].id, supers[0].id] })).toMatchObject({
+      ok: false,
+      message: /flagged/,
+    });
     // all or nothing: the unflagged one did not go in either
     expect((await getDb().models.SuperPull.findByPk(supers[1].id))!.lotId).toBeNull();
 
     await signInAs(DEMO.owner);
-    expect(await scanSuperAction({ lotId: lot.data.id, tagCode: tags[0] })).toMatchObject({ ok: false, message: /Write an override reason/ });
-    const ok = await scanSuperAction({ lotId: lot.data.id, tagCode: tags[0], overrideReason: 'Syrup ended 6 weeks before the super went on; checked the log' });
+    expect(await scanSuperAction({ lotId: lot.data.id, tagCode: tags[0] })).toMatchObject({
+      ok: false,
+      message: /Write an override reason/,
+    });
+    const ok = await scanSuperAction({
+      lotId: lot.data.id,
+      tagCode: tags[0],
+      overrideReason: 'Syrup ended 6 weeks before the super went on; checked the log',
+    });
     expect(ok).toMatchObject({ ok: true, data: { overridden: true } });
     const sp = await getDb().models.SuperPull.findByPk(supers[0].id);
     expect(sp!.lotId).toBe(lot.data.id);
     expect(sp!.overrideReason).toMatch(/Syrup ended/);
     const owner = await getDb().models.User.findOne({ where: { email: DEMO.owner } });
     expect(sp!.overrideBy).toBe(owner!.id);
-    const audit = await getDb().models.AuditEntry.findOne({ where: { action: 'super.override', entityId: String(sp!.id) } });
+    const audit = await getDb().models.AuditEntry.findOne({
+      where: { action: 'super.override', entityId: String(sp!.id) },
+    });
     expect(audit?.reason).toMatch(/Syrup ended/);
     expect(audit?.actorUserId).toBe(owner!.id);
   });
@@ -99,7 +147,11 @@ describe('the list of pulled supers to pick from', () => {
     const { tags, supers, yard, colony } = await makePulledSupers(2, { flagged: [false, true] });
     const byYard = await listPullableSupers({ yardId: yard.id });
     expect(byYard.map((s) => s.tagCode).sort()).toEqual([...tags].sort());
-    expect(byYard.find((s) => s.id === supers[1].id)).toMatchObject({ flagged: true, yardName: yard.name, colonyCode: colony.code });
+    expect(byYard.find((s) => s.id === supers[1].id)).toMatchObject({
+      flagged: true,
+      yardName: yard.name,
+      colonyCode: colony.code,
+    });
     expect((await listPullableSupers({ q: colony.code })).length).toBe(2);
     expect((await listPullableSupers({ q: tags[0] })).map((s) => s.id)).toEqual([supers[0].id]);
     const lot = await createLotAction({ floralSource: 'Pick test', heather: false, notes: '' });
@@ -116,13 +168,19 @@ describe('taking a super out', () => {
     const lot = await createLotAction({ floralSource: 'Out test', heather: false, notes: '' });
     if (!lot.ok) throw new Error('lot not made');
     for (const t of tags) await scanSuperAction({ lotId: lot.data.id, tagCode: t });
-    expect(await removeSuperAction({ lotId: lot.data.id, superPullId: supers[0].id, reason: 'Scanned the wrong box' })).toEqual({ ok: true });
+    expect(
+      await removeSuperAction({ lotId: lot.data.id, superPullId: supers[0].id, reason: 'Scanned the wrong box' }),
+    ).toEqual({ ok: true });
     expect((await getDb().models.SuperPull.findByPk(supers[0].id))!.lotId).toBeNull();
-    const audit = await getDb().models.AuditEntry.findOne({ where: { entityType: 'lot', entityId: String(lot.data.id), action: 'lot.super.remove' } });
+    const audit = await getDb().models.AuditEntry.findOne({
+      where: { entityType: 'lot', entityId: String(lot.data.id), action: 'lot.super.remove' },
+    });
     expect(audit?.reason).toBe('Scanned the wrong box');
     await addContainerAction({ lotId: lot.data.id, label: 'B', gross: 10, tare: 1, unit: 'kg' });
     await changeStageAction({ lotId: lot.data.id, target: 'extracted' });
-    expect(await removeSuperAction({ lotId: lot.data.id, superPullId: supers[1].id, reason: 'Too late for this' })).toMatchObject({ ok: false, message: /only be taken out while the lot is gathering/ });
+    expect(
+      await removeSuperAction({ lotId: lot.data.id, superPullId: supers[1].id, reason: 'Too late for this' }),
+    ).toMatchObject({ ok: false, message: /only be taken out while the lot is gathering/ });
   });
 });
 
@@ -150,7 +208,9 @@ describe('lot list (JSON route)', () => {
     expect((await listLotsRoute(new Request('http://t/api/lots'))).status).toBe(403);
     await signInAs(DEMO.crew);
     expect((await listLotsRoute(new Request('http://t/api/lots?sort=password'))).status).toBe(400);
-    const byNet = await (await listLotsRoute(new Request('http://t/api/lots?sort=netGrams&dir=desc&pageSize=3'))).json();
+    const byNet = await (
+      await listLotsRoute(new Request('http://t/api/lots?sort=netGrams&dir=desc&pageSize=3'))
+    ).json();
     expect(byNet.rows[0].netGrams).toBeGreaterThanOrEqual(byNet.rows[1].netGrams);
   });
 });
@@ -163,10 +223,17 @@ describe('container types', () => {
     const id = made.ok ? made.data.id : 0;
     // 130 lb × 453.59237 g/lb = 58 967.0081 g → 58 967 g
     expect((await getDb().models.ContainerType.findByPk(id))!.usualTareGrams).toBe(58_967);
-    expect(await saveContainerTypeAction({ name: 'Tote 1000 L', usualTare: 1, unit: 'kg', active: true })).toMatchObject({ ok: false, message: /already a container type/ });
-    expect(await saveContainerTypeAction({ id, name: 'Tote 1000 L', usualTare: 58, unit: 'kg', active: false })).toMatchObject({ ok: true });
-    expect((await getDb().models.ContainerType.findByPk(id))).toMatchObject({ usualTareGrams: 58_000, active: false });
+    expect(
+      await saveContainerTypeAction({ name: 'Tote 1000 L', usualTare: 1, unit: 'kg', active: true }),
+    ).toMatchObject({ ok: false, message: /already a container type/ });
+    expect(
+      await saveContainerTypeAction({ id, name: 'Tote 1000 L', usualTare: 58, unit: 'kg', active: false }),
+    ).toMatchObject({ ok: true });
+    expect(await getDb().models.ContainerType.findByPk(id)).toMatchObject({ usualTareGrams: 58_000, active: false });
     await signInAs(DEMO.crew);
-    expect(await saveContainerTypeAction({ name: 'Crew tub', usualTare: 1, unit: 'kg', active: true })).toMatchObject({ ok: false, message: /not allowed/ });
+    expect(await saveContainerTypeAction({ name: 'Crew tub', usualTare: 1, unit: 'kg', active: true })).toMatchObject({
+      ok: false,
+      message: /not allowed/,
+    });
   });
 });

@@ -8,7 +8,14 @@ import { TINY_PNG } from '@/tests/support/files';
 
 afterAll(closeDb);
 
-const base = { description: '', netUnit: 'g' as const, containerKind: 'glass jar', containerGrams: 190, price: '8.50', active: true };
+const base = {
+  description: '',
+  netUnit: 'g' as const,
+  containerKind: 'glass jar',
+  containerGrams: 190,
+  price: '8.50',
+  active: true,
+};
 let n = 0;
 const unique = () => `${Date.now().toString(36)}${n++}`;
 
@@ -16,7 +23,13 @@ describe('products', () => {
   it('makes the GTIN from the owner’s GS1 company prefix and an item reference', async () => {
     await signInAs(DEMO.owner);
     await getDb().models.BusinessSetting.update({ gs1CompanyPrefix: '0614141' }, { where: { id: 1 } });
-    const res = await saveProductAction({ ...base, name: `Spring blossom ${unique()}`, netAmount: 340, gtinMode: 'made', itemReference: '12345' });
+    const res = await saveProductAction({
+      ...base,
+      name: `Spring blossom ${unique()}`,
+      netAmount: 340,
+      gtinMode: 'made',
+      itemReference: '12345',
+    });
     expect(res.ok).toBe(true);
     // 0614141 + 12345 → data 061414112345; GS1 General Specifications §7.9.1 weights 3,1,3,1… from the right:
     // 5·3+4+3·3+2+1·3+1+4·3+1+4·3+1+6·3+0 = 78 → check digit (10 − 8) mod 10 = 2.
@@ -28,7 +41,14 @@ describe('products', () => {
 
   it('stores ounces as grams with the declared unit, and money as cents', async () => {
     await signInAs(DEMO.owner);
-    const res = await saveProductAction({ ...base, name: `Linden ${unique()}`, netAmount: 12, netUnit: 'oz', price: '12.99', gtinMode: 'none' });
+    const res = await saveProductAction({
+      ...base,
+      name: `Linden ${unique()}`,
+      netAmount: 12,
+      netUnit: 'oz',
+      price: '12.99',
+      gtinMode: 'none',
+    });
     const row = await getDb().models.Product.findByPk(res.ok ? res.data.id : 0);
     // 12 oz × 28.349523125 g = 340.19 g → 340 g stored
     expect(row).toMatchObject({ netGrams: 340, declaredUnit: 'oz', declaredAmount: 12, priceCents: 1299, gtin: null });
@@ -37,12 +57,30 @@ describe('products', () => {
   it('refuses a typed GTIN with a wrong check digit, and a GTIN another product has', async () => {
     await signInAs(DEMO.owner);
     // GS1 General Specifications worked example: 629104150021 → check digit 3, so …4 is wrong.
-    const bad = await saveProductAction({ ...base, name: `Bad ${unique()}`, netAmount: 250, gtinMode: 'typed', gtin: '6291041500214' });
+    const bad = await saveProductAction({
+      ...base,
+      name: `Bad ${unique()}`,
+      netAmount: 250,
+      gtinMode: 'typed',
+      gtin: '6291041500214',
+    });
     expect(bad).toMatchObject({ ok: false, fieldErrors: { gtin: expect.stringMatching(/check digit/) } });
     const gtin = makeGtin('0614141', `8${String(Date.now() % 10_000).padStart(4, '0')}`);
-    const good = await saveProductAction({ ...base, name: `Good ${unique()}`, netAmount: 250, gtinMode: 'typed', gtin });
+    const good = await saveProductAction({
+      ...base,
+      name: `Good ${unique()}`,
+      netAmount: 250,
+      gtinMode: 'typed',
+      gtin,
+    });
     expect(good).toMatchObject({ ok: true, data: { gtin } });
-    const twice = await saveProductAction({ ...base, name: `Twice ${unique()}`, netAmount: 250, gtinMode: 'typed', gtin });
+    const twice = await saveProductAction({
+      ...base,
+      name: `Twice ${unique()}`,
+      netAmount: 250,
+      gtinMode: 'typed',
+      gtin,
+    });
     expect(twice).toMatchObject({ ok: false, message: expect.stringMatching(/already has this GTIN/) });
   });
 
@@ -57,7 +95,9 @@ describe('products', () => {
     async function upload(id: number, bytes: Uint8Array<ArrayBuffer>, type: string, name = 'photo.png') {
       const form = new FormData();
       form.set('photo', new File([bytes], name, { type }));
-      return photoPost(new Request(`http://test/api/products/${id}/photo`, { method: 'POST', body: form }), { params: Promise.resolve({ id: String(id) }) });
+      return photoPost(new Request(`http://test/api/products/${id}/photo`, { method: 'POST', body: form }), {
+        params: Promise.resolve({ id: String(id) }),
+      });
     }
 
     it('stores a PNG checked by content and serves it with its own type and nosniff', async () => {
@@ -67,7 +107,9 @@ describe('products', () => {
       const res = await upload(id, png, 'image/png');
       expect(res.status).toBe(201);
       await signInAs(null);
-      const got = await photoGet(new Request(`http://test/api/products/${id}/photo`), { params: Promise.resolve({ id: String(id) }) });
+      const got = await photoGet(new Request(`http://test/api/products/${id}/photo`), {
+        params: Promise.resolve({ id: String(id) }),
+      });
       expect(got.status).toBe(200);
       expect(got.headers.get('content-type')).toBe('image/png');
       expect(got.headers.get('x-content-type-options')).toBe('nosniff');
@@ -76,9 +118,19 @@ describe('products', () => {
 
     it('refuses HTML claiming to be an image, files over 5 MB, and non-owners', async () => {
       await signInAs(DEMO.owner);
-      const created = await saveProductAction({ ...base, name: `Photo2 ${unique()}`, netAmount: 250, gtinMode: 'none' });
+      const created = await saveProductAction({
+        ...base,
+        name: `Photo2 ${unique()}`,
+        netAmount: 250,
+        gtinMode: 'none',
+      });
       const id = created.ok ? created.data.id : 0;
-      const html = await upload(id, new TextEncoder().encode('<html><script>alert(1)</script></html>'), 'image/jpeg', 'x.jpg');
+      const html = await upload(
+        id,
+        new TextEncoder().encode('<html><script>alert(1)</script></html>'),
+        'image/jpeg',
+        'x.jpg',
+      );
       expect(html.status).toBe(415);
       const big = new Uint8Array(5 * 1024 * 1024 + 1);
       big.set([0xff, 0xd8, 0xff]);

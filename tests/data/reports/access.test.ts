@@ -14,8 +14,14 @@ import { buildFixture, type Fixture } from '@/tests/support/report-fixtures';
 
 const SEASON = 2032;
 let fx: Fixture;
-const as = (id: number, role: SessionUser['role']): SessionUser => ({ id, name: 'x', email: 'x@hollowmere.test', role });
-const pdfReq = (keeperId: number) => pdfGET(new Request(`http://127.0.0.1/api/reports/keeper-pdf?keeper=${keeperId}&season=${SEASON}`));
+const as = (id: number, role: SessionUser['role']): SessionUser => ({
+  id,
+  name: 'x',
+  email: 'x@hollowmere.test',
+  role,
+});
+const pdfReq = (keeperId: number) =>
+  pdfGET(new Request(`http://127.0.0.1/api/reports/keeper-pdf?keeper=${keeperId}&season=${SEASON}`));
 
 beforeAll(async () => {
   fx = await buildFixture(SEASON, 'RA');
@@ -23,14 +29,24 @@ beforeAll(async () => {
 afterAll(closeDb);
 
 describe('a keeper sees only their own colonies', () => {
-  it('page data: own colonies only; another keeper\'s report is null (404)', async () => {
+  it("page data: own colonies only; another keeper's report is null (404)", async () => {
     const mine = (await getSeasonReport(as(fx.keeper, 'keeper'), { season: SEASON }))!;
-    expect(mine.colonies.map((c) => c.code).filter((c) => c.startsWith('RA-')).sort()).toEqual(['RA-A1', 'RA-A2']);
+    expect(
+      mine.colonies
+        .map((c) => c.code)
+        .filter((c) => c.startsWith('RA-'))
+        .sort(),
+    ).toEqual(['RA-A1', 'RA-A2']);
     expect(mine.colonies.every((c) => c.keeperId === fx.keeper)).toBe(true);
     expect(await getSeasonReport(as(fx.keeper, 'keeper'), { season: SEASON, keeperId: fx.keeper2 })).toBeNull();
     expect(await getSeasonReport(as(fx.owner, 'crew'), { season: SEASON })).toBeNull();
     const all = (await getSeasonReport(as(fx.owner, 'owner'), { season: SEASON, keeperId: fx.keeper2 }))!;
-    expect(all.colonies.map((c) => c.code).filter((c) => c.startsWith('RA-')).sort()).toEqual(['RA-B1', 'RA-B2']);
+    expect(
+      all.colonies
+        .map((c) => c.code)
+        .filter((c) => c.startsWith('RA-'))
+        .sort(),
+    ).toEqual(['RA-B1', 'RA-B2']);
     expect(all.colonies.every((c) => c.keeperId === fx.keeper2)).toBe(true);
   });
 
@@ -41,7 +57,9 @@ describe('a keeper sees only their own colonies', () => {
     const text = await own.text();
     expect(text).toContain('RA-A1');
     expect(text).not.toContain('RA-B1');
-    const other = await csvGET(new Request(`http://127.0.0.1/api/reports/csv?table=colonies&season=${SEASON}&keeper=${fx.keeper2}`));
+    const other = await csvGET(
+      new Request(`http://127.0.0.1/api/reports/csv?table=colonies&season=${SEASON}&keeper=${fx.keeper2}`),
+    );
     expect(other.status).toBe(404);
     const bad = await csvGET(new Request(`http://127.0.0.1/api/reports/csv?table=secrets&season=${SEASON}`));
     expect(bad.status).toBe(400);
@@ -49,12 +67,16 @@ describe('a keeper sees only their own colonies', () => {
     expect((await csvGET(new Request(`http://127.0.0.1/api/reports/csv?season=${SEASON}`))).status).toBe(403);
   });
 
-  it('PDF route: own report is a PDF, another keeper\'s is a 404; the owner may read any', async () => {
+  it("PDF route: own report is a PDF, another keeper's is a 404; the owner may read any", async () => {
     await signInAs(DEMO.keeper);
     const own = await pdfReq(fx.keeper);
     expect(own.status).toBe(200);
     expect(own.headers.get('content-type')).toBe('application/pdf');
-    expect(Buffer.from(await own.arrayBuffer()).subarray(0, 5).toString()).toBe('%PDF-');
+    expect(
+      Buffer.from(await own.arrayBuffer())
+        .subarray(0, 5)
+        .toString(),
+    ).toBe('%PDF-');
     expect((await pdfReq(fx.keeper2)).status).toBe(404);
     await signInAs(DEMO.owner);
     expect((await pdfReq(fx.keeper2)).status).toBe(200);
@@ -69,11 +91,17 @@ describe('recall list', () => {
   it('lists exactly the customers whose orders were allocated (sold) to the lot', async () => {
     // Lot B: customer two bought 2 of its jars; customer one 1 jar of the blend C made from it.
     const rows = await getRecallList(fx.lotB);
-    expect(rows.map((r) => [r.email, r.lotCode, r.jars])).toEqual([['ra-one@example.test', 'RA-003', 1], ['ra-two@example.test', 'RA-002', 2]]);
+    expect(rows.map((r) => [r.email, r.lotCode, r.jars])).toEqual([
+      ['ra-one@example.test', 'RA-003', 1],
+      ['ra-two@example.test', 'RA-002', 2],
+    ]);
     // Lot A: customer one (3 jars of A, and 1 of blend C made from A); customer three only reserved, not sold.
     const a = await getRecallList(fx.lotA);
     expect(new Set(a.map((r) => r.email))).toEqual(new Set(['ra-one@example.test']));
-    expect(a.map((r) => [r.lotCode, r.jars]).sort()).toEqual([['RA-001', 3], ['RA-003', 1]]);
+    expect(a.map((r) => [r.lotCode, r.jars]).sort()).toEqual([
+      ['RA-001', 3],
+      ['RA-003', 1],
+    ]);
     expect(a[0].address).toContain('Mill Lane');
     expect(await getRecallList(fx.lotD)).toEqual([]);
   });
@@ -83,11 +111,14 @@ describe('recall list', () => {
     const [lot] = await sequelize.query<{ id: number }>(
       `SELECT oa.lot_id AS id FROM order_allocations oa WHERE oa.state = 'sold'
          AND NOT EXISTS (SELECT 1 FROM lot_parents lp WHERE lp.parent_lot_id = oa.lot_id)
-       GROUP BY oa.lot_id ORDER BY COUNT(*) DESC LIMIT 1`, { type: QueryTypes.SELECT });
+       GROUP BY oa.lot_id ORDER BY COUNT(*) DESC LIMIT 1`,
+      { type: QueryTypes.SELECT },
+    );
     const expected = await sequelize.query<{ email: string; jars: number }>(
       `SELECT o.email, SUM(oa.quantity)::int AS jars FROM order_allocations oa JOIN order_lines ol ON ol.id = oa.order_line_id
        JOIN orders o ON o.id = ol.order_id WHERE oa.lot_id = :id AND oa.state = 'sold' GROUP BY o.email ORDER BY o.email`,
-      { type: QueryTypes.SELECT, replacements: { id: lot.id } });
+      { type: QueryTypes.SELECT, replacements: { id: lot.id } },
+    );
     expect(expected.length).toBeGreaterThan(0);
     const rows = await getRecallList(lot.id);
     const got = new Map<string, number>();
@@ -135,16 +166,27 @@ describe('trace input', () => {
     const { sequelize } = getDb();
     await sequelize.query(`UPDATE super_pulls SET tag_code = 'RA-T1' WHERE id = :id`, { replacements: { id: fx.s4 } });
     const [{ id: kind }] = await sequelize.query<{ id: number }>(
-      `INSERT INTO treatment_kinds (name, supers_allowed, waiting_days, created_at, updated_at) VALUES ('RA strip', false, 14, NOW(), NOW()) RETURNING id`, { type: QueryTypes.SELECT });
-    await sequelize.query(`INSERT INTO treatments (colony_id, treatment_kind_id, applied_on, removed_on, supers_allowed, waiting_days, created_at, updated_at)
-      VALUES (:c, :k, '${SEASON}-04-01', '${SEASON}-04-25', false, 14, NOW(), NOW()), (:c, :k, '${SEASON}-09-01', NULL, false, 14, NOW(), NOW())`, { replacements: { c: fx.c3, k: kind } });
-    await sequelize.query(`INSERT INTO feedings (colony_id, kind, started_on, ended_on, created_at, updated_at) VALUES (:c, 'sugar_syrup', '${SEASON}-06-01', '${SEASON}-06-03', NOW(), NOW())`, { replacements: { c: fx.c3 } });
+      `INSERT INTO treatment_kinds (name, supers_allowed, waiting_days, created_at, updated_at) VALUES ('RA strip', false, 14, NOW(), NOW()) RETURNING id`,
+      { type: QueryTypes.SELECT },
+    );
+    await sequelize.query(
+      `INSERT INTO treatments (colony_id, treatment_kind_id, applied_on, removed_on, supers_allowed, waiting_days, created_at, updated_at)
+      VALUES (:c, :k, '${SEASON}-04-01', '${SEASON}-04-25', false, 14, NOW(), NOW()), (:c, :k, '${SEASON}-09-01', NULL, false, 14, NOW(), NOW())`,
+      { replacements: { c: fx.c3, k: kind } },
+    );
+    await sequelize.query(
+      `INSERT INTO feedings (colony_id, kind, started_on, ended_on, created_at, updated_at) VALUES (:c, 'sugar_syrup', '${SEASON}-06-01', '${SEASON}-06-03', NOW(), NOW())`,
+      { replacements: { c: fx.c3 } },
+    );
     const r = await traceInput('ra-t1');
     expect(r.match?.kind).toBe('super');
     expect(r.lots.map((l) => l.lot.code)).toEqual(['RA-002']);
     const events = r.lots[0].events.filter((e) => e.colonyCode === 'RA-B1');
     // The April treatment's window runs to 25 April + 14 days = 9 May, past put-on (1 May); the September one started after the pull.
-    expect(events.map((e) => [e.kind, e.fromOn]).sort()).toEqual([['feeding', `${SEASON}-06-01`], ['treatment', `${SEASON}-04-01`]]);
+    expect(events.map((e) => [e.kind, e.fromOn]).sort()).toEqual([
+      ['feeding', `${SEASON}-06-01`],
+      ['treatment', `${SEASON}-04-01`],
+    ]);
   });
 });
 
@@ -157,7 +199,9 @@ describe('sending season reports', () => {
     expect(first).toMatchObject({ ok: true, data: { queued: true } });
     const again = await sendKeeperReportAction({ season: SEASON, keeperId: fx.keeper });
     expect(again).toMatchObject({ ok: true, data: { queued: false } });
-    const rows = await getDb().models.OutboxMessage.findAll({ where: { dedupeKey: `season-report-${SEASON}-${fx.keeper}` } });
+    const rows = await getDb().models.OutboxMessage.findAll({
+      where: { dedupeKey: `season-report-${SEASON}-${fx.keeper}` },
+    });
     expect(rows).toHaveLength(1);
     expect(rows[0].toAddress).toBe(DEMO.keeper);
     expect(rows[0].attachments[0].contentType).toBe('application/pdf');

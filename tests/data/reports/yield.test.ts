@@ -3,7 +3,13 @@ import { QueryTypes } from 'sequelize';
 import { closeDb, getDb } from '@/lib/db/index';
 import { getSeasonReport } from '@/lib/data/reports/yield-report';
 import { seasonColonyTotals, superEstimatesFrom } from '@/lib/data/reports/yield-sql';
-import { allocateLotTree, superHoneyGrams, DEFAULT_SUPER_ESTIMATES, type LotNode, type SuperDepth } from '@/lib/domain/yield-allocation';
+import {
+  allocateLotTree,
+  superHoneyGrams,
+  DEFAULT_SUPER_ESTIMATES,
+  type LotNode,
+  type SuperDepth,
+} from '@/lib/domain/yield-allocation';
 import type { SessionUser } from '@/lib/auth/session';
 import { buildFixture, type Fixture } from '@/tests/support/report-fixtures';
 
@@ -19,11 +25,24 @@ afterAll(closeDb);
 /** The pure reference: every lot through allocateLotTree, supers summed per colony. */
 async function pureColonyGrams(lotIds: number[], own: Map<number, number>) {
   const { sequelize } = getDb();
-  const supers = await sequelize.query<{ id: number; colonyId: number; lotId: number; full: number | null; empty: number | null; depth: SuperDepth; frames: number; capped: number | null }>(
+  const supers = await sequelize.query<{
+    id: number;
+    colonyId: number;
+    lotId: number;
+    full: number | null;
+    empty: number | null;
+    depth: SuperDepth;
+    frames: number;
+    capped: number | null;
+  }>(
     `SELECT id, colony_id AS "colonyId", lot_id AS "lotId", full_grams AS full, empty_grams AS empty, depth, frame_count AS frames, capped_frames AS capped
-     FROM super_pulls WHERE lot_id IS NOT NULL`, { type: QueryTypes.SELECT });
+     FROM super_pulls WHERE lot_id IS NOT NULL`,
+    { type: QueryTypes.SELECT },
+  );
   const parents = await sequelize.query<{ child: number; parent: number; grams: number }>(
-    `SELECT child_lot_id AS child, parent_lot_id AS parent, grams FROM lot_parents`, { type: QueryTypes.SELECT });
+    `SELECT child_lot_id AS child, parent_lot_id AS parent, grams FROM lot_parents`,
+    { type: QueryTypes.SELECT },
+  );
   const lotSet = new Set([...supers.map((s) => s.lotId), ...parents.flatMap((p) => [p.child, p.parent])]);
   const colonyOf = new Map(supers.map((s) => [String(s.id), s.colonyId]));
   const result = new Map<number, number>();
@@ -32,10 +51,15 @@ async function pureColonyGrams(lotIds: number[], own: Map<number, number>) {
     const nodes: LotNode[] = [...lotSet].map((id) => ({
       id: String(id),
       netGrams: own.get(id) ?? 0,
-      supers: supers.filter((s) => s.lotId === id).map((s) => ({
-        id: String(s.id),
-        grams: superHoneyGrams({ fullGrams: s.full, emptyGrams: s.empty, depth: s.depth, frameCount: s.frames, cappedFrames: s.capped }, DEFAULT_SUPER_ESTIMATES).grams,
-      })),
+      supers: supers
+        .filter((s) => s.lotId === id)
+        .map((s) => ({
+          id: String(s.id),
+          grams: superHoneyGrams(
+            { fullGrams: s.full, emptyGrams: s.empty, depth: s.depth, frameCount: s.frames, cappedFrames: s.capped },
+            DEFAULT_SUPER_ESTIMATES,
+          ).grams,
+        })),
       parents: parents.filter((p) => p.child === id).map((p) => ({ lotId: String(p.parent), grams: p.grams })),
     }));
     for (const [superId, grams] of Object.entries(allocateLotTree(nodes, String(lotId)))) {
@@ -53,7 +77,9 @@ describe('season report totals', () => {
     const [{ net, given }] = await sequelize.query<{ net: number; given: number }>(
       `SELECT (SELECT SUM(net_grams) FROM lots WHERE extracted_on BETWEEN '2026-01-01' AND '2026-12-31')::bigint AS net,
               (SELECT COALESCE(SUM(lp.grams), 0) FROM lot_parents lp JOIN lots l ON l.id = lp.parent_lot_id
-               WHERE l.extracted_on BETWEEN '2026-01-01' AND '2026-12-31')::bigint AS given`, { type: QueryTypes.SELECT });
+               WHERE l.extracted_on BETWEEN '2026-01-01' AND '2026-12-31')::bigint AS given`,
+      { type: QueryTypes.SELECT },
+    );
     expect(net).toBeGreaterThan(0);
     const report = (await getSeasonReport(owner(fx.owner), { season: 2026 }))!;
     expect(report.totals.lotGrams).toBe(net - given);
@@ -79,7 +105,10 @@ describe('season report totals', () => {
   it('matches the pure allocateLotTree per colony within 1 g per share', async () => {
     const report = (await getSeasonReport(owner(fx.owner), { season: SEASON }))!;
     const own = new Map(report.lots.map((l) => [l.id, l.ownGrams]));
-    const pure = await pureColonyGrams(report.lots.map((l) => l.id), own);
+    const pure = await pureColonyGrams(
+      report.lots.map((l) => l.id),
+      own,
+    );
     for (const colonyId of [fx.c1, fx.c2, fx.c3]) {
       const row = report.colonies.find((c) => c.colonyId === colonyId)!;
       expect(Math.abs(row.honeyGrams - pure.grams.get(colonyId)!)).toBeLessThanOrEqual(pure.shares.get(colonyId)!);

@@ -4,14 +4,32 @@ import { POST as checkoutPOST } from '@/app/api/checkout/route';
 import { GET as cancelledGET } from '@/app/(storefront)/checkout/cancelled/route';
 import { releaseOverdueReservations } from '@/lib/data/shop/checkout';
 import { signInAs, setRequestHeaders } from '@/tests/support/session';
-import { guest, hook, makeProduct, orderOf, startShopFake, stockOf, waitUntil, type ShopFake } from '@/tests/support/shop';
+import {
+  guest,
+  hook,
+  makeProduct,
+  orderOf,
+  startShopFake,
+  stockOf,
+  waitUntil,
+  type ShopFake,
+} from '@/tests/support/shop';
 
 let shop: ShopFake;
-beforeAll(async () => { shop = await startShopFake(); });
-afterAll(async () => { await shop?.close(); await closeDb(); });
-beforeEach(async () => { setRequestHeaders({}); await signInAs(null); });
+beforeAll(async () => {
+  shop = await startShopFake();
+});
+afterAll(async () => {
+  await shop?.close();
+  await closeDb();
+});
+beforeEach(async () => {
+  setRequestHeaders({});
+  await signInAs(null);
+});
 
-const post = (body: unknown) => checkoutPOST(new Request('http://127.0.0.1/api/checkout', { method: 'POST', body: JSON.stringify(body) }));
+const post = (body: unknown) =>
+  checkoutPOST(new Request('http://127.0.0.1/api/checkout', { method: 'POST', body: JSON.stringify(body) }));
 
 describe('checkout', () => {
   it('reserves oldest best-before first at our price, whatever the browser says', async () => {
@@ -28,7 +46,9 @@ describe('checkout', () => {
       { lotId: p.lotIds[0], onHand: 3, reserved: 3 },
       { lotId: p.lotIds[1], onHand: 10, reserved: 2 },
     ]);
-    const session = await fetch(`${shop.fake.url}/v1/checkout/sessions/${order?.stripeSessionId}`, { headers: { authorization: 'Bearer sk_test_shop' } }).then((r) => r.json());
+    const session = await fetch(`${shop.fake.url}/v1/checkout/sessions/${order?.stripeSessionId}`, {
+      headers: { authorization: 'Bearer sk_test_shop' },
+    }).then((r) => r.json());
     expect(session.amount_total).toBe(5 * 1450);
     expect(session.metadata.orderId).toBe(String(order?.id));
   });
@@ -44,7 +64,11 @@ describe('checkout', () => {
   it('prices shipping by the parcel weight band (honey plus jar)', async () => {
     // 2 × (340 + 180) g = 1040 g → the 3000 g band of the demo settings, 895 cents.
     const p = await makeProduct('ship', [5], 1000);
-    const res = await post({ ...guest([{ productId: p.productId, quantity: 2 }]), fulfilment: 'ship', address: { line1: '1 Reed St', city: 'Marrow', postalCode: 'MV1 2AB', country: 'US' } });
+    const res = await post({
+      ...guest([{ productId: p.productId, quantity: 2 }]),
+      fulfilment: 'ship',
+      address: { line1: '1 Reed St', city: 'Marrow', postalCode: 'MV1 2AB', country: 'US' },
+    });
     expect(res.status).toBe(200);
     const order = await orderOf(((await res.json()) as { number: string }).number);
     expect(order?.shippingCents).toBe(895);
@@ -53,20 +77,29 @@ describe('checkout', () => {
 
   it('an expired session releases its reservation', async () => {
     const p = await makeProduct('expire', [4]);
-    const { number } = (await (await post(guest([{ productId: p.productId, quantity: 4 }]))).json()) as { number: string };
+    const { number } = (await (await post(guest([{ productId: p.productId, quantity: 4 }]))).json()) as {
+      number: string;
+    };
     expect((await stockOf(p.productId))[0].reserved).toBe(4);
     const order = await orderOf(number);
     expect((await hook(shop.fake, `/_fake/sessions/${order?.stripeSessionId}/expire`)).status).toBe(200);
-    const after = await waitUntil(() => orderOf(number), (o) => o?.status === 'expired');
+    const after = await waitUntil(
+      () => orderOf(number),
+      (o) => o?.status === 'expired',
+    );
     expect(after?.status).toBe('expired');
     expect((await stockOf(p.productId))[0]).toMatchObject({ onHand: 4, reserved: 0 });
-    const allocations = await getDb().models.OrderAllocation.findAll({ include: [{ association: 'line', where: { orderId: after?.id } }] });
+    const allocations = await getDb().models.OrderAllocation.findAll({
+      include: [{ association: 'line', where: { orderId: after?.id } }],
+    });
     expect(allocations.map((a) => a.state)).toEqual(['released']);
   });
 
   it('the sweep releases reservations past their time', async () => {
     const p = await makeProduct('sweep', [3]);
-    const { number } = (await (await post(guest([{ productId: p.productId, quantity: 3 }]))).json()) as { number: string };
+    const { number } = (await (await post(guest([{ productId: p.productId, quantity: 3 }]))).json()) as {
+      number: string;
+    };
     await releaseOverdueReservations(new Date(Date.now() + 31 * 60_000));
     expect((await orderOf(number))?.status).toBe('expired');
     expect((await stockOf(p.productId))[0].reserved).toBe(0);
@@ -74,17 +107,25 @@ describe('checkout', () => {
 
   it('50 simultaneous checkouts for 10 remaining jars sell exactly 10', async () => {
     const p = await makeProduct('rush', [4, 6]);
-    const answers = await Promise.all(Array.from({ length: 50 }, () => post(guest([{ productId: p.productId, quantity: 1 }]))));
+    const answers = await Promise.all(
+      Array.from({ length: 50 }, () => post(guest([{ productId: p.productId, quantity: 1 }]))),
+    );
     const statuses = answers.map((a) => a.status);
     expect(statuses.filter((s) => s === 200)).toHaveLength(10);
     expect(statuses.filter((s) => s === 409)).toHaveLength(40);
-    const refused = await Promise.all(answers.filter((a) => a.status === 409).map((a) => a.json() as Promise<{ error: string }>));
+    const refused = await Promise.all(
+      answers.filter((a) => a.status === 409).map((a) => a.json() as Promise<{ error: string }>),
+    );
     expect(new Set(refused.map((r) => r.error))).toEqual(new Set([`${p.name} is sold out.`]));
-    const started = await Promise.all(answers.filter((a) => a.status === 200).map((a) => a.json() as Promise<{ number: string }>));
+    const started = await Promise.all(
+      answers.filter((a) => a.status === 200).map((a) => a.json() as Promise<{ number: string }>),
+    );
     // Everyone pays at once; all 10 complete and stock lands at zero, never below.
     for (const s of started) {
       const o = await orderOf(s.number);
-      expect((await hook(shop.fake, `/_fake/sessions/${o?.stripeSessionId}/pay`, { card: '4242424242424242' })).status).toBe(200);
+      expect(
+        (await hook(shop.fake, `/_fake/sessions/${o?.stripeSessionId}/pay`, { card: '4242424242424242' })).status,
+      ).toBe(200);
     }
     const numbers = started.map((s) => s.number);
     const paid = await waitUntil(
@@ -127,7 +168,10 @@ describe('checkout', () => {
     expect(res.status).toBe(503);
     expect((await res.json()).error).toMatch(/Nothing was charged/);
     expect((await stockOf(p.productId))[0].reserved).toBe(0);
-    const line = await getDb().models.OrderLine.findOne({ where: { productId: p.productId }, include: [{ association: 'order' }] });
+    const line = await getDb().models.OrderLine.findOne({
+      where: { productId: p.productId },
+      include: [{ association: 'order' }],
+    });
     expect(line?.order?.status).toBe('cancelled');
   });
 
@@ -143,9 +187,13 @@ describe('checkout', () => {
 describe('leaving the payment page', () => {
   it('the cancelled checkout releases the jars and redirects to APP_URL, not the host the request came in on', async () => {
     const p = await makeProduct('leave', [3]);
-    const { number } = (await (await post(guest([{ productId: p.productId, quantity: 2 }]))).json()) as { number: string };
+    const { number } = (await (await post(guest([{ productId: p.productId, quantity: 2 }]))).json()) as {
+      number: string;
+    };
     const order = await orderOf(number);
-    const session = await fetch(`${shop.fake.url}/v1/checkout/sessions/${order?.stripeSessionId}`, { headers: { authorization: 'Bearer sk_test_shop' } }).then((r) => r.json());
+    const session = await fetch(`${shop.fake.url}/v1/checkout/sessions/${order?.stripeSessionId}`, {
+      headers: { authorization: 'Bearer sk_test_shop' },
+    }).then((r) => r.json());
     const cancelUrl = new URL(session.cancel_url as string);
     expect(cancelUrl.origin).toBe('http://127.0.0.1:3999');
     // The proxy in front of the app hands the request on to an internal address.

@@ -11,10 +11,19 @@ beforeAll(async () => {
   const { Order, User } = getDb().models;
   const customer = await User.findOne({ where: { email: DEMO.customer } });
   if (!customer) throw new Error('demo customer missing');
-  const order = (n: number, status: 'paid' | 'packed' | 'shipped', customerId: number | null) => Order.create({
-    number: `OLQ-${n}`, customerId, email: customerId ? DEMO.customer : `guest${n}@olq.test`, name: `Olq Buyer ${n}`, status, fulfilment: 'pickup',
-    subtotalCents: n * 100, totalCents: n * 100, currency: 'eur', createdAt: new Date(Date.UTC(2026, 0, n)),
-  });
+  const order = (n: number, status: 'paid' | 'packed' | 'shipped', customerId: number | null) =>
+    Order.create({
+      number: `OLQ-${n}`,
+      customerId,
+      email: customerId ? DEMO.customer : `guest${n}@olq.test`,
+      name: `Olq Buyer ${n}`,
+      status,
+      fulfilment: 'pickup',
+      subtotalCents: n * 100,
+      totalCents: n * 100,
+      currency: 'eur',
+      createdAt: new Date(Date.UTC(2026, 0, n)),
+    });
   await order(1, 'paid', customer.id);
   await order(2, 'packed', null);
   await order(3, 'shipped', customer.id);
@@ -22,7 +31,8 @@ beforeAll(async () => {
   await order(5, 'paid', customer.id);
 });
 
-const get = async (route: (req: Request) => Promise<Response>, query: string) => route(new Request(`http://127.0.0.1:3100/api/orders${query}`));
+const get = async (route: (req: Request) => Promise<Response>, query: string) =>
+  route(new Request(`http://127.0.0.1:3100/api/orders${query}`));
 type Body = { rows: { number: string; createdAt: string }[]; total: number; page: number; pageSize: number };
 const numbers = async (res: Response) => ((await res.json()) as Body).rows.map((r) => r.number);
 
@@ -34,7 +44,13 @@ describe('the order desk list', () => {
     expect(body).toMatchObject({ total: 4, page: 1, pageSize: 2 });
     expect(await numbers(one)).toEqual(['OLQ-5', 'OLQ-4']);
     expect(await numbers(await get(deskRoute, '?q=OLQ-&pageSize=2&page=2'))).toEqual(['OLQ-2', 'OLQ-1']);
-    expect(await numbers(await get(deskRoute, '?q=olq-&status=all&sort=totalCents&dir=asc'))).toEqual(['OLQ-1', 'OLQ-2', 'OLQ-3', 'OLQ-4', 'OLQ-5']);
+    expect(await numbers(await get(deskRoute, '?q=olq-&status=all&sort=totalCents&dir=asc'))).toEqual([
+      'OLQ-1',
+      'OLQ-2',
+      'OLQ-3',
+      'OLQ-4',
+      'OLQ-5',
+    ]);
     expect(await numbers(await get(deskRoute, '?q=OLQ-&status=shipped'))).toEqual(['OLQ-3']);
   });
 

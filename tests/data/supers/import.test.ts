@@ -8,9 +8,18 @@ afterAll(closeDb);
 beforeEach(() => setRequestHeaders({}));
 
 let f: Awaited<ReturnType<typeof yardFixture>>;
-beforeAll(async () => { f = await yardFixture('IMP'); });
+beforeAll(async () => {
+  f = await yardFixture('IMP');
+});
 
-const MAPPING = { colonyCode: 'Colony', pulledOn: 'Date', depth: 'Box', fullWeight: 'Weight', weightUnit: 'Unit', tagCode: 'Tag' };
+const MAPPING = {
+  colonyCode: 'Colony',
+  pulledOn: 'Date',
+  depth: 'Box',
+  fullWeight: 'Weight',
+  weightUnit: 'Unit',
+  tagCode: 'Tag',
+};
 function upload(csv: string | Blob, fields: Record<string, string>, name = 'sheet.csv', type = 'text/csv') {
   const form = new FormData();
   form.set('file', new File([csv], name, { type }));
@@ -36,7 +45,9 @@ describe('field-sheet import', () => {
     const p = await res.json();
     expect(p.valid.map((r: { row: number }) => r.row)).toEqual([1, 2]);
     expect(p.valid[1]).toMatchObject({ colonyCode: 'IMP-A2', fullGrams: 18144 }); // 40 lb = 18 143.69 g
-    const messages = Object.fromEntries(p.errors.map((e: { row: number; messages: string[] }) => [e.row, e.messages.join('; ')]));
+    const messages = Object.fromEntries(
+      p.errors.map((e: { row: number; messages: string[] }) => [e.row, e.messages.join('; ')]),
+    );
     expect(messages[3]).toMatch(/Unknown colony "IMP-B1"/);
     expect(messages[4]).toMatch(/not a YYYY-MM-DD date/);
     expect(messages[5]).toMatch(/outside 2–45 kg/);
@@ -46,7 +57,13 @@ describe('field-sheet import', () => {
   it('guesses the mapping from the headers when none is given', async () => {
     await signInAs(DEMO.keeper);
     const p = await (await upload(SHEET, { mode: 'preview' })).json();
-    expect(p.mapping).toMatchObject({ colonyCode: 'Colony', pulledOn: 'Date', depth: 'Box', fullWeight: 'Weight', tagCode: 'Tag' });
+    expect(p.mapping).toMatchObject({
+      colonyCode: 'Colony',
+      pulledOn: 'Date',
+      depth: 'Box',
+      fullWeight: 'Weight',
+      tagCode: 'Tag',
+    });
     expect(p.valid).toHaveLength(2);
   });
 
@@ -97,14 +114,19 @@ describe('field-sheet import', () => {
   it('imports 1,000 rows in one transaction (timed)', async () => {
     await signInAs(DEMO.keeper);
     const lines = ['Colony,Date,Box,Weight,Unit,Tag'];
-    for (let i = 0; i < 1000; i++) lines.push(`IMP-A${(i % 3) + 1},2026-0${6 + (i % 3)}-${String((i % 28) + 1).padStart(2, '0')},medium,${18 + (i % 10)},kg,BULK-${i}`);
+    for (let i = 0; i < 1000; i++)
+      lines.push(
+        `IMP-A${(i % 3) + 1},2026-0${6 + (i % 3)}-${String((i % 28) + 1).padStart(2, '0')},medium,${18 + (i % 10)},kg,BULK-${i}`,
+      );
     const started = performance.now();
     const res = await upload(lines.join('\n'), { mode: 'commit', mapping: JSON.stringify(MAPPING) });
     const ms = Math.round(performance.now() - started);
     console.log(`[measure] 1000-row field-sheet import: ${ms} ms`);
     expect(res.status).toBe(200);
     expect((await res.json()).imported).toBe(1000);
-    expect(await getDb().models.SuperPull.count({ where: { colonyId: [f.a1, f.a2, f.a3] } })).toBeGreaterThanOrEqual(1000);
+    expect(await getDb().models.SuperPull.count({ where: { colonyId: [f.a1, f.a2, f.a3] } })).toBeGreaterThanOrEqual(
+      1000,
+    );
   });
 
   it('crew may not import', async () => {

@@ -3,16 +3,30 @@ import { closeDb, getDb } from '@/lib/db/index';
 import { DEMO, setRequestHeaders, signInAs } from '@/tests/support/session';
 import { yardFixture, key } from '@/tests/support/yard-fixtures';
 import { recordPullsAction } from '@/app/(back-office)/admin/yards/actions';
-import { addFeedingAction, addTreatmentAction, endTreatmentAction, superOnAction } from '@/app/(back-office)/admin/colonies/actions';
+import {
+  addFeedingAction,
+  addTreatmentAction,
+  endTreatmentAction,
+  superOnAction,
+} from '@/app/(back-office)/admin/colonies/actions';
 import { POST as postPulls } from '@/app/api/super-pulls/route';
 
 afterAll(closeDb);
 beforeEach(() => setRequestHeaders({}));
 
 let f: Awaited<ReturnType<typeof yardFixture>>;
-beforeAll(async () => { f = await yardFixture('PUL'); });
+beforeAll(async () => {
+  f = await yardFixture('PUL');
+});
 
-const entry = (colonyId: number, extra: Record<string, unknown> = {}) => ({ colonyId, pulledOn: '2026-07-10', depth: 'medium' as const, frameCount: 10, idempotencyKey: key(), ...extra });
+const entry = (colonyId: number, extra: Record<string, unknown> = {}) => ({
+  colonyId,
+  pulledOn: '2026-07-10',
+  depth: 'medium' as const,
+  frameCount: 10,
+  idempotencyKey: key(),
+  ...extra,
+});
 
 describe('idempotent pull entry', () => {
   it('a double tap or a retry with the same key records one super', async () => {
@@ -41,9 +55,18 @@ describe('idempotent pull entry', () => {
 
   it('pulling closes the super that was put on, keeping its put-on date', async () => {
     await signInAs(DEMO.keeper);
-    const on = await superOnAction({ colonyId: f.a3, depth: 'shallow', frameCount: 8, tagCode: 'PUL-T1', putOnOn: '2026-06-01', idempotencyKey: key() });
+    const on = await superOnAction({
+      colonyId: f.a3,
+      depth: 'shallow',
+      frameCount: 8,
+      tagCode: 'PUL-T1',
+      putOnOn: '2026-06-01',
+      idempotencyKey: key(),
+    });
     expect(on.ok).toBe(true);
-    const r = await recordPullsAction({ entries: [entry(f.a3, { depth: 'shallow', frameCount: 8, pulledOn: '2026-06-20', cappedFrames: 7 })] });
+    const r = await recordPullsAction({
+      entries: [entry(f.a3, { depth: 'shallow', frameCount: 8, pulledOn: '2026-06-20', cappedFrames: 7 })],
+    });
     expect(r.ok && r.data.results[0]).toMatchObject({ ok: true, id: on.ok ? on.data.id : -1 });
     const row = await getDb().models.SuperPull.findByPk(on.ok ? on.data.id : -1);
     expect(row).toMatchObject({ putOnOn: '2026-06-01', pulledOn: '2026-06-20', tagCode: 'PUL-T1', cappedFrames: 7 });
@@ -51,7 +74,14 @@ describe('idempotent pull entry', () => {
 
   it('a late retry of the put-on after the pull finds the same super; a pull retry too (no second super)', async () => {
     await signInAs(DEMO.keeper);
-    const onInput = { colonyId: f.a3, depth: 'medium' as const, frameCount: 10, tagCode: 'PUL-T9', putOnOn: '2026-06-02', idempotencyKey: key() };
+    const onInput = {
+      colonyId: f.a3,
+      depth: 'medium' as const,
+      frameCount: 10,
+      tagCode: 'PUL-T9',
+      putOnOn: '2026-06-02',
+      idempotencyKey: key(),
+    };
     const on = await superOnAction(onInput);
     const pull = entry(f.a3, { pulledOn: '2026-06-28', tagCode: 'PUL-T9' });
     const pulled = await recordPullsAction({ entries: [pull] });
@@ -70,36 +100,75 @@ describe('idempotent pull entry', () => {
 describe('conflict flags', () => {
   it('a super pulled after sugar syrup while it was on is flagged with the reason', async () => {
     await signInAs(DEMO.keeper);
-    expect((await addFeedingAction({ colonyId: f.a3, kind: 'sugar_syrup', amount: '2 L 1:1', startedOn: '2026-07-02', endedOn: '2026-07-05', idempotencyKey: key() })).ok).toBe(true);
-    await superOnAction({ colonyId: f.a3, depth: 'medium', frameCount: 10, tagCode: 'PUL-T2', putOnOn: '2026-06-25', idempotencyKey: key() });
+    expect(
+      (
+        await addFeedingAction({
+          colonyId: f.a3,
+          kind: 'sugar_syrup',
+          amount: '2 L 1:1',
+          startedOn: '2026-07-02',
+          endedOn: '2026-07-05',
+          idempotencyKey: key(),
+        })
+      ).ok,
+    ).toBe(true);
+    await superOnAction({
+      colonyId: f.a3,
+      depth: 'medium',
+      frameCount: 10,
+      tagCode: 'PUL-T2',
+      putOnOn: '2026-06-25',
+      idempotencyKey: key(),
+    });
     const r = await recordPullsAction({ entries: [entry(f.a3, { pulledOn: '2026-07-15' })] });
     const result = r.ok ? r.data.results[0] : null;
     expect(result).toMatchObject({ ok: true, flagged: true });
-    expect(result && 'flagReasons' in result ? result.flagReasons : []).toEqual(['Sugar syrup fed 2026-07-02 to 2026-07-05 while this super was on']);
+    expect(result && 'flagReasons' in result ? result.flagReasons : []).toEqual([
+      'Sugar syrup fed 2026-07-02 to 2026-07-05 while this super was on',
+    ]);
   });
 
   it('an unrelated pollen feeding does not flag', async () => {
     await signInAs(DEMO.keeper);
-    await addFeedingAction({ colonyId: f.a2, kind: 'pollen_substitute', startedOn: '2026-07-12', idempotencyKey: key() });
+    await addFeedingAction({
+      colonyId: f.a2,
+      kind: 'pollen_substitute',
+      startedOn: '2026-07-12',
+      idempotencyKey: key(),
+    });
     const r = await recordPullsAction({ entries: [entry(f.a2, { pulledOn: '2026-07-20' })] });
     expect(r.ok && r.data.results[0]).toMatchObject({ ok: true, flagged: false });
   });
 
   it('a treatment recorded later re-flags supers already pulled; ending it earlier clears the flag', async () => {
     await signInAs(DEMO.keeper);
-    const on = await superOnAction({ colonyId: f.a1, depth: 'deep', frameCount: 10, putOnOn: '2026-08-01', idempotencyKey: key() });
+    const on = await superOnAction({
+      colonyId: f.a1,
+      depth: 'deep',
+      frameCount: 10,
+      putOnOn: '2026-08-01',
+      idempotencyKey: key(),
+    });
     await recordPullsAction({ entries: [entry(f.a1, { depth: 'deep', pulledOn: '2026-08-20' })] });
     const id = on.ok ? on.data.id : -1;
     const { SuperPull } = getDb().models;
     expect((await SuperPull.findByPk(id))?.flagged).toBe(false);
-    const t = await addTreatmentAction({ colonyId: f.a1, treatmentKindId: f.noSupersKindId, productName: 'Strip X', appliedOn: '2026-07-01', idempotencyKey: key() });
+    const t = await addTreatmentAction({
+      colonyId: f.a1,
+      treatmentKindId: f.noSupersKindId,
+      productName: 'Strip X',
+      appliedOn: '2026-07-01',
+      idempotencyKey: key(),
+    });
     expect(t).toMatchObject({ ok: true });
     const flagged = await SuperPull.findByPk(id);
     expect(flagged?.flagged).toBe(true);
     expect(flagged?.flagReasons[0]).toMatch(/No supers PUL \(Strip X\) applied 2026-07-01 \(still on\)/);
     // Removed 2026-07-20 + 7 waiting days = 2026-07-27, before the super went on (2026-08-01): no conflict.
     const treatment = await getDb().models.Treatment.findOne({ where: { colonyId: f.a1, productName: 'Strip X' } });
-    expect((await endTreatmentAction({ colonyId: f.a1, treatmentId: treatment!.id, removedOn: '2026-07-20' })).ok).toBe(true);
+    expect((await endTreatmentAction({ colonyId: f.a1, treatmentId: treatment!.id, removedOn: '2026-07-20' })).ok).toBe(
+      true,
+    );
     expect((await SuperPull.findByPk(id))?.flagged).toBe(false);
   });
 });

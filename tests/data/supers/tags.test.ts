@@ -13,7 +13,9 @@ describe('super tag sheet', () => {
     const made = await createTagBatchAction({ prefix: 'TGT', from: 7, count: 3, depth: 'shallow', frameCount: 8 });
     expect(made).toMatchObject({ ok: true, data: { codes: ['TGT-0007', 'TGT-0008', 'TGT-0009'], created: 3 } });
     // Again: nothing new, the same codes.
-    expect(await createTagBatchAction({ prefix: 'TGT', from: 7, count: 3, depth: 'shallow', frameCount: 8 })).toMatchObject({ ok: true, data: { created: 0 } });
+    expect(
+      await createTagBatchAction({ prefix: 'TGT', from: 7, count: 3, depth: 'shallow', frameCount: 8 }),
+    ).toMatchObject({ ok: true, data: { created: 0 } });
     const res = await GET(new Request('http://127.0.0.1:3100/api/super-tags/sheet?prefix=TGT'));
     expect(res.status).toBe(200);
     expect(res.headers.get('content-type')).toBe('application/pdf');

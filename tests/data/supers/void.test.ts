@@ -20,29 +20,66 @@ afterAll(closeDb);
 beforeEach(() => setRequestHeaders({}));
 
 let f: Awaited<ReturnType<typeof yardFixture>>;
-beforeAll(async () => { f = await yardFixture('VOI'); });
+beforeAll(async () => {
+  f = await yardFixture('VOI');
+});
 
 /** Records one pull as whoever is signed in and returns its id. */
 async function pull(colonyId: number, pulledOn: string, extra: Record<string, unknown> = {}): Promise<number> {
-  const r = await recordPullsAction({ entries: [{ colonyId, pulledOn, depth: 'medium', frameCount: 10, weight: 25, weightUnit: 'kg', idempotencyKey: key(), ...extra }] });
+  const r = await recordPullsAction({
+    entries: [
+      {
+        colonyId,
+        pulledOn,
+        depth: 'medium',
+        frameCount: 10,
+        weight: 25,
+        weightUnit: 'kg',
+        idempotencyKey: key(),
+        ...extra,
+      },
+    ],
+  });
   const first = r.ok ? r.data.results[0] : null;
   if (!first || !first.ok) throw new Error(`pull not recorded: ${JSON.stringify(r)}`);
   return first.id;
 }
 const row = (id: number) => getDb().models.SuperPull.findByPk(id);
-const voidAudits = (id: number) => getDb().models.AuditEntry.findAll({ where: { action: 'super.void', entityType: 'super_pull', entityId: String(id) } });
+const voidAudits = (id: number) =>
+  getDb().models.AuditEntry.findAll({
+    where: { action: 'super.void', entityType: 'super_pull', entityId: String(id) },
+  });
 const ownerView = () => ({ id: f.owner.id, name: f.owner.name, email: f.owner.email, role: 'owner' as const });
-const pullsOf = async (query: string) => ((await (await listPullsRoute(new Request(`http://127.0.0.1:3100/api/super-pulls?${query}`))).json()) as { rows: PullRow[] }).rows;
+const pullsOf = async (query: string) =>
+  (
+    (await (await listPullsRoute(new Request(`http://127.0.0.1:3100/api/super-pulls?${query}`))).json()) as {
+      rows: PullRow[];
+    }
+  ).rows;
 const supersPulledIn = async (colonyId: number) => {
   const report = (await getSeasonReport(ownerView(), { season: 2026, yardId: f.yardA }))!;
-  return { colony: report.colonies.find((c) => c.colonyId === colonyId)?.supersPulled, yard: report.yards.find((y) => y.id === f.yardA)?.supersPulled };
+  return {
+    colony: report.colonies.find((c) => c.colonyId === colonyId)?.supersPulled,
+    yard: report.yards.find((y) => y.id === f.yardA)?.supersPulled,
+  };
 };
 
 describe('a keeper voids a pull recorded by mistake', () => {
   it('is voided with who, when and why, audited, and drops out of the pick list, last-pulled date, flagged count and yield counts', async () => {
     await signInAs(DEMO.keeper);
     // Sugar fed in early August: the August pull is flagged, the July one is clear.
-    expect((await addFeedingAction({ colonyId: f.a1, kind: 'sugar_syrup', amount: '1 L', startedOn: '2026-08-01', endedOn: '2026-08-05', idempotencyKey: key() })).ok).toBe(true);
+    expect(
+      (
+        await addFeedingAction({
+          colonyId: f.a1,
+          kind: 'sugar_syrup',
+          amount: '1 L',
+          startedOn: '2026-08-01',
+          endedOn: '2026-08-05',
+          idempotencyKey: key(),
+        })
+      ).ok,
+    ).toBe(true);
     const july = await pull(f.a1, '2026-07-10', { tagCode: 'VOI-T1' });
     const august = await pull(f.a1, '2026-08-20', { tagCode: 'VOI-T2' });
     expect((await row(august))?.flagged).toBe(true);
@@ -53,15 +90,32 @@ describe('a keeper voids a pull recorded by mistake', () => {
     const before = await supersPulledIn(f.a1);
     expect(before.colony).toBe(2);
 
-    const r = await voidSuperPullAction({ superPullId: august, reason: '  Entered on the wrong colony; the box came off VOI-A2.  ' });
-    expect(r).toMatchObject({ ok: true, data: { id: august, colonyId: f.a1, void: { reason: 'Entered on the wrong colony; the box came off VOI-A2.', byName: f.keeperA.name } } });
+    const r = await voidSuperPullAction({
+      superPullId: august,
+      reason: '  Entered on the wrong colony; the box came off VOI-A2.  ',
+    });
+    expect(r).toMatchObject({
+      ok: true,
+      data: {
+        id: august,
+        colonyId: f.a1,
+        void: { reason: 'Entered on the wrong colony; the box came off VOI-A2.', byName: f.keeperA.name },
+      },
+    });
 
     const voided = await row(august);
     expect(voided?.voidedAt).toBeInstanceOf(Date);
-    expect(voided).toMatchObject({ voidedByUserId: f.keeperA.id, voidReason: 'Entered on the wrong colony; the box came off VOI-A2.', lotId: null });
+    expect(voided).toMatchObject({
+      voidedByUserId: f.keeperA.id,
+      voidReason: 'Entered on the wrong colony; the box came off VOI-A2.',
+      lotId: null,
+    });
     const audits = await voidAudits(august);
     expect(audits).toHaveLength(1);
-    expect(audits[0]).toMatchObject({ actorUserId: f.keeperA.id, reason: 'Entered on the wrong colony; the box came off VOI-A2.' });
+    expect(audits[0]).toMatchObject({
+      actorUserId: f.keeperA.id,
+      reason: 'Entered on the wrong colony; the box came off VOI-A2.',
+    });
     expect(audits[0].after).toMatchObject({ colonyId: f.a1, tagCode: 'VOI-T2', pulledOn: '2026-08-20' });
 
     // Not offered to the crew, and refused if they scan or tick it anyway.
@@ -70,8 +124,14 @@ describe('a keeper voids a pull recorded by mistake', () => {
     await signInAs(DEMO.crew);
     const lot = await createLotAction({ floralSource: 'Void test', heather: false, notes: '' });
     if (!lot.ok) throw new Error('lot not made');
-    expect(await scanSuperAction({ lotId: lot.data.id, tagCode: 'VOI-T2' })).toMatchObject({ ok: false, message: /voided by its keeper/ });
-    expect(await pickSupersAction({ lotId: lot.data.id, superPullIds: [august] })).toMatchObject({ ok: false, message: /voided by its keeper/ });
+    expect(await scanSuperAction({ lotId: lot.data.id, tagCode: 'VOI-T2' })).toMatchObject({
+      ok: false,
+      message: /voided by its keeper/,
+    });
+    expect(await pickSupersAction({ lotId: lot.data.id, superPullIds: [august] })).toMatchObject({
+      ok: false,
+      message: /voided by its keeper/,
+    });
     expect((await row(august))?.lotId).toBeNull();
 
     // Counts and dates no longer include it.
@@ -82,11 +142,15 @@ describe('a keeper voids a pull recorded by mistake', () => {
 
     // Still visible in the colony timeline and the pull list, with who, when and why; filterable.
     const entry = (await colonyTimeline(f.a1, (g) => `${g} g`)).find((e) => e.key === `pull-${august}`);
-    expect(entry?.voided).toMatchObject({ byName: f.keeperA.name, reason: 'Entered on the wrong colony; the box came off VOI-A2.' });
+    expect(entry?.voided).toMatchObject({
+      byName: f.keeperA.name,
+      reason: 'Entered on the wrong colony; the box came off VOI-A2.',
+    });
     expect(entry?.voidablePullId).toBeUndefined();
     await signInAs(DEMO.keeper);
     expect((await pullsOf(`colonyId=${f.a1}`)).map((p) => [p.id, p.voided?.reason ?? null])).toEqual([
-      [august, 'Entered on the wrong colony; the box came off VOI-A2.'], [july, null],
+      [august, 'Entered on the wrong colony; the box came off VOI-A2.'],
+      [july, null],
     ]);
     expect((await pullsOf(`colonyId=${f.a1}&voided=no`)).map((p) => p.id)).toEqual([july]);
     expect((await pullsOf(`colonyId=${f.a1}&voided=yes`)).map((p) => p.id)).toEqual([august]);
@@ -96,7 +160,17 @@ describe('a keeper voids a pull recorded by mistake', () => {
     await signInAs(DEMO.keeper);
     // Syrup 1–3 June. A pull mistakenly entered for 4 June makes the real July pull (no put-on date)
     // look as if it went on after 4 June, so the July super is clear; voiding the mistake flags it.
-    expect((await addFeedingAction({ colonyId: f.a2, kind: 'sugar_syrup', startedOn: '2026-06-01', endedOn: '2026-06-03', idempotencyKey: key() })).ok).toBe(true);
+    expect(
+      (
+        await addFeedingAction({
+          colonyId: f.a2,
+          kind: 'sugar_syrup',
+          startedOn: '2026-06-01',
+          endedOn: '2026-06-03',
+          idempotencyKey: key(),
+        })
+      ).ok,
+    ).toBe(true);
     const mistake = await pull(f.a2, '2026-06-04');
     const real = await pull(f.a2, '2026-07-10');
     expect((await row(real))?.flagged).toBe(false);
@@ -114,7 +188,9 @@ describe('a keeper voids a pull recorded by mistake', () => {
     await signInAs(DEMO.keeper2);
     const id = await pull(f.b1, '2026-07-02');
     await signInAs(DEMO.owner);
-    expect(await voidSuperPullAction({ superPullId: id, reason: 'Duplicate of the field sheet import' })).toMatchObject({ ok: true });
+    expect(await voidSuperPullAction({ superPullId: id, reason: 'Duplicate of the field sheet import' })).toMatchObject(
+      { ok: true },
+    );
     expect((await row(id))?.voidedByUserId).toBe(f.owner.id);
   });
 });
@@ -124,11 +200,20 @@ describe('refusals change nothing', () => {
     await signInAs(DEMO.keeper2);
     const theirs = await pull(f.b1, '2026-07-15');
     await signInAs(DEMO.keeper);
-    expect(await voidSuperPullAction({ superPullId: theirs, reason: 'Not mine to void' })).toEqual({ ok: false, message: 'No such super pull.' });
-    expect(await voidSuperPullAction({ superPullId: 2_000_000_000, reason: 'No such row' })).toEqual({ ok: false, message: 'No such super pull.' });
+    expect(await voidSuperPullAction({ superPullId: theirs, reason: 'Not mine to void' })).toEqual({
+      ok: false,
+      message: 'No such super pull.',
+    });
+    expect(await voidSuperPullAction({ superPullId: 2_000_000_000, reason: 'No such row' })).toEqual({
+      ok: false,
+      message: 'No such super pull.',
+    });
     for (const who of [DEMO.crew, DEMO.customer]) {
       await signInAs(who);
-      expect(await voidSuperPullAction({ superPullId: theirs, reason: 'Not allowed at all' })).toMatchObject({ ok: false, message: expect.stringMatching(/not allowed/) });
+      expect(await voidSuperPullAction({ superPullId: theirs, reason: 'Not allowed at all' })).toMatchObject({
+        ok: false,
+        message: expect.stringMatching(/not allowed/),
+      });
     }
     expect((await row(theirs))?.voidedAt).toBeNull();
     expect(await voidAudits(theirs)).toHaveLength(0);
@@ -143,9 +228,12 @@ describe('refusals change nothing', () => {
     ]);
     expect([x.ok, y.ok].sort()).toEqual([false, true]);
     expect([x, y].find((r) => !r.ok)).toEqual({ ok: false, message: 'This pull is already voided.' });
-    expect(await voidSuperPullAction({ superPullId: id, reason: 'And once more' })).toEqual({ ok: false, message: 'This pull is already voided.' });
+    expect(await voidSuperPullAction({ superPullId: id, reason: 'And once more' })).toEqual({
+      ok: false,
+      message: 'This pull is already voided.',
+    });
     expect(await voidAudits(id)).toHaveLength(1);
-    expect((await row(id))?.voidReason).toBe((x.ok ? 'Double tap in the yard' : 'Double tap, second phone'));
+    expect((await row(id))?.voidReason).toBe(x.ok ? 'Double tap in the yard' : 'Double tap, second phone');
   });
 
   it('a super already in a lot is a 409 that sends them to the honey house, and nothing changes', async () => {
@@ -159,7 +247,10 @@ describe('refusals change nothing', () => {
     for (const who of [DEMO.keeper, DEMO.owner]) {
       await signInAs(who);
       const r = await voidSuperPullAction({ superPullId: id, reason: 'Wrong colony' });
-      expect(r).toMatchObject({ ok: false, message: expect.stringMatching(new RegExp(`already in lot ${lot.data.code}.*Ask the honey house`)) });
+      expect(r).toMatchObject({
+        ok: false,
+        message: expect.stringMatching(new RegExp(`already in lot ${lot.data.code}.*Ask the honey house`)),
+      });
     }
     expect((await row(id))!.get({ plain: true })).toEqual(before);
     expect(await voidAudits(id)).toHaveLength(0);
@@ -187,8 +278,17 @@ describe('refusals change nothing', () => {
 
   it('a super still on the hive cannot be voided as a pull', async () => {
     await signInAs(DEMO.keeper);
-    const on = await getDb().models.SuperPull.create({ colonyId: f.a3, depth: 'medium', frameCount: 10, putOnOn: '2026-08-01', putOnBy: f.keeperA.id });
-    expect(await voidSuperPullAction({ superPullId: on.id, reason: 'Not pulled yet' })).toMatchObject({ ok: false, message: expect.stringMatching(/still on the hive/) });
+    const on = await getDb().models.SuperPull.create({
+      colonyId: f.a3,
+      depth: 'medium',
+      frameCount: 10,
+      putOnOn: '2026-08-01',
+      putOnBy: f.keeperA.id,
+    });
+    expect(await voidSuperPullAction({ superPullId: on.id, reason: 'Not pulled yet' })).toMatchObject({
+      ok: false,
+      message: expect.stringMatching(/still on the hive/),
+    });
     expect((await row(on.id))?.voidedAt).toBeNull();
   });
 
@@ -202,7 +302,11 @@ describe('refusals change nothing', () => {
     ];
     for (const [reason, message] of cases) {
       const r = await voidSuperPullAction({ superPullId: id, reason } as never);
-      expect(r).toMatchObject({ ok: false, message: 'Please fix the marked fields.', fieldErrors: { reason: expect.stringMatching(message) } });
+      expect(r).toMatchObject({
+        ok: false,
+        message: 'Please fix the marked fields.',
+        fieldErrors: { reason: expect.stringMatching(message) },
+      });
     }
     expect((await row(id))?.voidedAt).toBeNull();
     expect(await voidAudits(id)).toHaveLength(0);
@@ -216,28 +320,58 @@ describe('the database holds the rules whatever the app does', () => {
     const { sequelize } = getDb();
     const sql = (text: string) => sequelize.query(text, { replacements: { id, user: f.keeperA.id } });
     await expect(sql(`UPDATE super_pulls SET voided_at = now() WHERE id = :id`)).rejects.toThrow(/super_pulls_void_ck/);
-    await expect(sql(`UPDATE super_pulls SET voided_at = now(), voided_by_user_id = :user, void_reason = '  ' WHERE id = :id`)).rejects.toThrow(/super_pulls_void_ck/);
-    expect(await voidSuperPullAction({ superPullId: id, reason: 'Checked against the field sheet' })).toMatchObject({ ok: true });
-    await expect(sql(`UPDATE super_pulls SET voided_at = NULL, voided_by_user_id = NULL, void_reason = NULL WHERE id = :id`)).rejects.toThrow(/stays voided/);
-    await expect(sql(`UPDATE super_pulls SET void_reason = 'rewritten later' WHERE id = :id`)).rejects.toThrow(/stays voided/);
+    await expect(
+      sql(`UPDATE super_pulls SET voided_at = now(), voided_by_user_id = :user, void_reason = '  ' WHERE id = :id`),
+    ).rejects.toThrow(/super_pulls_void_ck/);
+    expect(await voidSuperPullAction({ superPullId: id, reason: 'Checked against the field sheet' })).toMatchObject({
+      ok: true,
+    });
+    await expect(
+      sql(`UPDATE super_pulls SET voided_at = NULL, voided_by_user_id = NULL, void_reason = NULL WHERE id = :id`),
+    ).rejects.toThrow(/stays voided/);
+    await expect(sql(`UPDATE super_pulls SET void_reason = 'rewritten later' WHERE id = :id`)).rejects.toThrow(
+      /stays voided/,
+    );
     const [[lot]] = (await sequelize.query(`SELECT id FROM lots ORDER BY id LIMIT 1`)) as [{ id: number }[], unknown];
-    await expect(sql(`UPDATE super_pulls SET lot_id = ${lot.id} WHERE id = :id`)).rejects.toThrow(/super_pulls_void_state_ck/);
+    await expect(sql(`UPDATE super_pulls SET lot_id = ${lot.id} WHERE id = :id`)).rejects.toThrow(
+      /super_pulls_void_state_ck/,
+    );
   });
 });
 
 describe('a super-on record entered by mistake can be voided too', () => {
   /** A fresh colony in yard A (keeper A) per test: no other supers on it. */
   let n = 0;
-  const freshColony = () => createColony(f.owner, {
-    code: `VOI-ON${++n}`, yardId: f.yardA, keeperId: f.keeperA.id, origin: 'nucleus', parentColonyId: null, queenYear: 2025, startedOn: '2026-04-01', notes: '',
-  });
+  const freshColony = () =>
+    createColony(f.owner, {
+      code: `VOI-ON${++n}`,
+      yardId: f.yardA,
+      keeperId: f.keeperA.id,
+      origin: 'nucleus',
+      parentColonyId: null,
+      queenYear: 2025,
+      startedOn: '2026-04-01',
+      notes: '',
+    });
   async function putOn(colonyId: number, putOnOn: string, extra: Record<string, unknown> = {}): Promise<number> {
-    const r = await superOnAction({ colonyId, depth: 'medium', frameCount: 10, tagCode: '', putOnOn, idempotencyKey: key(), ...extra });
+    const r = await superOnAction({
+      colonyId,
+      depth: 'medium',
+      frameCount: 10,
+      tagCode: '',
+      putOnOn,
+      idempotencyKey: key(),
+      ...extra,
+    });
     if (!r.ok) throw new Error(`put-on not recorded: ${JSON.stringify(r)}`);
     return (r.data as { id: number }).id;
   }
-  const onAudits = (id: number) => getDb().models.AuditEntry.findAll({ where: { action: 'super.on.void', entityType: 'super_pull', entityId: String(id) } });
-  const onHive = async (colonyId: number) => (await listColonySupers(colonyId)).filter((s) => !s.pulledOn && !s.voided).map((s) => s.id);
+  const onAudits = (id: number) =>
+    getDb().models.AuditEntry.findAll({
+      where: { action: 'super.on.void', entityType: 'super_pull', entityId: String(id) },
+    });
+  const onHive = async (colonyId: number) =>
+    (await listColonySupers(colonyId)).filter((s) => !s.pulledOn && !s.voided).map((s) => s.id);
 
   it('the keeper voids their own mistaken put-on: voided, audited, no longer on the hive, and the next pulls do not close it', async () => {
     await signInAs(DEMO.keeper);
@@ -246,9 +380,26 @@ describe('a super-on record entered by mistake can be voided too', () => {
     const real = await putOn(c, '2026-06-10');
     expect(await onHive(c)).toEqual([real, mistake]);
 
-    const r = await voidSuperPullAction({ superPullId: mistake, record: 'on', reason: ' Put on the wrong colony in the app ' });
-    expect(r).toMatchObject({ ok: true, data: { id: mistake, colonyId: c, reflagged: 0, void: { reason: 'Put on the wrong colony in the app', byName: f.keeperA.name } } });
-    expect(await row(mistake)).toMatchObject({ voidedByUserId: f.keeperA.id, voidReason: 'Put on the wrong colony in the app', pulledOn: null, putOnOn: '2026-06-01' });
+    const r = await voidSuperPullAction({
+      superPullId: mistake,
+      record: 'on',
+      reason: ' Put on the wrong colony in the app ',
+    });
+    expect(r).toMatchObject({
+      ok: true,
+      data: {
+        id: mistake,
+        colonyId: c,
+        reflagged: 0,
+        void: { reason: 'Put on the wrong colony in the app', byName: f.keeperA.name },
+      },
+    });
+    expect(await row(mistake)).toMatchObject({
+      voidedByUserId: f.keeperA.id,
+      voidReason: 'Put on the wrong colony in the app',
+      pulledOn: null,
+      putOnOn: '2026-06-01',
+    });
     const audits = await onAudits(mistake);
     expect(audits).toHaveLength(1);
     expect(audits[0]).toMatchObject({ actorUserId: f.keeperA.id, reason: 'Put on the wrong colony in the app' });
@@ -257,7 +408,10 @@ describe('a super-on record entered by mistake can be voided too', () => {
     // Not on the hive any more: not in the colony's supers on, shown voided in the timeline with no button.
     expect(await onHive(c)).toEqual([real]);
     const timeline = await colonyTimeline(c, (g) => `${g} g`);
-    expect(timeline.find((e) => e.key === `on-${mistake}`)).toMatchObject({ voided: { reason: 'Put on the wrong colony in the app' }, voidableOnId: undefined });
+    expect(timeline.find((e) => e.key === `on-${mistake}`)).toMatchObject({
+      voided: { reason: 'Put on the wrong colony in the app' },
+      voidableOnId: undefined,
+    });
     expect(timeline.find((e) => e.key === `on-${real}`)?.voidableOnId).toBe(real);
 
     // The next pull closes the real super (the voided one was put on earlier and would have been chosen).
@@ -276,11 +430,20 @@ describe('a super-on record entered by mistake can be voided too', () => {
   it('a late retry of the voided put-on returns the same voided row and never puts a new super on', async () => {
     await signInAs(DEMO.keeper);
     const c = await freshColony();
-    const entry = { colonyId: c, depth: 'medium', frameCount: 10, tagCode: 'VOI-ON-T2', putOnOn: '2026-06-05', idempotencyKey: key() } as const;
+    const entry = {
+      colonyId: c,
+      depth: 'medium',
+      frameCount: 10,
+      tagCode: 'VOI-ON-T2',
+      putOnOn: '2026-06-05',
+      idempotencyKey: key(),
+    } as const;
     const first = await superOnAction(entry);
     if (!first.ok) throw new Error('put-on not recorded');
     const id = (first.data as { id: number }).id;
-    expect(await voidSuperPullAction({ superPullId: id, record: 'on', reason: 'Tapped twice by mistake' })).toMatchObject({ ok: true });
+    expect(
+      await voidSuperPullAction({ superPullId: id, record: 'on', reason: 'Tapped twice by mistake' }),
+    ).toMatchObject({ ok: true });
     const retry = await superOnAction(entry);
     expect(retry).toMatchObject({ ok: true, data: { id } });
     expect(await getDb().models.SuperPull.count({ where: { colonyId: c } })).toBe(1);
@@ -292,16 +455,23 @@ describe('a super-on record entered by mistake can be voided too', () => {
     await signInAs(DEMO.keeper2);
     const theirs = await putOn(f.b1, '2026-06-03');
     await signInAs(DEMO.keeper);
-    expect(await voidSuperPullAction({ superPullId: theirs, record: 'on', reason: 'Not mine to void' })).toEqual({ ok: false, message: 'No such super-on record.' });
+    expect(await voidSuperPullAction({ superPullId: theirs, record: 'on', reason: 'Not mine to void' })).toEqual({
+      ok: false,
+      message: 'No such super-on record.',
+    });
     for (const who of [DEMO.crew, DEMO.customer]) {
       await signInAs(who);
-      expect(await voidSuperPullAction({ superPullId: theirs, record: 'on', reason: 'Not allowed at all' })).toMatchObject({ ok: false, message: expect.stringMatching(/not allowed/) });
+      expect(
+        await voidSuperPullAction({ superPullId: theirs, record: 'on', reason: 'Not allowed at all' }),
+      ).toMatchObject({ ok: false, message: expect.stringMatching(/not allowed/) });
     }
     expect((await row(theirs))?.voidedAt).toBeNull();
     expect(await onAudits(theirs)).toHaveLength(0);
     // The owner may void any keeper's.
     await signInAs(DEMO.owner);
-    expect(await voidSuperPullAction({ superPullId: theirs, record: 'on', reason: 'Keeper asked by phone' })).toMatchObject({ ok: true });
+    expect(
+      await voidSuperPullAction({ superPullId: theirs, record: 'on', reason: 'Keeper asked by phone' }),
+    ).toMatchObject({ ok: true });
     expect((await row(theirs))?.voidedByUserId).toBe(f.owner.id);
   });
 
@@ -309,13 +479,22 @@ describe('a super-on record entered by mistake can be voided too', () => {
     await signInAs(DEMO.keeper);
     const c = await freshColony();
     const id = await putOn(c, '2026-06-07');
-    expect(await voidSuperPullAction({ superPullId: id, record: 'on', reason: 'Wrong colony' })).toMatchObject({ ok: true });
-    expect(await voidSuperPullAction({ superPullId: id, record: 'on', reason: 'Wrong colony again' })).toEqual({ ok: false, message: 'This super-on record is already voided.' });
+    expect(await voidSuperPullAction({ superPullId: id, record: 'on', reason: 'Wrong colony' })).toMatchObject({
+      ok: true,
+    });
+    expect(await voidSuperPullAction({ superPullId: id, record: 'on', reason: 'Wrong colony again' })).toEqual({
+      ok: false,
+      message: 'This super-on record is already voided.',
+    });
     expect(await onAudits(id)).toHaveLength(1);
 
     const pulledMeanwhile = await putOn(c, '2026-06-08');
     expect(await pull(c, '2026-07-08')).toBe(pulledMeanwhile);
-    const r = await voidSuperPullAction({ superPullId: pulledMeanwhile, record: 'on', reason: 'Saw it still on a minute ago' });
+    const r = await voidSuperPullAction({
+      superPullId: pulledMeanwhile,
+      record: 'on',
+      reason: 'Saw it still on a minute ago',
+    });
     expect(r).toMatchObject({ ok: false, message: expect.stringMatching(/was pulled on 2026-07-08.*void the pull/) });
     expect((await row(pulledMeanwhile))?.voidedAt).toBeNull();
   });
@@ -324,12 +503,20 @@ describe('a super-on record entered by mistake can be voided too', () => {
     await signInAs(DEMO.keeper);
     const c = await freshColony();
     const id = await putOn(c, '2026-06-09');
-    expect(await voidSuperPullAction({ superPullId: id, record: 'on', reason: 'Entered on the wrong day' })).toMatchObject({ ok: true });
+    expect(
+      await voidSuperPullAction({ superPullId: id, record: 'on', reason: 'Entered on the wrong day' }),
+    ).toMatchObject({ ok: true });
     const { sequelize } = getDb();
     const [[lot]] = (await sequelize.query(`SELECT id FROM lots ORDER BY id LIMIT 1`)) as [{ id: number }[], unknown];
-    await expect(sequelize.query(`UPDATE super_pulls SET lot_id = :lot WHERE id = :id`, { replacements: { id, lot: lot.id } })).rejects.toThrow(/super_pulls_void_state_ck/);
-    await expect(undoVoidPutOn({ context: sequelize.getQueryInterface() })).rejects.toThrow(/Cannot undo 20261203000500-void-put-on: .*voided super-on record/);
-    const [[still]] = (await sequelize.query(`SELECT pg_get_constraintdef(oid) AS def FROM pg_constraint WHERE conname = 'super_pulls_void_state_ck'`)) as [{ def: string }[], unknown];
+    await expect(
+      sequelize.query(`UPDATE super_pulls SET lot_id = :lot WHERE id = :id`, { replacements: { id, lot: lot.id } }),
+    ).rejects.toThrow(/super_pulls_void_state_ck/);
+    await expect(undoVoidPutOn({ context: sequelize.getQueryInterface() })).rejects.toThrow(
+      /Cannot undo 20261203000500-void-put-on: .*voided super-on record/,
+    );
+    const [[still]] = (await sequelize.query(
+      `SELECT pg_get_constraintdef(oid) AS def FROM pg_constraint WHERE conname = 'super_pulls_void_state_ck'`,
+    )) as [{ def: string }[], unknown];
     expect(still.def).not.toMatch(/pulled_on/);
   });
 });

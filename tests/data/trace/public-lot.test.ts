@@ -10,9 +10,26 @@ afterAll(closeDb);
 async function pullsInto(lotId: number, yardName: string, pulledOn: string[]) {
   const { Yard, Colony, SuperPull, User } = getDb().models;
   const keeper = await User.findOne({ where: { role: 'keeper' } });
-  const yard = await Yard.create({ name: `${yardName} ${Date.now().toString(36)}${Math.random().toString(36).slice(2, 5)}`, latitude: 51.123456, longitude: -1.654321 });
-  const colony = await Colony.create({ code: `TJC-${Math.random().toString(36).slice(2, 8)}`, yardId: yard.id, keeperId: keeper!.id, origin: 'nucleus' });
-  for (const day of pulledOn) await SuperPull.create({ colonyId: colony.id, depth: 'medium', frameCount: 10, pulledOn: day, fullGrams: 25_000, lotId });
+  const yard = await Yard.create({
+    name: `${yardName} ${Date.now().toString(36)}${Math.random().toString(36).slice(2, 5)}`,
+    latitude: 51.123456,
+    longitude: -1.654321,
+  });
+  const colony = await Colony.create({
+    code: `TJC-${Math.random().toString(36).slice(2, 8)}`,
+    yardId: yard.id,
+    keeperId: keeper!.id,
+    origin: 'nucleus',
+  });
+  for (const day of pulledOn)
+    await SuperPull.create({
+      colonyId: colony.id,
+      depth: 'medium',
+      frameCount: 10,
+      pulledOn: day,
+      fullGrams: 25_000,
+      lotId,
+    });
   return yard;
 }
 
@@ -28,13 +45,41 @@ describe('public lot page', () => {
     const yardA = await pullsInto(parent.id, 'Orchard Terrace', ['2026-05-20', '2026-06-02']);
     const yardB = await pullsInto(blend.id, 'Fernbank', ['2026-08-10']);
     await MoistureReading.bulkCreate([
-      { lotId: blend.id, method: 'scale', scaleWaterPct: 17.2, waterPct: 17.2, takenOn: '2026-08-20', recordedBy: null },
-      { lotId: blend.id, method: 'scale', scaleWaterPct: 17.6, waterPct: 17.6, takenOn: '2026-08-20', recordedBy: null },
-      { lotId: blend.id, method: 'scale', scaleWaterPct: 25, waterPct: 25, takenOn: '2026-08-20', recordedBy: null, voidedAt: new Date(), voidReason: 'wrong lot' },
+      {
+        lotId: blend.id,
+        method: 'scale',
+        scaleWaterPct: 17.2,
+        waterPct: 17.2,
+        takenOn: '2026-08-20',
+        recordedBy: null,
+      },
+      {
+        lotId: blend.id,
+        method: 'scale',
+        scaleWaterPct: 17.6,
+        waterPct: 17.6,
+        takenOn: '2026-08-20',
+        recordedBy: null,
+      },
+      {
+        lotId: blend.id,
+        method: 'scale',
+        scaleWaterPct: 25,
+        waterPct: 25,
+        takenOn: '2026-08-20',
+        recordedBy: null,
+        voidedAt: new Date(),
+        voidReason: 'wrong lot',
+      },
     ]);
     const lot = await getPublicLot(blend.code);
     expect(lot).toMatchObject({
-      floralSource: 'Wildflower', harvestMonths: ['2026-05', '2026-06', '2026-08'], waterPct: 17.4, bestBeforeOn: '2028-08-31', region: 'Marrow Valley', isBlend: true,
+      floralSource: 'Wildflower',
+      harvestMonths: ['2026-05', '2026-06', '2026-08'],
+      waterPct: 17.4,
+      bestBeforeOn: '2028-08-31',
+      region: 'Marrow Valley',
+      isBlend: true,
     });
     expect(lot?.yardNames.sort()).toEqual([yardA.name, yardB.name].sort());
     expect(JSON.stringify(lot)).not.toMatch(/51\.12|1\.65/);
@@ -46,7 +91,10 @@ describe('public lot page', () => {
     const b = await releasedLot(10_000);
     const blend = await releasedLot(4_000);
     await blend.update({ isBlend: true });
-    await LotParent.bulkCreate([{ childLotId: blend.id, parentLotId: a.id, grams: 1_000 }, { childLotId: blend.id, parentLotId: b.id, grams: 3_000 }]);
+    await LotParent.bulkCreate([
+      { childLotId: blend.id, parentLotId: a.id, grams: 1_000 },
+      { childLotId: blend.id, parentLotId: b.id, grams: 3_000 },
+    ]);
     await MoistureReading.bulkCreate([
       { lotId: a.id, method: 'scale', waterPct: 16.0, takenOn: '2026-08-20', recordedBy: null },
       { lotId: b.id, method: 'scale', waterPct: 18.0, takenOn: '2026-08-20', recordedBy: null },

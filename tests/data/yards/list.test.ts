@@ -13,13 +13,30 @@ const COLONIES: Record<string, number> = { 'LYQ Birch': 3, 'LYQ Damson': 1 };
 
 beforeAll(async () => {
   const { User } = getDb().models;
-  const [owner, keeper] = await Promise.all([DEMO.owner, DEMO.keeper].map((email) => User.findOne({ where: { email } })));
+  const [owner, keeper] = await Promise.all(
+    [DEMO.owner, DEMO.keeper].map((email) => User.findOne({ where: { email } })),
+  );
   if (!owner || !keeper) throw new Error('demo users missing');
   for (const name of NAMES) {
     const keeperIds = name === 'LYQ Cedar' ? [keeper.id] : [];
-    const yardId = await saveYard(owner.id, null, { name, place: '', latitude: null, longitude: null, forageNotes: '', keeperIds });
+    const yardId = await saveYard(owner.id, null, {
+      name,
+      place: '',
+      latitude: null,
+      longitude: null,
+      forageNotes: '',
+      keeperIds,
+    });
     for (let i = 1; i <= (COLONIES[name] ?? 0); i++) {
-      await createColony(owner, { code: `LYQ-${name.split(' ')[1]}-${i}`, yardId, origin: 'swarm', parentColonyId: null, queenYear: null, startedOn: null, notes: '' });
+      await createColony(owner, {
+        code: `LYQ-${name.split(' ')[1]}-${i}`,
+        yardId,
+        origin: 'swarm',
+        parentColonyId: null,
+        queenYear: null,
+        startedOn: null,
+        notes: '',
+      });
     }
   }
 });
@@ -47,14 +64,20 @@ describe('GET /api/yards', () => {
     const byName = (await (await get('?q=LYQ&sort=name&dir=desc')).json()) as Body;
     expect(byName.rows.map((r) => r.name)).toEqual([...NAMES].reverse());
     const byColonies = (await (await get('?q=LYQ&sort=colonies&dir=desc&pageSize=2')).json()) as Body;
-    expect(byColonies.rows.map((r) => [r.name, r.activeColonies])).toEqual([['LYQ Birch', 3], ['LYQ Damson', 1]]);
+    expect(byColonies.rows.map((r) => [r.name, r.activeColonies])).toEqual([
+      ['LYQ Birch', 3],
+      ['LYQ Damson', 1],
+    ]);
   });
 
   it('an unknown sort, a bad direction or too large a page is a 400 with a readable message', async () => {
     await signInAs(DEMO.owner);
     const badSort = await get('?sort=password');
     expect(badSort.status).toBe(400);
-    expect(await badSort.json()).toMatchObject({ error: 'Some fields are not valid.', fieldErrors: { sort: 'Sort by one of: name, colonies.' } });
+    expect(await badSort.json()).toMatchObject({
+      error: 'Some fields are not valid.',
+      fieldErrors: { sort: 'Sort by one of: name, colonies.' },
+    });
     expect((await get('?dir=sideways')).status).toBe(400);
     const tooMany = await get('?pageSize=500');
     expect(tooMany.status).toBe(400);

@@ -3,8 +3,15 @@ import { closeDb, getDb } from '@/lib/db/index';
 import { DEMO, setRequestHeaders, signInAs } from '@/tests/support/session';
 import { yardFixture, key } from '@/tests/support/yard-fixtures';
 import {
-  addFeedingAction, addTreatmentAction, colonyNoteAction, colonyStatusAction, moveColonyAction,
-  splitColonyAction, superOnAction, updateColonyAction, createColonyAction,
+  addFeedingAction,
+  addTreatmentAction,
+  colonyNoteAction,
+  colonyStatusAction,
+  moveColonyAction,
+  splitColonyAction,
+  superOnAction,
+  updateColonyAction,
+  createColonyAction,
 } from '@/app/(back-office)/admin/colonies/actions';
 import { recordPullsAction, updateYardAction } from '@/app/(back-office)/admin/yards/actions';
 import { GET as colonyDetailRoute } from '@/app/api/colonies/detail/route';
@@ -17,14 +24,17 @@ afterAll(closeDb);
 beforeEach(() => setRequestHeaders({}));
 
 let f: Awaited<ReturnType<typeof yardFixture>>;
-beforeAll(async () => { f = await yardFixture('SCP'); });
+beforeAll(async () => {
+  f = await yardFixture('SCP');
+});
 
 const getColonyRoute = (req: Request) => colonyDetailRoute(req);
 const url = (path: string) => new Request(`http://127.0.0.1:3100${path}`);
-const rowsOf = async (res: Response) => ((await res.json()) as { rows: { id: number; code?: string; colonyCode?: string }[] }).rows;
+const rowsOf = async (res: Response) =>
+  ((await res.json()) as { rows: { id: number; code?: string; colonyCode?: string }[] }).rows;
 
 describe('keeper A and keeper B colonies', () => {
-  it('keeper A reads their own colony through the route, but B\'s is a 404 in the route and the page', async () => {
+  it("keeper A reads their own colony through the route, but B's is a 404 in the route and the page", async () => {
     await signInAs(DEMO.keeper);
     expect((await getColonyRoute(url(`/api/colonies/detail?id=${f.a1}`))).status).toBe(200);
     const res = await getColonyRoute(url(`/api/colonies/detail?id=${f.b1}`));
@@ -33,7 +43,7 @@ describe('keeper A and keeper B colonies', () => {
     await expect(ColonyPage({ params: Promise.resolve({ id: String(f.b1) }) })).rejects.toThrow('NEXT_NOT_FOUND');
   });
 
-  it('lists show only the keeper\'s own yards, colonies and supers', async () => {
+  it("lists show only the keeper's own yards, colonies and supers", async () => {
     await signInAs(DEMO.keeper);
     const colonies = await rowsOf(await listColoniesRoute(url('/api/colonies?pageSize=100&q=SCP-')));
     expect(colonies.map((c) => c.code).sort()).toEqual(['SCP-A1', 'SCP-A2', 'SCP-A3']);
@@ -41,15 +51,24 @@ describe('keeper A and keeper B colonies', () => {
     expect(yards.map((y) => y.id)).toEqual([f.yardA]);
     // Asking for B's colony by filter gives nothing, not B's supers.
     await signInAs(DEMO.owner);
-    await postPullsRoute(new Request('http://127.0.0.1:3100/api/super-pulls', { method: 'POST', body: JSON.stringify({ entries: [{ colonyId: f.b1, pulledOn: '2026-07-01', depth: 'medium', frameCount: 10, idempotencyKey: key() }] }) }));
+    await postPullsRoute(
+      new Request('http://127.0.0.1:3100/api/super-pulls', {
+        method: 'POST',
+        body: JSON.stringify({
+          entries: [{ colonyId: f.b1, pulledOn: '2026-07-01', depth: 'medium', frameCount: 10, idempotencyKey: key() }],
+        }),
+      }),
+    );
     await signInAs(DEMO.keeper);
     expect(await rowsOf(await listPullsRoute(url(`/api/super-pulls?colonyId=${f.b1}`)))).toEqual([]);
   });
 
-  it('every write by keeper A on B\'s colony is refused and writes nothing', async () => {
+  it("every write by keeper A on B's colony is refused and writes nothing", async () => {
     await signInAs(DEMO.keeper);
     const { SuperPull, Feeding, Treatment, ColonyEvent, Colony } = getDb().models;
-    const before = await Promise.all([SuperPull, Feeding, Treatment, ColonyEvent, Colony].map((m) => (m as typeof SuperPull).count()));
+    const before = await Promise.all(
+      [SuperPull, Feeding, Treatment, ColonyEvent, Colony].map((m) => (m as typeof SuperPull).count()),
+    );
     const c = f.b1;
     const results = [
       await updateColonyAction({ colonyId: c, code: 'SCP-HIJACK', origin: 'swarm', notes: '' }),
@@ -58,16 +77,39 @@ describe('keeper A and keeper B colonies', () => {
       await splitColonyAction({ colonyId: c, newCode: 'SCP-STOLEN', occurredOn: '2026-07-01', idempotencyKey: key() }),
       await colonyNoteAction({ colonyId: c, occurredOn: '2026-07-01', note: 'hello', idempotencyKey: key() }),
       await addFeedingAction({ colonyId: c, kind: 'sugar_syrup', startedOn: '2026-07-01', idempotencyKey: key() }),
-      await addTreatmentAction({ colonyId: c, treatmentKindId: f.noSupersKindId, appliedOn: '2026-07-01', idempotencyKey: key() }),
-      await superOnAction({ colonyId: c, depth: 'medium', frameCount: 10, putOnOn: '2026-07-01', idempotencyKey: key() }),
+      await addTreatmentAction({
+        colonyId: c,
+        treatmentKindId: f.noSupersKindId,
+        appliedOn: '2026-07-01',
+        idempotencyKey: key(),
+      }),
+      await superOnAction({
+        colonyId: c,
+        depth: 'medium',
+        frameCount: 10,
+        putOnOn: '2026-07-01',
+        idempotencyKey: key(),
+      }),
       await createColonyAction({ code: 'SCP-INB', yardId: f.yardB, origin: 'swarm' }),
     ];
-    for (const r of results) expect(r).toMatchObject({ ok: false, message: expect.stringMatching(/No such (colony|yard)/) });
-    const pulls = await recordPullsAction({ entries: [{ colonyId: c, pulledOn: '2026-07-01', depth: 'medium', frameCount: 10, idempotencyKey: key() }] });
+    for (const r of results)
+      expect(r).toMatchObject({ ok: false, message: expect.stringMatching(/No such (colony|yard)/) });
+    const pulls = await recordPullsAction({
+      entries: [{ colonyId: c, pulledOn: '2026-07-01', depth: 'medium', frameCount: 10, idempotencyKey: key() }],
+    });
     expect(pulls.ok && pulls.data.results[0]).toMatchObject({ ok: false, message: 'No such colony.' });
-    const viaApi = await postPullsRoute(new Request('http://127.0.0.1:3100/api/super-pulls', { method: 'POST', body: JSON.stringify({ entries: [{ colonyId: c, pulledOn: '2026-07-01', depth: 'medium', frameCount: 10, idempotencyKey: key() }] }) }));
+    const viaApi = await postPullsRoute(
+      new Request('http://127.0.0.1:3100/api/super-pulls', {
+        method: 'POST',
+        body: JSON.stringify({
+          entries: [{ colonyId: c, pulledOn: '2026-07-01', depth: 'medium', frameCount: 10, idempotencyKey: key() }],
+        }),
+      }),
+    );
     expect((await viaApi.json()).results[0]).toMatchObject({ ok: false, message: 'No such colony.' });
-    const after = await Promise.all([SuperPull, Feeding, Treatment, ColonyEvent, Colony].map((m) => (m as typeof SuperPull).count()));
+    const after = await Promise.all(
+      [SuperPull, Feeding, Treatment, ColonyEvent, Colony].map((m) => (m as typeof SuperPull).count()),
+    );
     expect(after).toEqual(before);
     expect((await Colony.findByPk(c))?.code).toBe('SCP-B1');
   });
@@ -75,10 +117,22 @@ describe('keeper A and keeper B colonies', () => {
   it('crew reads super pulls but cannot write colony records; a customer gets nothing', async () => {
     await signInAs(DEMO.crew);
     expect((await listPullsRoute(url('/api/super-pulls'))).status).toBe(200);
-    expect(await addFeedingAction({ colonyId: f.a1, kind: 'other', startedOn: '2026-07-01', idempotencyKey: key() })).toMatchObject({ ok: false, message: expect.stringMatching(/not allowed/) });
-    expect((await recordPullsAction({ entries: [{ colonyId: f.a1, pulledOn: '2026-07-01', depth: 'deep', frameCount: 10, idempotencyKey: key() }] })).ok).toBe(false);
+    expect(
+      await addFeedingAction({ colonyId: f.a1, kind: 'other', startedOn: '2026-07-01', idempotencyKey: key() }),
+    ).toMatchObject({ ok: false, message: expect.stringMatching(/not allowed/) });
+    expect(
+      (
+        await recordPullsAction({
+          entries: [{ colonyId: f.a1, pulledOn: '2026-07-01', depth: 'deep', frameCount: 10, idempotencyKey: key() }],
+        })
+      ).ok,
+    ).toBe(false);
     await signInAs(DEMO.customer);
-    for (const res of [await listPullsRoute(url('/api/super-pulls')), await listColoniesRoute(url('/api/colonies')), await getColonyRoute(url(`/api/colonies/detail?id=${f.a1}`))]) {
+    for (const res of [
+      await listPullsRoute(url('/api/super-pulls')),
+      await listColoniesRoute(url('/api/colonies')),
+      await getColonyRoute(url(`/api/colonies/detail?id=${f.a1}`)),
+    ]) {
       expect(res.status).toBe(403);
     }
   });

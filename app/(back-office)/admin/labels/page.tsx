@@ -17,21 +17,55 @@ export default async function LabelLayoutsPage({ searchParams }: { searchParams:
   const start = editing?.layout ?? { ...BUILT_IN_LAYOUTS[0], name: 'My A4 sheet' };
   return (
     <>
-      <PageHeader title="Label layouts" lead="Sheets and rolls to print jar labels on. Measure your label stock; print one page on plain paper and hold it against a sheet before printing a run." actions={<Link className="btn-secondary" href="/admin/jarring">Jarring</Link>} />
+      <PageHeader
+        title="Label layouts"
+        lead="Sheets and rolls to print jar labels on. Measure your label stock; print one page on plain paper and hold it against a sheet before printing a run."
+        actions={
+          <Link className="btn-secondary" href="/admin/jarring">
+            Jarring
+          </Link>
+        }
+      />
       <div className="grid gap-6 xl:grid-cols-[1fr_24rem]">
-        <div className="card overflow-x-auto p-0">
+        <div className="overflow-x-auto card p-0">
           <table className="data-table">
             <caption className="sr-only">Label layouts</caption>
-            <thead><tr><th scope="col">Name</th><th scope="col">Paper</th><th scope="col">Label, mm</th><th scope="col">Grid</th><th scope="col">Nudge, mm</th><th scope="col"><span className="sr-only">Actions</span></th></tr></thead>
+            <thead>
+              <tr>
+                <th scope="col">Name</th>
+                <th scope="col">Paper</th>
+                <th scope="col">Label, mm</th>
+                <th scope="col">Grid</th>
+                <th scope="col">Nudge, mm</th>
+                <th scope="col">
+                  <span className="sr-only">Actions</span>
+                </th>
+              </tr>
+            </thead>
             <tbody>
               {layouts.map(({ key, id, builtIn, layout: l }) => (
                 <tr key={key}>
-                  <td>{l.name} {builtIn ? <Chip>built in</Chip> : null}</td>
+                  <td>
+                    {l.name} {builtIn ? <Chip>built in</Chip> : null}
+                  </td>
                   <td className="uppercase">{l.paper}</td>
-                  <td className="tabular-nums">{l.labelWidthMm} × {l.labelHeightMm}</td>
+                  <td className="tabular-nums">
+                    {l.labelWidthMm} × {l.labelHeightMm}
+                  </td>
                   <td className="tabular-nums">{l.paper === 'roll' ? '1 per page' : `${l.columns} × ${l.rows}`}</td>
-                  <td className="tabular-nums">{l.offsetXMm}, {l.offsetYMm}</td>
-                  <td>{id ? <span className="flex gap-1"><Link className="btn-quiet" href={`/admin/labels?edit=${key}`}>Edit</Link><DeleteLayoutButton layoutId={id} onDelete={deleteLabelLayoutAction} /></span> : null}</td>
+                  <td className="tabular-nums">
+                    {l.offsetXMm}, {l.offsetYMm}
+                  </td>
+                  <td>
+                    {id ? (
+                      <span className="flex gap-1">
+                        <Link className="btn-quiet" href={`/admin/labels?edit=${key}`}>
+                          Edit
+                        </Link>
+                        <DeleteLayoutButton layoutId={id} onDelete={deleteLabelLayoutAction} />
+                      </span>
+                    ) : null}
+                  </td>
                 </tr>
               ))}
             </tbody>
@@ -39,7 +73,11 @@ export default async function LabelLayoutsPage({ searchParams }: { searchParams:
         </div>
         <section className="card">
           <h2 className="mb-3">{editing ? `Edit ${editing.layout.name}` : 'New layout'}</h2>
-          <LayoutForm key={edit ?? 'new'} onSave={saveLabelLayoutAction} defaults={{ ...start, layoutId: editing?.id ?? undefined }} />
+          <LayoutForm
+            key={edit ?? 'new'}
+            onSave={saveLabelLayoutAction}
+            defaults={{ ...start, layoutId: editing?.id ?? undefined }}
+          />
         </section>
       </div>
     </>

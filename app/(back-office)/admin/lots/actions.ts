@@ -3,11 +3,28 @@ import { revalidatePath } from 'next/cache';
 import { guardedAction } from '@/lib/http/server-action';
 import { toGrams } from '@/lib/domain/units';
 import {
-  blendFormInput, containerInput, containerTypeInput, emptyWeightInput, lotDetailsInput, lotInput, pickSupersInput,
-  readingInput, removeSuperInput, scanSuperInput, stageInput, voidInput, waxInput,
+  blendFormInput,
+  containerInput,
+  containerTypeInput,
+  emptyWeightInput,
+  lotDetailsInput,
+  lotInput,
+  pickSupersInput,
+  readingInput,
+  removeSuperInput,
+  scanSuperInput,
+  stageInput,
+  voidInput,
+  waxInput,
 } from '@/lib/schemas/lots';
 import { createLot, setCappingsWax, updateLotDetails } from '@/lib/data/lots/lots';
-import { addSuperByTag, addSupersById, removeSuper, setSuperEmptyWeight, type AddedSuper } from '@/lib/data/lots/supers';
+import {
+  addSuperByTag,
+  addSupersById,
+  removeSuper,
+  setSuperEmptyWeight,
+  type AddedSuper,
+} from '@/lib/data/lots/supers';
 import { addContainer, addReading, voidRecord } from '@/lib/data/lots/records';
 import { changeLotStage } from '@/lib/data/lots/stage';
 import { createBlend } from '@/lib/data/lots/blends';
@@ -31,11 +48,15 @@ export const updateLotAction = guardedAction('lots.write', lotDetailsInput, asyn
   return { ok: true };
 });
 
-export const scanSuperAction = guardedAction('lots.write', scanSuperInput, async (user, data): Promise<{ ok: true; data: AddedSuper }> => {
-  const added = await addSuperByTag(user, data.lotId, data.tagCode, data.overrideReason || undefined);
-  touched(data.lotId);
-  return { ok: true, data: added };
-});
+export const scanSuperAction = guardedAction(
+  'lots.write',
+  scanSuperInput,
+  async (user, data): Promise<{ ok: true; data: AddedSuper }> => {
+    const added = await addSuperByTag(user, data.lotId, data.tagCode, data.overrideReason || undefined);
+    touched(data.lotId);
+    return { ok: true, data: added };
+  },
+);
 
 export const pickSupersAction = guardedAction('lots.write', pickSupersInput, async (user, data) => {
   const added = await addSupersById(user, data.lotId, data.superPullIds);
@@ -56,7 +77,12 @@ export const emptyWeightAction = guardedAction('lots.write', emptyWeightInput, a
 });
 
 export const addContainerAction = guardedAction('lots.write', containerInput, async (user, data) => {
-  await addContainer(user, data.lotId, { containerTypeId: data.containerTypeId ?? null, label: data.label, grossGrams: toGrams(data.gross, data.unit), tareGrams: toGrams(data.tare, data.unit) });
+  await addContainer(user, data.lotId, {
+    containerTypeId: data.containerTypeId ?? null,
+    label: data.label,
+    grossGrams: toGrams(data.gross, data.unit),
+    tareGrams: toGrams(data.tare, data.unit),
+  });
   touched(data.lotId);
   return { ok: true };
 });
@@ -69,9 +95,23 @@ export const waxAction = guardedAction('lots.write', waxInput, async (user, data
 
 export const addReadingAction = guardedAction('lots.write', readingInput, async (user, data) => {
   const { lotId, ...reading } = data;
-  const saved = await addReading(user, lotId, reading.method === 'ri'
-    ? { method: 'ri', refractiveIndex: reading.refractiveIndex, temperatureC: reading.temperatureC, takenOn: reading.takenOn }
-    : { method: 'scale', scaleWaterPct: reading.scaleWaterPct, temperatureC: reading.temperatureC, takenOn: reading.takenOn });
+  const saved = await addReading(
+    user,
+    lotId,
+    reading.method === 'ri'
+      ? {
+          method: 'ri',
+          refractiveIndex: reading.refractiveIndex,
+          temperatureC: reading.temperatureC,
+          takenOn: reading.takenOn,
+        }
+      : {
+          method: 'scale',
+          scaleWaterPct: reading.scaleWaterPct,
+          temperatureC: reading.temperatureC,
+          takenOn: reading.takenOn,
+        },
+  );
   touched(lotId);
   return { ok: true, data: saved };
 });
@@ -82,26 +122,50 @@ export const voidRecordAction = guardedAction('lots.write', voidInput, async (us
   return { ok: true };
 });
 
-export const changeStageAction = guardedAction('lots.write', stageInput, async (user, data): Promise<{ ok: true; data: { stage: LotStage; holdReasons: string[] } }> => {
-  const result = await changeLotStage(user, data.lotId, data.target, data.reason);
-  touched(data.lotId);
-  return { ok: true, data: result };
-});
+export const changeStageAction = guardedAction(
+  'lots.write',
+  stageInput,
+  async (user, data): Promise<{ ok: true; data: { stage: LotStage; holdReasons: string[] } }> => {
+    const result = await changeLotStage(user, data.lotId, data.target, data.reason);
+    touched(data.lotId);
+    return { ok: true, data: result };
+  },
+);
 
 export const createBlendAction = guardedAction('lots.write', blendFormInput, async (user, data) => {
-  const blend = await createBlend(user, { floralSource: data.floralSource, notes: data.notes, parts: data.parts.map((p) => ({ lotId: p.lotId, grams: toGrams(p.amount, data.unit) })) });
+  const blend = await createBlend(user, {
+    floralSource: data.floralSource,
+    notes: data.notes,
+    parts: data.parts.map((p) => ({ lotId: p.lotId, grams: toGrams(p.amount, data.unit) })),
+  });
   revalidatePath('/admin/lots');
   return { ok: true, data: blend };
 });
 
-export const saveContainerTypeAction = guardedAction('containerTypes.manage', containerTypeInput, async (user, data) => {
-  const id = await saveContainerType(user, { id: data.id, name: data.name, usualTareGrams: toGrams(data.usualTare, data.unit), active: data.active });
-  revalidatePath('/admin/lots/container-types');
-  return { ok: true, data: { id } };
-});
+export const saveContainerTypeAction = guardedAction(
+  'containerTypes.manage',
+  containerTypeInput,
+  async (user, data) => {
+    const id = await saveContainerType(user, {
+      id: data.id,
+      name: data.name,
+      usualTareGrams: toGrams(data.usualTare, data.unit),
+      active: data.active,
+    });
+    revalidatePath('/admin/lots/container-types');
+    return { ok: true, data: { id } };
+  },
+);
 
 export type LotActions = {
-  update: typeof updateLotAction; scan: typeof scanSuperAction; pick: typeof pickSupersAction; remove: typeof removeSuperAction;
-  empty: typeof emptyWeightAction; container: typeof addContainerAction; wax: typeof waxAction; reading: typeof addReadingAction;
-  void: typeof voidRecordAction; stage: typeof changeStageAction;
+  update: typeof updateLotAction;
+  scan: typeof scanSuperAction;
+  pick: typeof pickSupersAction;
+  remove: typeof removeSuperAction;
+  empty: typeof emptyWeightAction;
+  container: typeof addContainerAction;
+  wax: typeof waxAction;
+  reading: typeof addReadingAction;
+  void: typeof voidRecordAction;
+  stage: typeof changeStageAction;
 };

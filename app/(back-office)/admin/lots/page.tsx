@@ -17,7 +17,13 @@ export default async function LotsPage({ searchParams }: { searchParams: Promise
   const user = await requirePermission('lots.read', '/admin/lots');
   const params = await searchParams;
   const pick = (k: string) => (typeof params[k] === 'string' && params[k] ? params[k] : undefined);
-  const q = lotListQuery.parse({ pageSize: 25, page: 1, stage: pick('stage'), year: pick('year'), floral: pick('floral') });
+  const q = lotListQuery.parse({
+    pageSize: 25,
+    page: 1,
+    stage: pick('stage'),
+    year: pick('year'),
+    floral: pick('floral'),
+  });
   const [list, settings] = await Promise.all([listLots(user, q), getSettings()]);
   const filters: Record<string, string> = {};
   if (q.stage) filters.stage = q.stage;
@@ -28,27 +34,59 @@ export default async function LotsPage({ searchParams }: { searchParams: Promise
     <>
       <PageHeader
         title="Extraction lots"
-        lead={user.role === 'keeper' ? 'Lots holding supers from your colonies.' : 'Honey extracted together and kept together: weights, moisture, lab reports and history.'}
-        actions={writer ? (<>
-          <Link href="/admin/lots/new" className="btn-primary">New lot</Link>
-          <Link href="/admin/lots/blend" className="btn-secondary">New blend</Link>
-          {can(user.role, 'containerTypes.manage') ? <Link href="/admin/lots/container-types" className="btn-quiet">Container types</Link> : null}
-        </>) : null}
+        lead={
+          user.role === 'keeper'
+            ? 'Lots holding supers from your colonies.'
+            : 'Honey extracted together and kept together: weights, moisture, lab reports and history.'
+        }
+        actions={
+          writer ? (
+            <>
+              <Link href="/admin/lots/new" className="btn-primary">
+                New lot
+              </Link>
+              <Link href="/admin/lots/blend" className="btn-secondary">
+                New blend
+              </Link>
+              {can(user.role, 'containerTypes.manage') ? (
+                <Link href="/admin/lots/container-types" className="btn-quiet">
+                  Container types
+                </Link>
+              ) : null}
+            </>
+          ) : null
+        }
       />
-      <form method="get" className="card mb-4 grid gap-3 sm:grid-cols-4 sm:items-end" aria-label="Filter lots">
-        <label className="field" htmlFor="stage"><span>Stage</span>
+      <form method="get" className="mb-4 grid gap-3 card sm:grid-cols-4 sm:items-end" aria-label="Filter lots">
+        <label className="field" htmlFor="stage">
+          <span>Stage</span>
           <select id="stage" name="stage" className="input" defaultValue={q.stage ?? ''}>
             <option value="">Any stage</option>
-            {LOT_STAGES.map((s) => <option key={s} value={s}>{STAGE_WORD[s]}</option>)}
-          </select></label>
-        <label className="field" htmlFor="year"><span>Year</span>
+            {LOT_STAGES.map((s) => (
+              <option key={s} value={s}>
+                {STAGE_WORD[s]}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="field" htmlFor="year">
+          <span>Year</span>
           <select id="year" name="year" className="input" defaultValue={q.year ? String(q.year) : ''}>
             <option value="">Any year</option>
-            {list.years.map((y) => <option key={y} value={y}>{y}</option>)}
-          </select></label>
-        <label className="field" htmlFor="floral"><span>Floral source</span>
-          <input id="floral" name="floral" className="input" defaultValue={q.floral ?? ''} /></label>
-        <button type="submit" className="btn-secondary">Filter</button>
+            {list.years.map((y) => (
+              <option key={y} value={y}>
+                {y}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="field" htmlFor="floral">
+          <span>Floral source</span>
+          <input id="floral" name="floral" className="input" defaultValue={q.floral ?? ''} />
+        </label>
+        <button type="submit" className="btn-secondary">
+          Filter
+        </button>
       </form>
       <LotsTable initial={list} filters={filters} weightSystem={settings.weightSystem} />
     </>

@@ -40,6 +40,12 @@ export const refundOrderAction = guardedAction('orders.refund', refundInput, asy
   if (!order) return fail('No such order.');
   // Money typed in the major unit becomes integer minor units once, with Math.round (DEVELOPERS.md, "Money and weights").
   const amountCents = Math.round(data.amount * 10 ** currencyMinorDigits(order.currency));
-  await refundOrder(user.id, { orderId: data.orderId, amountCents, jars: data.jars, restock: data.restock, reason: data.reason });
+  await refundOrder(user.id, {
+    orderId: data.orderId,
+    amountCents,
+    jars: data.jars,
+    restock: data.restock,
+    reason: data.reason,
+  });
   return done(data.orderId);
 });

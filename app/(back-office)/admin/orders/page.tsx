@@ -12,7 +12,11 @@ export const dynamic = 'force-dynamic';
 
 const label = (f: OrderDeskFilter) => (f === 'open' ? 'To pack and send' : f === 'all' ? 'All' : STATUS_LABEL(f));
 
-export default async function OrdersDeskPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function OrdersDeskPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const user = await requirePermission('orders.desk', '/admin/orders');
   const parsed = orderListQuery.safeParse(queryRecord(await searchParams));
   const query = parsed.success ? parsed.data : orderListQuery.parse({});
@@ -26,18 +30,27 @@ export default async function OrdersDeskPage({ searchParams }: { searchParams: P
         <label className="field" htmlFor="status">
           <span>Show</span>
           <select id="status" name="status" className="input w-auto" defaultValue={query.status}>
-            {ORDER_DESK_FILTERS.map((f) => <option key={f} value={f}>{label(f)}</option>)}
+            {ORDER_DESK_FILTERS.map((f) => (
+              <option key={f} value={f}>
+                {label(f)}
+              </option>
+            ))}
           </select>
         </label>
         <label className="field" htmlFor="q">
           <span>Order, name or e-mail</span>
           <input id="q" name="q" className="input" maxLength={80} defaultValue={query.q ?? ''} />
         </label>
-        <button type="submit" className="btn-secondary">Filter</button>
+        <button type="submit" className="btn-secondary">
+          Filter
+        </button>
       </form>
       <OrderDeskTable
-        initial={first} filters={filters} initialSort={{ id: query.sort, desc: query.dir === 'desc' }}
-        caption={`Orders: ${label(query.status)}`} timeZone={settings.timeZone}
+        initial={first}
+        filters={filters}
+        initialSort={{ id: query.sort, desc: query.dir === 'desc' }}
+        caption={`Orders: ${label(query.status)}`}
+        timeZone={settings.timeZone}
       />
     </>
   );

@@ -16,19 +16,48 @@ export default async function ProductsPage() {
   const [settings, products] = await Promise.all([getSettings(), listProducts()]);
   return (
     <>
-      <PageHeader title="Products" lead="The jar sizes the shop sells and the jarring runs fill." actions={<Link className="btn-secondary" href="/admin/labels">Label layouts</Link>} />
+      <PageHeader
+        title="Products"
+        lead="The jar sizes the shop sells and the jarring runs fill."
+        actions={
+          <Link className="btn-secondary" href="/admin/labels">
+            Label layouts
+          </Link>
+        }
+      />
       <div className="grid gap-6 xl:grid-cols-[1fr_24rem]">
-        <div className="card overflow-x-auto p-0">
+        <div className="overflow-x-auto card p-0">
           <table className="data-table">
             <caption className="sr-only">Products</caption>
-            <thead><tr><th scope="col">Name</th><th scope="col">Label declares</th><th scope="col">Container</th><th scope="col" className="num">Price</th><th scope="col">GTIN</th><th scope="col">Status</th></tr></thead>
+            <thead>
+              <tr>
+                <th scope="col">Name</th>
+                <th scope="col">Label declares</th>
+                <th scope="col">Container</th>
+                <th scope="col" className="num">
+                  Price
+                </th>
+                <th scope="col">GTIN</th>
+                <th scope="col">Status</th>
+              </tr>
+            </thead>
             <tbody>
-              {products.length === 0 ? <tr><td colSpan={6} className="hint">No products yet.</td></tr> : null}
+              {products.length === 0 ? (
+                <tr>
+                  <td colSpan={6} className="hint">
+                    No products yet.
+                  </td>
+                </tr>
+              ) : null}
               {products.map((p) => (
                 <tr key={p.id}>
-                  <td><Link href={`/admin/products/${p.id}`}>{p.name}</Link></td>
+                  <td>
+                    <Link href={`/admin/products/${p.id}`}>{p.name}</Link>
+                  </td>
                   <td>{declareNetQuantity(p, settings.labelDeclaration)}</td>
-                  <td>{p.containerKind}, {p.containerGrams} g</td>
+                  <td>
+                    {p.containerKind}, {p.containerGrams} g
+                  </td>
                   <td className="num">{formatMoney(p.priceCents, settings.currency)}</td>
                   <td className="tabular-nums">{p.gtin ?? <Chip tone="warn">none</Chip>}</td>
                   <td>{p.active ? <Chip tone="ok">active</Chip> : <Chip>inactive</Chip>}</td>

@@ -15,11 +15,18 @@ import { seasonRecipientsAction, sendKeeperReportAction } from './actions';
 
 export const metadata = { title: 'Yield reports' };
 
-export default async function ReportsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function ReportsPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const user = await requirePermission('reports.read', '/admin/reports');
   const filter = parseReportQuery(await searchParams);
   const [report, history, choices, settings] = await Promise.all([
-    getSeasonReport(user, filter), getSeasonHistory(user, filter), reportFilterChoices(user), getSettings(),
+    getSeasonReport(user, filter),
+    getSeasonHistory(user, filter),
+    reportFilterChoices(user),
+    getSettings(),
   ]);
   if (!report || !history) notFound();
   const units = { weightSystem: settings.weightSystem, currency: settings.currency };
@@ -39,11 +46,17 @@ export default async function ReportsPage({ searchParams }: { searchParams: Prom
   const csv = (table: TableKey) => `/api/reports/csv?${query({ table })}`;
 
   const byYard = new Map<string, { colony: string; honey: number }[]>();
-  for (const c of report.colonies) byYard.set(c.yardName, [...(byYard.get(c.yardName) ?? []), { colony: c.code, honey: chartNumber(c.honeyGrams) }]);
+  for (const c of report.colonies)
+    byYard.set(c.yardName, [...(byYard.get(c.yardName) ?? []), { colony: c.code, honey: chartNumber(c.honeyGrams) }]);
   const historyYards = [...new Set(history.map((h) => h.yardName))];
   const historyData = [...new Set(history.map((h) => h.season))].map((season) => ({
     season: String(season),
-    ...Object.fromEntries(historyYards.map((y) => [y, chartNumber(history.find((h) => h.season === season && h.yardName === y)?.honeyGrams ?? 0)])),
+    ...Object.fromEntries(
+      historyYards.map((y) => [
+        y,
+        chartNumber(history.find((h) => h.season === season && h.yardName === y)?.honeyGrams ?? 0),
+      ]),
+    ),
   }));
   const keeperLinks = user.role === 'owner' ? choices.keepers : [{ id: user.id, name: user.name }];
 
@@ -53,18 +66,26 @@ export default async function ReportsPage({ searchParams }: { searchParams: Prom
         title={`Season ${report.season} yield`}
         lead="Each lot's net weight is shared back to the supers that made it: by measured honey (full minus empty), or by an estimate from box depth and capped frames where a super was not weighed. Blends pass their weight back through their parent lots; revenue of sold jars is shared the same way."
       />
-      <form method="get" className="card mb-6 flex flex-wrap items-end gap-4" aria-label="Filter the report">
+      <form method="get" className="mb-6 flex flex-wrap items-end gap-4 card" aria-label="Filter the report">
         <label className="field">
           <span>Season</span>
           <select name="season" className="input min-h-11" defaultValue={report.season}>
-            {(report.seasons.length ? report.seasons : [report.season]).map((s) => <option key={s} value={s}>{s}</option>)}
+            {(report.seasons.length ? report.seasons : [report.season]).map((s) => (
+              <option key={s} value={s}>
+                {s}
+              </option>
+            ))}
           </select>
         </label>
         <label className="field">
           <span>Yard</span>
           <select name="yard" className="input min-h-11" defaultValue={filter.yardId ?? ''}>
             <option value="">All yards</option>
-            {choices.yards.map((y) => <option key={y.id} value={y.id}>{y.name}</option>)}
+            {choices.yards.map((y) => (
+              <option key={y.id} value={y.id}>
+                {y.name}
+              </option>
+            ))}
           </select>
         </label>
         {user.role === 'owner' ? (
@@ -72,25 +93,51 @@ export default async function ReportsPage({ searchParams }: { searchParams: Prom
             <span>Keeper</span>
             <select name="keeper" className="input min-h-11" defaultValue={filter.keeperId ?? ''}>
               <option value="">All keepers</option>
-              {choices.keepers.map((k) => <option key={k.id} value={k.id}>{k.name}</option>)}
+              {choices.keepers.map((k) => (
+                <option key={k.id} value={k.id}>
+                  {k.name}
+                </option>
+              ))}
             </select>
           </label>
         ) : null}
-        <button type="submit" className="btn-secondary min-h-11">Show</button>
+        <button type="submit" className="btn-secondary min-h-11">
+          Show
+        </button>
       </form>
 
       <dl className="mb-6 grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-        <div className="card"><dt className="hint">Honey traced to colonies</dt><dd className="text-2xl font-semibold tabular-nums" data-testid="total-honey">{w(report.totals.honeyGrams)}</dd></div>
-        <div className="card"><dt className="hint">Revenue shared back</dt><dd className="text-2xl font-semibold tabular-nums">{formatMoney(report.totals.revenueCents, units.currency)}</dd></div>
-        <div className="card"><dt className="hint">Colonies</dt><dd className="text-2xl font-semibold tabular-nums">{report.colonies.length} <span className="text-base font-normal">({report.nothing.length} made none)</span></dd></div>
-        <div className="card"><dt className="hint">Not traced to a super</dt><dd className="text-2xl font-semibold tabular-nums">{w(report.totals.unattributedGrams)}</dd></div>
+        <div className="card">
+          <dt className="hint">Honey traced to colonies</dt>
+          <dd className="text-2xl font-semibold tabular-nums" data-testid="total-honey">
+            {w(report.totals.honeyGrams)}
+          </dd>
+        </div>
+        <div className="card">
+          <dt className="hint">Revenue shared back</dt>
+          <dd className="text-2xl font-semibold tabular-nums">
+            {formatMoney(report.totals.revenueCents, units.currency)}
+          </dd>
+        </div>
+        <div className="card">
+          <dt className="hint">Colonies</dt>
+          <dd className="text-2xl font-semibold tabular-nums">
+            {report.colonies.length} <span className="text-base font-normal">({report.nothing.length} made none)</span>
+          </dd>
+        </div>
+        <div className="card">
+          <dt className="hint">Not traced to a super</dt>
+          <dd className="text-2xl font-semibold tabular-nums">{w(report.totals.unattributedGrams)}</dd>
+        </div>
       </dl>
 
       <div className="flex flex-col gap-8">
         <section aria-labelledby="charts" className="flex flex-col gap-3">
           <h2 id="charts">Honey per colony, by yard</h2>
           <div className="grid gap-4 xl:grid-cols-2">
-            {[...byYard].map(([yard, data]) => <YardBars key={yard} yard={yard} unit={unit} data={data} />)}
+            {[...byYard].map(([yard, data]) => (
+              <YardBars key={yard} yard={yard} unit={unit} data={data} />
+            ))}
           </div>
           {historyData.length > 0 ? <SeasonBars unit={unit} yards={historyYards} data={historyData} /> : null}
         </section>
@@ -103,11 +150,19 @@ export default async function ReportsPage({ searchParams }: { searchParams: Prom
         <ReportTableView table={tables.lots} csvHref={csv('lots')} empty="No lots in this season." />
         <ReportTableView table={tables.shares} csvHref={csv('shares')} folded />
 
-        <section aria-labelledby="keeper-reports" className="card flex flex-col gap-3">
+        <section aria-labelledby="keeper-reports" className="flex flex-col gap-3 card">
           <h2 id="keeper-reports">Keeper reports</h2>
           <ul className="flex flex-wrap gap-2">
             {keeperLinks.map((k) => (
-              <li key={k.id}><a className="btn-secondary min-h-11" href={`/api/reports/keeper-pdf?keeper=${k.id}&season=${report.season}`} download>PDF: {k.name}</a></li>
+              <li key={k.id}>
+                <a
+                  className="btn-secondary min-h-11"
+                  href={`/api/reports/keeper-pdf?keeper=${k.id}&season=${report.season}`}
+                  download
+                >
+                  PDF: {k.name}
+                </a>
+              </li>
             ))}
           </ul>
           {can(user.role, 'reports.send') ? (

@@ -15,10 +15,20 @@ export default async function StaffPage() {
     <>
       <PageHeader title="Staff" lead="New staff get an e-mail with a link to choose their password." />
       <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
-        <div className="card overflow-x-auto p-0">
+        <div className="overflow-x-auto card p-0">
           <table className="data-table">
             <caption className="sr-only">Staff accounts</caption>
-            <thead><tr><th scope="col">Name</th><th scope="col">E-mail</th><th scope="col">Role</th><th scope="col">Status</th><th scope="col"><span className="sr-only">Actions</span></th></tr></thead>
+            <thead>
+              <tr>
+                <th scope="col">Name</th>
+                <th scope="col">E-mail</th>
+                <th scope="col">Role</th>
+                <th scope="col">Status</th>
+                <th scope="col">
+                  <span className="sr-only">Actions</span>
+                </th>
+              </tr>
+            </thead>
             <tbody>
               {staff.map((s) => (
                 <tr key={s.id}>
@@ -26,7 +36,18 @@ export default async function StaffPage() {
                   <td className="break-all">{s.email}</td>
                   <td className="capitalize">{s.role === 'crew' ? 'honey house' : s.role}</td>
                   <td>{s.disabled ? <Chip tone="bad">disabled</Chip> : <Chip tone="ok">active</Chip>}</td>
-                  <td>{s.id === me.id ? <span className="hint">you</span> : <StaffRowActions userId={s.id} role={s.role as 'owner'} disabled={s.disabled} onUpdate={updateStaffAction} />}</td>
+                  <td>
+                    {s.id === me.id ? (
+                      <span className="hint">you</span>
+                    ) : (
+                      <StaffRowActions
+                        userId={s.id}
+                        role={s.role as 'owner'}
+                        disabled={s.disabled}
+                        onUpdate={updateStaffAction}
+                      />
+                    )}
+                  </td>
                 </tr>
               ))}
             </tbody>

@@ -19,57 +19,136 @@ function monthsUntil(iso: string): number {
 
 function BestBefore({ iso }: { iso: string }) {
   const months = monthsUntil(iso);
-  return <span className="whitespace-nowrap">{iso} {months < 0 ? <Chip tone="bad">past</Chip> : months < 3 ? <Chip tone="warn">soon</Chip> : null}</span>;
+  return (
+    <span className="whitespace-nowrap">
+      {iso} {months < 0 ? <Chip tone="bad">past</Chip> : months < 3 ? <Chip tone="warn">soon</Chip> : null}
+    </span>
+  );
 }
 
-export default async function StockPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function StockPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const user = await requirePermission('stock.read', '/admin/stock');
   const parsed = ledgerListQuery.safeParse(queryRecord(await searchParams));
   const query = parsed.success ? parsed.data : ledgerListQuery.parse({});
   const [totals, levels, ledger] = await Promise.all([stockTotals(), listStockLevels(), listLedger(user, query)]);
-  const filters = Object.fromEntries(Object.entries({ productId: query.productId, lotId: query.lotId }).filter(([, v]) => v !== undefined).map(([k, v]) => [k, String(v)]));
+  const filters = Object.fromEntries(
+    Object.entries({ productId: query.productId, lotId: query.lotId })
+      .filter(([, v]) => v !== undefined)
+      .map(([k, v]) => [k, String(v)]),
+  );
   return (
     <>
-      <PageHeader title="Stock" lead="Jars on hand per product and per lot. Every change is a line in the ledger below." />
+      <PageHeader
+        title="Stock"
+        lead="Jars on hand per product and per lot. Every change is a line in the ledger below."
+      />
       <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
         <div className="space-y-6">
-          <section className="card overflow-x-auto p-0" aria-labelledby="totals-h">
-            <h2 id="totals-h" className="px-4 pt-4">Per product</h2>
+          <section className="overflow-x-auto card p-0" aria-labelledby="totals-h">
+            <h2 id="totals-h" className="px-4 pt-4">
+              Per product
+            </h2>
             <table className="data-table" data-testid="stock-totals">
-              <thead><tr><th scope="col">Product</th><th scope="col" className="num">On hand</th><th scope="col" className="num">Reserved</th><th scope="col" className="num">Available</th><th scope="col" className="num">Lots</th><th scope="col">Earliest best-before</th></tr></thead>
+              <thead>
+                <tr>
+                  <th scope="col">Product</th>
+                  <th scope="col" className="num">
+                    On hand
+                  </th>
+                  <th scope="col" className="num">
+                    Reserved
+                  </th>
+                  <th scope="col" className="num">
+                    Available
+                  </th>
+                  <th scope="col" className="num">
+                    Lots
+                  </th>
+                  <th scope="col">Earliest best-before</th>
+                </tr>
+              </thead>
               <tbody>
                 {totals.map((t) => (
                   <tr key={t.productId}>
-                    <td>{t.productName}</td><td className="num">{t.onHand}</td><td className="num">{t.reserved}</td><td className="num">{t.available}</td><td className="num">{t.lots}</td>
+                    <td>{t.productName}</td>
+                    <td className="num">{t.onHand}</td>
+                    <td className="num">{t.reserved}</td>
+                    <td className="num">{t.available}</td>
+                    <td className="num">{t.lots}</td>
                     <td>{t.earliestBestBefore ? <BestBefore iso={t.earliestBestBefore} /> : '—'}</td>
                   </tr>
                 ))}
               </tbody>
             </table>
           </section>
-          <section className="card overflow-x-auto p-0" aria-labelledby="lots-h">
-            <h2 id="lots-h" className="px-4 pt-4">Per lot</h2>
+          <section className="overflow-x-auto card p-0" aria-labelledby="lots-h">
+            <h2 id="lots-h" className="px-4 pt-4">
+              Per lot
+            </h2>
             <table className="data-table">
-              <thead><tr><th scope="col">Product</th><th scope="col">Lot</th><th scope="col" className="num">On hand</th><th scope="col" className="num">Reserved</th><th scope="col">Best before</th></tr></thead>
+              <thead>
+                <tr>
+                  <th scope="col">Product</th>
+                  <th scope="col">Lot</th>
+                  <th scope="col" className="num">
+                    On hand
+                  </th>
+                  <th scope="col" className="num">
+                    Reserved
+                  </th>
+                  <th scope="col">Best before</th>
+                </tr>
+              </thead>
               <tbody>
-                {levels.length === 0 ? <tr><td colSpan={5} className="hint">No stock yet.</td></tr> : null}
+                {levels.length === 0 ? (
+                  <tr>
+                    <td colSpan={5} className="hint">
+                      No stock yet.
+                    </td>
+                  </tr>
+                ) : null}
                 {levels.map((l) => (
                   <tr key={`${l.productId}:${l.lotId}`}>
-                    <td>{l.productName}</td><td>{l.lotCode}</td><td className="num">{l.onHand}</td><td className="num">{l.reserved}</td><td><BestBefore iso={l.bestBeforeOn} /></td>
+                    <td>{l.productName}</td>
+                    <td>{l.lotCode}</td>
+                    <td className="num">{l.onHand}</td>
+                    <td className="num">{l.reserved}</td>
+                    <td>
+                      <BestBefore iso={l.bestBeforeOn} />
+                    </td>
                   </tr>
                 ))}
               </tbody>
             </table>
           </section>
           <section aria-labelledby="ledger-h">
-            <h2 id="ledger-h" className="mb-2">Ledger</h2>
-            <LedgerTable initial={ledger} filters={filters} initialSort={{ id: query.sort, desc: query.dir === 'desc' }} />
+            <h2 id="ledger-h" className="mb-2">
+              Ledger
+            </h2>
+            <LedgerTable
+              initial={ledger}
+              filters={filters}
+              initialSort={{ id: query.sort, desc: query.dir === 'desc' }}
+            />
           </section>
         </div>
         {can(user.role, 'stock.adjust') ? (
-          <section className="card h-fit" aria-labelledby="adjust-h">
-            <h2 id="adjust-h" className="mb-3">Breakage, count, return</h2>
-            <AdjustForm choices={levels.map((l) => ({ productId: l.productId, lotId: l.lotId, label: `${l.productName} · ${l.lotCode} (${l.onHand} on hand)` }))} onAdjust={adjustStockAction} />
+          <section className="h-fit card" aria-labelledby="adjust-h">
+            <h2 id="adjust-h" className="mb-3">
+              Breakage, count, return
+            </h2>
+            <AdjustForm
+              choices={levels.map((l) => ({
+                productId: l.productId,
+                lotId: l.lotId,
+                label: `${l.productName} · ${l.lotCode} (${l.onHand} on hand)`,
+              }))}
+              onAdjust={adjustStockAction}
+            />
           </section>
         ) : null}
       </div>

@@ -12,47 +12,106 @@ import { voidSuperPullAction } from './actions';
 
 export const metadata = { title: 'Super pulls' };
 
-export default async function SuperPullsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function SuperPullsPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const user = await requirePermission('supers.read', '/admin/supers');
   const params = queryRecord(await searchParams);
   const parsed = pullListQuery.safeParse(params);
   const query = parsed.success ? parsed.data : pullListQuery.parse({});
-  const [first, yards, settings] = await Promise.all([listSuperPulls(user, { ...query, page: 1, sort: 'pulledOn', dir: 'desc' }), listYardChoices(user), getSettings()]);
+  const [first, yards, settings] = await Promise.all([
+    listSuperPulls(user, { ...query, page: 1, sort: 'pulledOn', dir: 'desc' }),
+    listYardChoices(user),
+    getSettings(),
+  ]);
   // Only the filters go to the client table; it asks /api/super-pulls for other pages and sorts.
-  const filters = Object.fromEntries(Object.entries({ yardId: query.yardId, flagged: query.flagged, voided: query.voided, from: query.from, to: query.to }).filter(([, v]) => v !== undefined).map(([k, v]) => [k, String(v)]));
+  const filters = Object.fromEntries(
+    Object.entries({
+      yardId: query.yardId,
+      flagged: query.flagged,
+      voided: query.voided,
+      from: query.from,
+      to: query.to,
+    })
+      .filter(([, v]) => v !== undefined)
+      .map(([k, v]) => [k, String(v)]),
+  );
   return (
     <>
       <PageHeader
         title="Super pulls"
         lead="Supers taken off the colonies. A flagged super was on a colony during sugar feeding or a treatment whose label does not allow honey supers. A pull recorded by mistake is voided with a reason: it stays here, struck through, and no longer counts."
-        actions={<>
-          {can(user.role, 'supers.import') ? <Link href="/admin/supers/import" className="btn-secondary min-h-11">Import field sheet</Link> : null}
-          {can(user.role, 'superTags.print') ? <Link href="/admin/supers/tags" className="btn-secondary min-h-11">Super tags</Link> : null}
-        </>}
+        actions={
+          <>
+            {can(user.role, 'supers.import') ? (
+              <Link href="/admin/supers/import" className="btn-secondary min-h-11">
+                Import field sheet
+              </Link>
+            ) : null}
+            {can(user.role, 'superTags.print') ? (
+              <Link href="/admin/supers/tags" className="btn-secondary min-h-11">
+                Super tags
+              </Link>
+            ) : null}
+          </>
+        }
       />
-      {!parsed.success ? <p role="alert" className="mb-3 rounded-lg bg-warn-bg px-3 py-2 text-warn-fg">Some filters were not valid and were ignored.</p> : null}
-      <form method="get" className="card mb-4 grid gap-3 sm:grid-cols-3 sm:items-end lg:grid-cols-6" aria-label="Filter super pulls">
-        <label className="field" htmlFor="f-yard"><span>Yard</span>
+      {!parsed.success ? (
+        <p role="alert" className="mb-3 rounded-lg bg-warn-bg px-3 py-2 text-warn-fg">
+          Some filters were not valid and were ignored.
+        </p>
+      ) : null}
+      <form
+        method="get"
+        className="mb-4 grid gap-3 card sm:grid-cols-3 sm:items-end lg:grid-cols-6"
+        aria-label="Filter super pulls"
+      >
+        <label className="field" htmlFor="f-yard">
+          <span>Yard</span>
           <select id="f-yard" name="yardId" className="input min-h-11" defaultValue={params.yardId ?? ''}>
-            <option value="">All yards</option>{yards.map((y) => <option key={y.id} value={y.id}>{y.name}</option>)}
+            <option value="">All yards</option>
+            {yards.map((y) => (
+              <option key={y.id} value={y.id}>
+                {y.name}
+              </option>
+            ))}
           </select>
         </label>
-        <label className="field" htmlFor="f-flag"><span>Conflict check</span>
+        <label className="field" htmlFor="f-flag">
+          <span>Conflict check</span>
           <select id="f-flag" name="flagged" className="input min-h-11" defaultValue={params.flagged ?? ''}>
-            <option value="">All</option><option value="yes">Flagged only</option><option value="no">Clear only</option>
+            <option value="">All</option>
+            <option value="yes">Flagged only</option>
+            <option value="no">Clear only</option>
           </select>
         </label>
-        <label className="field" htmlFor="f-void"><span>Voided pulls</span>
+        <label className="field" htmlFor="f-void">
+          <span>Voided pulls</span>
           <select id="f-void" name="voided" className="input min-h-11" defaultValue={params.voided ?? ''}>
-            <option value="">Shown, struck through</option><option value="no">Hidden</option><option value="yes">Voided only</option>
+            <option value="">Shown, struck through</option>
+            <option value="no">Hidden</option>
+            <option value="yes">Voided only</option>
           </select>
         </label>
-        <label className="field" htmlFor="f-from"><span>From</span><input id="f-from" type="date" name="from" className="input min-h-11" defaultValue={params.from ?? ''} /></label>
-        <label className="field" htmlFor="f-to"><span>To</span><input id="f-to" type="date" name="to" className="input min-h-11" defaultValue={params.to ?? ''} /></label>
-        <button type="submit" className="btn-secondary min-h-11">Filter</button>
+        <label className="field" htmlFor="f-from">
+          <span>From</span>
+          <input id="f-from" type="date" name="from" className="input min-h-11" defaultValue={params.from ?? ''} />
+        </label>
+        <label className="field" htmlFor="f-to">
+          <span>To</span>
+          <input id="f-to" type="date" name="to" className="input min-h-11" defaultValue={params.to ?? ''} />
+        </label>
+        <button type="submit" className="btn-secondary min-h-11">
+          Filter
+        </button>
       </form>
       <SuperPullTable
-        initial={first} filters={filters} weightSystem={settings.weightSystem} timeZone={settings.timeZone}
+        initial={first}
+        filters={filters}
+        weightSystem={settings.weightSystem}
+        timeZone={settings.timeZone}
         onVoid={can(user.role, 'supers.write') ? voidSuperPullAction : undefined}
       />
     </>

@@ -4,8 +4,12 @@ import { guardedAction } from '@/lib/http/server-action';
 import { treatmentKindInput } from '@/lib/schemas/treatment-kinds';
 import { saveTreatmentKind } from '@/lib/data/colonies/records';
 
-export const saveTreatmentKindAction = guardedAction('treatmentKinds.manage', treatmentKindInput, async (user, data) => {
-  const id = await saveTreatmentKind(user.id, data);
-  revalidatePath('/admin/treatment-kinds');
-  return { ok: true, data: { id } };
-});
+export const saveTreatmentKindAction = guardedAction(
+  'treatmentKinds.manage',
+  treatmentKindInput,
+  async (user, data) => {
+    const id = await saveTreatmentKind(user.id, data);
+    revalidatePath('/admin/treatment-kinds');
+    return { ok: true, data: { id } };
+  },
+);

@@ -12,11 +12,16 @@ export default async function TreatmentKindsPage() {
   const kinds = await listTreatmentKinds();
   return (
     <>
-      <PageHeader title="Treatment kinds" lead="The list keepers choose from when they record a mite treatment. Each treatment keeps the values it was recorded with; editing a kind changes only new records." />
+      <PageHeader
+        title="Treatment kinds"
+        lead="The list keepers choose from when they record a mite treatment. Each treatment keeps the values it was recorded with; editing a kind changes only new records."
+      />
       <div className="space-y-4">
         <TreatmentCaution />
-        <section className="card space-y-4">
-          {kinds.map((k) => <TreatmentKindForm key={k.id} initial={k} onSave={saveTreatmentKindAction} />)}
+        <section className="space-y-4 card">
+          {kinds.map((k) => (
+            <TreatmentKindForm key={k.id} initial={k} onSave={saveTreatmentKindAction} />
+          ))}
           {kinds.length === 0 ? <p>No kinds yet.</p> : null}
         </section>
         <section className="card">

@@ -29,20 +29,40 @@ export default async function OrderPage({ params, searchParams }: Props) {
         <OrderStatusChip status={order.status} />
       </div>
       {waiting ? <p role="status">We are confirming your payment…</p> : null}
-      {order.status === 'paid' ? <p role="status">Thank you! Your payment was received and a confirmation is on its way to {order.email}.</p> : null}
+      {order.status === 'paid' ? (
+        <p role="status">Thank you! Your payment was received and a confirmation is on its way to {order.email}.</p>
+      ) : null}
       {order.status === 'awaiting_payment' && !back ? <p>This order has not been paid yet.</p> : null}
-      {order.status === 'expired' || order.status === 'cancelled' ? <p>This order was not paid in time and its jars went back on the shelf.</p> : null}
+      {order.status === 'expired' || order.status === 'cancelled' ? (
+        <p>This order was not paid in time and its jars went back on the shelf.</p>
+      ) : null}
       <OrderLines order={order} />
-      <section className="card space-y-1 text-sm">
+      <section className="space-y-1 card text-sm">
         <h2 className="text-lg">{order.fulfilment === 'pickup' ? 'Pickup' : 'Delivery'}</h2>
-        {order.fulfilment === 'pickup' ? <p>At the honey house{settings.address ? `: ${settings.address}` : ''}. We e-mail you when it is ready.</p> : (
-          <p>{[order.shippingAddress?.line1, order.shippingAddress?.line2, order.shippingAddress?.city, order.shippingAddress?.postalCode, order.shippingAddress?.country].filter(Boolean).join(', ')}</p>
+        {order.fulfilment === 'pickup' ? (
+          <p>At the honey house{settings.address ? `: ${settings.address}` : ''}. We e-mail you when it is ready.</p>
+        ) : (
+          <p>
+            {[
+              order.shippingAddress?.line1,
+              order.shippingAddress?.line2,
+              order.shippingAddress?.city,
+              order.shippingAddress?.postalCode,
+              order.shippingAddress?.country,
+            ]
+              .filter(Boolean)
+              .join(', ')}
+          </p>
         )}
         {order.tracking ? <p>Tracking: {order.tracking}</p> : null}
       </section>
       <p className="hint">The lot code on each jar shows where its honey came from.</p>
       <Caution title="Food safety">{INFANT_CAUTION}</Caution>
-      {user?.role === 'customer' ? <p><Link href="/account">All your orders</Link></p> : null}
+      {user?.role === 'customer' ? (
+        <p>
+          <Link href="/account">All your orders</Link>
+        </p>
+      ) : null}
     </div>
   );
 }

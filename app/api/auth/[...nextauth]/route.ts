@@ -18,10 +18,19 @@ export function GET(req: Request, ctx: Ctx) {
  */
 export async function POST(req: Request, ctx: Ctx) {
   if (new URL(req.url).pathname.endsWith('/callback/credentials')) {
-    const form = await req.clone().formData().catch(() => null);
-    const email = String(form?.get('email') ?? '').trim().toLowerCase().slice(0, 254);
+    const form = await req
+      .clone()
+      .formData()
+      .catch(() => null);
+    const email = String(form?.get('email') ?? '')
+      .trim()
+      .toLowerCase()
+      .slice(0, 254);
     if (await isThrottled(email, clientIp(req.headers))) {
-      return Response.json({ url: `${appUrl()}/sign-in?error=Throttled`, error: 'Too many attempts. Wait a few minutes, then try again.' }, { status: 429 });
+      return Response.json(
+        { url: `${appUrl()}/sign-in?error=Throttled`, error: 'Too many attempts. Wait a few minutes, then try again.' },
+        { status: 429 },
+      );
     }
   }
   return handler(req, ctx);

@@ -13,7 +13,10 @@ export async function GET(req: Request) {
     const { id } = colonyDetailQuery.parse(Object.fromEntries(new URL(req.url).searchParams));
     const colony = await getColony(user, id);
     if (!colony) return jsonError(404, 'No such colony.');
-    return Response.json({ ...colony, supers: await listColonySupers(colony.id) }, { headers: { 'Cache-Control': 'no-store' } });
+    return Response.json(
+      { ...colony, supers: await listColonySupers(colony.id) },
+      { headers: { 'Cache-Control': 'no-store' } },
+    );
   } catch (err) {
     return handleRouteError(err);
   }

@@ -13,7 +13,11 @@ export const dynamic = 'force-dynamic';
 export async function GET(_req: Request, ctx: { params: Promise<{ id: string }> }) {
   try {
     const user = await authorize('lots.read');
-    const id = z.coerce.number().int().positive().parse((await ctx.params).id);
+    const id = z.coerce
+      .number()
+      .int()
+      .positive()
+      .parse((await ctx.params).id);
     const file = await getLabFileData(id);
     if (!file || !(await canReadLot(user, file.lotId))) throw new HttpError(404, 'No lab file with that id.');
     const ascii = file.filename.replace(/[^\x20-\x7e]/g, '_').replace(/["\\]/g, '_');

@@ -18,7 +18,10 @@ export async function GET(req: Request) {
     if (!report) throw new HttpError(404, 'There is no such report.');
     const settings = await getSettings();
     const t = seasonTables(report, { weightSystem: settings.weightSystem, currency: settings.currency })[table];
-    const csv = toCsv(t.csvColumns, t.rows.map((r) => r.csv));
+    const csv = toCsv(
+      t.csvColumns,
+      t.rows.map((r) => r.csv),
+    );
     return new Response(`\uFEFF${csv}\r\n`, {
       headers: {
         'Content-Type': 'text/csv; charset=utf-8',

@@ -18,7 +18,11 @@ export async function GET(req: Request) {
     const params = new URL(req.url).searchParams;
     const query = parseReportQuery(params);
     const keeperId = query.keeperId ?? (user.role === 'keeper' ? user.id : undefined);
-    if (keeperId === undefined) throw new HttpError(400, params.has('keeper') ? 'The keeper is not valid.' : 'Say which keeper\'s report you want.');
+    if (keeperId === undefined)
+      throw new HttpError(
+        400,
+        params.has('keeper') ? 'The keeper is not valid.' : "Say which keeper's report you want.",
+      );
     if (user.role !== 'owner' && user.id !== keeperId) throw new HttpError(404, 'There is no such report.');
     const keeper = await reportKeeper(keeperId);
     if (!keeper) throw new HttpError(404, 'There is no such report.');

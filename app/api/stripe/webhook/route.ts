@@ -18,7 +18,10 @@ export async function POST(req: Request): Promise<Response> {
   try {
     event = stripe().webhooks.constructEvent(body, signature, webhookSecret());
   } catch (err) {
-    const message = err instanceof Stripe.errors.StripeSignatureVerificationError ? 'The signature does not match.' : 'The event could not be read.';
+    const message =
+      err instanceof Stripe.errors.StripeSignatureVerificationError
+        ? 'The signature does not match.'
+        : 'The event could not be read.';
     return Response.json({ error: message }, { status: 400 });
   }
   try {

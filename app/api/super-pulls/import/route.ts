@@ -15,8 +15,12 @@ const CSV_TYPES = new Set(['text/csv', 'application/csv', 'text/plain', 'applica
 const TOO_LARGE = 'The file is larger than 5 MB. Split it into smaller files.';
 
 async function readSheet(form: FormData): Promise<string> {
-  const file = uploadedFile(form, 'file', MAX_IMPORT_BYTES, { missing: 'Choose a CSV file to upload.', tooLarge: TOO_LARGE });
-  if (!/\.csv$/i.test(file.name) || !CSV_TYPES.has(file.type)) throw new HttpError(415, 'Only CSV files (.csv) can be imported. Save the spreadsheet as CSV first.');
+  const file = uploadedFile(form, 'file', MAX_IMPORT_BYTES, {
+    missing: 'Choose a CSV file to upload.',
+    tooLarge: TOO_LARGE,
+  });
+  if (!/\.csv$/i.test(file.name) || !CSV_TYPES.has(file.type))
+    throw new HttpError(415, 'Only CSV files (.csv) can be imported. Save the spreadsheet as CSV first.');
   const bytes = new Uint8Array(await file.arrayBuffer());
   if (bytes.includes(0)) throw new HttpError(415, 'This file is not plain CSV text.');
   try {
@@ -34,13 +38,20 @@ export async function POST(req: Request) {
   try {
     await assertSameOrigin(req.headers);
     const user = await authorize('supers.import');
-    const form = await readUploadForm(req, MAX_IMPORT_BYTES, { tooLarge: TOO_LARGE, notAForm: 'Upload the file as a form (multipart/form-data).' });
+    const form = await readUploadForm(req, MAX_IMPORT_BYTES, {
+      tooLarge: TOO_LARGE,
+      notAForm: 'Upload the file as a form (multipart/form-data).',
+    });
     const text = await readSheet(form);
     const mode = form.get('mode') === 'commit' ? 'commit' : 'preview';
     const mappingText = form.get('mapping');
     let mappingJson: unknown = null;
     if (typeof mappingText === 'string' && mappingText) {
-      try { mappingJson = JSON.parse(mappingText); } catch { throw new HttpError(400, 'The column mapping is not valid JSON.'); }
+      try {
+        mappingJson = JSON.parse(mappingText);
+      } catch {
+        throw new HttpError(400, 'The column mapping is not valid JSON.');
+      }
     }
     const today = localDate(new Date(), (await getSettings()).timeZone);
     if (mode === 'preview') {
@@ -49,7 +60,15 @@ export async function POST(req: Request) {
     }
     const mapping = importMapping.parse(mappingJson);
     const expected = form.get('expectedValid');
-    return Response.json(await commitImport(user, text, mapping, today, typeof expected === 'string' && expected ? Number(expected) : undefined));
+    return Response.json(
+      await commitImport(
+        user,
+        text,
+        mapping,
+        today,
+        typeof expected === 'string' && expected ? Number(expected) : undefined,
+      ),
+    );
   } catch (err) {
     return handleRouteError(err);
   }

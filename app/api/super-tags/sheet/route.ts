@@ -14,10 +14,17 @@ export async function GET(req: Request) {
     await authorize('superTags.print');
     const q = tagSheetQuery.parse(Object.fromEntries(new URL(req.url).searchParams));
     const layout = q.layout ? BUILT_IN_LAYOUTS.find((l) => l.name === q.layout) : BUILT_IN_LAYOUTS[0];
-    if (!layout) throw new HttpError(422, `Unknown label layout. Choose one of: ${BUILT_IN_LAYOUTS.map((l) => l.name).join(', ')}.`);
+    if (!layout)
+      throw new HttpError(
+        422,
+        `Unknown label layout. Choose one of: ${BUILT_IN_LAYOUTS.map((l) => l.name).join(', ')}.`,
+      );
     const tags = await listTags(q.prefix);
     if (tags.length === 0) throw new HttpError(422, 'No super tags to print. Create a batch of tags first.');
-    const bytes = await renderSuperTagSheet(tags.map((t) => ({ code: t.code, caption: `${t.depth} · ${t.frameCount} frames` })), layout);
+    const bytes = await renderSuperTagSheet(
+      tags.map((t) => ({ code: t.code, caption: `${t.depth} · ${t.frameCount} frames` })),
+      layout,
+    );
     return pdfResponse(bytes, `super-tags${q.prefix ? `-${q.prefix}` : ''}.pdf`);
   } catch (err) {
     return handleRouteError(err);

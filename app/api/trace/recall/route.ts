@@ -22,7 +22,18 @@ export async function GET(req: Request) {
     const code = await getLotCode(lotId.data);
     if (!code) throw new HttpError(404, 'There is no such lot.');
     const rows = await getRecallList(lotId.data);
-    const cells = rows.map((r) => [r.orderNumber, r.status.replace('_', ' '), r.customerName, r.email, r.phone, r.address, r.lotCode, r.productName, r.jars, r.paidAt ?? '']);
+    const cells = rows.map((r) => [
+      r.orderNumber,
+      r.status.replace('_', ' '),
+      r.customerName,
+      r.email,
+      r.phone,
+      r.address,
+      r.lotCode,
+      r.productName,
+      r.jars,
+      r.paidAt ?? '',
+    ]);
     if (format === 'csv') {
       return new Response(`\uFEFF${toCsv(COLUMNS, cells)}\r\n`, {
         headers: {

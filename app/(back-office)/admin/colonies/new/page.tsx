@@ -13,13 +13,23 @@ export default async function NewColonyPage({ searchParams }: { searchParams: Pr
   const user = await requirePermission('colonies.write', '/admin/yards');
   const yard = await getYard(user, Number(yardId));
   if (!yard) notFound();
-  const parents = (await listColonies(user, { page: 1, pageSize: 100, sort: 'code', dir: 'asc', yardId: yard.id })).rows;
+  const parents = (await listColonies(user, { page: 1, pageSize: 100, sort: 'code', dir: 'asc', yardId: yard.id }))
+    .rows;
   const keepers = user.role === 'owner' ? yard.keepers : null;
   return (
     <>
       <PageHeader title={`New colony in ${yard.name}`} />
       <ColonyForm
-        initial={{ code: '', yardId: yard.id, keeperId: keepers?.[0]?.id ?? user.id, origin: 'nucleus', parentColonyId: '', queenYear: '', startedOn: '', notes: '' }}
+        initial={{
+          code: '',
+          yardId: yard.id,
+          keeperId: keepers?.[0]?.id ?? user.id,
+          origin: 'nucleus',
+          parentColonyId: '',
+          queenYear: '',
+          startedOn: '',
+          notes: '',
+        }}
         keepers={keepers && keepers.length ? keepers : null}
         parents={parents.map((p) => ({ id: p.id, code: p.code }))}
         onSave={createColonyAction}

@@ -24,31 +24,73 @@ export default async function JarringRunPage({ params }: { params: Promise<{ id:
   const system = settings.weightSystem;
   return (
     <>
-      <PageHeader title={`Jarring run #${run.id}`} lead={<>{run.jarCount} × {run.productName} from lot {run.lotCode} on {run.runOn}{run.byName ? ` by ${run.byName}` : ''}.</>} actions={<Link className="btn-secondary" href="/admin/jarring">All runs</Link>} />
+      <PageHeader
+        title={`Jarring run #${run.id}`}
+        lead={
+          <>
+            {run.jarCount} × {run.productName} from lot {run.lotCode} on {run.runOn}
+            {run.byName ? ` by ${run.byName}` : ''}.
+          </>
+        }
+        actions={
+          <Link className="btn-secondary" href="/admin/jarring">
+            All runs
+          </Link>
+        }
+      />
       <div className="grid gap-6 xl:grid-cols-[22rem_1fr]">
-        <section className={`card space-y-3 ${run.pass ? '' : 'border-2 border-bad-fg'}`} aria-labelledby="fill-h">
+        <section className={`space-y-3 card ${run.pass ? '' : 'border-2 border-bad-fg'}`} aria-labelledby="fill-h">
           <h2 id="fill-h">Fill check</h2>
-          <p><RunStatus pass={run.pass} overridden={!!run.overrideReason} /> <span className="hint">{run.ruleSet === 'oiml' ? 'OIML R 87 / 76/211/EEC' : 'NIST Handbook 133'}</span></p>
-          {!run.pass ? <ul className="ml-5 list-disc text-sm text-bad-fg">{run.reasons.map((r) => <li key={r}>{r}</li>)}</ul> : null}
+          <p>
+            <RunStatus pass={run.pass} overridden={!!run.overrideReason} />{' '}
+            <span className="hint">{run.ruleSet === 'oiml' ? 'OIML R 87 / 76/211/EEC' : 'NIST Handbook 133'}</span>
+          </p>
+          {!run.pass ? (
+            <ul className="ml-5 list-disc text-sm text-bad-fg">
+              {run.reasons.map((r) => (
+                <li key={r}>{r}</li>
+              ))}
+            </ul>
+          ) : null}
           <dl className="grid grid-cols-2 gap-1 text-sm">
-            <dt>Mean sample</dt><dd className="num">{run.mean.toFixed(1)} g</dd>
-            <dt>Samples</dt><dd className="num">{run.samples.length}</dd>
-            <dt>Honey used</dt><dd className="num">{formatWeight(run.honeyUsedGrams, system)}</dd>
+            <dt>Mean sample</dt>
+            <dd className="num">{run.mean.toFixed(1)} g</dd>
+            <dt>Samples</dt>
+            <dd className="num">{run.samples.length}</dd>
+            <dt>Honey used</dt>
+            <dd className="num">{formatWeight(run.honeyUsedGrams, system)}</dd>
           </dl>
           <p className="text-xs text-ink-soft">Samples (net, g): {run.samples.join(', ')}</p>
-          {run.overrideReason ? <p className="text-sm"><strong>Owner’s override:</strong> {run.overrideReason}</p> : null}
-          {!run.pass && !run.overrideReason && can(user.role, 'jarring.override') ? <OverrideForm runId={run.id} onOverride={overrideJarringRunAction} /> : null}
-          {!run.pass && !run.overrideReason && !can(user.role, 'jarring.override') ? <p className="text-sm">These jars stay out of stock until the owner reviews the run.</p> : null}
+          {run.overrideReason ? (
+            <p className="text-sm">
+              <strong>Owner’s override:</strong> {run.overrideReason}
+            </p>
+          ) : null}
+          {!run.pass && !run.overrideReason && can(user.role, 'jarring.override') ? (
+            <OverrideForm runId={run.id} onOverride={overrideJarringRunAction} />
+          ) : null}
+          {!run.pass && !run.overrideReason && !can(user.role, 'jarring.override') ? (
+            <p className="text-sm">These jars stay out of stock until the owner reviews the run.</p>
+          ) : null}
         </section>
         <section className="card" aria-labelledby="labels-h">
-          <h2 id="labels-h" className="mb-3">Labels</h2>
+          <h2 id="labels-h" className="mb-3">
+            Labels
+          </h2>
           {can(user.role, 'labels.print') ? (
             <LabelPreview
               runId={run.id}
               jarCount={run.jarCount}
-              layouts={layouts.map((o) => ({ key: o.key, name: o.layout.name, roll: o.layout.paper === 'roll', slots: labelPositions(o.layout).slots.length }))}
+              layouts={layouts.map((o) => ({
+                key: o.key,
+                name: o.layout.name,
+                roll: o.layout.paper === 'roll',
+                slots: labelPositions(o.layout).slots.length,
+              }))}
             />
-          ) : <p className="hint">The owner and the honey-house crew print labels.</p>}
+          ) : (
+            <p className="hint">The owner and the honey-house crew print labels.</p>
+          )}
         </section>
       </div>
     </>

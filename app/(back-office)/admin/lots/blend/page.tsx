@@ -13,10 +13,18 @@ export default async function BlendPage() {
   const [lots, settings] = await Promise.all([listBlendableLots(), getSettings()]);
   return (
     <>
-      <PageHeader title="New blend" lead="A new lot made from parts of released lots. The parents stay linked; its water content is the weight-weighted mean of theirs." />
+      <PageHeader
+        title="New blend"
+        lead="A new lot made from parts of released lots. The parents stay linked; its water content is the weight-weighted mean of theirs."
+      />
       <BlendForm
         unit={settings.weightSystem === 'us' ? 'lb' : 'kg'}
-        lots={lots.map((l) => ({ id: l.id, code: l.code, floralSource: l.floralSource, remaining: formatWeight(l.remainingGrams, settings.weightSystem) }))}
+        lots={lots.map((l) => ({
+          id: l.id,
+          code: l.code,
+          floralSource: l.floralSource,
+          remaining: formatWeight(l.remainingGrams, settings.weightSystem),
+        }))}
         onCreate={createBlendAction}
       />
     </>

@@ -11,13 +11,23 @@ export default async function ContainerTypesPage() {
   const types = await listContainerTypes(true);
   return (
     <>
-      <PageHeader title="Container types" lead="Buckets, pails, drums and tanks with their usual empty weight; the crew can still enter each container’s own tare." />
-      <div className="card space-y-4">
+      <PageHeader
+        title="Container types"
+        lead="Buckets, pails, drums and tanks with their usual empty weight; the crew can still enter each container’s own tare."
+      />
+      <div className="space-y-4 card">
         {types.map((t) => (
-          <ContainerTypeForm key={t.id} onSave={saveContainerTypeAction} defaults={{ id: t.id, name: t.name, usualTare: t.usualTareGrams / 1000, unit: 'kg', active: t.active }} />
+          <ContainerTypeForm
+            key={t.id}
+            onSave={saveContainerTypeAction}
+            defaults={{ id: t.id, name: t.name, usualTare: t.usualTareGrams / 1000, unit: 'kg', active: t.active }}
+          />
         ))}
         <h2>Add a type</h2>
-        <ContainerTypeForm onSave={saveContainerTypeAction} defaults={{ name: '', usualTare: 0, unit: 'kg', active: true }} />
+        <ContainerTypeForm
+          onSave={saveContainerTypeAction}
+          defaults={{ name: '', usualTare: 0, unit: 'kg', active: true }}
+        />
       </div>
     </>
   );

@@ -10,7 +10,10 @@ export default async function NewLotPage() {
   await requirePermission('lots.write', '/admin/lots/new');
   return (
     <>
-      <PageHeader title="New extraction lot" lead="The lot gets the next code when you start it; then scan the supers that go into it." />
+      <PageHeader
+        title="New extraction lot"
+        lead="The lot gets the next code when you start it; then scan the supers that go into it."
+      />
       <NewLotForm suggestions={await floralSourceSuggestions()} onCreate={createLotAction} />
     </>
   );

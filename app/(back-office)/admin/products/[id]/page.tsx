@@ -18,20 +18,36 @@ export default async function ProductPage({ params }: { params: Promise<{ id: st
   const settings = await getSettings();
   return (
     <>
-      <PageHeader title={product.name} actions={<Link className="btn-secondary" href="/admin/products">All products</Link>} />
+      <PageHeader
+        title={product.name}
+        actions={
+          <Link className="btn-secondary" href="/admin/products">
+            All products
+          </Link>
+        }
+      />
       <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
         <section className="card">
           <ProductForm
             companyPrefix={settings.gs1CompanyPrefix}
             onSave={saveProductAction}
             defaults={{
-              productId: product.id, name: product.name, slug: product.slug, description: product.description, netAmount: product.declaredAmount, netUnit: product.declaredUnit,
-              containerKind: product.containerKind, containerGrams: product.containerGrams, price: (product.priceCents / 100).toFixed(2), active: product.active,
-              gtinMode: product.gtin ? 'typed' : 'none', gtin: product.gtin ?? '',
+              productId: product.id,
+              name: product.name,
+              slug: product.slug,
+              description: product.description,
+              netAmount: product.declaredAmount,
+              netUnit: product.declaredUnit,
+              containerKind: product.containerKind,
+              containerGrams: product.containerGrams,
+              price: (product.priceCents / 100).toFixed(2),
+              active: product.active,
+              gtinMode: product.gtin ? 'typed' : 'none',
+              gtin: product.gtin ?? '',
             }}
           />
         </section>
-        <section className="card h-fit">
+        <section className="h-fit card">
           <h2 className="mb-3">Photo</h2>
           <PhotoUpload productId={product.id} photoId={product.photoId} />
         </section>

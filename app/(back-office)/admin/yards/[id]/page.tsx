@@ -21,15 +21,38 @@ export default async function YardPage({ params }: { params: Promise<{ id: strin
     <>
       <PageHeader
         title={yard.name}
-        lead={[yard.place, yard.keepers.length ? `Keepers: ${yard.keepers.map((k) => k.name).join(', ')}` : 'No keeper assigned'].filter(Boolean).join(' · ')}
-        actions={<>
-          {can(user.role, 'supers.write') ? <Link href={`/admin/yards/${yard.id}/pulls`} className="btn-primary min-h-11">Record pulls</Link> : null}
-          {write ? <Link href={`/admin/colonies/new?yardId=${yard.id}`} className="btn-secondary min-h-11">New colony</Link> : null}
-          {can(user.role, 'yards.manage') ? <Link href={`/admin/yards/${yard.id}/edit`} className="btn-secondary min-h-11">Edit yard</Link> : null}
-        </>}
+        lead={[
+          yard.place,
+          yard.keepers.length ? `Keepers: ${yard.keepers.map((k) => k.name).join(', ')}` : 'No keeper assigned',
+        ]
+          .filter(Boolean)
+          .join(' · ')}
+        actions={
+          <>
+            {can(user.role, 'supers.write') ? (
+              <Link href={`/admin/yards/${yard.id}/pulls`} className="btn-primary min-h-11">
+                Record pulls
+              </Link>
+            ) : null}
+            {write ? (
+              <Link href={`/admin/colonies/new?yardId=${yard.id}`} className="btn-secondary min-h-11">
+                New colony
+              </Link>
+            ) : null}
+            {can(user.role, 'yards.manage') ? (
+              <Link href={`/admin/yards/${yard.id}/edit`} className="btn-secondary min-h-11">
+                Edit yard
+              </Link>
+            ) : null}
+          </>
+        }
       />
       {yard.forageNotes ? <p className="mb-4 max-w-2xl text-sm text-ink-soft">Forage: {yard.forageNotes}</p> : null}
-      {yard.latitude != null && yard.longitude != null ? <p className="mb-4 text-sm text-ink-soft">Location: {yard.latitude}, {yard.longitude}</p> : null}
+      {yard.latitude != null && yard.longitude != null ? (
+        <p className="mb-4 text-sm text-ink-soft">
+          Location: {yard.latitude}, {yard.longitude}
+        </p>
+      ) : null}
       <ColonyTable initial={first} filters={{ yardId: String(yard.id) }} caption={`Colonies in ${yard.name}`} />
     </>
   );

@@ -17,7 +17,12 @@ export async function GET(req: Request, { params }: Ctx): Promise<Response> {
     if (!Number.isInteger(id) || id <= 0) throw new HttpError(404, 'No such jarring run.');
     const q = runLabelsQuery.parse(Object.fromEntries(new URL(req.url).searchParams));
     const preview = q.preview === '1';
-    const { bytes, filename } = await renderRunLabels(id, { layoutKey: q.layout, startSlot: q.start, copies: q.copies, firstPageOnly: preview });
+    const { bytes, filename } = await renderRunLabels(id, {
+      layoutKey: q.layout,
+      startSlot: q.start,
+      copies: q.copies,
+      firstPageOnly: preview,
+    });
     const res = pdfResponse(bytes, filename);
     if (preview) res.headers.set('Content-Disposition', `inline; filename="${safePdfFilename(`preview-${filename}`)}"`);
     return res;

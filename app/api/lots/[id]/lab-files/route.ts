@@ -20,11 +20,23 @@ export async function POST(req: Request, ctx: { params: Promise<{ id: string }> 
     await assertSameOrigin(req.headers);
     const user = await authorize('lots.write');
     const id = lotId.parse((await ctx.params).id);
-    const messages = { tooLarge: 'The file is larger than 10 MB.', notAForm: 'Send the file as a multipart form.', missing: 'Choose a file to upload.' };
+    const messages = {
+      tooLarge: 'The file is larger than 10 MB.',
+      notAForm: 'Send the file as a multipart form.',
+      missing: 'Choose a file to upload.',
+    };
     const form = await readUploadForm(req, LAB_FILE_MAX_BYTES, messages);
     const file = uploadedFile(form, 'file', LAB_FILE_MAX_BYTES, messages);
-    const results = labResultsFields.parse({ hmfMgKg: form.get('hmfMgKg') ?? undefined, diastaseSchade: form.get('diastaseSchade') ?? undefined, insolubleG100g: form.get('insolubleG100g') ?? undefined });
-    const saved = await addLabFile(user, id, { filename: file.name, bytes: new Uint8Array(await file.arrayBuffer()), ...results });
+    const results = labResultsFields.parse({
+      hmfMgKg: form.get('hmfMgKg') ?? undefined,
+      diastaseSchade: form.get('diastaseSchade') ?? undefined,
+      insolubleG100g: form.get('insolubleG100g') ?? undefined,
+    });
+    const saved = await addLabFile(user, id, {
+      filename: file.name,
+      bytes: new Uint8Array(await file.arrayBuffer()),
+      ...results,
+    });
     return Response.json(saved, { status: 201 });
   } catch (err) {
     return handleRouteError(err);

@@ -39,11 +39,21 @@ export async function POST(req: Request, { params }: Ctx): Promise<Response> {
     await assertSameOrigin(req.headers);
     const user = await authorize('products.manage');
     const id = productId((await params).id);
-    const messages = { tooLarge: 'The photo is larger than 5 MB.', notAForm: 'Send the photo as a form upload.', missing: 'Choose a photo to upload.' };
+    const messages = {
+      tooLarge: 'The photo is larger than 5 MB.',
+      notAForm: 'Send the photo as a form upload.',
+      missing: 'Choose a photo to upload.',
+    };
     const form = await readUploadForm(req, MAX_PHOTO_BYTES, messages);
     const file = uploadedFile(form, 'photo', MAX_PHOTO_BYTES, messages);
-    const saved = await setProductPhoto(user.id, id, { name: file.name, bytes: new Uint8Array(await file.arrayBuffer()) });
-    return Response.json({ ok: true, photoId: saved.photoId, url: `/api/products/${id}/photo?v=${saved.photoId}` }, { status: 201 });
+    const saved = await setProductPhoto(user.id, id, {
+      name: file.name,
+      bytes: new Uint8Array(await file.arrayBuffer()),
+    });
+    return Response.json(
+      { ok: true, photoId: saved.photoId, url: `/api/products/${id}/photo?v=${saved.photoId}` },
+      { status: 201 },
+    );
   } catch (err) {
     return handleRouteError(err);
   }

@@ -15,16 +15,30 @@ export default async function EditColonyPage({ params }: { params: Promise<{ id:
   const colony = await getColony(user, Number(id));
   if (!colony) notFound();
   const yard = await getYard(user, colony.yardId);
-  const parents = (await listColonies(user, { page: 1, pageSize: 100, sort: 'code', dir: 'asc' })).rows.filter((c) => c.id !== colony.id);
+  const parents = (await listColonies(user, { page: 1, pageSize: 100, sort: 'code', dir: 'asc' })).rows.filter(
+    (c) => c.id !== colony.id,
+  );
   async function save(v: ColonyInput) {
     'use server';
     return updateColonyAction({ ...v, colonyId: colony!.id });
   }
   return (
     <>
-      <PageHeader title={`Edit colony ${colony.code}`} lead="To move it to another yard or change its status, use the colony page: those keep a dated record." />
+      <PageHeader
+        title={`Edit colony ${colony.code}`}
+        lead="To move it to another yard or change its status, use the colony page: those keep a dated record."
+      />
       <ColonyForm
-        initial={{ code: colony.code, yardId: colony.yardId, keeperId: colony.keeperId, origin: colony.origin, parentColonyId: colony.parent?.id ?? '', queenYear: colony.queenYear ?? '', startedOn: colony.startedOn ?? '', notes: colony.notes }}
+        initial={{
+          code: colony.code,
+          yardId: colony.yardId,
+          keeperId: colony.keeperId,
+          origin: colony.origin,
+          parentColonyId: colony.parent?.id ?? '',
+          queenYear: colony.queenYear ?? '',
+          startedOn: colony.startedOn ?? '',
+          notes: colony.notes,
+        }}
         keepers={user.role === 'owner' && yard ? yard.keepers : null}
         parents={parents.map((p) => ({ id: p.id, code: p.code }))}
         onSave={save}

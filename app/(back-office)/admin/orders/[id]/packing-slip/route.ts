@@ -27,7 +27,13 @@ export async function GET(_req: Request, ctx: { params: Promise<{ id: string }> 
         {
           heading: order.fulfilment === 'ship' ? 'Ship to' : 'Pickup at the honey house',
           columns: ['Customer', 'Contact', 'Address'],
-          rows: [[order.name, [order.email, order.phone].filter(Boolean).join(' · '), a ? [a.line1, a.line2, a.city, a.region, a.postalCode, a.country].filter(Boolean).join(', ') : '—']],
+          rows: [
+            [
+              order.name,
+              [order.email, order.phone].filter(Boolean).join(' · '),
+              a ? [a.line1, a.line2, a.city, a.region, a.postalCode, a.country].filter(Boolean).join(', ') : '—',
+            ],
+          ],
         },
         {
           heading: 'Jars',

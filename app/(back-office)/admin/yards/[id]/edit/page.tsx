@@ -21,7 +21,14 @@ export default async function EditYardPage({ params }: { params: Promise<{ id: s
     <>
       <PageHeader title={`Edit ${yard.name}`} lead="Keepers see and record only the yards they are assigned to." />
       <YardForm
-        initial={{ name: yard.name, place: yard.place, latitude: yard.latitude ?? '', longitude: yard.longitude ?? '', forageNotes: yard.forageNotes, keeperIds: yard.keepers.map((k) => k.id) }}
+        initial={{
+          name: yard.name,
+          place: yard.place,
+          latitude: yard.latitude ?? '',
+          longitude: yard.longitude ?? '',
+          forageNotes: yard.forageNotes,
+          keeperIds: yard.keepers.map((k) => k.id),
+        }}
         keepers={await listAssignableKeepers()}
         onSave={save}
       />

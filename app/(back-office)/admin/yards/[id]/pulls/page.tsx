@@ -18,12 +18,24 @@ export default async function RecordPullsPage({ params }: { params: Promise<{ id
   const yard = await getYard(user, Number(id));
   if (!yard) notFound();
   const settings = await getSettings();
-  const { rows } = await listColonies(user, { page: 1, pageSize: 100, sort: 'code', dir: 'asc', yardId: yard.id, status: 'active' });
+  const { rows } = await listColonies(user, {
+    page: 1,
+    pageSize: 100,
+    sort: 'code',
+    dir: 'asc',
+    yardId: yard.id,
+    status: 'active',
+  });
   return (
     <>
-      <PageHeader title={`Record pulls: ${yard.name}`} lead={<Link href={`/admin/yards/${yard.id}`}>Back to the yard</Link>} />
+      <PageHeader
+        title={`Record pulls: ${yard.name}`}
+        lead={<Link href={`/admin/yards/${yard.id}`}>Back to the yard</Link>}
+      />
       <div className="mx-auto max-w-xl space-y-4">
-        <Caution title="Lifting caution">A full super can weigh 20–40 kg. Lift with your legs, and get help or use a cart for heavy boxes.</Caution>
+        <Caution title="Lifting caution">
+          A full super can weigh 20–40 kg. Lift with your legs, and get help or use a cart for heavy boxes.
+        </Caution>
         <PullPass
           colonies={rows.map((c) => ({ id: c.id, code: c.code, lastPulledOn: c.lastPulledOn }))}
           today={localDate(new Date(), settings.timeZone)}
