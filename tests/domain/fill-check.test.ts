@@ -1,5 +1,14 @@
 import { describe, expect, it } from 'vitest';
-import { assessFill, assessFillUs, maximumAllowableVariation, tolerableNegativeError } from '@/lib/domain/fill-check';
+import {
+  assessFill,
+  assessFillUs,
+  assessReferenceTest,
+  maximumAllowableVariation,
+  meanCheck,
+  referenceTestPlan,
+  studentTQuantile,
+  tolerableNegativeError,
+} from '@/lib/domain/fill-check';
 
 describe('tolerableNegativeError', () => {
   it('matches the published worked values', () => {
@@ -108,5 +117,152 @@ describe('maximumAllowableVariation', () => {
   it('is not encoded: NIST HB 133 Appendix A Table 2-5 was not available to us', () => {
     expect(maximumAllowableVariation(113)).toBeNull();
     expect(maximumAllowableVariation(454)).toBeNull();
+  });
+});
+
+// Council Directive 76/211/EEC, Annex II: the reference test for a batch of prepackages.
+describe('referenceTestPlan (76/211/EEC Annex II)', () => {
+  // 2.2.1 double sampling plan, non-destructive (checked against the Annex text)
+  const band100to500 = {
+    inspectAll: false,
+    first: { sample: 30, accept: 1, reject: 3 },
+    second: { sample: 30, aggregate: 60, accept: 4, reject: 5 },
+    meanSample: 30, // 2.3.3: 100 to 500 → 30
+  };
+  const band501to3200 = {
+    inspectAll: false,
+    first: { sample: 50, accept: 2, reject: 5 },
+    second: { sample: 50, aggregate: 100, accept: 6, reject: 7 },
+    meanSample: 50, // 2.3.3: > 500 → 50
+  };
+  const band3201up = {
+    inspectAll: false,
+    first: { sample: 80, accept: 3, reject: 7 },
+    second: { sample: 80, aggregate: 160, accept: 8, reject: 9 },
+    meanSample: 50, // 2.3.3: > 500 → 50
+  };
+
+  it('2.1.3: a batch under 100 is inspected whole (99, and 1)', () => {
+    expect(referenceTestPlan(99)).toEqual({ inspectAll: true });
+    expect(referenceTestPlan(1)).toEqual({ inspectAll: true });
+  });
+  it.each([
+    [100, band100to500],
+    [500, band100to500],
+    [501, band501to3200],
+    [3200, band501to3200],
+    [3201, band3201up],
+    [10_000, band3201up],
+  ])('2.2.1: batch of %i', (batch, plan) => expect(referenceTestPlan(batch)).toEqual(plan));
+
+  it('2.2.2: destructive testing is one sample of 20, accept 1, reject 2, at any batch ≥ 100', () => {
+    const plan = { inspectAll: false, first: { sample: 20, accept: 1, reject: 2 }, second: null, meanSample: 20 };
+    for (const batch of [100, 500, 501, 3200, 3201]) expect(referenceTestPlan(batch, true)).toEqual(plan);
+  });
+  it('refuses destructive testing under 100 and batches that are not positive whole numbers', () => {
+    expect(() => referenceTestPlan(99, true)).toThrow(RangeError);
+    for (const bad of [0, -5, 100.5, Number.NaN, Number.POSITIVE_INFINITY]) {
+      expect(() => referenceTestPlan(bad)).toThrow(RangeError);
+    }
+  });
+});
+
+describe('studentTQuantile', () => {
+  // NIST/SEMATECH e-Handbook of Statistical Methods, table of upper critical values of the t
+  // distribution, column 0.005 (= the 0.995 quantile), three decimals
+  it.each([
+    [1, 63.657],
+    [2, 9.925],
+    [3, 5.841],
+    [10, 3.169],
+    [19, 2.861],
+    [29, 2.756],
+    [30, 2.75],
+    [40, 2.704],
+    [60, 2.66],
+    [100, 2.626],
+  ])('t(0.995, %i) = %f', (nu, t) => expect(studentTQuantile(0.995, nu)).toBeCloseTo(t, 3));
+  it('t(0.995, 49) ≈ 2.680 (from memory; between the tables’ 45 → 2.690 and 50 → 2.678)', () =>
+    expect(studentTQuantile(0.995, 49)).toBeCloseTo(2.68, 3));
+  it('gives the Annex II 2.3.3 factors t/√n (from memory: 0.640 for 20, 0.503 for 30, 0.379 for 50)', () => {
+    expect(studentTQuantile(0.995, 19) / Math.sqrt(20)).toBeCloseTo(0.64, 3);
+    expect(studentTQuantile(0.995, 29) / Math.sqrt(30)).toBeCloseTo(0.503, 3);
+    expect(studentTQuantile(0.995, 49) / Math.sqrt(50)).toBeCloseTo(0.379, 3);
+  });
+});
+
+describe('meanCheck (76/211/EEC Annex II 2.3)', () => {
+  it('worked by hand: Qn 500 g, jars 498, 502, 500, 504', () => {
+    // mean 501; deviations −3, 1, −1, 3; squares sum 20; s² = 20/3; s = 2.5820
+    // t(0.995, 3) = 5.841 (NIST/SEMATECH table); limit = 500 − 5.841 × 2.5820 / √4 = 492.459
+    const r = meanCheck(500, [498, 502, 500, 504]);
+    expect(r.mean).toBe(501);
+    expect(r.sd).toBeCloseTo(2.582, 3);
+    expect(r.limit).toBeCloseTo(492.459, 2);
+    expect(r.pass).toBe(true);
+  });
+  it('fails a mean at or below the limit ("greater than", 2.3.1)', () => {
+    // no spread: the limit is Qn itself, and a mean equal to it is not greater
+    expect(meanCheck(500, [500, 500])).toMatchObject({ mean: 500, sd: 0, limit: 500, pass: false });
+    expect(meanCheck(500, [501, 501]).pass).toBe(true);
+    // 30 jars at 495 and 496 alternately: mean 495.5, s = 0.5085, limit ≈ 500 − 0.503 × 0.5085 ≈ 499.74
+    const jars = Array.from({ length: 30 }, (_, i) => (i % 2 ? 496 : 495));
+    expect(meanCheck(500, jars).pass).toBe(false);
+  });
+  it('needs at least 2 jars', () => {
+    expect(() => meanCheck(500, [520])).toThrow(RangeError);
+    expect(() => meanCheck(500, [])).toThrow(RangeError);
+  });
+});
+
+describe('assessReferenceTest', () => {
+  const qn = 500; // TNE 15 g: T1 485, T2 470 (76/211/EEC Annex I)
+  const good = (n: number) => Array.from({ length: n }, (_, i) => 500 + (i % 5)); // 500..504
+
+  it('a single weighed jar passes nothing', () => {
+    expect(assessReferenceTest(qn, 1, [520]).verdict).toBe('reject'); // a batch of one cannot be judged
+    expect(assessReferenceTest(qn, 50, [520]).verdict).toBe('weigh-more');
+    expect(assessReferenceTest(qn, 300, [520]).verdict).toBe('weigh-more');
+    expect(assessFill(qn, [520]).pass).toBe(false);
+    expect(assessFillUs(113, [120], 7.2).pass).toBe(false);
+  });
+  it('batch under 100: every jar, mean ≥ Qn, none below T2', () => {
+    expect(assessReferenceTest(qn, 10, good(10)).verdict).toBe('accept');
+    expect(assessReferenceTest(qn, 10, good(9))).toMatchObject({ verdict: 'weigh-more', jarsNeeded: 10 });
+    expect(assessReferenceTest(qn, 10, [...good(9), 484]).verdict).toBe('reject'); // 1 below T1 > floor(0.25)
+  });
+  it('2.2.1, 100–500: accept with ≤ 1 defective in 30, a second sample with 2, reject at 3', () => {
+    const one = [484, ...good(29)];
+    expect(assessReferenceTest(qn, 300, one)).toMatchObject({ verdict: 'accept', defectives: 1 });
+    const two = [484, 484, ...good(28)];
+    expect(assessReferenceTest(qn, 300, two)).toMatchObject({
+      verdict: 'weigh-more',
+      secondSampleNeeded: true,
+      jarsNeeded: 60,
+    });
+    expect(assessReferenceTest(qn, 300, [...two, 484, 484, ...good(28)])).toMatchObject({
+      verdict: 'accept',
+      defectives: 4,
+    });
+    expect(assessReferenceTest(qn, 300, [...two, 484, 484, 484, ...good(27)])).toMatchObject({
+      verdict: 'reject',
+      defectives: 5,
+    });
+    expect(assessReferenceTest(qn, 300, [484, 484, 484, ...good(27)]).verdict).toBe('reject');
+  });
+  it('rejects any jar below T2 and a failed mean', () => {
+    expect(assessReferenceTest(qn, 300, [469, ...good(29)]).verdict).toBe('reject');
+    const low = Array.from({ length: 30 }, (_, i) => (i % 2 ? 496 : 495));
+    expect(assessReferenceTest(qn, 300, low).mean?.pass).toBe(false);
+    expect(assessReferenceTest(qn, 300, low).verdict).toBe('reject');
+  });
+  it('2.2.2 destructive: 20 jars, 1 defective accepted, 2 rejected', () => {
+    expect(assessReferenceTest(qn, 200, [484, ...good(19)], true).verdict).toBe('accept');
+    expect(assessReferenceTest(qn, 200, [484, 484, ...good(18)], true).verdict).toBe('reject');
+  });
+  it('above 3 200: 80 jars for the count, the first 50 for the mean', () => {
+    const r = assessReferenceTest(qn, 5000, good(80));
+    expect(r).toMatchObject({ verdict: 'accept', jarsNeeded: 80 });
+    expect(r.mean?.sample).toBe(50);
   });
 });
