@@ -22,6 +22,10 @@ export class LabFile extends Model<InferAttributes<LabFile>, InferCreationAttrib
   declare hmfMgKg: CreationOptional<number | null>;
   declare diastaseSchade: CreationOptional<number | null>;
   declare insolubleG100g: CreationOptional<number | null>;
+  declare fructoseGlucoseG100g: CreationOptional<number | null>;
+  declare sucroseG100g: CreationOptional<number | null>;
+  declare conductivityMsCm: CreationOptional<number | null>;
+  declare freeAcidMeqKg: CreationOptional<number | null>;
   declare uploadedBy: number | null;
   declare voidedAt: CreationOptional<Date | null>;
   declare voidedBy: CreationOptional<number | null>;
@@ -44,6 +48,10 @@ export function initLabFile(sequelize: Sequelize) {
       hmfMgKg: { type: DataTypes.DECIMAL(6, 1), allowNull: true },
       diastaseSchade: { type: DataTypes.DECIMAL(5, 1), allowNull: true },
       insolubleG100g: { type: DataTypes.DECIMAL(5, 2), allowNull: true },
+      fructoseGlucoseG100g: { type: DataTypes.DECIMAL(5, 1), allowNull: true },
+      sucroseG100g: { type: DataTypes.DECIMAL(5, 1), allowNull: true },
+      conductivityMsCm: { type: DataTypes.DECIMAL(5, 2), allowNull: true },
+      freeAcidMeqKg: { type: DataTypes.DECIMAL(6, 1), allowNull: true },
       uploadedBy: { type: DataTypes.INTEGER, allowNull: true },
       ...voidColumns(),
       ...timestamps(),

@@ -18,12 +18,21 @@ import type { StockLevel } from './stock-level';
 
 export const LOT_STAGES = ['gathering', 'extracted', 'released', 'packed_out', 'held'] as const;
 export type LotStage = (typeof LOT_STAGES)[number];
+export const HONEY_ORIGINS = ['blossom', 'honeydew', 'honeydew-blossom-blend'] as const;
+export type HoneyOrigin = (typeof HONEY_ORIGINS)[number];
 
 export class Lot extends Model<InferAttributes<Lot>, InferCreationAttributes<Lot>> {
   declare id: CreationOptional<number>;
   declare code: string;
   declare floralSource: CreationOptional<string>;
   declare heather: CreationOptional<boolean>;
+  /** The honey category of 2001/110/EC Annex II (lib/domain/lab-results.ts HoneyCategory). */
+  declare honeyOrigin: CreationOptional<HoneyOrigin>;
+  declare bakers: CreationOptional<boolean>;
+  declare pressed: CreationOptional<boolean>;
+  declare tropical: CreationOptional<boolean>;
+  declare lowEnzyme: CreationOptional<boolean>;
+  declare annexSource: CreationOptional<string | null>;
   declare extractedOn: CreationOptional<string | null>;
   declare stage: CreationOptional<LotStage>;
   declare holdReasons: CreationOptional<string[]>;
@@ -56,6 +65,17 @@ export function initLot(sequelize: Sequelize) {
       code: { type: DataTypes.STRING(20), allowNull: false, unique: true },
       floralSource: { type: DataTypes.STRING(80), allowNull: false, defaultValue: '' },
       heather: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+      honeyOrigin: {
+        type: DataTypes.STRING(24),
+        allowNull: false,
+        defaultValue: 'blossom',
+        validate: { isIn: [HONEY_ORIGINS] },
+      },
+      bakers: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+      pressed: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+      tropical: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+      lowEnzyme: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+      annexSource: { type: DataTypes.STRING(40), allowNull: true },
       extractedOn: { type: DataTypes.DATEONLY, allowNull: true },
       stage: {
         type: DataTypes.STRING(12),

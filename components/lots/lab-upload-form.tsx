@@ -1,6 +1,6 @@
 'use client';
 import { useRouter } from 'next/navigation';
-import { labUploadFormInput } from '@/lib/schemas/lots';
+import { LAB_RESULT_FIELDS, labUploadFormInput, type LabUploadFormInput } from '@/lib/schemas/lots';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
@@ -17,11 +17,11 @@ export function LabUploadForm({ lotId }: { lotId: number }) {
     message,
   } = useActionForm({
     schema: labUploadFormInput,
-    defaultValues: { hmfMgKg: '', diastaseSchade: '', insolubleG100g: '' },
+    defaultValues: Object.fromEntries(LAB_RESULT_FIELDS.map((k) => [k, ''])) as Omit<LabUploadFormInput, 'file'>,
     action: (v) => {
       const body = new FormData();
       body.set('file', v.file[0]);
-      for (const k of ['hmfMgKg', 'diastaseSchade', 'insolubleG100g'] as const) if (v[k]) body.set(k, v[k]);
+      for (const k of LAB_RESULT_FIELDS) if (v[k]) body.set(k, v[k]);
       return postForm<{ held?: boolean }>(
         `/api/lots/${lotId}/lab-files`,
         body,
@@ -29,7 +29,9 @@ export function LabUploadForm({ lotId }: { lotId: number }) {
       );
     },
     successMessage: (saved) =>
-      saved.held ? 'Lab report stored. Its results fail the limits: the lot is now held.' : 'Lab report stored.',
+      saved.held
+        ? 'Lab report stored. Its results fail the composition limits for this lot’s honey: the lot is now held.'
+        : 'Lab report stored.',
     resetOnSuccess: true,
     onSuccess: () => router.refresh(),
   });
@@ -62,6 +64,30 @@ export function LabUploadForm({ lotId }: { lotId: number }) {
         label="Water-insoluble, g/100 g"
         registration={form.register('insolubleG100g')}
         error={e.insolubleG100g}
+        inputMode="decimal"
+      />
+      <TextField
+        label="Fructose + glucose, g/100 g"
+        registration={form.register('fructoseGlucoseG100g')}
+        error={e.fructoseGlucoseG100g}
+        inputMode="decimal"
+      />
+      <TextField
+        label="Sucrose, g/100 g"
+        registration={form.register('sucroseG100g')}
+        error={e.sucroseG100g}
+        inputMode="decimal"
+      />
+      <TextField
+        label="Electrical conductivity, mS/cm"
+        registration={form.register('conductivityMsCm')}
+        error={e.conductivityMsCm}
+        inputMode="decimal"
+      />
+      <TextField
+        label="Free acid, meq/kg"
+        registration={form.register('freeAcidMeqKg')}
+        error={e.freeAcidMeqKg}
         inputMode="decimal"
       />
       <div className="sm:col-span-3">

@@ -1,11 +1,12 @@
 'use client';
 import { lotDetailsInput, type LotDetailsInput } from '@/lib/schemas/lots';
+import { HONEY_SOURCES } from '@/lib/domain/lab-results';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 
-/** Floral source, heather, extraction date and notes, while the lot is still open (each change audited). */
+/** Floral source, heather, honey category, extraction date and notes, while the lot is still open (each change audited). */
 export function LotDetailsForm({
   defaults,
   suggestions,
@@ -51,6 +52,40 @@ export function LotDetailsForm({
         <input id="heather" type="checkbox" className="h-5 w-5" {...form.register('heather')} /> Heather honey (heather
         moisture limit)
       </label>
+      <fieldset className="grid gap-3 sm:col-span-2 sm:grid-cols-2">
+        <legend className="text-sm font-medium">Honey category (composition limits, 2001/110/EC Annex II)</legend>
+        <label className="field" htmlFor="honeyOrigin">
+          <span>Origin</span>
+          <select id="honeyOrigin" className="input" {...form.register('honeyOrigin')}>
+            <option value="blossom">Blossom (nectar) honey</option>
+            <option value="honeydew">Honeydew honey</option>
+            <option value="honeydew-blossom-blend">Blend of honeydew and blossom honey</option>
+          </select>
+        </label>
+        <label className="field" htmlFor="annexSource">
+          <span>Named floral source</span>
+          <select id="annexSource" className="input" {...form.register('annexSource')}>
+            <option value="">None of these</option>
+            {Object.entries(HONEY_SOURCES).map(([key, name]) => (
+              <option key={key} value={key}>
+                {name}
+              </option>
+            ))}
+          </select>
+        </label>
+        {(
+          [
+            ['bakers', 'Baker’s honey (for cooking only)'],
+            ['pressed', 'Pressed honey'],
+            ['tropical', 'Declared origin from a tropical climate (or a blend of such honeys)'],
+            ['lowEnzyme', 'Low natural enzyme content (e.g. citrus)'],
+          ] as const
+        ).map(([key, text]) => (
+          <label key={key} className="flex min-h-11 items-center gap-3 text-sm" htmlFor={key}>
+            <input id={key} type="checkbox" className="h-5 w-5" {...form.register(key)} /> {text}
+          </label>
+        ))}
+      </fieldset>
       <label className="field sm:col-span-2" htmlFor="notes">
         <span>Notes</span>
         <textarea id="notes" rows={2} className="input" {...form.register('notes')} />

@@ -155,7 +155,7 @@ export function compositionLimits(category: HoneyCategory, hmfMgKg?: number): Co
   };
 }
 
-const RESULT_OF: Record<CompositionCriterion, keyof CompositionResults> = {
+export const COMPOSITION_RESULT_KEY: Record<CompositionCriterion, keyof CompositionResults> = {
   water: 'waterPct',
   sugars: 'fructoseGlucoseG100g',
   sucrose: 'sucroseG100g',
@@ -165,7 +165,7 @@ const RESULT_OF: Record<CompositionCriterion, keyof CompositionResults> = {
   diastase: 'diastaseSchade',
   hmf: 'hmfMgKg',
 };
-export const COMPOSITION_CRITERIA = Object.keys(RESULT_OF) as CompositionCriterion[];
+export const COMPOSITION_CRITERIA = Object.keys(COMPOSITION_RESULT_KEY) as CompositionCriterion[];
 
 /**
  * Results against EU Council Directive 2001/110/EC, Annex II for the honey's category. A result
@@ -175,7 +175,7 @@ export function assessComposition(
   results: CompositionResults,
   category: HoneyCategory,
 ): { pass: boolean; failures: CompositionFailure[] } {
-  for (const key of Object.values(RESULT_OF)) {
+  for (const key of Object.values(COMPOSITION_RESULT_KEY)) {
     const v = results[key];
     if (v !== undefined && v !== null && (!Number.isFinite(v) || v < 0)) {
       throw new RangeError(`${key} must be a number ≥ 0`);
@@ -185,7 +185,7 @@ export function assessComposition(
   const limits = compositionLimits(category, hmf);
   const failures: CompositionFailure[] = [];
   for (const criterion of COMPOSITION_CRITERIA) {
-    const value = results[RESULT_OF[criterion]];
+    const value = results[COMPOSITION_RESULT_KEY[criterion]];
     const limit = limits[criterion];
     if (value === undefined || value === null || limit === null) continue;
     if (limit.max !== undefined && value > limit.max) failures.push({ criterion, value, limit: limit.max });

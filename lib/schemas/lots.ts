@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { listQuery } from './list-query';
 import { chosenFile } from './fields';
 import { LAB_FILE_MAX_BYTES } from '@/lib/domain/file-type';
+import { HONEY_SOURCES, type HoneySource } from '@/lib/domain/lab-results';
 
 const id = z.coerce.number().int().positive();
 const reason = (what: string) =>
@@ -22,9 +23,21 @@ const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Pick a date.');
 
 export const weightUnit = z.enum(['kg', 'lb']);
 
+/** The floral sources 2001/110/EC Annex II names (lib/domain/lab-results.ts HONEY_SOURCES); '' = none of them. */
+export const annexSource = z.union([
+  z.literal(''),
+  z.enum(Object.keys(HONEY_SOURCES) as [HoneySource, ...HoneySource[]]),
+]);
+
 export const lotInput = z.object({
   floralSource: z.string().trim().max(80, 'At most 80 characters.'),
   heather: z.boolean().default(false),
+  honeyOrigin: z.enum(['blossom', 'honeydew', 'honeydew-blossom-blend']).default('blossom'),
+  annexSource: annexSource.default(''),
+  bakers: z.boolean().default(false),
+  pressed: z.boolean().default(false),
+  tropical: z.boolean().default(false),
+  lowEnzyme: z.boolean().default(false),
   extractedOn: z.union([z.literal(''), day]).optional(),
   notes: z.string().trim().max(2000).default(''),
 });
@@ -165,7 +178,20 @@ export const labResultsFields = z.object({
   hmfMgKg: optionalNumber.pipe(z.number().min(0).max(2000).optional()),
   diastaseSchade: optionalNumber.pipe(z.number().min(0).max(100).optional()),
   insolubleG100g: optionalNumber.pipe(z.number().min(0).max(100).optional()),
+  fructoseGlucoseG100g: optionalNumber.pipe(z.number().min(0).max(100).optional()),
+  sucroseG100g: optionalNumber.pipe(z.number().min(0).max(100).optional()),
+  conductivityMsCm: optionalNumber.pipe(z.number().min(0).max(20).optional()),
+  freeAcidMeqKg: optionalNumber.pipe(z.number().min(0).max(1000).optional()),
 });
+export const LAB_RESULT_FIELDS = [
+  'hmfMgKg',
+  'diastaseSchade',
+  'insolubleG100g',
+  'fructoseGlucoseG100g',
+  'sucroseG100g',
+  'conductivityMsCm',
+  'freeAcidMeqKg',
+] as const;
 
 const decimalText = z
   .string()
@@ -179,6 +205,10 @@ export const labUploadFormInput = z.object({
   hmfMgKg: decimalText,
   diastaseSchade: decimalText,
   insolubleG100g: decimalText,
+  fructoseGlucoseG100g: decimalText,
+  sucroseG100g: decimalText,
+  conductivityMsCm: decimalText,
+  freeAcidMeqKg: decimalText,
 });
 export type LabUploadFormInput = z.input<typeof labUploadFormInput>;
 

@@ -1,12 +1,18 @@
 import 'server-only';
 import type { Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
-import { checkLabResults, type LabLimits } from '@/lib/domain/lab-results';
+import {
+  assessComposition,
+  type CompositionFailure,
+  type CompositionResults,
+  type HoneyCategory,
+} from '@/lib/domain/lab-results';
 import { blendWaterPct, remainingGrams } from '@/lib/domain/lot-weights';
 import { gradeMoisture, moistureSummary, type MoistureLimits } from '@/lib/domain/moisture';
 import type { StageContext } from '@/lib/domain/lot-stage';
 import type { Settings } from '@/lib/data/settings/settings';
 import type { Lot } from '@/models/lot';
+import type { LabFile } from '@/models/lab-file';
 
 export function moistureLimits(s: Settings): MoistureLimits {
   return {
@@ -15,12 +21,79 @@ export function moistureLimits(s: Settings): MoistureLimits {
     gradeAPct: Number(s.moistureGradeAPct),
   };
 }
-export function labLimits(s: Settings): LabLimits {
+/** The lot's honey category for 2001/110/EC Annex II; the older heather flag reads as Calluna. */
+export function lotCategory(
+  lot: Pick<Lot, 'honeyOrigin' | 'bakers' | 'pressed' | 'tropical' | 'lowEnzyme' | 'annexSource' | 'heather'>,
+): HoneyCategory {
   return {
-    hmfMaxMgKg: Number(s.hmfMaxMgKg),
-    diastaseMinSchade: Number(s.diastaseMinSchade),
-    insolubleMaxG100g: Number(s.insolubleMaxG100g),
+    origin: lot.honeyOrigin ?? 'blossom',
+    bakers: lot.bakers ?? false,
+    pressed: lot.pressed ?? false,
+    tropical: lot.tropical ?? false,
+    lowEnzyme: lot.lowEnzyme ?? false,
+    source: lot.annexSource ?? (lot.heather ? 'calluna' : undefined),
   };
+}
+
+type LabValues = Pick<
+  LabFile,
+  | 'hmfMgKg'
+  | 'diastaseSchade'
+  | 'insolubleG100g'
+  | 'fructoseGlucoseG100g'
+  | 'sucroseG100g'
+  | 'conductivityMsCm'
+  | 'freeAcidMeqKg'
+>;
+export const LAB_VALUE_COLUMNS = [
+  'hmfMgKg',
+  'diastaseSchade',
+  'insolubleG100g',
+  'fructoseGlucoseG100g',
+  'sucroseG100g',
+  'conductivityMsCm',
+  'freeAcidMeqKg',
+] as const;
+
+/** A lab report's results as the composition check takes them (DECIMAL columns arrive as strings). */
+export function labComposition(f: Partial<LabValues>): CompositionResults {
+  const n = (v: number | string | null | undefined) => (v === null || v === undefined ? undefined : Number(v));
+  return {
+    hmfMgKg: n(f.hmfMgKg),
+    diastaseSchade: n(f.diastaseSchade),
+    insolubleG100g: n(f.insolubleG100g),
+    fructoseGlucoseG100g: n(f.fructoseGlucoseG100g),
+    sucroseG100g: n(f.sucroseG100g),
+    conductivityMsCm: n(f.conductivityMsCm),
+    freeAcidMeqKg: n(f.freeAcidMeqKg),
+  };
+}
+
+const CRITERION_WORDS: Record<CompositionFailure['criterion'], [string, string]> = {
+  water: ['Water', '%'],
+  sugars: ['Fructose + glucose', 'g/100 g'],
+  sucrose: ['Sucrose', 'g/100 g'],
+  insoluble: ['Water-insoluble content', 'g/100 g'],
+  conductivity: ['Electrical conductivity', 'mS/cm'],
+  'free-acid': ['Free acid', 'meq/kg'],
+  diastase: ['Diastase activity', 'Schade'],
+  hmf: ['HMF', 'mg/kg'],
+};
+const MINIMUM: ReadonlySet<string> = new Set(['sugars', 'diastase']);
+
+/** One plain sentence for a failed composition criterion. */
+export function compositionFailureText(f: CompositionFailure): string {
+  const [name, unit] = CRITERION_WORDS[f.criterion];
+  const min = MINIMUM.has(f.criterion) || (f.criterion === 'conductivity' && f.value < f.limit);
+  return min
+    ? `${name} ${f.value} ${unit} is below the ${f.limit} ${unit} minimum (2001/110/EC Annex II)`
+    : `${name} ${f.value} ${unit} is above the ${f.limit} ${unit} limit (2001/110/EC Annex II)`;
+}
+
+/** The lab report against Annex II for the lot's category, failures in words. */
+export function checkLabFile(lot: Parameters<typeof lotCategory>[0], f: Partial<LabValues>) {
+  const result = assessComposition(labComposition(f), lotCategory(lot));
+  return { ...result, failureTexts: result.failures.map(compositionFailureText) };
 }
 
 export type LotWater = { highest: number; mean: number; count: number; fromParents: boolean } | null;
@@ -69,18 +142,16 @@ export async function lotChecks(
   }
   const files = await models.LabFile.findAll({
     where: { lotId: lot.id, voidedAt: null },
-    attributes: ['hmfMgKg', 'diastaseSchade', 'insolubleG100g'],
+    attributes: [...LAB_VALUE_COLUMNS],
     transaction: t,
   });
   let labOk: boolean | null = null;
   for (const f of files) {
-    if (f.hmfMgKg === null && f.diastaseSchade === null && f.insolubleG100g === null) continue;
-    const check = checkLabResults(
-      { hmfMgKg: f.hmfMgKg, diastaseSchade: f.diastaseSchade, insolubleG100g: f.insolubleG100g },
-      labLimits(settings),
-    );
+    if (LAB_VALUE_COLUMNS.every((k) => f[k] === null || f[k] === undefined)) continue;
+    // Council Directive 2001/110/EC Annex II for this lot's category, not one global limit.
+    const check = checkLabFile(lot, f);
     labOk = (labOk ?? true) && check.pass;
-    failures.push(...check.failures);
+    failures.push(...check.failureTexts);
   }
   const unresolvedFlaggedSupers = await models.SuperPull.count({
     where: { lotId: lot.id, flagged: true, overrideReason: null },

@@ -2,14 +2,31 @@ import 'server-only';
 import { Op } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
-import { checkLabResults } from '@/lib/domain/lab-results';
 import type { LotStage } from '@/lib/domain/lot-stage';
 import { extractionYield, remainingGrams } from '@/lib/domain/lot-weights';
 import { fermentationRisk, gradeMoisture } from '@/lib/domain/moisture';
 import { DEFAULT_SUPER_ESTIMATES, superHoneyGrams, type SuperEstimates } from '@/lib/domain/yield-allocation';
 import { listAudit, type AuditRow } from '@/lib/data/audit';
 import { canReadLot } from './access';
-import { labLimits, lotChecks, lotWater, moistureLimits, type LotWater } from './checks';
+import {
+  assessComposition,
+  compositionLimits,
+  COMPOSITION_CRITERIA,
+  COMPOSITION_RESULT_KEY,
+  type CompositionCriterion,
+  type CompositionResults,
+  type HoneyCategory,
+} from '@/lib/domain/lab-results';
+import type { LabFile } from '@/models/lab-file';
+import {
+  checkLabFile,
+  labComposition,
+  lotCategory,
+  lotChecks,
+  lotWater,
+  moistureLimits,
+  type LotWater,
+} from './checks';
 import { getSettings, type Settings } from '@/lib/data/settings/settings';
 
 /** The owner's honey-per-super estimates (getSettings fills unset depths with the defaults). */
@@ -62,9 +79,50 @@ export type LotLabFileRow = Voided & {
   hmfMgKg: number | null;
   diastaseSchade: number | null;
   insolubleG100g: number | null;
+  fructoseGlucoseG100g: number | null;
+  sucroseG100g: number | null;
+  conductivityMsCm: number | null;
+  freeAcidMeqKg: number | null;
   failures: string[];
   createdAt: Date;
 };
+
+export type CompositionRow = {
+  criterion: CompositionCriterion;
+  /** The latest non-voided lab value, or null when no report gives one. */
+  value: number | null;
+  min: number | null;
+  max: number | null;
+  /** null: not measured, or the Annex sets no limit for this category. */
+  pass: boolean | null;
+};
+
+/**
+ * The lot's composition verdict per 2001/110/EC Annex II criterion, from the latest non-voided
+ * value of each. Release itself checks every report (lotChecks); this is the summary shown.
+ */
+function compositionVerdict(lot: Parameters<typeof lotCategory>[0], files: LabFile[]): CompositionRow[] {
+  const live = files.filter((f) => !f.voidedAt);
+  const latest: CompositionResults = {};
+  for (const f of live) {
+    for (const [k, v] of Object.entries(labComposition(f)) as [keyof CompositionResults, number | undefined][]) {
+      if (v !== undefined) latest[k] = v;
+    }
+  }
+  const limits = compositionLimits(lotCategory(lot), latest.hmfMgKg);
+  const failed = new Set(assessComposition(latest, lotCategory(lot)).failures.map((f) => f.criterion));
+  return COMPOSITION_CRITERIA.filter((c) => c !== 'water').map((criterion) => {
+    const value = latest[COMPOSITION_RESULT_KEY[criterion]] ?? null;
+    const limit = limits[criterion];
+    return {
+      criterion,
+      value,
+      min: limit?.min ?? null,
+      max: limit?.max ?? null,
+      pass: value === null || limit === null ? null : !failed.has(criterion),
+    };
+  });
+}
 export type TraceEvent = {
   kind: 'feeding' | 'treatment';
   colonyCode: string;
@@ -80,6 +138,10 @@ export type LotDetail = {
   stage: LotStage;
   floralSource: string;
   heather: boolean;
+  category: HoneyCategory;
+  annexSource: string | null;
+  /** Per Annex II criterion: the latest non-voided lab value and whether it meets the category's limit. */
+  composition: CompositionRow[];
   extractedOn: string | null;
   isBlend: boolean;
   notes: string;
@@ -263,13 +325,15 @@ export async function getLotDetail(user: SessionUser, lotId: number): Promise<Lo
   });
   const water = await lotWater(lot.id);
   const checks = await lotChecks(lot, settings);
-  const limits = labLimits(settings);
   return {
     id: lot.id,
     code: lot.code,
     stage: lot.stage,
     floralSource: lot.floralSource,
     heather: lot.heather,
+    category: lotCategory(lot),
+    annexSource: lot.annexSource,
+    composition: compositionVerdict(lot, files),
     extractedOn: lot.extractedOn,
     isBlend: lot.isBlend,
     notes: lot.notes,
@@ -309,10 +373,11 @@ export async function getLotDetail(user: SessionUser, lotId: number): Promise<Lo
       hmfMgKg: f.hmfMgKg,
       diastaseSchade: f.diastaseSchade,
       insolubleG100g: f.insolubleG100g,
-      failures: checkLabResults(
-        { hmfMgKg: f.hmfMgKg, diastaseSchade: f.diastaseSchade, insolubleG100g: f.insolubleG100g },
-        limits,
-      ).failures,
+      fructoseGlucoseG100g: f.fructoseGlucoseG100g,
+      sucroseG100g: f.sucroseG100g,
+      conductivityMsCm: f.conductivityMsCm,
+      freeAcidMeqKg: f.freeAcidMeqKg,
+      failures: checkLabFile(lot, f).failureTexts,
       createdAt: f.createdAt,
       voidedAt: f.voidedAt,
       voidReason: f.voidReason,

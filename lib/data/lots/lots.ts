@@ -10,7 +10,7 @@ import type { Page } from '@/lib/schemas/list-query';
 import { recordAudit } from '@/lib/data/audit';
 import { getSettings } from '@/lib/data/settings/settings';
 import { assertOpen, KEEPER_LOTS_SQL, lockLot, lotSnapshot } from './access';
-import type { Lot } from '@/models/lot';
+import type { HoneyOrigin, Lot } from '@/models/lot';
 
 /** The calendar year now in the business's time zone (the lot code's year). */
 export function businessYear(timeZone: string, now = new Date()): number {
@@ -36,7 +36,28 @@ export async function takeLotCode(prefix: string, year: number, t: Transaction):
   return lotCode(prefix, year, Number(row.last_value));
 }
 
-export type NewLot = { floralSource: string; heather?: boolean; extractedOn?: string | null; notes?: string };
+export type NewLot = {
+  floralSource: string;
+  heather?: boolean;
+  extractedOn?: string | null;
+  notes?: string;
+  /** The honey category of 2001/110/EC Annex II; left out = unchanged on update, the defaults on create. */
+  honeyOrigin?: HoneyOrigin;
+  annexSource?: string;
+  bakers?: boolean;
+  pressed?: boolean;
+  tropical?: boolean;
+  lowEnzyme?: boolean;
+};
+
+function categoryColumns(input: NewLot) {
+  const out: Partial<Pick<Lot, 'honeyOrigin' | 'annexSource' | 'bakers' | 'pressed' | 'tropical' | 'lowEnzyme'>> = {};
+  if (input.honeyOrigin !== undefined) out.honeyOrigin = input.honeyOrigin;
+  if (input.annexSource !== undefined) out.annexSource = input.annexSource || null;
+  for (const k of ['bakers', 'pressed', 'tropical', 'lowEnzyme'] as const)
+    if (input[k] !== undefined) out[k] = input[k];
+  return out;
+}
 
 /** A new lot in *gathering*, with the next code; audited in the same transaction. */
 export async function createLot(
@@ -53,6 +74,7 @@ export async function createLot(
         code,
         floralSource: input.floralSource.trim(),
         heather: input.heather ?? false,
+        ...categoryColumns(input),
         extractedOn: input.extractedOn || null,
         notes: input.notes ?? '',
         createdBy: actor.id,
@@ -88,6 +110,7 @@ export async function updateLotDetails(actor: SessionUser, lotId: number, input:
         heather: input.heather ?? false,
         extractedOn: input.extractedOn || null,
         notes: input.notes ?? '',
+        ...categoryColumns(input),
       },
       { transaction: t },
     );

@@ -5,13 +5,11 @@ import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
 import { ConflictError, DomainError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { labFileRefusal, sniffLabFileType } from '@/lib/domain/file-type';
-import { checkLabResults } from '@/lib/domain/lab-results';
 import { nextStage } from '@/lib/domain/lot-stage';
 import { waterFromRefractiveIndex, waterFromScaleReading } from '@/lib/domain/moisture';
 import { recordAudit } from '@/lib/data/audit';
 import { assertOpen, lockLot } from './access';
-import { labLimits } from './checks';
-import { getSettings } from '@/lib/data/settings/settings';
+import { checkLabFile } from './checks';
 import type { Lot } from '@/models/lot';
 
 /** lots.net_grams = Σ (gross − tare) of the lot's non-voided containers, in the caller's transaction. */
@@ -133,6 +131,10 @@ export type LabUpload = {
   hmfMgKg?: number | null;
   diastaseSchade?: number | null;
   insolubleG100g?: number | null;
+  fructoseGlucoseG100g?: number | null;
+  sucroseG100g?: number | null;
+  conductivityMsCm?: number | null;
+  freeAcidMeqKg?: number | null;
 };
 
 /**
@@ -152,14 +154,19 @@ export async function addLabFile(
     hmfMgKg: f.hmfMgKg ?? null,
     diastaseSchade: f.diastaseSchade ?? null,
     insolubleG100g: f.insolubleG100g ?? null,
+    fructoseGlucoseG100g: f.fructoseGlucoseG100g ?? null,
+    sucroseG100g: f.sucroseG100g ?? null,
+    conductivityMsCm: f.conductivityMsCm ?? null,
+    freeAcidMeqKg: f.freeAcidMeqKg ?? null,
   };
-  const settings = await getSettings();
-  const check = checkLabResults(results, labLimits(settings));
   const filename = f.filename.replace(/[\\/\u0000-\u001f"]/g, '_').slice(0, 200) || 'lab-report';
   const { sequelize, models } = getDb();
   return sequelize.transaction(async (t) => {
     const lot = await lockLot(lotId, t);
     if (lot.stage === 'packed_out') throw new ConflictError(`Lot ${lot.code} is packed out.`);
+    // Council Directive 2001/110/EC Annex II for this lot's own category
+    const composition = checkLabFile(lot, results);
+    const check = { pass: composition.pass, failures: composition.failureTexts };
     const row = await models.LabFile.create(
       {
         lotId,

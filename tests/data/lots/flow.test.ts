@@ -311,6 +311,64 @@ describe('lab files', () => {
     expect(result.holdReasons.join(' ')).toMatch(/HMF 55 mg\/kg is above the 40/);
   });
 
+  it('the HMF limit follows the lot’s own category: a tropical lot releases with HMF 60, a non-tropical lot is held (2001/110/EC Annex II 6(b))', async () => {
+    const tropical = await extractedLot(17);
+    ok(
+      await updateLotAction({
+        lotId: tropical.id,
+        floralSource: 'Test clover',
+        heather: false,
+        tropical: true,
+        notes: '',
+      }),
+    );
+    expect((await upload(tropical.id, pdf, 'lab.pdf', 'application/pdf', { hmfMgKg: '60' })).status).toBe(201);
+    const plain = await extractedLot(17);
+    expect((await upload(plain.id, pdf, 'lab.pdf', 'application/pdf', { hmfMgKg: '60' })).status).toBe(201);
+
+    expect(ok(await changeStageAction({ lotId: tropical.id, target: 'released' }))).toMatchObject({
+      stage: 'released',
+    });
+    const held = ok(await changeStageAction({ lotId: plain.id, target: 'released' })) as { holdReasons: string[] };
+    expect(held).toMatchObject({ stage: 'held' });
+    expect(held.holdReasons.join(' ')).toMatch(/HMF 60 mg\/kg is above the 40 mg\/kg limit/);
+
+    // the lot screen shows the verdict per criterion, with the category's limit
+    const user = (await currentUser())!;
+    const detail = await getLotDetail(user, tropical.id);
+    expect(detail!.composition.find((r) => r.criterion === 'hmf')).toMatchObject({ value: 60, max: 80, pass: true });
+    const plainDetail = await getLotDetail(user, plain.id);
+    expect(plainDetail!.composition.find((r) => r.criterion === 'hmf')).toMatchObject({
+      value: 60,
+      max: 40,
+      pass: false,
+    });
+  });
+
+  it('the new lab fields are stored and checked: sucrose 12 g/100 g meets lavender’s 15, not the general 5 (Annex II 1.2)', async () => {
+    const lavender = await extractedLot(17);
+    ok(
+      await updateLotAction({
+        lotId: lavender.id,
+        floralSource: 'Test lavender',
+        heather: false,
+        annexSource: 'lavender',
+        notes: '',
+      }),
+    );
+    const extra = { sucroseG100g: '12', fructoseGlucoseG100g: '65', conductivityMsCm: '0.4', freeAcidMeqKg: '20' };
+    expect((await upload(lavender.id, pdf, 'lab.pdf', 'application/pdf', extra)).status).toBe(201);
+    const plain = await extractedLot(17);
+    expect((await upload(plain.id, pdf, 'lab.pdf', 'application/pdf', extra)).status).toBe(201);
+    expect(ok(await changeStageAction({ lotId: lavender.id, target: 'released' }))).toMatchObject({
+      stage: 'released',
+    });
+    const held = ok(await changeStageAction({ lotId: plain.id, target: 'released' })) as { holdReasons: string[] };
+    expect(held.holdReasons.join(' ')).toMatch(/Sucrose 12 g\/100 g is above the 5 g\/100 g limit/);
+    const row = await getDb().models.LabFile.findOne({ where: { lotId: lavender.id } });
+    expect(Number(row!.conductivityMsCm)).toBe(0.4);
+  });
+
   it('keepers cannot upload', async () => {
     const lot = await extractedLot(17);
     await signInAs(DEMO.keeper);

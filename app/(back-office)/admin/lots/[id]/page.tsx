@@ -22,6 +22,8 @@ import { EmptyWeightForm, WaxForm } from '@/components/lots/weight-field-form';
 import { LotHistory } from '@/components/lots/lot-history';
 import { RemoveSuperButton } from '@/components/lots/remove-super-button';
 import { LotDetailsForm } from '@/components/lots/lot-details-form';
+import { CompositionVerdict } from '@/components/lots/composition-verdict';
+import { LAB_RESULT_FIELDS, type LotDetailsInput } from '@/lib/schemas/lots';
 import { floralSourceSuggestions } from '@/lib/data/lots/lots';
 import { LotTrace } from '@/components/lots/lot-trace';
 import {
@@ -471,6 +473,12 @@ export default async function LotPage({
                 lotId: lot.id,
                 floralSource: lot.floralSource,
                 heather: lot.heather,
+                honeyOrigin: lot.category.origin,
+                annexSource: (lot.annexSource ?? '') as LotDetailsInput['annexSource'],
+                bakers: lot.category.bakers ?? false,
+                pressed: lot.category.pressed ?? false,
+                tropical: lot.category.tropical ?? false,
+                lowEnzyme: lot.category.lowEnzyme ?? false,
                 extractedOn: lot.extractedOn ?? '',
                 notes: lot.notes,
               }}
@@ -529,7 +537,7 @@ export default async function LotPage({
                           <Chip tone="bad" title={f.failures.join('; ')}>
                             fails limits
                           </Chip>
-                        ) : f.hmfMgKg === null && f.diastaseSchade === null && f.insolubleG100g === null ? (
+                        ) : LAB_RESULT_FIELDS.every((k) => f[k] === null) ? (
                           <Chip>file only</Chip>
                         ) : (
                           <Chip tone="ok">within limits</Chip>
@@ -554,6 +562,7 @@ export default async function LotPage({
           ) : (
             <p className="hint">No lab reports.</p>
           )}
+          <CompositionVerdict rows={lot.composition} category={lot.category} />
         </section>
 
         {lot.children.length ? (
