@@ -191,7 +191,7 @@ describe('jarring runs', () => {
       jarCount: 5,
       runOn: today,
       sampleMode: 'net' as const,
-      samples: samples(345),
+      samples: samples(345, 346), // at least 2 jars: one weighed jar passes nothing
       idempotencyKey: key(),
     };
     const [a, b] = await Promise.all([createJarringRunAction(input), createJarringRunAction(input)]);
