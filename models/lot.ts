@@ -7,7 +7,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 import type { SuperPull } from './super-pull';
 import type { LotContainer } from './lot-container';
 import type { MoistureReading } from './moisture-reading';
@@ -19,6 +19,7 @@ import type { StockLevel } from './stock-level';
 export const LOT_STAGES = ['gathering', 'extracted', 'released', 'packed_out', 'held'] as const;
 export type LotStage = (typeof LOT_STAGES)[number];
 
+export interface Lot extends Timestamps {}
 export class Lot extends Model<InferAttributes<Lot>, InferCreationAttributes<Lot>> {
   declare id: CreationOptional<number>;
   declare code: string;
@@ -35,8 +36,6 @@ export class Lot extends Model<InferAttributes<Lot>, InferCreationAttributes<Lot
   declare bestBeforeOn: CreationOptional<string | null>;
   declare notes: CreationOptional<string>;
   declare createdBy: number | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare superPulls?: NonAttribute<SuperPull[]>;
   declare containers?: NonAttribute<LotContainer[]>;
   declare readings?: NonAttribute<MoistureReading[]>;
