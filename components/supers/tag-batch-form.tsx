@@ -2,6 +2,7 @@
 import { useRouter } from 'next/navigation';
 import { tagBatchInput, SUPER_DEPTHS } from '@/lib/schemas/supers';
 import { TextField } from '@/components/ui/text-field';
+import { SelectField } from '@/components/ui/select-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 import type { ActionResult } from '@/lib/schemas/result';
@@ -26,16 +27,7 @@ export function TagBatchForm({
       <TextField label="Prefix" registration={register('prefix')} error={errors.prefix} />
       <TextField label="First number" inputMode="numeric" registration={register('from')} error={errors.from} />
       <TextField label="How many" inputMode="numeric" registration={register('count')} error={errors.count} />
-      <label className="field" htmlFor="depth">
-        <span>Box depth</span>
-        <select id="depth" className="input min-h-11" {...register('depth')}>
-          {SUPER_DEPTHS.map((d) => (
-            <option key={d} value={d}>
-              {d}
-            </option>
-          ))}
-        </select>
-      </label>
+      <SelectField id="depth" label="Box depth" registration={register('depth')} options={SUPER_DEPTHS} />
       <TextField label="Frames" inputMode="numeric" registration={register('frameCount')} error={errors.frameCount} />
       <div className="flex items-end">
         <button type="submit" className="btn-secondary min-h-11" disabled={pending}>
