@@ -4,6 +4,7 @@ import { pickSupersInput, type PickSupersInput } from '@/lib/schemas/lots';
 import { Chip } from '@/components/ui/chip';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
+import { TableHead, num } from '@/components/ui/table-parts';
 
 export type PickableSuper = {
   id: number;
@@ -49,21 +50,9 @@ export function SuperPicker({
       <div className="max-h-96 overflow-auto">
         <table className="data-table">
           <caption className="sr-only">Pulled supers not yet in a lot</caption>
-          <thead>
-            <tr>
-              <th scope="col">
-                <span className="sr-only">Pick</span>
-              </th>
-              <th scope="col">Tag</th>
-              <th scope="col">Colony</th>
-              <th scope="col">Yard</th>
-              <th scope="col">Pulled</th>
-              <th scope="col" className="num">
-                Full
-              </th>
-              <th scope="col">Status</th>
-            </tr>
-          </thead>
+          <TableHead
+            columns={[{ label: 'Pick', hidden: true }, 'Tag', 'Colony', 'Yard', 'Pulled', num('Full'), 'Status']}
+          />
           <tbody>
             {supers.map((s) => (
               <tr key={s.id}>
