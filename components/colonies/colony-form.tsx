@@ -26,6 +26,7 @@ export function ColonyForm({ initial, keepers, parents, onSave, submitLabel }: P
   const router = useRouter();
   const {
     form,
+    field,
     submit,
     pending: isSubmitting,
     errors,
@@ -44,8 +45,7 @@ export function ColonyForm({ initial, keepers, parents, onSave, submitLabel }: P
         label="Colony code"
         hint="Unique in the business, e.g. OT-07."
         autoCapitalize="characters"
-        registration={register('code')}
-        error={errors.code}
+        {...field('code')}
       />
       {keepers ? (
         <label className="field" htmlFor="keeperId">
@@ -88,14 +88,8 @@ export function ColonyForm({ initial, keepers, parents, onSave, submitLabel }: P
         </label>
       ) : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField
-          label="Queen year"
-          hint="Gives the marking colour."
-          inputMode="numeric"
-          registration={register('queenYear')}
-          error={errors.queenYear}
-        />
-        <TextField label="Started on" type="date" registration={register('startedOn')} error={errors.startedOn} />
+        <TextField label="Queen year" hint="Gives the marking colour." inputMode="numeric" {...field('queenYear')} />
+        <TextField label="Started on" type="date" {...field('startedOn')} />
       </div>
       <label className="field" htmlFor="notes">
         <span>Notes</span>

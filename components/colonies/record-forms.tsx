@@ -79,7 +79,7 @@ const FEEDING_NAMES = {
 } as const;
 
 export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof feedingInput> }) {
-  const { form, submit, pending, errors, message } = useEntryForm(feedingInput, onSave, {
+  const { form, field, submit, pending, message } = useEntryForm(feedingInput, onSave, {
     colonyId,
     kind: 'sugar_syrup',
     amount: '',
@@ -96,20 +96,13 @@ export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<t
         registration={register('kind')}
         options={FEEDING_KINDS.map((f) => ({ value: f, label: FEEDING_NAMES[f] }))}
       />
-      <TextField
-        id="feed-amount"
-        label="Amount"
-        hint="e.g. 2 L 1:1, 1 kg"
-        registration={register('amount')}
-        error={errors.amount}
-      />
+      <TextField id="feed-amount" label="Amount" hint="e.g. 2 L 1:1, 1 kg" {...field('amount')} />
       <DateSpan
-        start={{ id: 'feed-start', label: 'Started', registration: register('startedOn'), error: errors.startedOn }}
+        start={{ id: 'feed-start', label: 'Started', ...field('startedOn') }}
         end={{
           id: 'feed-end',
           label: 'Ended (blank if still feeding)',
-          registration: register('endedOn'),
-          error: errors.endedOn,
+          ...field('endedOn'),
         }}
       />
       <FormMessage {...message} />
@@ -127,7 +120,7 @@ export function TreatmentForm({
   kinds: { id: number; name: string; supersAllowed: boolean; waitingDays: number }[];
   onSave: Save<typeof treatmentInput>;
 }) {
-  const { form, submit, pending, errors, message } = useEntryForm(treatmentInput, onSave, {
+  const { form, field, submit, pending, message } = useEntryForm(treatmentInput, onSave, {
     colonyId,
     treatmentKindId: kinds[0]?.id,
     productName: '',
@@ -152,19 +145,13 @@ export function TreatmentForm({
           }`,
         }))}
       />
-      <TextField
-        id="treat-product"
-        label="Product name"
-        registration={register('productName')}
-        error={errors.productName}
-      />
+      <TextField id="treat-product" label="Product name" {...field('productName')} />
       <DateSpan
-        start={{ id: 'treat-on', label: 'Applied', registration: register('appliedOn'), error: errors.appliedOn }}
+        start={{ id: 'treat-on', label: 'Applied', ...field('appliedOn') }}
         end={{
           id: 'treat-off',
           label: 'Removed (blank if still on)',
-          registration: register('removedOn'),
-          error: errors.removedOn,
+          ...field('removedOn'),
         }}
       />
       <FormMessage {...message} />
@@ -174,7 +161,7 @@ export function TreatmentForm({
 }
 
 export function SuperOnForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof superOnInput> }) {
-  const { form, submit, pending, errors, message } = useEntryForm(superOnInput, onSave, {
+  const { form, field, submit, pending, message } = useEntryForm(superOnInput, onSave, {
     colonyId,
     depth: 'medium',
     frameCount: 10,
@@ -186,15 +173,9 @@ export function SuperOnForm({ colonyId, today, onSave }: Base & { onSave: Save<t
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a super put on">
       <div className="grid gap-3 sm:grid-cols-2">
         <SelectField id="on-depth" label="Box depth" registration={register('depth')} options={SUPER_DEPTHS} />
-        <TextField
-          id="on-frames"
-          label="Frames"
-          inputMode="numeric"
-          registration={register('frameCount')}
-          error={errors.frameCount}
-        />
-        <TextField id="on-tag" label="Tag code (optional)" registration={register('tagCode')} error={errors.tagCode} />
-        <TextField id="on-date" label="Put on" type="date" registration={register('putOnOn')} error={errors.putOnOn} />
+        <TextField id="on-frames" label="Frames" inputMode="numeric" {...field('frameCount')} />
+        <TextField id="on-tag" label="Tag code (optional)" {...field('tagCode')} />
+        <TextField id="on-date" label="Put on" type="date" {...field('putOnOn')} />
       </div>
       <FormMessage {...message} />
       <Submit busy={pending} label="Save super on" />
@@ -203,7 +184,7 @@ export function SuperOnForm({ colonyId, today, onSave }: Base & { onSave: Save<t
 }
 
 export function NoteForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof noteInput> }) {
-  const { form, submit, pending, errors, message } = useEntryForm(noteInput, onSave, {
+  const { form, field, submit, pending, errors, message } = useEntryForm(noteInput, onSave, {
     colonyId,
     occurredOn: today,
     note: '',
@@ -220,13 +201,7 @@ export function NoteForm({ colonyId, today, onSave }: Base & { onSave: Save<type
           </small>
         ) : null}
       </label>
-      <TextField
-        id="note-date"
-        label="Date"
-        type="date"
-        registration={register('occurredOn')}
-        error={errors.occurredOn}
-      />
+      <TextField id="note-date" label="Date" type="date" {...field('occurredOn')} />
       <FormMessage {...message} />
       <Submit busy={pending} label="Save note" />
     </form>
@@ -239,31 +214,18 @@ export function SplitForm({
   onSave,
 }: Base & { onSave: Save<typeof splitInput, ActionResult<{ id: number }>> }) {
   const router = useRouter();
-  const { form, submit, pending, errors, message } = useEntryForm(
+  const { field, submit, pending, message } = useEntryForm(
     splitInput,
     onSave,
     { colonyId, newCode: '', occurredOn: today, queenYear: '', note: '' },
     (data) => router.push(`/admin/colonies/${data.id}`),
   );
-  const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a split">
       <div className="grid gap-3 sm:grid-cols-2">
-        <TextField id="split-code" label="New colony code" registration={register('newCode')} error={errors.newCode} />
-        <TextField
-          id="split-date"
-          label="Split on"
-          type="date"
-          registration={register('occurredOn')}
-          error={errors.occurredOn}
-        />
-        <TextField
-          id="split-queen"
-          label="New queen year (optional)"
-          inputMode="numeric"
-          registration={register('queenYear')}
-          error={errors.queenYear}
-        />
+        <TextField id="split-code" label="New colony code" {...field('newCode')} />
+        <TextField id="split-date" label="Split on" type="date" {...field('occurredOn')} />
+        <TextField id="split-queen" label="New queen year (optional)" inputMode="numeric" {...field('queenYear')} />
       </div>
       <FormMessage {...message} />
       <Submit busy={pending} label="Save split" />
@@ -278,7 +240,7 @@ export function MoveForm({
   onSave,
 }: Base & { yards: { id: number; name: string }[]; onSave: Save<typeof moveInput> }) {
   const router = useRouter();
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: moveInput,
     action: onSave,
     defaultValues: { colonyId, yardId: yards[0]?.id, occurredOn: today, note: '' },
@@ -290,13 +252,7 @@ export function MoveForm({
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Move to another yard">
       <SelectField id="move-yard" label="Move to" registration={register('yardId')} options={namedChoices(yards)} />
-      <TextField
-        id="move-date"
-        label="Moved on"
-        type="date"
-        registration={register('occurredOn')}
-        error={errors.occurredOn}
-      />
+      <TextField id="move-date" label="Moved on" type="date" {...field('occurredOn')} />
       <FormMessage {...message} />
       <Submit busy={pending} label="Move colony" />
     </form>
@@ -310,7 +266,7 @@ export function StatusForm({
   onSave,
 }: Base & { status: string; onSave: Save<typeof statusInput> }) {
   const router = useRouter();
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: statusInput,
     action: onSave,
     defaultValues: { colonyId, status: status as 'active', combinedIntoCode: '', occurredOn: today, note: '' },
@@ -332,21 +288,10 @@ export function StatusForm({
         ]}
       />
       {watch('status') === 'combined' ? (
-        <TextField
-          id="status-into"
-          label="Combined into (colony code)"
-          registration={register('combinedIntoCode')}
-          error={errors.combinedIntoCode}
-        />
+        <TextField id="status-into" label="Combined into (colony code)" {...field('combinedIntoCode')} />
       ) : null}
-      <TextField
-        id="status-date"
-        label="Date"
-        type="date"
-        registration={register('occurredOn')}
-        error={errors.occurredOn}
-      />
-      <TextField id="status-note" label="Note" registration={register('note')} error={errors.note} />
+      <TextField id="status-date" label="Date" type="date" {...field('occurredOn')} />
+      <TextField id="status-note" label="Note" {...field('note')} />
       <FormMessage {...message} />
       <Submit busy={pending} label="Save status" />
     </form>

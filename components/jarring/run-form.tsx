@@ -44,6 +44,7 @@ export function RunForm({
   const [result, setResult] = useState<RunResult | null>(null);
   const {
     form,
+    field,
     submit,
     pending,
     errors: e,
@@ -109,13 +110,8 @@ export function RunForm({
         </p>
       ) : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField
-          label="Jars filled"
-          registration={form.register('jarCount')}
-          error={e.jarCount}
-          inputMode="numeric"
-        />
-        <TextField label="Date" type="date" registration={form.register('runOn')} error={e.runOn} />
+        <TextField label="Jars filled" {...field('jarCount')} inputMode="numeric" />
+        <TextField label="Date" type="date" {...field('runOn')} />
       </div>
       <fieldset className="space-y-2">
         <legend className="text-sm font-medium">Sample weights are</legend>
@@ -153,8 +149,7 @@ export function RunForm({
       {ruleSet === 'nist' ? (
         <TextField
           label="MAV for this package, g"
-          registration={form.register('mavGrams')}
-          error={e.mavGrams}
+          {...field('mavGrams')}
           inputMode="decimal"
           hint="US rules (NIST Handbook 133): Combtrace does not hold the handbook's MAV table. Look up the maximum allowable variation for this labelled weight in Appendix A, Table 2-5, and enter it in grams."
         />

@@ -19,6 +19,7 @@ export function LayoutForm({
   const router = useRouter();
   const {
     form,
+    field,
     submit,
     pending,
     errors: e,
@@ -35,7 +36,7 @@ export function LayoutForm({
   );
   return (
     <form onSubmit={submit} className="space-y-4" noValidate aria-label="Label layout">
-      <TextField label="Name" registration={form.register('name')} error={e.name} />
+      <TextField label="Name" {...field('name')} />
       <label className="field" htmlFor="paper">
         <span>Paper</span>
         <select id="paper" className="input" {...form.register('paper')}>

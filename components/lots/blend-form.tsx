@@ -22,6 +22,7 @@ export function BlendForm({
   const router = useRouter();
   const {
     form,
+    field,
     submit,
     pending,
     errors: e,
@@ -37,11 +38,7 @@ export function BlendForm({
   if (!lots.length) return <p className="hint">No released lot has honey left to blend.</p>;
   return (
     <form onSubmit={submit} className="max-w-2xl space-y-4 card" noValidate>
-      <TextField
-        label="Floral source of the blend"
-        registration={form.register('floralSource')}
-        error={e.floralSource}
-      />
+      <TextField label="Floral source of the blend" {...field('floralSource')} />
       <label className="field" htmlFor="unit">
         <span>Weights in</span>
         <select id="unit" className="input" {...form.register('unit')}>

@@ -11,6 +11,7 @@ export function LabUploadForm({ lotId }: { lotId: number }) {
   const router = useRouter();
   const {
     form,
+    field,
     submit,
     pending,
     errors: e,
@@ -51,19 +52,9 @@ export function LabUploadForm({ lotId }: { lotId: number }) {
           </small>
         ) : null}
       </label>
-      <TextField label="HMF, mg/kg" registration={form.register('hmfMgKg')} error={e.hmfMgKg} inputMode="decimal" />
-      <TextField
-        label="Diastase, Schade"
-        registration={form.register('diastaseSchade')}
-        error={e.diastaseSchade}
-        inputMode="decimal"
-      />
-      <TextField
-        label="Water-insoluble, g/100 g"
-        registration={form.register('insolubleG100g')}
-        error={e.insolubleG100g}
-        inputMode="decimal"
-      />
+      <TextField label="HMF, mg/kg" {...field('hmfMgKg')} inputMode="decimal" />
+      <TextField label="Diastase, Schade" {...field('diastaseSchade')} inputMode="decimal" />
+      <TextField label="Water-insoluble, g/100 g" {...field('insolubleG100g')} inputMode="decimal" />
       <div className="sm:col-span-3">
         <FormMessage {...message} />
       </div>

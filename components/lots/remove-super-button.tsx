@@ -20,7 +20,7 @@ export function RemoveSuperButton({
 }) {
   const [open, setOpen] = useState(false);
   // On success the page refreshes without this super's row.
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: removeSuperInput,
     action: onRemove,
     defaultValues: { lotId, superPullId, reason: '' },
@@ -34,12 +34,7 @@ export function RemoveSuperButton({
     );
   return (
     <form onSubmit={submit} className="flex min-w-48 flex-col gap-1" noValidate>
-      <TextField
-        id={`remove-${superPullId}`}
-        label={`Why take ${tag} out?`}
-        registration={form.register('reason')}
-        error={errors.reason}
-      />
+      <TextField id={`remove-${superPullId}`} label={`Why take ${tag} out?`} {...field('reason')} />
       <FormMessage {...message} />
       <div className="flex gap-1">
         <button type="submit" className="btn-danger min-h-9 px-2 py-1" disabled={pending || reason.trim().length < 5}>

@@ -21,7 +21,7 @@ export function VoidButton({
   onVoid: (v: VoidInput) => Promise<ActionResult>;
 }) {
   const [open, setOpen] = useState(false);
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: voidInput,
     action: onVoid,
     defaultValues: { lotId, kind, recordId, reason: '' },
@@ -36,12 +36,7 @@ export function VoidButton({
     );
   return (
     <form onSubmit={submit} className="flex min-w-48 flex-col gap-1" noValidate>
-      <TextField
-        id={`void-${kind}-${recordId}`}
-        label={`Why void ${what}?`}
-        registration={form.register('reason')}
-        error={errors.reason}
-      />
+      <TextField id={`void-${kind}-${recordId}`} label={`Why void ${what}?`} {...field('reason')} />
       <FormMessage {...message} />
       <div className="flex gap-1">
         <button type="submit" className="btn-danger min-h-9 px-2 py-1" disabled={pending || reason.trim().length < 5}>

@@ -14,7 +14,7 @@ export function TagBatchForm({
   onSave: (v: z.input<typeof tagBatchInput>) => Promise<ActionResult<{ codes: string[]; created: number }>>;
 }) {
   const router = useRouter();
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: tagBatchInput,
     action: onSave,
     defaultValues: { prefix: 'SP', from: 1, count: 21, depth: 'medium', frameCount: 10 },
@@ -24,11 +24,11 @@ export function TagBatchForm({
   const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3 sm:grid-cols-3" noValidate aria-label="Create super tags">
-      <TextField label="Prefix" registration={register('prefix')} error={errors.prefix} />
-      <TextField label="First number" inputMode="numeric" registration={register('from')} error={errors.from} />
-      <TextField label="How many" inputMode="numeric" registration={register('count')} error={errors.count} />
+      <TextField label="Prefix" {...field('prefix')} />
+      <TextField label="First number" inputMode="numeric" {...field('from')} />
+      <TextField label="How many" inputMode="numeric" {...field('count')} />
       <SelectField id="depth" label="Box depth" registration={register('depth')} options={SUPER_DEPTHS} />
-      <TextField label="Frames" inputMode="numeric" registration={register('frameCount')} error={errors.frameCount} />
+      <TextField label="Frames" inputMode="numeric" {...field('frameCount')} />
       <div className="flex items-end">
         <button type="submit" className="btn-secondary min-h-11" disabled={pending}>
           Create tags

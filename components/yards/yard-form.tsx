@@ -16,9 +16,9 @@ export function YardForm({ initial, keepers, onSave }: Props) {
   const router = useRouter();
   const {
     form,
+    field,
     submit,
     pending: isSubmitting,
-    errors,
     message,
   } = useActionForm({
     schema: yardInput,
@@ -29,26 +29,11 @@ export function YardForm({ initial, keepers, onSave }: Props) {
   const { register } = form;
   return (
     <form onSubmit={submit} className="grid max-w-2xl gap-4 card" noValidate>
-      <TextField label="Yard name" registration={register('name')} error={errors.name} />
-      <TextField
-        label="Place"
-        hint="How to find it: lane, gate, landmark."
-        registration={register('place')}
-        error={errors.place}
-      />
+      <TextField label="Yard name" {...field('name')} />
+      <TextField label="Place" hint="How to find it: lane, gate, landmark." {...field('place')} />
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField
-          label="Latitude (optional)"
-          inputMode="decimal"
-          registration={register('latitude')}
-          error={errors.latitude}
-        />
-        <TextField
-          label="Longitude (optional)"
-          inputMode="decimal"
-          registration={register('longitude')}
-          error={errors.longitude}
-        />
+        <TextField label="Latitude (optional)" inputMode="decimal" {...field('latitude')} />
+        <TextField label="Longitude (optional)" inputMode="decimal" {...field('longitude')} />
       </div>
       <label className="field" htmlFor="forageNotes">
         <span>Forage notes</span>
