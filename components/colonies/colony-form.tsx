@@ -24,14 +24,7 @@ const ORIGIN_NAMES: Record<(typeof COLONY_ORIGINS)[number], string> = {
 
 export function ColonyForm({ initial, keepers, parents, onSave, submitLabel }: Props) {
   const router = useRouter();
-  const {
-    form,
-    field,
-    submit,
-    pending: isSubmitting,
-    errors,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, errors, message } = useActionForm({
     schema: colonyInput,
     action: onSave,
     defaultValues: initial,
@@ -97,8 +90,8 @@ export function ColonyForm({ initial, keepers, parents, onSave, submitLabel }: P
       </label>
       <FormMessage {...message} />
       <div>
-        <button type="submit" className="btn-primary min-h-11" disabled={isSubmitting}>
-          {isSubmitting ? 'Saving…' : submitLabel}
+        <button type="submit" className="btn-primary min-h-11" disabled={pending}>
+          {pending ? 'Saving…' : submitLabel}
         </button>
       </div>
     </form>

@@ -3,6 +3,7 @@ import { useState } from 'react';
 import Link from 'next/link';
 import { jarringRunInput, type JarringRunInput } from '@/lib/schemas/jarring';
 import type { ActionResult } from '@/lib/schemas/result';
+import type { RunResult } from '@/lib/data/jarring/runs';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
@@ -14,14 +15,6 @@ export type RunFormLot = {
   jars: { productId: number; jars: number }[];
 };
 export type RunFormProduct = { id: number; name: string; containerGrams: number; netText: string };
-type RunResult = {
-  runId: number;
-  pass: boolean;
-  reasons: string[];
-  stocked: boolean;
-  packedOut: boolean;
-  duplicate: boolean;
-};
 
 const newKey = () =>
   typeof crypto !== 'undefined' && 'randomUUID' in crypto ? crypto.randomUUID() : `${Date.now()}-${Math.random()}`;
@@ -42,14 +35,7 @@ export function RunForm({
 }) {
   // The run's outcome (passed, or failed with reasons) is shown in its own panel, not as a message.
   const [result, setResult] = useState<RunResult | null>(null);
-  const {
-    form,
-    field,
-    submit,
-    pending,
-    errors: e,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, errors, message } = useActionForm({
     schema: jarringRunInput,
     action: (values) => {
       setResult(null);
@@ -133,16 +119,16 @@ export function RunForm({
           className="input"
           inputMode="decimal"
           placeholder={mode === 'gross' ? 'e.g. 542, 545, 541' : 'e.g. 342, 345, 341'}
-          aria-invalid={e.samples ? true : undefined}
+          aria-invalid={errors.samples ? true : undefined}
           aria-describedby="samples-hint"
           {...form.register('samples')}
         />
         <small id="samples-hint" className="hint">
           Weigh jars taken through the run; separate weights with commas or spaces.
         </small>
-        {e.samples?.message ? (
+        {errors.samples?.message ? (
           <small className="field-error" role="alert">
-            {e.samples.message}
+            {errors.samples.message}
           </small>
         ) : null}
       </label>

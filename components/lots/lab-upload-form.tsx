@@ -9,14 +9,7 @@ import { postForm } from '@/components/ui/post-form';
 /** Uploads a PDF or image lab report to the route handler (the server checks its real type). */
 export function LabUploadForm({ lotId }: { lotId: number }) {
   const router = useRouter();
-  const {
-    form,
-    field,
-    submit,
-    pending,
-    errors: e,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, errors, message } = useActionForm({
     schema: labUploadFormInput,
     defaultValues: { hmfMgKg: '', diastaseSchade: '', insolubleG100g: '' },
     action: (v) => {
@@ -43,12 +36,12 @@ export function LabUploadForm({ lotId }: { lotId: number }) {
           type="file"
           accept="application/pdf,image/png,image/jpeg,image/webp"
           className="input"
-          aria-invalid={e.file ? true : undefined}
+          aria-invalid={errors.file ? true : undefined}
           {...form.register('file')}
         />
-        {e.file?.message ? (
+        {errors.file?.message ? (
           <small className="field-error" role="alert">
-            {e.file.message}
+            {errors.file.message}
           </small>
         ) : null}
       </label>

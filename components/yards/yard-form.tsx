@@ -14,13 +14,7 @@ type Props = {
 
 export function YardForm({ initial, keepers, onSave }: Props) {
   const router = useRouter();
-  const {
-    form,
-    field,
-    submit,
-    pending: isSubmitting,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: yardInput,
     action: onSave,
     defaultValues: initial ?? { name: '', place: '', forageNotes: '', keeperIds: [] },
@@ -51,8 +45,8 @@ export function YardForm({ initial, keepers, onSave }: Props) {
       </fieldset>
       <FormMessage {...message} />
       <div>
-        <button type="submit" className="btn-primary min-h-11" disabled={isSubmitting}>
-          {isSubmitting ? 'Saving…' : 'Save yard'}
+        <button type="submit" className="btn-primary min-h-11" disabled={pending}>
+          {pending ? 'Saving…' : 'Save yard'}
         </button>
       </div>
     </form>
