@@ -45,6 +45,35 @@ type Search = Record<string, string | string[] | undefined>;
 const one = (v: string | string[] | undefined) => (typeof v === 'string' ? v : undefined);
 const FERMENT_TONE = { low: 'ok', 'yeast-dependent': 'info', 'high-yeast-dependent': 'warn', likely: 'bad' } as const;
 
+/** The lots a blend was made from, or the blends a lot went into, with the grams of each. */
+function BlendLinks({
+  id,
+  title,
+  links,
+  weight,
+}: {
+  id: string;
+  title: string;
+  links: { lotId: number; code: string; grams: number }[];
+  weight: (grams: number) => string;
+}) {
+  return (
+    <section className="space-y-2 card" aria-labelledby={id}>
+      <h2 id={id}>{title}</h2>
+      <ul className="text-sm">
+        {links.map((l) => (
+          <li key={l.lotId}>
+            <Link href={`/admin/lots/${l.lotId}`} className="font-mono">
+              {l.code}
+            </Link>
+            : {weight(l.grams)}
+          </li>
+        ))}
+      </ul>
+    </section>
+  );
+}
+
 export default async function LotPage({
   params,
   searchParams,
@@ -223,19 +252,7 @@ export default async function LotPage({
             ) : null}
           </section>
         ) : (
-          <section className="space-y-2 card" aria-labelledby="parents-h">
-            <h2 id="parents-h">Made from</h2>
-            <ul className="text-sm">
-              {lot.parents.map((p) => (
-                <li key={p.lotId}>
-                  <Link href={`/admin/lots/${p.lotId}`} className="font-mono">
-                    {p.code}
-                  </Link>
-                  : {w(p.grams)}
-                </li>
-              ))}
-            </ul>
-          </section>
+          <BlendLinks id="parents-h" title="Made from" links={lot.parents} weight={w} />
         )}
 
         {!lot.isBlend ? (
@@ -495,19 +512,7 @@ export default async function LotPage({
         </section>
 
         {lot.children.length ? (
-          <section className="space-y-2 card" aria-labelledby="children-h">
-            <h2 id="children-h">Blended into</h2>
-            <ul className="text-sm">
-              {lot.children.map((c) => (
-                <li key={c.lotId}>
-                  <Link href={`/admin/lots/${c.lotId}`} className="font-mono">
-                    {c.code}
-                  </Link>
-                  : {w(c.grams)}
-                </li>
-              ))}
-            </ul>
-          </section>
+          <BlendLinks id="children-h" title="Blended into" links={lot.children} weight={w} />
         ) : null}
 
         <section className="space-y-3 card" aria-labelledby="trace-h">
