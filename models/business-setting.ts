@@ -6,13 +6,14 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
-import { timestamps } from './columns';
+import { timestamps, type Timestamps } from './columns';
 
 export type ShippingBand = { upToGrams: number; cents: number };
 import type { SuperEstimates } from '@/lib/domain/yield-allocation';
 export type { SuperEstimates };
 
 /** The single row (id 1) of the business's own settings. */
+export interface BusinessSetting extends Timestamps {}
 export class BusinessSetting extends Model<InferAttributes<BusinessSetting>, InferCreationAttributes<BusinessSetting>> {
   declare id: number;
   declare businessName: string;
@@ -39,8 +40,6 @@ export class BusinessSetting extends Model<InferAttributes<BusinessSetting>, Inf
   declare barcodeKind: CreationOptional<'gs1-128' | 'gs1datamatrix'>;
   declare shippingBands: CreationOptional<ShippingBand[]>;
   declare superEstimates: CreationOptional<SuperEstimates>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
 export function initBusinessSetting(sequelize: Sequelize) {

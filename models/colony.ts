@@ -7,7 +7,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 import type { User } from './user';
 import type { Yard } from './yard';
 import type { ColonyEvent } from './colony-event';
@@ -20,6 +20,7 @@ export type ColonyOrigin = (typeof COLONY_ORIGINS)[number];
 export const COLONY_STATUSES = ['active', 'dead_out', 'combined', 'sold'] as const;
 export type ColonyStatus = (typeof COLONY_STATUSES)[number];
 
+export interface Colony extends Timestamps {}
 export class Colony extends Model<InferAttributes<Colony>, InferCreationAttributes<Colony>> {
   declare id: CreationOptional<number>;
   declare code: string;
@@ -32,8 +33,6 @@ export class Colony extends Model<InferAttributes<Colony>, InferCreationAttribut
   declare combinedIntoId: CreationOptional<number | null>;
   declare startedOn: CreationOptional<string | null>;
   declare notes: CreationOptional<string>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare yard?: NonAttribute<Yard>;
   declare keeper?: NonAttribute<User>;
   declare parent?: NonAttribute<Colony | null>;

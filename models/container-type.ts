@@ -6,15 +6,14 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 
+export interface ContainerType extends Timestamps {}
 export class ContainerType extends Model<InferAttributes<ContainerType>, InferCreationAttributes<ContainerType>> {
   declare id: CreationOptional<number>;
   declare name: string;
   declare usualTareGrams: number;
   declare active: CreationOptional<boolean>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
 export function initContainerType(sequelize: Sequelize) {

@@ -44,6 +44,16 @@ function oneToMany(
   many.belongsTo(one, { foreignKey, as: as.one });
 }
 
+/** `one` has many of each model in `many`, under the key's name; each belongs to its `one` as `as`. */
+function hasManyEach(
+  one: ModelStatic<Model>,
+  foreignKey: string,
+  as: string,
+  many: Record<string, ModelStatic<Model>>,
+) {
+  for (const [name, model] of Object.entries(many)) oneToMany(one, model, foreignKey, { many: name, one: as });
+}
+
 /** Initialises every model once and wires the associations in one place. */
 export function initModels(sequelize: Sequelize) {
   const models = {
@@ -125,21 +135,25 @@ export function initModels(sequelize: Sequelize) {
   Colony.belongsTo(Colony, { foreignKey: 'parentColonyId', as: 'parent' });
   Colony.hasMany(Colony, { foreignKey: 'parentColonyId', as: 'splits' });
   Colony.belongsTo(Colony, { foreignKey: 'combinedIntoId', as: 'combinedInto' });
-  oneToMany(Colony, ColonyEvent, 'colonyId', { many: 'events', one: 'colony' });
-  oneToMany(Colony, Feeding, 'colonyId', { many: 'feedings', one: 'colony' });
-  oneToMany(Colony, Treatment, 'colonyId', { many: 'treatments', one: 'colony' });
-  oneToMany(Colony, SuperPull, 'colonyId', { many: 'superPulls', one: 'colony' });
+  hasManyEach(Colony, 'colonyId', 'colony', {
+    events: ColonyEvent,
+    feedings: Feeding,
+    treatments: Treatment,
+    superPulls: SuperPull,
+  });
   Treatment.belongsTo(TreatmentKind, { foreignKey: 'treatmentKindId', as: 'kind' });
 
   // Honey house
-  oneToMany(Lot, SuperPull, 'lotId', { many: 'superPulls', one: 'lot' });
+  hasManyEach(Lot, 'lotId', 'lot', {
+    superPulls: SuperPull,
+    containers: LotContainer,
+    readings: MoistureReading,
+    labFiles: LabFile,
+    jarringRuns: JarringRun,
+    stockLevels: StockLevel,
+  });
   SuperPull.belongsTo(User, { foreignKey: 'voidedByUserId', as: 'voidedBy' });
-  oneToMany(Lot, LotContainer, 'lotId', { many: 'containers', one: 'lot' });
   LotContainer.belongsTo(ContainerType, { foreignKey: 'containerTypeId', as: 'containerType' });
-  oneToMany(Lot, MoistureReading, 'lotId', { many: 'readings', one: 'lot' });
-  oneToMany(Lot, LabFile, 'lotId', { many: 'labFiles', one: 'lot' });
-  oneToMany(Lot, JarringRun, 'lotId', { many: 'jarringRuns', one: 'lot' });
-  oneToMany(Lot, StockLevel, 'lotId', { many: 'stockLevels', one: 'lot' });
   oneToMany(Lot, LotParent, 'childLotId', { many: 'parentLinks', one: 'child' });
   oneToMany(Lot, LotParent, 'parentLotId', { many: 'childLinks', one: 'parent' });
 

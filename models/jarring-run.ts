@@ -7,7 +7,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import { serialId, idempotencyKey, timestamps } from './columns';
+import { serialId, idempotencyKey, timestamps, type IdempotencyKey, type Timestamps } from './columns';
 import type { FillAssessment, assessFillUs } from '@/lib/domain/fill-check';
 import type { Lot } from './lot';
 import type { Product } from './product';
@@ -18,6 +18,7 @@ export type FillRuleSet = (typeof FILL_RULE_SETS)[number];
 export type FillReport = FillAssessment | ReturnType<typeof assessFillUs>;
 
 /** Jars filled from one lot into one product, with sample fill weights. */
+export interface JarringRun extends Timestamps, IdempotencyKey {}
 export class JarringRun extends Model<InferAttributes<JarringRun>, InferCreationAttributes<JarringRun>> {
   declare id: CreationOptional<number>;
   declare lotId: number;
@@ -35,9 +36,6 @@ export class JarringRun extends Model<InferAttributes<JarringRun>, InferCreation
   declare overrideReason: CreationOptional<string | null>;
   declare overrideBy: CreationOptional<number | null>;
   declare createdBy: number | null;
-  declare idempotencyKey: CreationOptional<string | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare lot?: NonAttribute<Lot>;
   declare product?: NonAttribute<Product>;
 }

@@ -6,10 +6,11 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 import type { LabelLayout } from '@/lib/domain/label-layout';
 
 /** A saved label sheet layout (named LabelLayoutRecord: LabelLayout is the domain type it stores). */
+export interface LabelLayoutRecord extends Timestamps {}
 export class LabelLayoutRecord extends Model<
   InferAttributes<LabelLayoutRecord>,
   InferCreationAttributes<LabelLayoutRecord>
@@ -18,8 +19,6 @@ export class LabelLayoutRecord extends Model<
   declare name: string;
   /** In millimetres. */
   declare layout: LabelLayout;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
 export function initLabelLayoutRecord(sequelize: Sequelize) {

@@ -7,17 +7,16 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 import type { Lot } from './lot';
 
 /** Blends: grams of a parent lot that went into a child lot. */
+export interface LotParent extends Timestamps {}
 export class LotParent extends Model<InferAttributes<LotParent>, InferCreationAttributes<LotParent>> {
   declare id: CreationOptional<number>;
   declare childLotId: number;
   declare parentLotId: number;
   declare grams: number;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare parent?: NonAttribute<Lot>;
   declare child?: NonAttribute<Lot>;
 }

@@ -7,7 +7,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 import type { SuperPull } from './super-pull';
 import type { LotContainer } from './lot-container';
 import type { MoistureReading } from './moisture-reading';
@@ -21,6 +21,7 @@ export type LotStage = (typeof LOT_STAGES)[number];
 export const HONEY_ORIGINS = ['blossom', 'honeydew', 'honeydew-blossom-blend'] as const;
 export type HoneyOrigin = (typeof HONEY_ORIGINS)[number];
 
+export interface Lot extends Timestamps {}
 export class Lot extends Model<InferAttributes<Lot>, InferCreationAttributes<Lot>> {
   declare id: CreationOptional<number>;
   declare code: string;
@@ -44,8 +45,6 @@ export class Lot extends Model<InferAttributes<Lot>, InferCreationAttributes<Lot
   declare bestBeforeOn: CreationOptional<string | null>;
   declare notes: CreationOptional<string>;
   declare createdBy: number | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare superPulls?: NonAttribute<SuperPull[]>;
   declare containers?: NonAttribute<LotContainer[]>;
   declare readings?: NonAttribute<MoistureReading[]>;

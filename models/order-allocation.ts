@@ -7,7 +7,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 import type { OrderLine } from './order-line';
 import type { Lot } from './lot';
 
@@ -15,14 +15,13 @@ export const ALLOCATION_STATES = ['reserved', 'sold', 'released', 'returned', 'w
 export type AllocationState = (typeof ALLOCATION_STATES)[number];
 
 /** Which lot's jars fill a line: made when stock is reserved (oldest best-before first), final once paid. */
+export interface OrderAllocation extends Timestamps {}
 export class OrderAllocation extends Model<InferAttributes<OrderAllocation>, InferCreationAttributes<OrderAllocation>> {
   declare id: CreationOptional<number>;
   declare orderLineId: number;
   declare lotId: number;
   declare quantity: number;
   declare state: CreationOptional<AllocationState>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare line?: NonAttribute<OrderLine>;
   declare lot?: NonAttribute<Lot>;
 }

@@ -7,11 +7,12 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 import type { Order } from './order';
 import type { Product } from './product';
 import type { OrderAllocation } from './order-allocation';
 
+export interface OrderLine extends Timestamps {}
 export class OrderLine extends Model<InferAttributes<OrderLine>, InferCreationAttributes<OrderLine>> {
   declare id: CreationOptional<number>;
   declare orderId: number;
@@ -20,8 +21,6 @@ export class OrderLine extends Model<InferAttributes<OrderLine>, InferCreationAt
   declare productName: string;
   declare quantity: number;
   declare unitPriceCents: number;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare order?: NonAttribute<Order>;
   declare product?: NonAttribute<Product>;
   declare allocations?: NonAttribute<OrderAllocation[]>;

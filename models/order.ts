@@ -7,7 +7,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 import type { User } from './user';
 import type { OrderLine } from './order-line';
 import type { Refund } from './refund';
@@ -26,6 +26,7 @@ export type ShippingAddress = {
   country: string;
 };
 
+export interface Order extends Timestamps {}
 export class Order extends Model<InferAttributes<Order>, InferCreationAttributes<Order>> {
   declare id: CreationOptional<number>;
   /** Shown to customers and staff, e.g. "C-10042". */
@@ -50,8 +51,6 @@ export class Order extends Model<InferAttributes<Order>, InferCreationAttributes
   declare shippedAt: CreationOptional<Date | null>;
   declare pickedUpAt: CreationOptional<Date | null>;
   declare tracking: CreationOptional<string | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare customer?: NonAttribute<User | null>;
   declare lines?: NonAttribute<OrderLine[]>;
   declare refunds?: NonAttribute<Refund[]>;

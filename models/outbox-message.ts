@@ -6,10 +6,11 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
-import { bigSerialId, timestamps } from './columns';
+import { bigSerialId, timestamps, type Timestamps } from './columns';
 
 export type OutboxAttachment = { filename: string; contentType: string; base64: string };
 
+export interface OutboxMessage extends Timestamps {}
 export class OutboxMessage extends Model<InferAttributes<OutboxMessage>, InferCreationAttributes<OutboxMessage>> {
   declare id: CreationOptional<number>;
   /** Same key, same message: sending twice is harmless. */
@@ -24,8 +25,6 @@ export class OutboxMessage extends Model<InferAttributes<OutboxMessage>, InferCr
   declare lastError: CreationOptional<string | null>;
   declare nextAttemptAt: CreationOptional<Date>;
   declare sentAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
 export function initOutboxMessage(sequelize: Sequelize) {

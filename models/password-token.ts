@@ -6,8 +6,9 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 
+export interface PasswordToken extends Timestamps {}
 export class PasswordToken extends Model<InferAttributes<PasswordToken>, InferCreationAttributes<PasswordToken>> {
   declare id: CreationOptional<number>;
   declare userId: number;
@@ -16,8 +17,6 @@ export class PasswordToken extends Model<InferAttributes<PasswordToken>, InferCr
   declare tokenHash: string;
   declare expiresAt: Date;
   declare usedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
 export function initPasswordToken(sequelize: Sequelize) {

@@ -7,7 +7,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 import type { StoredFile } from './stored-file';
 import type { StockLevel } from './stock-level';
 
@@ -15,6 +15,7 @@ import type { StockLevel } from './stock-level';
 export const DECLARED_UNITS = ['g', 'oz'] as const;
 export type DeclaredUnit = (typeof DECLARED_UNITS)[number];
 
+export interface Product extends Timestamps {}
 export class Product extends Model<InferAttributes<Product>, InferCreationAttributes<Product>> {
   declare id: CreationOptional<number>;
   declare slug: string;
@@ -31,8 +32,6 @@ export class Product extends Model<InferAttributes<Product>, InferCreationAttrib
   declare photoId: CreationOptional<number | null>;
   declare active: CreationOptional<boolean>;
   declare sortOrder: CreationOptional<number>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare photo?: NonAttribute<StoredFile | null>;
   declare stockLevels?: NonAttribute<StockLevel[]>;
 }

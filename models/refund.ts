@@ -7,9 +7,10 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 import type { Order } from './order';
 
+export interface Refund extends Timestamps {}
 export class Refund extends Model<InferAttributes<Refund>, InferCreationAttributes<Refund>> {
   declare id: CreationOptional<number>;
   declare orderId: number;
@@ -18,8 +19,6 @@ export class Refund extends Model<InferAttributes<Refund>, InferCreationAttribut
   declare restock: boolean;
   declare reason: CreationOptional<string>;
   declare createdBy: number | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare order?: NonAttribute<Order>;
 }
 

@@ -7,19 +7,18 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import { timestamps } from './columns';
+import { timestamps, type Timestamps } from './columns';
 import type { Lot } from './lot';
 import type { Product } from './product';
 
 /** On-hand and reserved jars per product per lot; a CHECK keeps reserved ≤ on hand. */
+export interface StockLevel extends Timestamps {}
 export class StockLevel extends Model<InferAttributes<StockLevel>, InferCreationAttributes<StockLevel>> {
   declare productId: number;
   declare lotId: number;
   declare onHand: CreationOptional<number>;
   declare reserved: CreationOptional<number>;
   declare bestBeforeOn: string;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare product?: NonAttribute<Product>;
   declare lot?: NonAttribute<Lot>;
 }

@@ -7,13 +7,17 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import { serialId, voidColumns, idempotencyKey, timestamps } from './columns';
+import { serialId, voidColumns, idempotencyKey, timestamps, type Timestamps, type VoidFields } from './columns';
 import { SUPER_DEPTHS, type SuperDepth } from './super-tag';
 import type { Colony } from './colony';
 import type { Lot } from './lot';
 import type { User } from './user';
 
-/** A super on a colony: put on, pulled (weighed full), later its empty weight and its lot. */
+/**
+ * A super on a colony: put on, pulled (weighed full), later its empty weight and its lot. Its void fields are
+ * set together when a pull recorded by mistake is voided (who, when, why); never edited or deleted.
+ */
+export interface SuperPull extends Timestamps, VoidFields<'voidedByUserId'> {}
 export class SuperPull extends Model<InferAttributes<SuperPull>, InferCreationAttributes<SuperPull>> {
   declare id: CreationOptional<number>;
   declare colonyId: number;
@@ -37,12 +41,6 @@ export class SuperPull extends Model<InferAttributes<SuperPull>, InferCreationAt
   /** The key of the pull entry that closed the row. */
   declare pullKey: CreationOptional<string | null>;
   declare note: CreationOptional<string>;
-  /** Set together when a pull recorded by mistake is voided (who, when, why); never edited or deleted. */
-  declare voidedAt: CreationOptional<Date | null>;
-  declare voidedByUserId: CreationOptional<number | null>;
-  declare voidReason: CreationOptional<string | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare colony?: NonAttribute<Colony>;
   declare lot?: NonAttribute<Lot | null>;
   declare voidedBy?: NonAttribute<User | null>;

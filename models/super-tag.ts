@@ -6,20 +6,19 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 
 export const SUPER_DEPTHS = ['deep', 'medium', 'shallow'] as const;
 export type SuperDepth = (typeof SUPER_DEPTHS)[number];
 
 /** A physical super box with its printed tag. */
+export interface SuperTag extends Timestamps {}
 export class SuperTag extends Model<InferAttributes<SuperTag>, InferCreationAttributes<SuperTag>> {
   declare id: CreationOptional<number>;
   declare code: string;
   declare depth: SuperDepth;
   declare frameCount: CreationOptional<number>;
   declare retiredAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
 export function initSuperTag(sequelize: Sequelize) {

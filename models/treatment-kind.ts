@@ -6,9 +6,10 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 
 /** Owner-editable list of treatments; the real product's label governs, this is only a record of it. */
+export interface TreatmentKind extends Timestamps {}
 export class TreatmentKind extends Model<InferAttributes<TreatmentKind>, InferCreationAttributes<TreatmentKind>> {
   declare id: CreationOptional<number>;
   declare name: string;
@@ -16,8 +17,6 @@ export class TreatmentKind extends Model<InferAttributes<TreatmentKind>, InferCr
   declare waitingDays: CreationOptional<number>;
   declare notes: CreationOptional<string>;
   declare active: CreationOptional<boolean>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
 export function initTreatmentKind(sequelize: Sequelize) {

@@ -6,9 +6,10 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 import type { Role } from '@/lib/auth/roles';
 
+export interface User extends Timestamps {}
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<number>;
   declare email: string;
@@ -19,8 +20,6 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare disabledAt: CreationOptional<Date | null>;
   declare sessionVersion: CreationOptional<number>;
   declare weightUnit: CreationOptional<'metric' | 'us' | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
 export function initUser(sequelize: Sequelize) {

@@ -7,10 +7,11 @@ import {
   type NonAttribute,
   type Sequelize,
 } from 'sequelize';
-import { serialId, timestamps } from './columns';
+import { serialId, timestamps, type Timestamps } from './columns';
 import type { User } from './user';
 import type { Colony } from './colony';
 
+export interface Yard extends Timestamps {}
 export class Yard extends Model<InferAttributes<Yard>, InferCreationAttributes<Yard>> {
   declare id: CreationOptional<number>;
   declare name: string;
@@ -19,8 +20,6 @@ export class Yard extends Model<InferAttributes<Yard>, InferCreationAttributes<Y
   declare longitude: CreationOptional<number | null>;
   declare forageNotes: CreationOptional<string>;
   declare archivedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare keepers?: NonAttribute<User[]>;
   declare colonies?: NonAttribute<Colony[]>;
 }

@@ -6,7 +6,7 @@ import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 
 export function ForgotPasswordForm({ onRequest }: { onRequest: (v: ForgotPasswordInput) => Promise<ActionResult> }) {
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { field, submit, pending, message } = useActionForm({
     schema: forgotPasswordInput,
     defaultValues: { email: '' },
     action: onRequest,
@@ -14,14 +14,7 @@ export function ForgotPasswordForm({ onRequest }: { onRequest: (v: ForgotPasswor
   });
   return (
     <form onSubmit={submit} className="space-y-4 card" noValidate>
-      <TextField
-        label="E-mail"
-        type="email"
-        registration={form.register('email')}
-        error={errors.email}
-        autoComplete="email"
-        required
-      />
+      <TextField label="E-mail" type="email" {...field('email')} autoComplete="email" required />
       <FormMessage {...message} />
       <button type="submit" className="btn-primary w-full" disabled={pending}>
         Send reset link

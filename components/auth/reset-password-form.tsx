@@ -16,7 +16,7 @@ export function ResetPasswordForm({
   token: string;
   onReset: (v: ResetPasswordInput) => Promise<ActionResult>;
 }) {
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { field, submit, pending, message } = useActionForm({
     schema: passwordOnly,
     defaultValues: { password: '' },
     action: ({ password }) => onReset({ token, password }),
@@ -37,8 +37,7 @@ export function ResetPasswordForm({
       <TextField
         label="New password"
         type="password"
-        registration={form.register('password')}
-        error={errors.password}
+        {...field('password')}
         autoComplete="new-password"
         required
         hint="At least 8 characters. A long phrase is best."

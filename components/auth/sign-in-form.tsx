@@ -13,7 +13,7 @@ const MESSAGES: Record<string, string> = {
 };
 
 export function SignInForm({ next }: { next?: string }) {
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { field, submit, pending, message } = useActionForm({
     schema: signInInput,
     defaultValues: { email: '', password: '' },
     action: async ({ email, password }): Promise<ActionResult> => {
@@ -29,22 +29,8 @@ export function SignInForm({ next }: { next?: string }) {
 
   return (
     <form onSubmit={submit} className="space-y-4 card" noValidate>
-      <TextField
-        label="E-mail"
-        type="email"
-        registration={form.register('email')}
-        error={errors.email}
-        autoComplete="email"
-        required
-      />
-      <TextField
-        label="Password"
-        type="password"
-        registration={form.register('password')}
-        error={errors.password}
-        autoComplete="current-password"
-        required
-      />
+      <TextField label="E-mail" type="email" {...field('email')} autoComplete="email" required />
+      <TextField label="Password" type="password" {...field('password')} autoComplete="current-password" required />
       <FormMessage {...message} />
       <button type="submit" className="btn-primary w-full" disabled={pending}>
         {pending ? 'Signing in…' : 'Sign in'}

@@ -7,7 +7,7 @@ import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 
 export function SignUpForm({ onSignUp }: { onSignUp: (v: SignUpInput) => Promise<ActionResult> }) {
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { field, submit, pending, message } = useActionForm({
     schema: signUpInput,
     defaultValues: { name: '', email: '', password: '' },
     action: onSignUp,
@@ -21,19 +21,12 @@ export function SignUpForm({ onSignUp }: { onSignUp: (v: SignUpInput) => Promise
 
   return (
     <form onSubmit={submit} className="space-y-4 card" noValidate>
-      <TextField label="Your name" registration={form.register('name')} error={errors.name} autoComplete="name" />
-      <TextField
-        label="E-mail"
-        type="email"
-        registration={form.register('email')}
-        error={errors.email}
-        autoComplete="email"
-      />
+      <TextField label="Your name" {...field('name')} autoComplete="name" />
+      <TextField label="E-mail" type="email" {...field('email')} autoComplete="email" />
       <TextField
         label="Password"
         type="password"
-        registration={form.register('password')}
-        error={errors.password}
+        {...field('password')}
         autoComplete="new-password"
         hint="At least 8 characters. A long phrase is best; pasting from a password manager is fine."
       />

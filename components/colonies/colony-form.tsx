@@ -24,13 +24,7 @@ const ORIGIN_NAMES: Record<(typeof COLONY_ORIGINS)[number], string> = {
 
 export function ColonyForm({ initial, keepers, parents, onSave, submitLabel }: Props) {
   const router = useRouter();
-  const {
-    form,
-    submit,
-    pending: isSubmitting,
-    errors,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, errors, message } = useActionForm({
     schema: colonyInput,
     action: onSave,
     defaultValues: initial,
@@ -44,8 +38,7 @@ export function ColonyForm({ initial, keepers, parents, onSave, submitLabel }: P
         label="Colony code"
         hint="Unique in the business, e.g. OT-07."
         autoCapitalize="characters"
-        registration={register('code')}
-        error={errors.code}
+        {...field('code')}
       />
       {keepers ? (
         <label className="field" htmlFor="keeperId">
@@ -88,14 +81,8 @@ export function ColonyForm({ initial, keepers, parents, onSave, submitLabel }: P
         </label>
       ) : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField
-          label="Queen year"
-          hint="Gives the marking colour."
-          inputMode="numeric"
-          registration={register('queenYear')}
-          error={errors.queenYear}
-        />
-        <TextField label="Started on" type="date" registration={register('startedOn')} error={errors.startedOn} />
+        <TextField label="Queen year" hint="Gives the marking colour." inputMode="numeric" {...field('queenYear')} />
+        <TextField label="Started on" type="date" {...field('startedOn')} />
       </div>
       <label className="field" htmlFor="notes">
         <span>Notes</span>
@@ -103,8 +90,8 @@ export function ColonyForm({ initial, keepers, parents, onSave, submitLabel }: P
       </label>
       <FormMessage {...message} />
       <div>
-        <button type="submit" className="btn-primary min-h-11" disabled={isSubmitting}>
-          {isSubmitting ? 'Saving…' : submitLabel}
+        <button type="submit" className="btn-primary min-h-11" disabled={pending}>
+          {pending ? 'Saving…' : submitLabel}
         </button>
       </div>
     </form>

@@ -3,6 +3,7 @@ import { useState } from 'react';
 import Link from 'next/link';
 import { jarringRunInput, type JarringRunInput } from '@/lib/schemas/jarring';
 import type { ActionResult } from '@/lib/schemas/result';
+import type { RunResult } from '@/lib/data/jarring/runs';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
@@ -14,14 +15,6 @@ export type RunFormLot = {
   jars: { productId: number; jars: number }[];
 };
 export type RunFormProduct = { id: number; name: string; containerGrams: number; netText: string };
-type RunResult = {
-  runId: number;
-  pass: boolean;
-  reasons: string[];
-  stocked: boolean;
-  packedOut: boolean;
-  duplicate: boolean;
-};
 
 const newKey = () =>
   typeof crypto !== 'undefined' && 'randomUUID' in crypto ? crypto.randomUUID() : `${Date.now()}-${Math.random()}`;
@@ -42,13 +35,7 @@ export function RunForm({
 }) {
   // The run's outcome (passed, or failed with reasons) is shown in its own panel, not as a message.
   const [result, setResult] = useState<RunResult | null>(null);
-  const {
-    form,
-    submit,
-    pending,
-    errors: e,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, errors, message } = useActionForm({
     schema: jarringRunInput,
     action: (values) => {
       setResult(null);
@@ -109,13 +96,8 @@ export function RunForm({
         </p>
       ) : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField
-          label="Jars filled"
-          registration={form.register('jarCount')}
-          error={e.jarCount}
-          inputMode="numeric"
-        />
-        <TextField label="Date" type="date" registration={form.register('runOn')} error={e.runOn} />
+        <TextField label="Jars filled" {...field('jarCount')} inputMode="numeric" />
+        <TextField label="Date" type="date" {...field('runOn')} />
       </div>
       <fieldset className="space-y-2">
         <legend className="text-sm font-medium">Sample weights are</legend>
@@ -137,24 +119,23 @@ export function RunForm({
           className="input"
           inputMode="decimal"
           placeholder={mode === 'gross' ? 'e.g. 542, 545, 541' : 'e.g. 342, 345, 341'}
-          aria-invalid={e.samples ? true : undefined}
+          aria-invalid={errors.samples ? true : undefined}
           aria-describedby="samples-hint"
           {...form.register('samples')}
         />
         <small id="samples-hint" className="hint">
           Weigh jars taken through the run; separate weights with commas or spaces.
         </small>
-        {e.samples?.message ? (
+        {errors.samples?.message ? (
           <small className="field-error" role="alert">
-            {e.samples.message}
+            {errors.samples.message}
           </small>
         ) : null}
       </label>
       {ruleSet === 'nist' ? (
         <TextField
           label="MAV for this package, g"
-          registration={form.register('mavGrams')}
-          error={e.mavGrams}
+          {...field('mavGrams')}
           inputMode="decimal"
           hint="US rules (NIST Handbook 133): Combtrace does not hold the handbook's MAV table. Look up the maximum allowable variation for this labelled weight in Appendix A, Table 2-5, and enter it in grams."
         />

@@ -17,13 +17,7 @@ export function LayoutForm({
   onSave: (v: LabelLayoutInput) => Promise<ActionResult<{ id: number }>>;
 }) {
   const router = useRouter();
-  const {
-    form,
-    submit,
-    pending,
-    errors: e,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: labelLayoutInput,
     action: onSave,
     defaultValues: defaults,
@@ -31,11 +25,11 @@ export function LayoutForm({
     onSuccess: () => router.refresh(),
   });
   const num = (name: keyof Values, label: string, hint?: string) => (
-    <TextField label={label} registration={form.register(name)} error={e[name]} inputMode="decimal" hint={hint} />
+    <TextField label={label} {...field(name)} inputMode="decimal" hint={hint} />
   );
   return (
     <form onSubmit={submit} className="space-y-4" noValidate aria-label="Label layout">
-      <TextField label="Name" registration={form.register('name')} error={e.name} />
+      <TextField label="Name" {...field('name')} />
       <label className="field" htmlFor="paper">
         <span>Paper</span>
         <select id="paper" className="input" {...form.register('paper')}>

@@ -20,13 +20,7 @@ export function BlendForm({
   onCreate: (v: BlendFormInput) => Promise<ActionResult<{ id: number; code: string }>>;
 }) {
   const router = useRouter();
-  const {
-    form,
-    submit,
-    pending,
-    errors: e,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, errors, message } = useActionForm({
     schema: blendFormInput,
     action: onCreate,
     defaultValues: { floralSource: '', notes: '', unit, parts: [{ lotId: lots[0]?.id ?? 0, amount: '' }] },
@@ -37,11 +31,7 @@ export function BlendForm({
   if (!lots.length) return <p className="hint">No released lot has honey left to blend.</p>;
   return (
     <form onSubmit={submit} className="max-w-2xl space-y-4 card" noValidate>
-      <TextField
-        label="Floral source of the blend"
-        registration={form.register('floralSource')}
-        error={e.floralSource}
-      />
+      <TextField label="Floral source of the blend" {...field('floralSource')} />
       <label className="field" htmlFor="unit">
         <span>Weights in</span>
         <select id="unit" className="input" {...form.register('unit')}>
@@ -63,12 +53,7 @@ export function BlendForm({
                 ))}
               </select>
             </label>
-            <TextField
-              label={`Amount ${i + 1}`}
-              registration={form.register(`parts.${i}.amount` as const)}
-              error={e.parts?.[i]?.amount}
-              inputMode="decimal"
-            />
+            <TextField label={`Amount ${i + 1}`} {...field(`parts.${i}.amount`)} inputMode="decimal" />
             {parts.fields.length > 1 ? (
               <button type="button" className="btn-quiet" onClick={() => parts.remove(i)}>
                 Remove
@@ -86,7 +71,7 @@ export function BlendForm({
         <span>Notes</span>
         <textarea id="notes" rows={2} className="input" {...form.register('notes')} />
       </label>
-      <FormMessage error={message.error ?? e.parts?.message} success={message.success} />
+      <FormMessage error={message.error ?? errors.parts?.message} success={message.success} />
       <button type="submit" className="btn-primary w-full" disabled={pending}>
         Make the blend
       </button>

@@ -20,13 +20,7 @@ export function ContainerForm({
   unit: 'kg' | 'lb';
   onSave: (v: ContainerInput) => Promise<ActionResult>;
 }) {
-  const {
-    form,
-    submit,
-    pending,
-    errors: e,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: containerInput,
     action: onSave,
     defaultValues: { lotId, unit, label: '', containerTypeId: '' },
@@ -63,12 +57,7 @@ export function ContainerForm({
           ))}
         </select>
       </label>
-      <TextField
-        label="Label on the container"
-        registration={form.register('label')}
-        error={e.label}
-        placeholder="e.g. B3"
-      />
+      <TextField label="Label on the container" {...field('label')} placeholder="e.g. B3" />
       <label className="field" htmlFor="unit">
         <span>Unit</span>
         <select id="unit" className="input" {...form.register('unit')}>
@@ -76,13 +65,8 @@ export function ContainerForm({
           <option value="lb">lb</option>
         </select>
       </label>
-      <TextField label="Gross weight" registration={form.register('gross')} error={e.gross} inputMode="decimal" />
-      <TextField
-        label="Tare (empty container)"
-        registration={form.register('tare')}
-        error={e.tare}
-        inputMode="decimal"
-      />
+      <TextField label="Gross weight" {...field('gross')} inputMode="decimal" />
+      <TextField label="Tare (empty container)" {...field('tare')} inputMode="decimal" />
       <div className="flex items-end">
         <button type="submit" className="btn-secondary w-full" disabled={pending}>
           Add container

@@ -13,13 +13,7 @@ export function ContainerTypeForm({
   defaults: ContainerTypeInput;
   onSave: (v: ContainerTypeInput) => Promise<ActionResult<{ id: number }>>;
 }) {
-  const {
-    form,
-    submit,
-    pending,
-    errors: e,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: containerTypeInput,
     action: onSave,
     defaultValues: defaults,
@@ -34,14 +28,8 @@ export function ContainerTypeForm({
       noValidate
       aria-label={defaults.id ? `Edit ${defaults.name}` : 'Add a container type'}
     >
-      <TextField id={`name-${key}`} label="Name" registration={form.register('name')} error={e.name} />
-      <TextField
-        id={`tare-${key}`}
-        label="Usual tare"
-        registration={form.register('usualTare')}
-        error={e.usualTare}
-        inputMode="decimal"
-      />
+      <TextField id={`name-${key}`} label="Name" {...field('name')} />
+      <TextField id={`tare-${key}`} label="Usual tare" {...field('usualTare')} inputMode="decimal" />
       <label className="field" htmlFor={`unit-${key}`}>
         <span>Unit</span>
         <select id={`unit-${key}`} className="input" {...form.register('unit')}>

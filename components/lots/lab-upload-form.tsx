@@ -9,13 +9,7 @@ import { postForm } from '@/components/ui/post-form';
 /** Uploads a PDF or image lab report to the route handler (the server checks its real type). */
 export function LabUploadForm({ lotId }: { lotId: number }) {
   const router = useRouter();
-  const {
-    form,
-    submit,
-    pending,
-    errors: e,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, errors, message } = useActionForm({
     schema: labUploadFormInput,
     defaultValues: Object.fromEntries(LAB_RESULT_FIELDS.map((k) => [k, ''])) as Omit<LabUploadFormInput, 'file'>,
     action: (v) => {
@@ -44,52 +38,22 @@ export function LabUploadForm({ lotId }: { lotId: number }) {
           type="file"
           accept="application/pdf,image/png,image/jpeg,image/webp"
           className="input"
-          aria-invalid={e.file ? true : undefined}
+          aria-invalid={errors.file ? true : undefined}
           {...form.register('file')}
         />
-        {e.file?.message ? (
+        {errors.file?.message ? (
           <small className="field-error" role="alert">
-            {e.file.message}
+            {errors.file.message}
           </small>
         ) : null}
       </label>
-      <TextField label="HMF, mg/kg" registration={form.register('hmfMgKg')} error={e.hmfMgKg} inputMode="decimal" />
-      <TextField
-        label="Diastase, Schade"
-        registration={form.register('diastaseSchade')}
-        error={e.diastaseSchade}
-        inputMode="decimal"
-      />
-      <TextField
-        label="Water-insoluble, g/100 g"
-        registration={form.register('insolubleG100g')}
-        error={e.insolubleG100g}
-        inputMode="decimal"
-      />
-      <TextField
-        label="Fructose + glucose, g/100 g"
-        registration={form.register('fructoseGlucoseG100g')}
-        error={e.fructoseGlucoseG100g}
-        inputMode="decimal"
-      />
-      <TextField
-        label="Sucrose, g/100 g"
-        registration={form.register('sucroseG100g')}
-        error={e.sucroseG100g}
-        inputMode="decimal"
-      />
-      <TextField
-        label="Electrical conductivity, mS/cm"
-        registration={form.register('conductivityMsCm')}
-        error={e.conductivityMsCm}
-        inputMode="decimal"
-      />
-      <TextField
-        label="Free acid, meq/kg"
-        registration={form.register('freeAcidMeqKg')}
-        error={e.freeAcidMeqKg}
-        inputMode="decimal"
-      />
+      <TextField label="HMF, mg/kg" {...field('hmfMgKg')} inputMode="decimal" />
+      <TextField label="Diastase, Schade" {...field('diastaseSchade')} inputMode="decimal" />
+      <TextField label="Water-insoluble, g/100 g" {...field('insolubleG100g')} inputMode="decimal" />
+      <TextField label="Fructose + glucose, g/100 g" {...field('fructoseGlucoseG100g')} inputMode="decimal" />
+      <TextField label="Sucrose, g/100 g" {...field('sucroseG100g')} inputMode="decimal" />
+      <TextField label="Electrical conductivity, mS/cm" {...field('conductivityMsCm')} inputMode="decimal" />
+      <TextField label="Free acid, meq/kg" {...field('freeAcidMeqKg')} inputMode="decimal" />
       <div className="sm:col-span-3">
         <FormMessage {...message} />
       </div>

@@ -16,13 +16,7 @@ export function LotDetailsForm({
   suggestions: string[];
   onSave: (v: LotDetailsInput) => Promise<ActionResult>;
 }) {
-  const {
-    form,
-    submit,
-    pending,
-    errors: e,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: lotDetailsInput,
     action: onSave,
     defaultValues: defaults,
@@ -30,24 +24,13 @@ export function LotDetailsForm({
   });
   return (
     <form onSubmit={submit} className="grid gap-3 sm:grid-cols-2" noValidate aria-label="Lot details">
-      <TextField
-        label="Floral source"
-        registration={form.register('floralSource')}
-        error={e.floralSource}
-        list="floral-sources"
-        autoComplete="off"
-      />
+      <TextField label="Floral source" {...field('floralSource')} list="floral-sources" autoComplete="off" />
       <datalist id="floral-sources">
         {suggestions.map((s) => (
           <option key={s} value={s} />
         ))}
       </datalist>
-      <TextField
-        label="Extraction date"
-        type="date"
-        registration={form.register('extractedOn')}
-        error={e.extractedOn}
-      />
+      <TextField label="Extraction date" type="date" {...field('extractedOn')} />
       <label className="flex min-h-11 items-center gap-3 text-sm font-medium" htmlFor="heather">
         <input id="heather" type="checkbox" className="h-5 w-5" {...form.register('heather')} /> Heather honey (heather
         moisture limit)

@@ -1,5 +1,6 @@
 import type { TraceRow } from '@/lib/data/lots/detail';
 import { Chip } from '@/components/ui/chip';
+import { TableHead } from '@/components/ui/table-parts';
 
 /** Upstream trace: each super with its colony, yard and keeper, and feedings/treatments while it was on. */
 export function LotTrace({ rows }: { rows: TraceRow[] }) {
@@ -8,16 +9,9 @@ export function LotTrace({ rows }: { rows: TraceRow[] }) {
     <div className="overflow-x-auto">
       <table className="data-table">
         <caption className="sr-only">Supers, colonies, yards and keepers behind this lot</caption>
-        <thead>
-          <tr>
-            <th scope="col">Super</th>
-            <th scope="col">Colony</th>
-            <th scope="col">Yard</th>
-            <th scope="col">Keeper</th>
-            <th scope="col">On the hive</th>
-            <th scope="col">Feedings and treatments meanwhile</th>
-          </tr>
-        </thead>
+        <TableHead
+          columns={['Super', 'Colony', 'Yard', 'Keeper', 'On the hive', 'Feedings and treatments meanwhile']}
+        />
         <tbody>
           {rows.map((r) => (
             <tr key={r.id}>

@@ -14,13 +14,7 @@ export function NewLotForm({
   onCreate: (v: LotInput) => Promise<ActionResult<{ id: number; code: string }>>;
 }) {
   const router = useRouter();
-  const {
-    form,
-    submit,
-    pending,
-    errors: e,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: lotInput,
     action: onCreate,
     defaultValues: { floralSource: '', heather: false, extractedOn: '', notes: '' },
@@ -31,8 +25,7 @@ export function NewLotForm({
     <form onSubmit={submit} className="max-w-xl space-y-4 card" noValidate>
       <TextField
         label="Floral source"
-        registration={form.register('floralSource')}
-        error={e.floralSource}
+        {...field('floralSource')}
         list="floral-sources"
         hint="e.g. linden, spring blossom, late-summer wildflower"
         autoComplete="off"
@@ -46,12 +39,7 @@ export function NewLotForm({
         <input id="heather" type="checkbox" className="h-5 w-5" {...form.register('heather')} /> Heather honey (the
         heather moisture limit applies)
       </label>
-      <TextField
-        label="Extraction date (if known)"
-        type="date"
-        registration={form.register('extractedOn')}
-        error={e.extractedOn}
-      />
+      <TextField label="Extraction date (if known)" type="date" {...field('extractedOn')} />
       <label className="field" htmlFor="notes">
         <span>Notes</span>
         <textarea id="notes" rows={3} className="input" {...form.register('notes')} />

@@ -15,13 +15,7 @@ export function ReadingForm({
   today: string;
   onSave: (v: ReadingInput) => Promise<ActionResult<{ id: number; waterPct: number }>>;
 }) {
-  const {
-    form,
-    submit,
-    pending,
-    errors: e,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: readingFormInput,
     action: onSave,
     defaultValues: { lotId, method: 'scale', refractiveIndex: '', scaleWaterPct: '', temperatureC: '', takenOn: today },
@@ -43,27 +37,19 @@ export function ReadingForm({
       {method === 'ri' ? (
         <TextField
           label="Refractive index (nD)"
-          registration={form.register('refractiveIndex')}
-          error={e.refractiveIndex}
+          {...field('refractiveIndex')}
           inputMode="decimal"
           placeholder="1.4900"
         />
       ) : (
-        <TextField
-          label="Water on the scale, %"
-          registration={form.register('scaleWaterPct')}
-          error={e.scaleWaterPct}
-          inputMode="decimal"
-          placeholder="17.8"
-        />
+        <TextField label="Water on the scale, %" {...field('scaleWaterPct')} inputMode="decimal" placeholder="17.8" />
       )}
       <TextField
         label={method === 'ri' ? 'Sample temperature, °C' : 'Temperature, °C (only if not compensated)'}
-        registration={form.register('temperatureC')}
-        error={e.temperatureC}
+        {...field('temperatureC')}
         inputMode="decimal"
       />
-      <TextField label="Taken on" type="date" registration={form.register('takenOn')} error={e.takenOn} />
+      <TextField label="Taken on" type="date" {...field('takenOn')} />
       <div className="flex items-end">
         <button type="submit" className="btn-secondary w-full" disabled={pending}>
           Add reading

@@ -17,14 +17,7 @@ type Target = StageInput['target'];
 export function StageControls({ lotId, stage, isOwner, onChange }: Props) {
   // Holding, and leaving held, carry the written reason; the other steps do not.
   const withReason = (target: Target) => target === 'held' || stage === 'held';
-  const {
-    form,
-    submit,
-    pending: busy,
-    errors,
-    setMessage,
-    message,
-  } = useActionForm({
+  const { form, submit, pending, errors, setMessage, message } = useActionForm({
     schema: stageInput,
     action: (v) => onChange({ ...v, reason: withReason(v.target) ? v.reason : undefined }),
     defaultValues: { lotId, target: 'extracted', reason: '' },
@@ -44,12 +37,12 @@ export function StageControls({ lotId, stage, isOwner, onChange }: Props) {
     <div className="space-y-3">
       <div className="flex flex-wrap gap-2">
         {stage === 'gathering' ? (
-          <button type="button" className="btn-primary" disabled={busy} onClick={() => go('extracted')}>
+          <button type="button" className="btn-primary" disabled={pending} onClick={() => go('extracted')}>
             Mark extracted
           </button>
         ) : null}
         {stage === 'extracted' ? (
-          <button type="button" className="btn-primary" disabled={busy} onClick={() => go('released')}>
+          <button type="button" className="btn-primary" disabled={pending} onClick={() => go('released')}>
             Release the lot
           </button>
         ) : null}
@@ -77,7 +70,7 @@ export function StageControls({ lotId, stage, isOwner, onChange }: Props) {
                 <button
                   type="button"
                   className="btn-danger"
-                  disabled={busy || reason.trim().length < 5}
+                  disabled={pending || reason.trim().length < 5}
                   onClick={() => go('released')}
                 >
                   Release held lot
@@ -85,7 +78,7 @@ export function StageControls({ lotId, stage, isOwner, onChange }: Props) {
                 <button
                   type="button"
                   className="btn-secondary"
-                  disabled={busy || reason.trim().length < 5}
+                  disabled={pending || reason.trim().length < 5}
                   onClick={() => go('extracted')}
                 >
                   Back to extracted
@@ -95,7 +88,7 @@ export function StageControls({ lotId, stage, isOwner, onChange }: Props) {
               <button
                 type="button"
                 className="btn-danger"
-                disabled={busy || reason.trim().length < 5}
+                disabled={pending || reason.trim().length < 5}
                 onClick={() => go('held')}
               >
                 Hold the lot

@@ -1,21 +1,14 @@
 'use client';
 import type { ActionResult } from '@/lib/schemas/result';
+import type { PullableSuper } from '@/lib/data/lots/supers';
 import { pickSupersInput, type PickSupersInput } from '@/lib/schemas/lots';
 import { Chip } from '@/components/ui/chip';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
+import { TableHead, num } from '@/components/ui/table-parts';
 
-export type PickableSuper = {
-  id: number;
-  tagCode: string | null;
-  colonyCode: string;
-  yardName: string;
-  pulledOn: string;
-  depth: string;
-  full: string;
-  flagged: boolean;
-  flagReasons: string[];
-};
+/** A pullable super with its full weight written out in the business's unit. */
+export type PickableSuper = Omit<PullableSuper, 'fullGrams'> & { full: string };
 
 /** Pulled supers in no lot yet: tick and add. Flagged ones go in by scanning with an owner override. */
 export function SuperPicker({
@@ -27,13 +20,7 @@ export function SuperPicker({
   supers: PickableSuper[];
   onPick: (v: PickSupersInput) => Promise<ActionResult<unknown>>;
 }) {
-  const {
-    form,
-    submit,
-    pending: busy,
-    errors,
-    message,
-  } = useActionForm({
+  const { form, submit, pending, errors, message } = useActionForm({
     schema: pickSupersInput,
     action: onPick,
     defaultValues: { lotId, superPullIds: [] },
@@ -49,21 +36,9 @@ export function SuperPicker({
       <div className="max-h-96 overflow-auto">
         <table className="data-table">
           <caption className="sr-only">Pulled supers not yet in a lot</caption>
-          <thead>
-            <tr>
-              <th scope="col">
-                <span className="sr-only">Pick</span>
-              </th>
-              <th scope="col">Tag</th>
-              <th scope="col">Colony</th>
-              <th scope="col">Yard</th>
-              <th scope="col">Pulled</th>
-              <th scope="col" className="num">
-                Full
-              </th>
-              <th scope="col">Status</th>
-            </tr>
-          </thead>
+          <TableHead
+            columns={[{ label: 'Pick', hidden: true }, 'Tag', 'Colony', 'Yard', 'Pulled', num('Full'), 'Status']}
+          />
           <tbody>
             {supers.map((s) => (
               <tr key={s.id}>
@@ -97,7 +72,7 @@ export function SuperPicker({
         </table>
       </div>
       <FormMessage error={message.error ?? errors.superPullIds?.message} success={message.success} />
-      <button type="submit" className="btn-secondary" disabled={busy || picked.length === 0}>
+      <button type="submit" className="btn-secondary" disabled={pending || picked.length === 0}>
         Add {picked.length || ''} ticked super{picked.length === 1 ? '' : 's'}
       </button>
     </form>

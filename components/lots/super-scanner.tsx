@@ -28,11 +28,7 @@ export function SuperScanner({
   const [flagged, setFlagged] = useState<string | null>(null);
   const [reason, setReason] = useState('');
   // The inputs stay plain (the code clears the moment it is sent); each scan goes through `run`.
-  const {
-    run,
-    pending: busy,
-    message,
-  } = useActionForm({
+  const { run, pending, message } = useActionForm({
     schema: scanSuperInput,
     action: onScan,
     onSuccess: (one) => {
@@ -106,7 +102,7 @@ export function SuperScanner({
               onChange={(e) => setReason(e.target.value)}
             />
           </label>
-          <button type="submit" className="btn-danger" disabled={busy || reason.trim().length < 5}>
+          <button type="submit" className="btn-danger" disabled={pending || reason.trim().length < 5}>
             Override and add {flagged}
           </button>
         </form>

@@ -1,10 +1,7 @@
 'use client';
-import { useState } from 'react';
 import type { ActionResult } from '@/lib/schemas/result';
 import { voidInput, type VoidInput } from '@/lib/schemas/lots';
-import { TextField } from '@/components/ui/text-field';
-import { FormMessage } from '@/components/ui/form-message';
-import { useActionForm } from '@/components/ui/use-action-form';
+import { ReasonButton } from './reason-button';
 
 /** Corrects a record by voiding it with a written reason; nothing is deleted. */
 export function VoidButton({
@@ -20,37 +17,16 @@ export function VoidButton({
   what: string;
   onVoid: (v: VoidInput) => Promise<ActionResult>;
 }) {
-  const [open, setOpen] = useState(false);
-  const { form, submit, pending, errors, message } = useActionForm({
-    schema: voidInput,
-    action: onVoid,
-    defaultValues: { lotId, kind, recordId, reason: '' },
-    onSuccess: () => setOpen(false),
-  });
-  const reason = form.watch('reason') ?? '';
-  if (!open)
-    return (
-      <button type="button" className="btn-quiet min-h-0 px-2 py-1" onClick={() => setOpen(true)}>
-        Void<span className="sr-only"> {what}</span>
-      </button>
-    );
   return (
-    <form onSubmit={submit} className="flex min-w-48 flex-col gap-1" noValidate>
-      <TextField
-        id={`void-${kind}-${recordId}`}
-        label={`Why void ${what}?`}
-        registration={form.register('reason')}
-        error={errors.reason}
-      />
-      <FormMessage {...message} />
-      <div className="flex gap-1">
-        <button type="submit" className="btn-danger min-h-9 px-2 py-1" disabled={pending || reason.trim().length < 5}>
-          Void
-        </button>
-        <button type="button" className="btn-quiet min-h-9 px-2 py-1" onClick={() => setOpen(false)}>
-          Cancel
-        </button>
-      </div>
-    </form>
+    <ReasonButton
+      schema={voidInput}
+      action={onVoid}
+      defaultValues={{ lotId, kind, recordId, reason: '' }}
+      closeOnSuccess
+      verb="Void"
+      what={what}
+      inputId={`void-${kind}-${recordId}`}
+      question={`Why void ${what}?`}
+    />
   );
 }

@@ -1,5 +1,6 @@
 import { formatMoney } from '@/lib/domain/units';
 import type { OrderDetail } from '@/lib/data/orders/read';
+import { TableHead, num } from '@/components/ui/table-parts';
 
 const STATE: Record<string, string> = { reserved: 'held', sold: '', returned: 'returned', written_off: 'written off' };
 
@@ -8,18 +9,7 @@ export function OrderLines({ order }: { order: OrderDetail }) {
   const money = (c: number) => formatMoney(c, order.currency.toUpperCase());
   return (
     <table className="data-table">
-      <thead>
-        <tr>
-          <th scope="col">Jar</th>
-          <th scope="col" className="num">
-            Jars
-          </th>
-          <th scope="col">Lot codes</th>
-          <th scope="col" className="num">
-            Amount
-          </th>
-        </tr>
-      </thead>
+      <TableHead columns={['Jar', num('Jars'), 'Lot codes', num('Amount')]} />
       <tbody>
         {order.lines.map((l) => (
           <tr key={l.id}>

@@ -17,13 +17,7 @@ export function ProductForm({
   onSave: (v: ProductInput) => Promise<ActionResult<{ id: number; gtin: string | null }>>;
 }) {
   const router = useRouter();
-  const {
-    form,
-    submit,
-    pending,
-    errors: e,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: productInput,
     action: onSave,
     defaultValues: {
@@ -46,24 +40,14 @@ export function ProductForm({
   const mode = form.watch('gtinMode');
   return (
     <form onSubmit={submit} className="space-y-4" noValidate aria-label="Product">
-      <TextField label="Name" registration={form.register('name')} error={e.name} />
-      <TextField
-        label="Web address (slug)"
-        registration={form.register('slug')}
-        error={e.slug}
-        hint="Leave empty to make it from the name."
-      />
+      <TextField label="Name" {...field('name')} />
+      <TextField label="Web address (slug)" {...field('slug')} hint="Leave empty to make it from the name." />
       <label className="field" htmlFor="description">
         <span>Description</span>
         <textarea id="description" rows={2} className="input" {...form.register('description')} />
       </label>
       <div className="grid grid-cols-[1fr_7rem] gap-3">
-        <TextField
-          label="Net quantity"
-          registration={form.register('netAmount')}
-          error={e.netAmount}
-          inputMode="decimal"
-        />
+        <TextField label="Net quantity" {...field('netAmount')} inputMode="decimal" />
         <label className="field" htmlFor="netUnit">
           <span>Unit</span>
           <select id="netUnit" className="input" {...form.register('netUnit')}>
@@ -73,16 +57,15 @@ export function ProductForm({
         </label>
       </div>
       <div className="grid gap-3 sm:grid-cols-2">
-        <TextField label="Container" registration={form.register('containerKind')} error={e.containerKind} />
+        <TextField label="Container" {...field('containerKind')} />
         <TextField
           label="Empty container weight, g"
-          registration={form.register('containerGrams')}
-          error={e.containerGrams}
+          {...field('containerGrams')}
           inputMode="numeric"
           hint="Jar and lid; taken off gross sample weights."
         />
       </div>
-      <TextField label="Price" registration={form.register('price')} error={e.price} inputMode="decimal" />
+      <TextField label="Price" {...field('price')} inputMode="decimal" />
       <label className="flex min-h-11 items-center gap-2 text-sm">
         <input type="checkbox" {...form.register('active')} /> Active (for sale and jarring)
       </label>
@@ -102,8 +85,7 @@ export function ProductForm({
         {mode === 'typed' ? (
           <TextField
             label="GTIN"
-            registration={form.register('gtin')}
-            error={e.gtin}
+            {...field('gtin')}
             inputMode="numeric"
             hint="8, 12, 13 or 14 digits; the last is the check digit."
           />
@@ -112,8 +94,7 @@ export function ProductForm({
           companyPrefix ? (
             <TextField
               label="Item reference"
-              registration={form.register('itemReference')}
-              error={e.itemReference}
+              {...field('itemReference')}
               inputMode="numeric"
               hint={`Company prefix ${companyPrefix}; the check digit is computed.`}
             />

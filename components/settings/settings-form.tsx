@@ -41,13 +41,7 @@ export function SettingsForm({
   defaults: Values;
   onSave: (v: SettingsInput) => Promise<ActionResult>;
 }) {
-  const {
-    form,
-    submit,
-    pending,
-    errors: e,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: settingsInput,
     action: onSave,
     defaultValues: defaults,
@@ -58,21 +52,11 @@ export function SettingsForm({
     <form onSubmit={submit} className="space-y-6" noValidate>
       <fieldset className="grid gap-4 card sm:grid-cols-2">
         <legend className="font-heading text-lg font-semibold text-forest-800">Business</legend>
-        <TextField label="Business name" registration={form.register('businessName')} error={e.businessName} />
-        <TextField
-          label="Contact e-mail"
-          registration={form.register('contactEmail')}
-          error={e.contactEmail}
-          type="email"
-        />
-        <TextField label="Address (labels, footer)" registration={form.register('address')} error={e.address} />
-        <TextField label="Region (public lot page)" registration={form.register('region')} error={e.region} />
-        <TextField
-          label="Time zone"
-          registration={form.register('timeZone')}
-          error={e.timeZone}
-          hint="e.g. Europe/London, America/Chicago"
-        />
+        <TextField label="Business name" {...field('businessName')} />
+        <TextField label="Contact e-mail" {...field('contactEmail')} type="email" />
+        <TextField label="Address (labels, footer)" {...field('address')} />
+        <TextField label="Region (public lot page)" {...field('region')} />
+        <TextField label="Time zone" {...field('timeZone')} hint="e.g. Europe/London, America/Chicago" />
         <Select
           form={form}
           name="currency"
@@ -106,69 +90,19 @@ export function SettingsForm({
       </fieldset>
       <fieldset className="grid gap-4 card sm:grid-cols-3">
         <legend className="font-heading text-lg font-semibold text-forest-800">Lots and limits</legend>
-        <TextField
-          label="Lot code prefix"
-          registration={form.register('lotCodePrefix')}
-          error={e.lotCodePrefix}
-          hint="e.g. HH → HH26-014"
-        />
-        <TextField
-          label="Moisture limit, %"
-          registration={form.register('moistureLimitPct')}
-          error={e.moistureLimitPct}
-          inputMode="decimal"
-        />
-        <TextField
-          label="Heather moisture limit, %"
-          registration={form.register('moistureLimitHeatherPct')}
-          error={e.moistureLimitHeatherPct}
-          inputMode="decimal"
-        />
-        <TextField
-          label="US Grade A/B line, %"
-          registration={form.register('moistureGradeAPct')}
-          error={e.moistureGradeAPct}
-          inputMode="decimal"
-        />
-        <TextField
-          label="HMF max, mg/kg"
-          registration={form.register('hmfMaxMgKg')}
-          error={e.hmfMaxMgKg}
-          inputMode="decimal"
-        />
-        <TextField
-          label="Diastase min, Schade"
-          registration={form.register('diastaseMinSchade')}
-          error={e.diastaseMinSchade}
-          inputMode="decimal"
-        />
-        <TextField
-          label="Water-insoluble max, g/100 g"
-          registration={form.register('insolubleMaxG100g')}
-          error={e.insolubleMaxG100g}
-          inputMode="decimal"
-        />
-        <TextField
-          label="Best before, months after extraction"
-          registration={form.register('bestBeforeMonths')}
-          error={e.bestBeforeMonths}
-          inputMode="numeric"
-        />
-        <TextField
-          label="Expected jarring loss, %"
-          registration={form.register('expectedLossPct')}
-          error={e.expectedLossPct}
-          inputMode="decimal"
-        />
+        <TextField label="Lot code prefix" {...field('lotCodePrefix')} hint="e.g. HH → HH26-014" />
+        <TextField label="Moisture limit, %" {...field('moistureLimitPct')} inputMode="decimal" />
+        <TextField label="Heather moisture limit, %" {...field('moistureLimitHeatherPct')} inputMode="decimal" />
+        <TextField label="US Grade A/B line, %" {...field('moistureGradeAPct')} inputMode="decimal" />
+        <TextField label="HMF max, mg/kg" {...field('hmfMaxMgKg')} inputMode="decimal" />
+        <TextField label="Diastase min, Schade" {...field('diastaseMinSchade')} inputMode="decimal" />
+        <TextField label="Water-insoluble max, g/100 g" {...field('insolubleMaxG100g')} inputMode="decimal" />
+        <TextField label="Best before, months after extraction" {...field('bestBeforeMonths')} inputMode="numeric" />
+        <TextField label="Expected jarring loss, %" {...field('expectedLossPct')} inputMode="decimal" />
       </fieldset>
       <fieldset className="grid gap-4 card sm:grid-cols-2">
         <legend className="font-heading text-lg font-semibold text-forest-800">Labels and fill checks</legend>
-        <TextField
-          label="GS1 company prefix"
-          registration={form.register('gs1CompanyPrefix')}
-          error={e.gs1CompanyPrefix}
-          inputMode="numeric"
-        />
+        <TextField label="GS1 company prefix" {...field('gs1CompanyPrefix')} inputMode="numeric" />
         <Select
           form={form}
           name="labelDeclaration"

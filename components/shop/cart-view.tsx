@@ -3,6 +3,7 @@ import Link from 'next/link';
 import { formatMoney } from '@/lib/domain/units';
 import { writeCart } from './cart-store';
 import { useCart } from './use-cart';
+import { TableHead, num } from '@/components/ui/table-parts';
 
 export function CartView({ currency, cancelled }: { currency: string; cancelled: boolean }) {
   const { items, live, ready } = useCart();
@@ -29,21 +30,7 @@ export function CartView({ currency, cancelled }: { currency: string; cancelled:
     <div className="space-y-4">
       {notice}
       <table className="data-table">
-        <thead>
-          <tr>
-            <th scope="col">Jar</th>
-            <th scope="col" className="num">
-              Price
-            </th>
-            <th scope="col">Jars</th>
-            <th scope="col" className="num">
-              Amount
-            </th>
-            <th scope="col">
-              <span className="sr-only">Remove</span>
-            </th>
-          </tr>
-        </thead>
+        <TableHead columns={['Jar', num('Price'), 'Jars', num('Amount'), { label: 'Remove', hidden: true }]} />
         <tbody>
           {items.map((i) => {
             const p = live?.get(i.productId);

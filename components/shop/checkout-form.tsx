@@ -23,7 +23,7 @@ export function CheckoutForm({ currency, bands, pickupAddress, user }: Props) {
   const { items, live, ready } = useCart();
   // Once the jars are reserved the browser leaves for the card page; the button stays busy until it does.
   const [leaving, setLeaving] = useState(false);
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { form, field, submit, pending, errors, message } = useActionForm({
     schema: checkoutInput,
     defaultValues: { items: [], name: user?.name ?? '', email: user?.email ?? '', phone: '', fulfilment: 'pickup' },
     action: async (v): Promise<ActionResult<Started>> => {
@@ -84,19 +84,11 @@ export function CheckoutForm({ currency, bands, pickupAddress, user }: Props) {
         <FormMessage error={message.error ?? cartError} />
         <fieldset className="space-y-3 card">
           <legend className="font-heading text-lg font-bold">You</legend>
-          <TextField
-            id="co-name"
-            label="Your name"
-            registration={form.register('name')}
-            error={errors.name}
-            autoComplete="name"
-            required
-          />
+          <TextField id="co-name" label="Your name" {...field('name')} autoComplete="name" required />
           <TextField
             id="co-email"
             label="E-mail"
-            registration={form.register('email')}
-            error={errors.email}
+            {...field('email')}
             type="email"
             autoComplete="email"
             readOnly={Boolean(user)}
@@ -111,8 +103,7 @@ export function CheckoutForm({ currency, bands, pickupAddress, user }: Props) {
           <TextField
             id="co-phone"
             label="Phone (optional)"
-            registration={form.register('phone')}
-            error={errors.phone}
+            {...field('phone')}
             type="tel"
             autoComplete="tel"
             inputMode="tel"
@@ -133,8 +124,7 @@ export function CheckoutForm({ currency, bands, pickupAddress, user }: Props) {
                 <TextField
                   id="co-line1"
                   label="Street and number"
-                  registration={form.register('address.line1')}
-                  error={errors.address?.line1}
+                  {...field('address.line1')}
                   autoComplete="address-line1"
                 />
               </div>
@@ -142,39 +132,24 @@ export function CheckoutForm({ currency, bands, pickupAddress, user }: Props) {
                 <TextField
                   id="co-line2"
                   label="Address line 2 (optional)"
-                  registration={form.register('address.line2')}
-                  error={errors.address?.line2}
+                  {...field('address.line2')}
                   autoComplete="address-line2"
                 />
               </div>
-              <TextField
-                id="co-city"
-                label="Town or city"
-                registration={form.register('address.city')}
-                error={errors.address?.city}
-                autoComplete="address-level2"
-              />
+              <TextField id="co-city" label="Town or city" {...field('address.city')} autoComplete="address-level2" />
               <TextField
                 id="co-region"
                 label="State or region"
-                registration={form.register('address.region')}
-                error={errors.address?.region}
+                {...field('address.region')}
                 autoComplete="address-level1"
               />
               <TextField
                 id="co-postalCode"
                 label="Postal code"
-                registration={form.register('address.postalCode')}
-                error={errors.address?.postalCode}
+                {...field('address.postalCode')}
                 autoComplete="postal-code"
               />
-              <TextField
-                id="co-country"
-                label="Country"
-                registration={form.register('address.country')}
-                error={errors.address?.country}
-                autoComplete="country-name"
-              />
+              <TextField id="co-country" label="Country" {...field('address.country')} autoComplete="country-name" />
             </div>
           ) : null}
         </fieldset>

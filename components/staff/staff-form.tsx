@@ -6,7 +6,7 @@ import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 
 export function StaffForm({ onCreate }: { onCreate: (v: StaffInput) => Promise<ActionResult> }) {
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: staffInput,
     defaultValues: { name: '', email: '', role: 'keeper' },
     action: onCreate,
@@ -15,8 +15,8 @@ export function StaffForm({ onCreate }: { onCreate: (v: StaffInput) => Promise<A
   });
   return (
     <form onSubmit={submit} className="space-y-4" noValidate>
-      <TextField label="Name" registration={form.register('name')} error={errors.name} />
-      <TextField label="E-mail" type="email" registration={form.register('email')} error={errors.email} />
+      <TextField label="Name" {...field('name')} />
+      <TextField label="E-mail" type="email" {...field('email')} />
       <label className="field" htmlFor="role">
         <span>Role</span>
         <select id="role" className="input" {...form.register('role')}>

@@ -16,13 +16,7 @@ export function AdjustForm({
   onAdjust: (v: StockAdjustInput) => Promise<ActionResult<{ onHand: number }>>;
 }) {
   const first = choices[0];
-  const {
-    form,
-    submit,
-    pending,
-    errors: e,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: stockAdjustInput,
     action: onAdjust,
     defaultValues: { productId: first?.productId ?? 0, lotId: first?.lotId ?? 0, kind: 'breakage', reason: '' },
@@ -60,13 +54,8 @@ export function AdjustForm({
           <option value="return">Return (+)</option>
         </select>
       </label>
-      <TextField
-        label="Change in jars (− takes away)"
-        registration={form.register('delta')}
-        error={e.delta}
-        inputMode="numeric"
-      />
-      <TextField label="Reason" registration={form.register('reason')} error={e.reason} />
+      <TextField label="Change in jars (− takes away)" {...field('delta')} inputMode="numeric" />
+      <TextField label="Reason" {...field('reason')} />
       <FormMessage {...message} />
       <button type="submit" className="btn-secondary w-full" disabled={pending}>
         Save change

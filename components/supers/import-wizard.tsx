@@ -7,6 +7,7 @@ import type { ActionResult } from '@/lib/schemas/result';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 import { postForm } from '@/components/ui/post-form';
+import { TableHead, num } from '@/components/ui/table-parts';
 
 type Preview = {
   headers: string[];
@@ -156,19 +157,7 @@ export function ImportWizard() {
           <div className="overflow-x-auto card p-0">
             <table className="data-table">
               <caption className="sr-only">Preview of every row</caption>
-              <thead>
-                <tr>
-                  <th scope="col">Row</th>
-                  <th scope="col">Colony</th>
-                  <th scope="col">Date</th>
-                  <th scope="col">Box</th>
-                  <th scope="col" className="num">
-                    Weight
-                  </th>
-                  <th scope="col">Tag</th>
-                  <th scope="col">Check</th>
-                </tr>
-              </thead>
+              <TableHead columns={['Row', 'Colony', 'Date', 'Box', num('Weight'), 'Tag', 'Check']} />
               <tbody>
                 {Array.from({ length: preview.total }, (_, i) => i + 1)
                   .filter((row) => errorsByRow.has(row) || validByRow.has(row))

@@ -2,6 +2,7 @@
 import { useRouter } from 'next/navigation';
 import { tagBatchInput, SUPER_DEPTHS } from '@/lib/schemas/supers';
 import { TextField } from '@/components/ui/text-field';
+import { SelectField } from '@/components/ui/select-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 import type { ActionResult } from '@/lib/schemas/result';
@@ -13,7 +14,7 @@ export function TagBatchForm({
   onSave: (v: z.input<typeof tagBatchInput>) => Promise<ActionResult<{ codes: string[]; created: number }>>;
 }) {
   const router = useRouter();
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: tagBatchInput,
     action: onSave,
     defaultValues: { prefix: 'SP', from: 1, count: 21, depth: 'medium', frameCount: 10 },
@@ -23,20 +24,11 @@ export function TagBatchForm({
   const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3 sm:grid-cols-3" noValidate aria-label="Create super tags">
-      <TextField label="Prefix" registration={register('prefix')} error={errors.prefix} />
-      <TextField label="First number" inputMode="numeric" registration={register('from')} error={errors.from} />
-      <TextField label="How many" inputMode="numeric" registration={register('count')} error={errors.count} />
-      <label className="field" htmlFor="depth">
-        <span>Box depth</span>
-        <select id="depth" className="input min-h-11" {...register('depth')}>
-          {SUPER_DEPTHS.map((d) => (
-            <option key={d} value={d}>
-              {d}
-            </option>
-          ))}
-        </select>
-      </label>
-      <TextField label="Frames" inputMode="numeric" registration={register('frameCount')} error={errors.frameCount} />
+      <TextField label="Prefix" {...field('prefix')} />
+      <TextField label="First number" inputMode="numeric" {...field('from')} />
+      <TextField label="How many" inputMode="numeric" {...field('count')} />
+      <SelectField id="depth" label="Box depth" registration={register('depth')} options={SUPER_DEPTHS} />
+      <TextField label="Frames" inputMode="numeric" {...field('frameCount')} />
       <div className="flex items-end">
         <button type="submit" className="btn-secondary min-h-11" disabled={pending}>
           Create tags

@@ -47,14 +47,7 @@ export function VoidPullButton({
   const router = useRouter();
   const id = useId();
   const [open, setOpen] = useState(false);
-  const {
-    form,
-    submit,
-    pending: busy,
-    errors,
-    message,
-    setMessage,
-  } = useActionForm({
+  const { form, submit, pending, errors, message, setMessage } = useActionForm({
     schema: voidPullInput,
     action: onVoid,
     defaultValues: { superPullId, record, reason: '' },
@@ -105,8 +98,8 @@ export function VoidPullButton({
       ) : null}
       <FormMessage {...message} />
       <div className="flex flex-wrap gap-2">
-        <button type="submit" className="btn-danger" disabled={!ready || busy}>
-          {busy ? 'Voiding…' : words.confirm}
+        <button type="submit" className="btn-danger" disabled={!ready || pending}>
+          {pending ? 'Voiding…' : words.confirm}
         </button>
         <button
           type="button"

@@ -14,7 +14,7 @@ export function TreatmentKindForm({
   onSave: (v: TreatmentKindInput) => Promise<AnyResult>;
 }) {
   const router = useRouter();
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: treatmentKindInput,
     action: onSave,
     defaultValues: initial ?? { name: '', supersAllowed: false, waitingDays: 0, notes: '', active: true },
@@ -31,19 +31,13 @@ export function TreatmentKindForm({
       noValidate
       aria-label={initial ? `Edit ${initial.name}` : 'New treatment kind'}
     >
-      <TextField id={`${p}-name`} label="Name" registration={register('name')} error={errors.name} />
+      <TextField id={`${p}-name`} label="Name" {...field('name')} />
       <label className="flex min-h-11 items-center gap-2" htmlFor={`${p}-supers`}>
         <input id={`${p}-supers`} type="checkbox" className="h-5 w-5" {...register('supersAllowed')} />
         Label allows honey supers on
       </label>
-      <TextField
-        id={`${p}-wait`}
-        label="Waiting days after removal"
-        inputMode="numeric"
-        registration={register('waitingDays')}
-        error={errors.waitingDays}
-      />
-      <TextField id={`${p}-notes`} label="Notes" registration={register('notes')} error={errors.notes} />
+      <TextField id={`${p}-wait`} label="Waiting days after removal" inputMode="numeric" {...field('waitingDays')} />
+      <TextField id={`${p}-notes`} label="Notes" {...field('notes')} />
       <label className="flex min-h-11 items-center gap-2" htmlFor={`${p}-active`}>
         <input id={`${p}-active`} type="checkbox" className="h-5 w-5" {...register('active')} />
         In use

@@ -1,6 +1,6 @@
 'use client';
 import { useState } from 'react';
-import { useForm, type DefaultValues, type FieldValues, type Path } from 'react-hook-form';
+import { get, useForm, type DefaultValues, type FieldError, type FieldValues, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import type { ActionResult } from '@/lib/schemas/result';
@@ -38,6 +38,9 @@ export type ActionFormOptions<S extends z.ZodType<FieldValues, FieldValues>, Res
  * button, a select that saves on change, a scanner): it checks `input` with the same schema,
  * handles the answer the same way and also returns it (undefined if the input or the connection
  * failed).
+ *
+ * `field(name)` is the field's `registration` and `error` together, for a TextField:
+ * `<TextField label="E-mail" {...field('email')} />`.
  */
 export function useActionForm<S extends z.ZodType<FieldValues, FieldValues>, Res extends AnyResult>(
   options: ActionFormOptions<S, Res>,
@@ -90,8 +93,14 @@ export function useActionForm<S extends z.ZodType<FieldValues, FieldValues>, Res
     }
   }
 
+  const field = (name: Path<z.input<S>>) => ({
+    registration: form.register(name),
+    error: get(form.formState.errors, name) as FieldError | undefined,
+  });
+
   return {
     form,
+    field,
     submit,
     run,
     pending: form.formState.isSubmitting || running,

@@ -14,13 +14,7 @@ type Props = {
 
 export function YardForm({ initial, keepers, onSave }: Props) {
   const router = useRouter();
-  const {
-    form,
-    submit,
-    pending: isSubmitting,
-    errors,
-    message,
-  } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: yardInput,
     action: onSave,
     defaultValues: initial ?? { name: '', place: '', forageNotes: '', keeperIds: [] },
@@ -29,26 +23,11 @@ export function YardForm({ initial, keepers, onSave }: Props) {
   const { register } = form;
   return (
     <form onSubmit={submit} className="grid max-w-2xl gap-4 card" noValidate>
-      <TextField label="Yard name" registration={register('name')} error={errors.name} />
-      <TextField
-        label="Place"
-        hint="How to find it: lane, gate, landmark."
-        registration={register('place')}
-        error={errors.place}
-      />
+      <TextField label="Yard name" {...field('name')} />
+      <TextField label="Place" hint="How to find it: lane, gate, landmark." {...field('place')} />
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField
-          label="Latitude (optional)"
-          inputMode="decimal"
-          registration={register('latitude')}
-          error={errors.latitude}
-        />
-        <TextField
-          label="Longitude (optional)"
-          inputMode="decimal"
-          registration={register('longitude')}
-          error={errors.longitude}
-        />
+        <TextField label="Latitude (optional)" inputMode="decimal" {...field('latitude')} />
+        <TextField label="Longitude (optional)" inputMode="decimal" {...field('longitude')} />
       </div>
       <label className="field" htmlFor="forageNotes">
         <span>Forage notes</span>
@@ -66,8 +45,8 @@ export function YardForm({ initial, keepers, onSave }: Props) {
       </fieldset>
       <FormMessage {...message} />
       <div>
-        <button type="submit" className="btn-primary min-h-11" disabled={isSubmitting}>
-          {isSubmitting ? 'Saving…' : 'Save yard'}
+        <button type="submit" className="btn-primary min-h-11" disabled={pending}>
+          {pending ? 'Saving…' : 'Save yard'}
         </button>
       </div>
     </form>

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import type { OrderStatus } from '@/lib/domain/order-status';
+import { ORDER_STATUSES } from '@/lib/domain/order-status';
 import { listQuery } from './list-query';
 
 export const orderIdInput = z.object({ orderId: z.number().int().positive() });
@@ -35,18 +35,7 @@ export const refundFormInput = refundInput.extend({
 });
 
 /** The order desk's filters: the orders still to pack and send (paid or packed), all, or one status. */
-export const ORDER_DESK_FILTERS = [
-  'open',
-  'all',
-  'awaiting_payment',
-  'paid',
-  'packed',
-  'shipped',
-  'picked_up',
-  'cancelled',
-  'expired',
-  'refunded',
-] as const satisfies readonly (OrderStatus | 'open' | 'all')[];
+export const ORDER_DESK_FILTERS = ['open', 'all', ...ORDER_STATUSES] as const;
 export type OrderDeskFilter = (typeof ORDER_DESK_FILTERS)[number];
 
 export const orderListQuery = listQuery(

@@ -1,11 +1,57 @@
 import 'server-only';
+import type { Model, ModelStatic, Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
 import type { FeedingKind } from '@/lib/domain/conflicts';
 import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
-import { recordAudit } from '@/lib/data/audit';
+import { recordAudit, type AuditInput } from '@/lib/data/audit';
 import { writableColony } from './write';
 import { recomputeColonyFlags } from '@/lib/data/supers/flags';
+
+type Reflagged = { reflagged: number };
+
+/**
+ * One change of a colony's feedings or treatments, in one transaction: `change` checks that the colony is the user's
+ * to write, writes, and says which colony and what to audit; the audit entry follows and the colony's pulled supers
+ * are re-checked against the change.
+ */
+async function changeColonyRecord(
+  user: SessionUser,
+  change: (t: Transaction) => Promise<{ colonyId: number } & Pick<AuditInput, 'action' | 'before' | 'after'>>,
+): Promise<Reflagged> {
+  return getDb().sequelize.transaction(async (t) => {
+    const { colonyId, ...audit } = await change(t);
+    await recordAudit({ actorUserId: user.id, entityType: 'colony', entityId: colonyId, ...audit }, t);
+    return { reflagged: await recomputeColonyFlags(colonyId, t) };
+  });
+}
+
+/**
+ * Ends an open feeding or treatment (`what`) on `on`, not before it began: its `start` and `end` name the
+ * record's own date columns.
+ */
+async function endColonyRecord<Start extends string, End extends string>(
+  user: SessionUser,
+  model: ModelStatic<Model & { colonyId: number } & Record<Start, string> & Record<End, string | null>>,
+  spec: { what: 'feeding' | 'treatment'; start: Start; end: End; early: string },
+  id: number,
+  on: string,
+): Promise<Reflagged> {
+  return changeColonyRecord(user, async (t) => {
+    const row = await model.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!row) throw new NotFoundError(`No such ${spec.what}.`);
+    await writableColony(user, row.colonyId, t);
+    if (on < row[spec.start]) throw new InvalidError(spec.early);
+    const before = { [spec.end]: row[spec.end] };
+    await row.update({ [spec.end]: on }, { transaction: t });
+    return {
+      colonyId: row.colonyId,
+      action: `${spec.what}.update`,
+      before,
+      after: { [`${spec.what}Id`]: id, [spec.end]: on },
+    };
+  });
+}
 
 /** Adds a feeding (idempotent by key) and re-checks the colony's pulled supers. */
 export async function addFeeding(
@@ -19,52 +65,24 @@ export async function addFeeding(
     note: string;
     idempotencyKey: string;
   },
-): Promise<{ reflagged: number }> {
-  const { sequelize, models } = getDb();
+): Promise<Reflagged> {
+  const { models } = getDb();
   if (await models.Feeding.findOne({ where: { idempotencyKey: input.idempotencyKey } })) return { reflagged: 0 };
-  return sequelize.transaction(async (t) => {
+  return changeColonyRecord(user, async (t) => {
     const colony = await writableColony(user, input.colonyId, t);
     const row = await models.Feeding.create({ ...input, colonyId: colony.id, recordedBy: user.id }, { transaction: t });
-    await recordAudit(
-      {
-        actorUserId: user.id,
-        action: 'feeding.create',
-        entityType: 'colony',
-        entityId: colony.id,
-        after: row.get({ plain: true }),
-      },
-      t,
-    );
-    return { reflagged: await recomputeColonyFlags(colony.id, t) };
+    return { colonyId: colony.id, action: 'feeding.create', after: row.get({ plain: true }) };
   });
 }
 
-export async function endFeeding(
-  user: SessionUser,
-  feedingId: number,
-  endedOn: string,
-): Promise<{ reflagged: number }> {
-  const { sequelize, models } = getDb();
-  return sequelize.transaction(async (t) => {
-    const row = await models.Feeding.findByPk(feedingId, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!row) throw new NotFoundError('No such feeding.');
-    await writableColony(user, row.colonyId, t);
-    if (endedOn < row.startedOn) throw new InvalidError('The feeding cannot end before it started.');
-    const before = { endedOn: row.endedOn };
-    await row.update({ endedOn }, { transaction: t });
-    await recordAudit(
-      {
-        actorUserId: user.id,
-        action: 'feeding.update',
-        entityType: 'colony',
-        entityId: row.colonyId,
-        before,
-        after: { feedingId, endedOn },
-      },
-      t,
-    );
-    return { reflagged: await recomputeColonyFlags(row.colonyId, t) };
-  });
+export function endFeeding(user: SessionUser, feedingId: number, endedOn: string): Promise<Reflagged> {
+  const spec = {
+    what: 'feeding',
+    start: 'startedOn',
+    end: 'endedOn',
+    early: 'The feeding cannot end before it started.',
+  } as const;
+  return endColonyRecord(user, getDb().models.Feeding, spec, feedingId, endedOn);
 }
 
 /** Copies the kind's supers-allowed and waiting days onto the record, so later edits of the list do not rewrite history. */
@@ -79,10 +97,10 @@ export async function addTreatment(
     note: string;
     idempotencyKey: string;
   },
-): Promise<{ reflagged: number }> {
-  const { sequelize, models } = getDb();
+): Promise<Reflagged> {
+  const { models } = getDb();
   if (await models.Treatment.findOne({ where: { idempotencyKey: input.idempotencyKey } })) return { reflagged: 0 };
-  return sequelize.transaction(async (t) => {
+  return changeColonyRecord(user, async (t) => {
     const colony = await writableColony(user, input.colonyId, t);
     const kind = await models.TreatmentKind.findByPk(input.treatmentKindId, { transaction: t });
     if (!kind || !kind.active) throw new InvalidError('Choose a treatment kind from the list.');
@@ -96,46 +114,18 @@ export async function addTreatment(
       },
       { transaction: t },
     );
-    await recordAudit(
-      {
-        actorUserId: user.id,
-        action: 'treatment.create',
-        entityType: 'colony',
-        entityId: colony.id,
-        after: row.get({ plain: true }),
-      },
-      t,
-    );
-    return { reflagged: await recomputeColonyFlags(colony.id, t) };
+    return { colonyId: colony.id, action: 'treatment.create', after: row.get({ plain: true }) };
   });
 }
 
-export async function endTreatment(
-  user: SessionUser,
-  treatmentId: number,
-  removedOn: string,
-): Promise<{ reflagged: number }> {
-  const { sequelize, models } = getDb();
-  return sequelize.transaction(async (t) => {
-    const row = await models.Treatment.findByPk(treatmentId, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!row) throw new NotFoundError('No such treatment.');
-    await writableColony(user, row.colonyId, t);
-    if (removedOn < row.appliedOn) throw new InvalidError('The treatment cannot be removed before it was applied.');
-    const before = { removedOn: row.removedOn };
-    await row.update({ removedOn }, { transaction: t });
-    await recordAudit(
-      {
-        actorUserId: user.id,
-        action: 'treatment.update',
-        entityType: 'colony',
-        entityId: row.colonyId,
-        before,
-        after: { treatmentId, removedOn },
-      },
-      t,
-    );
-    return { reflagged: await recomputeColonyFlags(row.colonyId, t) };
-  });
+export function endTreatment(user: SessionUser, treatmentId: number, removedOn: string): Promise<Reflagged> {
+  const spec = {
+    what: 'treatment',
+    start: 'appliedOn',
+    end: 'removedOn',
+    early: 'The treatment cannot be removed before it was applied.',
+  } as const;
+  return endColonyRecord(user, getDb().models.Treatment, spec, treatmentId, removedOn);
 }
 
 export type TreatmentKindRow = {

@@ -2,6 +2,9 @@
 import { revalidatePath } from 'next/cache';
 import { z } from 'zod';
 import { guardedAction } from '@/lib/http/server-action';
+import type { SessionUser } from '@/lib/auth/session';
+import type { Permission } from '@/lib/auth/roles';
+import type { ActionResult } from '@/lib/schemas/result';
 import {
   colonyInput,
   colonyUpdateInput,
@@ -26,10 +29,23 @@ import {
 import { addFeeding, addTreatment, endFeeding, endTreatment } from '@/lib/data/colonies/records';
 import { putSuperOn } from '@/lib/data/supers/record';
 
-const touched = (colonyId: number) => {
-  revalidatePath(`/admin/colonies/${colonyId}`);
-  revalidatePath('/admin/supers');
-};
+/**
+ * A write to one colony (by default under colonies.write): `write` changes it and returns the result's data, none
+ * when it returns nothing; then the colony's page and the super list are refreshed.
+ */
+function colonyAction<S extends z.ZodType<{ colonyId: number }>, R>(
+  schema: S,
+  write: (user: SessionUser, data: z.output<S>) => Promise<R>,
+  permission: Permission = 'colonies.write',
+) {
+  type Data = R extends void ? undefined : R;
+  return guardedAction<S, Data>(permission, schema, async (user, data) => {
+    const result = await write(user, data);
+    revalidatePath(`/admin/colonies/${data.colonyId}`);
+    revalidatePath('/admin/supers');
+    return (result === undefined ? { ok: true } : { ok: true, data: result }) as ActionResult<Data>;
+  });
+}
 
 export const createColonyAction = guardedAction('colonies.write', colonyInput, async (user, data) => {
   const id = await createColony(user, data);
@@ -37,74 +53,28 @@ export const createColonyAction = guardedAction('colonies.write', colonyInput, a
   return { ok: true, data: { id } };
 });
 
-export const updateColonyAction = guardedAction(
-  'colonies.write',
-  colonyUpdateInput,
-  async (user, { colonyId, ...data }) => {
-    await updateColony(user, colonyId, data);
-    touched(colonyId);
-    return { ok: true, data: { id: colonyId } };
-  },
+export const updateColonyAction = colonyAction(colonyUpdateInput, async (user, { colonyId, ...data }) => {
+  await updateColony(user, colonyId, data);
+  return { id: colonyId };
+});
+export const moveColonyAction = colonyAction(moveInput, moveColony);
+export const colonyStatusAction = colonyAction(statusInput, setColonyStatus);
+export const splitColonyAction = colonyAction(splitInput, async (user, data) => ({
+  id: await splitColony(user, data),
+}));
+export const colonyNoteAction = colonyAction(noteInput, addColonyNote);
+
+export const addFeedingAction = colonyAction(feedingInput, addFeeding);
+export const endFeedingAction = colonyAction(feedingEndInput.extend({ colonyId: z.number().int() }), (user, data) =>
+  endFeeding(user, data.feedingId, data.endedOn),
+);
+export const addTreatmentAction = colonyAction(treatmentInput, addTreatment);
+export const endTreatmentAction = colonyAction(treatmentEndInput.extend({ colonyId: z.number().int() }), (user, data) =>
+  endTreatment(user, data.treatmentId, data.removedOn),
 );
 
-export const moveColonyAction = guardedAction('colonies.write', moveInput, async (user, data) => {
-  await moveColony(user, data);
-  touched(data.colonyId);
-  return { ok: true };
-});
-
-export const colonyStatusAction = guardedAction('colonies.write', statusInput, async (user, data) => {
-  await setColonyStatus(user, data);
-  touched(data.colonyId);
-  return { ok: true };
-});
-
-export const splitColonyAction = guardedAction('colonies.write', splitInput, async (user, data) => {
-  const id = await splitColony(user, data);
-  touched(data.colonyId);
-  return { ok: true, data: { id } };
-});
-
-export const colonyNoteAction = guardedAction('colonies.write', noteInput, async (user, data) => {
-  await addColonyNote(user, data);
-  touched(data.colonyId);
-  return { ok: true };
-});
-
-export const addFeedingAction = guardedAction('colonies.write', feedingInput, async (user, data) => {
-  const r = await addFeeding(user, data);
-  touched(data.colonyId);
-  return { ok: true, data: r };
-});
-
-export const endFeedingAction = guardedAction(
-  'colonies.write',
-  feedingEndInput.extend({ colonyId: z.number().int() }),
-  async (user, data) => {
-    const r = await endFeeding(user, data.feedingId, data.endedOn);
-    touched(data.colonyId);
-    return { ok: true, data: r };
-  },
+export const superOnAction = colonyAction(
+  superOnInput,
+  async (user, data) => ({ id: await putSuperOn(user, data) }),
+  'supers.write',
 );
-
-export const addTreatmentAction = guardedAction('colonies.write', treatmentInput, async (user, data) => {
-  const r = await addTreatment(user, data);
-  touched(data.colonyId);
-  return { ok: true, data: r };
-});
-
-export const endTreatmentAction = guardedAction(
-  'colonies.write',
-  treatmentEndInput.extend({ colonyId: z.number().int() }),
-  async (user, data) => {
-    const r = await endTreatment(user, data.treatmentId, data.removedOn);
-    touched(data.colonyId);
-    return { ok: true, data: r };
-  },
-);
-
-export const superOnAction = guardedAction('supers.write', superOnInput, async (user, data) => {
-  const id = await putSuperOn(user, data);
-  touched(data.colonyId);
-  return { ok: true, data: { id } };
-});

@@ -7,6 +7,7 @@ import { Chip } from '@/components/ui/chip';
 import { LayoutForm } from '@/components/labels/layout-form';
 import { DeleteLayoutButton } from '@/components/labels/delete-layout-button';
 import { deleteLabelLayoutAction, saveLabelLayoutAction } from './actions';
+import { TableHead } from '@/components/ui/table-parts';
 
 export const metadata = { title: 'Label layouts' };
 
@@ -30,18 +31,9 @@ export default async function LabelLayoutsPage({ searchParams }: { searchParams:
         <div className="overflow-x-auto card p-0">
           <table className="data-table">
             <caption className="sr-only">Label layouts</caption>
-            <thead>
-              <tr>
-                <th scope="col">Name</th>
-                <th scope="col">Paper</th>
-                <th scope="col">Label, mm</th>
-                <th scope="col">Grid</th>
-                <th scope="col">Nudge, mm</th>
-                <th scope="col">
-                  <span className="sr-only">Actions</span>
-                </th>
-              </tr>
-            </thead>
+            <TableHead
+              columns={['Name', 'Paper', 'Label, mm', 'Grid', 'Nudge, mm', { label: 'Actions', hidden: true }]}
+            />
             <tbody>
               {layouts.map(({ key, id, builtIn, layout: l }) => (
                 <tr key={key}>

@@ -6,6 +6,7 @@ import { getSettings } from '@/lib/data/settings/settings';
 import { lotListQuery } from '@/lib/schemas/lots';
 import { LOT_STAGES } from '@/lib/domain/lot-stage';
 import { PageHeader } from '@/components/ui/page-header';
+import { SelectField } from '@/components/ui/select-field';
 import { STAGE_WORD } from '@/components/lots/stage-chip';
 import { LotsTable } from '@/components/lots/lots-table';
 
@@ -58,28 +59,22 @@ export default async function LotsPage({ searchParams }: { searchParams: Promise
         }
       />
       <form method="get" className="mb-4 grid gap-3 card sm:grid-cols-4 sm:items-end" aria-label="Filter lots">
-        <label className="field" htmlFor="stage">
-          <span>Stage</span>
-          <select id="stage" name="stage" className="input" defaultValue={q.stage ?? ''}>
-            <option value="">Any stage</option>
-            {LOT_STAGES.map((s) => (
-              <option key={s} value={s}>
-                {STAGE_WORD[s]}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="field" htmlFor="year">
-          <span>Year</span>
-          <select id="year" name="year" className="input" defaultValue={q.year ? String(q.year) : ''}>
-            <option value="">Any year</option>
-            {list.years.map((y) => (
-              <option key={y} value={y}>
-                {y}
-              </option>
-            ))}
-          </select>
-        </label>
+        <SelectField
+          id="stage"
+          name="stage"
+          label="Stage"
+          className="input"
+          defaultValue={q.stage ?? ''}
+          options={[{ value: '', label: 'Any stage' }, ...LOT_STAGES.map((s) => ({ value: s, label: STAGE_WORD[s] }))]}
+        />
+        <SelectField
+          id="year"
+          name="year"
+          label="Year"
+          className="input"
+          defaultValue={q.year ? String(q.year) : ''}
+          options={[{ value: '', label: 'Any year' }, ...list.years]}
+        />
         <label className="field" htmlFor="floral">
           <span>Floral source</span>
           <input id="floral" name="floral" className="input" defaultValue={q.floral ?? ''} />

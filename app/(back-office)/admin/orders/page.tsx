@@ -4,6 +4,7 @@ import { getSettings } from '@/lib/data/settings/settings';
 import { queryRecord } from '@/lib/schemas/list-query';
 import { ORDER_DESK_FILTERS, orderListQuery, type OrderDeskFilter } from '@/lib/schemas/orders';
 import { PageHeader } from '@/components/ui/page-header';
+import { SelectField } from '@/components/ui/select-field';
 import { STATUS_LABEL } from '@/components/orders/order-status-chip';
 import { OrderDeskTable } from '@/components/orders/order-tables';
 
@@ -27,16 +28,14 @@ export default async function OrdersDeskPage({
     <>
       <PageHeader title="Orders" lead="Paid orders to pack, ship or hand over; refunds and cancellations." />
       <form className="mb-4 flex flex-wrap items-end gap-3" action="/admin/orders">
-        <label className="field" htmlFor="status">
-          <span>Show</span>
-          <select id="status" name="status" className="input w-auto" defaultValue={query.status}>
-            {ORDER_DESK_FILTERS.map((f) => (
-              <option key={f} value={f}>
-                {label(f)}
-              </option>
-            ))}
-          </select>
-        </label>
+        <SelectField
+          id="status"
+          name="status"
+          label="Show"
+          className="input w-auto"
+          defaultValue={query.status}
+          options={ORDER_DESK_FILTERS.map((f) => ({ value: f, label: label(f) }))}
+        />
         <label className="field" htmlFor="q">
           <span>Order, name or e-mail</span>
           <input id="q" name="q" className="input" maxLength={80} defaultValue={query.q ?? ''} />

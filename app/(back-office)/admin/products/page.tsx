@@ -8,6 +8,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { Chip } from '@/components/ui/chip';
 import { ProductForm } from '@/components/products/product-form';
 import { saveProductAction } from './actions';
+import { TableHead, EmptyRow, num } from '@/components/ui/table-parts';
 
 export const metadata = { title: 'Products' };
 
@@ -29,26 +30,9 @@ export default async function ProductsPage() {
         <div className="overflow-x-auto card p-0">
           <table className="data-table">
             <caption className="sr-only">Products</caption>
-            <thead>
-              <tr>
-                <th scope="col">Name</th>
-                <th scope="col">Label declares</th>
-                <th scope="col">Container</th>
-                <th scope="col" className="num">
-                  Price
-                </th>
-                <th scope="col">GTIN</th>
-                <th scope="col">Status</th>
-              </tr>
-            </thead>
+            <TableHead columns={['Name', 'Label declares', 'Container', num('Price'), 'GTIN', 'Status']} />
             <tbody>
-              {products.length === 0 ? (
-                <tr>
-                  <td colSpan={6} className="hint">
-                    No products yet.
-                  </td>
-                </tr>
-              ) : null}
+              {products.length === 0 ? <EmptyRow columns={6}>No products yet.</EmptyRow> : null}
               {products.map((p) => (
                 <tr key={p.id}>
                   <td>

@@ -8,6 +8,7 @@ import { formatMoney, formatWeight, gramsToKg, gramsToLb } from '@/lib/domain/un
 import { seasonTables, type TableKey } from '@/lib/reports/season-tables';
 import { parseReportQuery } from '@/lib/schemas/reports';
 import { PageHeader } from '@/components/ui/page-header';
+import { SelectField, namedChoices } from '@/components/ui/select-field';
 import { ReportTableView } from '@/components/reports/report-table';
 import { SeasonBars, YardBars } from '@/components/reports/yield-charts';
 import { SendReports } from '@/components/reports/send-reports';
@@ -67,39 +68,25 @@ export default async function ReportsPage({
         lead="Each lot's net weight is shared back to the supers that made it: by measured honey (full minus empty), or by an estimate from box depth and capped frames where a super was not weighed. Blends pass their weight back through their parent lots; revenue of sold jars is shared the same way."
       />
       <form method="get" className="mb-6 flex flex-wrap items-end gap-4 card" aria-label="Filter the report">
-        <label className="field">
-          <span>Season</span>
-          <select name="season" className="input min-h-11" defaultValue={report.season}>
-            {(report.seasons.length ? report.seasons : [report.season]).map((s) => (
-              <option key={s} value={s}>
-                {s}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="field">
-          <span>Yard</span>
-          <select name="yard" className="input min-h-11" defaultValue={filter.yardId ?? ''}>
-            <option value="">All yards</option>
-            {choices.yards.map((y) => (
-              <option key={y.id} value={y.id}>
-                {y.name}
-              </option>
-            ))}
-          </select>
-        </label>
+        <SelectField
+          label="Season"
+          name="season"
+          defaultValue={report.season}
+          options={report.seasons.length ? report.seasons : [report.season]}
+        />
+        <SelectField
+          label="Yard"
+          name="yard"
+          defaultValue={filter.yardId ?? ''}
+          options={[{ value: '', label: 'All yards' }, ...namedChoices(choices.yards)]}
+        />
         {user.role === 'owner' ? (
-          <label className="field">
-            <span>Keeper</span>
-            <select name="keeper" className="input min-h-11" defaultValue={filter.keeperId ?? ''}>
-              <option value="">All keepers</option>
-              {choices.keepers.map((k) => (
-                <option key={k.id} value={k.id}>
-                  {k.name}
-                </option>
-              ))}
-            </select>
-          </label>
+          <SelectField
+            label="Keeper"
+            name="keeper"
+            defaultValue={filter.keeperId ?? ''}
+            options={[{ value: '', label: 'All keepers' }, ...namedChoices(choices.keepers)]}
+          />
         ) : null}
         <button type="submit" className="btn-secondary min-h-11">
           Show

@@ -5,6 +5,7 @@ import { Chip } from '@/components/ui/chip';
 import { StaffForm } from '@/components/staff/staff-form';
 import { StaffRowActions } from '@/components/staff/staff-row-actions';
 import { createStaffAction, updateStaffAction } from './actions';
+import { TableHead } from '@/components/ui/table-parts';
 
 export const metadata = { title: 'Staff' };
 
@@ -18,17 +19,7 @@ export default async function StaffPage() {
         <div className="overflow-x-auto card p-0">
           <table className="data-table">
             <caption className="sr-only">Staff accounts</caption>
-            <thead>
-              <tr>
-                <th scope="col">Name</th>
-                <th scope="col">E-mail</th>
-                <th scope="col">Role</th>
-                <th scope="col">Status</th>
-                <th scope="col">
-                  <span className="sr-only">Actions</span>
-                </th>
-              </tr>
-            </thead>
+            <TableHead columns={['Name', 'E-mail', 'Role', 'Status', { label: 'Actions', hidden: true }]} />
             <tbody>
               {staff.map((s) => (
                 <tr key={s.id}>

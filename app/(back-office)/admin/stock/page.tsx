@@ -8,6 +8,7 @@ import { Chip } from '@/components/ui/chip';
 import { AdjustForm } from '@/components/stock/adjust-form';
 import { LedgerTable } from '@/components/stock/ledger-table';
 import { adjustStockAction } from './actions';
+import { TableHead, EmptyRow, num } from '@/components/ui/table-parts';
 
 export const metadata = { title: 'Stock' };
 
@@ -53,24 +54,16 @@ export default async function StockPage({
               Per product
             </h2>
             <table className="data-table" data-testid="stock-totals">
-              <thead>
-                <tr>
-                  <th scope="col">Product</th>
-                  <th scope="col" className="num">
-                    On hand
-                  </th>
-                  <th scope="col" className="num">
-                    Reserved
-                  </th>
-                  <th scope="col" className="num">
-                    Available
-                  </th>
-                  <th scope="col" className="num">
-                    Lots
-                  </th>
-                  <th scope="col">Earliest best-before</th>
-                </tr>
-              </thead>
+              <TableHead
+                columns={[
+                  'Product',
+                  num('On hand'),
+                  num('Reserved'),
+                  num('Available'),
+                  num('Lots'),
+                  'Earliest best-before',
+                ]}
+              />
               <tbody>
                 {totals.map((t) => (
                   <tr key={t.productId}>
@@ -90,27 +83,9 @@ export default async function StockPage({
               Per lot
             </h2>
             <table className="data-table">
-              <thead>
-                <tr>
-                  <th scope="col">Product</th>
-                  <th scope="col">Lot</th>
-                  <th scope="col" className="num">
-                    On hand
-                  </th>
-                  <th scope="col" className="num">
-                    Reserved
-                  </th>
-                  <th scope="col">Best before</th>
-                </tr>
-              </thead>
+              <TableHead columns={['Product', 'Lot', num('On hand'), num('Reserved'), 'Best before']} />
               <tbody>
-                {levels.length === 0 ? (
-                  <tr>
-                    <td colSpan={5} className="hint">
-                      No stock yet.
-                    </td>
-                  </tr>
-                ) : null}
+                {levels.length === 0 ? <EmptyRow columns={5}>No stock yet.</EmptyRow> : null}
                 {levels.map((l) => (
                   <tr key={`${l.productId}:${l.lotId}`}>
                     <td>{l.productName}</td>

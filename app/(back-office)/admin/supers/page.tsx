@@ -7,6 +7,7 @@ import { getSettings } from '@/lib/data/settings/settings';
 import { pullListQuery } from '@/lib/schemas/supers';
 import { queryRecord } from '@/lib/schemas/list-query';
 import { PageHeader } from '@/components/ui/page-header';
+import { SelectField, namedChoices } from '@/components/ui/select-field';
 import { SuperPullTable } from '@/components/supers/super-pull-table';
 import { voidSuperPullAction } from './actions';
 
@@ -68,33 +69,35 @@ export default async function SuperPullsPage({
         className="mb-4 grid gap-3 card sm:grid-cols-3 sm:items-end lg:grid-cols-6"
         aria-label="Filter super pulls"
       >
-        <label className="field" htmlFor="f-yard">
-          <span>Yard</span>
-          <select id="f-yard" name="yardId" className="input min-h-11" defaultValue={params.yardId ?? ''}>
-            <option value="">All yards</option>
-            {yards.map((y) => (
-              <option key={y.id} value={y.id}>
-                {y.name}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="field" htmlFor="f-flag">
-          <span>Conflict check</span>
-          <select id="f-flag" name="flagged" className="input min-h-11" defaultValue={params.flagged ?? ''}>
-            <option value="">All</option>
-            <option value="yes">Flagged only</option>
-            <option value="no">Clear only</option>
-          </select>
-        </label>
-        <label className="field" htmlFor="f-void">
-          <span>Voided pulls</span>
-          <select id="f-void" name="voided" className="input min-h-11" defaultValue={params.voided ?? ''}>
-            <option value="">Shown, struck through</option>
-            <option value="no">Hidden</option>
-            <option value="yes">Voided only</option>
-          </select>
-        </label>
+        <SelectField
+          id="f-yard"
+          name="yardId"
+          label="Yard"
+          defaultValue={params.yardId ?? ''}
+          options={[{ value: '', label: 'All yards' }, ...namedChoices(yards)]}
+        />
+        <SelectField
+          id="f-flag"
+          name="flagged"
+          label="Conflict check"
+          defaultValue={params.flagged ?? ''}
+          options={[
+            { value: '', label: 'All' },
+            { value: 'yes', label: 'Flagged only' },
+            { value: 'no', label: 'Clear only' },
+          ]}
+        />
+        <SelectField
+          id="f-void"
+          name="voided"
+          label="Voided pulls"
+          defaultValue={params.voided ?? ''}
+          options={[
+            { value: '', label: 'Shown, struck through' },
+            { value: 'no', label: 'Hidden' },
+            { value: 'yes', label: 'Voided only' },
+          ]}
+        />
         <label className="field" htmlFor="f-from">
           <span>From</span>
           <input id="f-from" type="date" name="from" className="input min-h-11" defaultValue={params.from ?? ''} />

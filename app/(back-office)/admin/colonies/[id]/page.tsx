@@ -37,6 +37,7 @@ import {
   superOnAction,
 } from '../actions';
 import { voidSuperPullAction } from '../../supers/actions';
+import { TableHead, num } from '@/components/ui/table-parts';
 
 export const metadata = { title: 'Colony' };
 
@@ -153,17 +154,7 @@ export default async function ColonyPage({ params }: { params: Promise<{ id: str
               Supers
             </h2>
             <table className="data-table">
-              <thead>
-                <tr>
-                  <th scope="col">Pulled</th>
-                  <th scope="col">Box</th>
-                  <th scope="col">Tag</th>
-                  <th scope="col" className="num">
-                    Full weight
-                  </th>
-                  <th scope="col">Conflict check</th>
-                </tr>
-              </thead>
+              <TableHead columns={['Pulled', 'Box', 'Tag', num('Full weight'), 'Conflict check']} />
               <tbody>
                 {supers.map((s) => {
                   const strike = (x: React.ReactNode) => (s.voided ? <s className="text-ink-soft">{x}</s> : x);

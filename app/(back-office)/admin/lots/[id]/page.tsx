@@ -38,12 +38,43 @@ import {
   voidRecordAction,
   waxAction,
 } from '../actions';
+import { TableHead, EmptyRow, num } from '@/components/ui/table-parts';
+import { SelectField, namedChoices } from '@/components/ui/select-field';
 
 export const metadata = { title: 'Lot' };
 
 type Search = Record<string, string | string[] | undefined>;
 const one = (v: string | string[] | undefined) => (typeof v === 'string' ? v : undefined);
 const FERMENT_TONE = { low: 'ok', 'yeast-dependent': 'info', 'high-yeast-dependent': 'warn', likely: 'bad' } as const;
+
+/** The lots a blend was made from, or the blends a lot went into, with the grams of each. */
+function BlendLinks({
+  id,
+  title,
+  links,
+  weight,
+}: {
+  id: string;
+  title: string;
+  links: { lotId: number; code: string; grams: number }[];
+  weight: (grams: number) => string;
+}) {
+  return (
+    <section className="space-y-2 card" aria-labelledby={id}>
+      <h2 id={id}>{title}</h2>
+      <ul className="text-sm">
+        {links.map((l) => (
+          <li key={l.lotId}>
+            <Link href={`/admin/lots/${l.lotId}`} className="font-mono">
+              {l.code}
+            </Link>
+            : {weight(l.grams)}
+          </li>
+        ))}
+      </ul>
+    </section>
+  );
+}
 
 export default async function LotPage({
   params,
@@ -137,24 +168,9 @@ export default async function LotPage({
             <div className="overflow-x-auto">
               <table className="data-table">
                 <caption className="sr-only">Supers in this lot</caption>
-                <thead>
-                  <tr>
-                    <th scope="col">Tag</th>
-                    <th scope="col">Colony</th>
-                    <th scope="col">Yard</th>
-                    <th scope="col">Pulled</th>
-                    <th scope="col" className="num">
-                      Full
-                    </th>
-                    <th scope="col" className="num">
-                      Empty
-                    </th>
-                    <th scope="col" className="num">
-                      Honey
-                    </th>
-                    <th scope="col">Status</th>
-                  </tr>
-                </thead>
+                <TableHead
+                  columns={['Tag', 'Colony', 'Yard', 'Pulled', num('Full'), num('Empty'), num('Honey'), 'Status']}
+                />
                 <tbody>
                   {lot.supers.map((s) => (
                     <tr key={s.id}>
@@ -205,13 +221,7 @@ export default async function LotPage({
                       </td>
                     </tr>
                   ))}
-                  {lot.supers.length === 0 ? (
-                    <tr>
-                      <td colSpan={8} className="hint">
-                        No supers yet.
-                      </td>
-                    </tr>
-                  ) : null}
+                  {lot.supers.length === 0 ? <EmptyRow columns={8}>No supers yet.</EmptyRow> : null}
                 </tbody>
               </table>
             </div>
@@ -219,17 +229,14 @@ export default async function LotPage({
               <details className="space-y-3">
                 <summary className="btn-quiet cursor-pointer">Pick from pulled supers ({pullable.length})</summary>
                 <form method="get" className="grid gap-2 sm:grid-cols-3 sm:items-end" aria-label="Filter pulled supers">
-                  <label className="field" htmlFor="yard">
-                    <span>Yard</span>
-                    <select id="yard" name="yard" className="input" defaultValue={yardId ? String(yardId) : ''}>
-                      <option value="">All yards</option>
-                      {yards.map((y) => (
-                        <option key={y.id} value={y.id}>
-                          {y.name}
-                        </option>
-                      ))}
-                    </select>
-                  </label>
+                  <SelectField
+                    id="yard"
+                    name="yard"
+                    label="Yard"
+                    className="input"
+                    defaultValue={yardId ? String(yardId) : ''}
+                    options={[{ value: '', label: 'All yards' }, ...namedChoices(yards)]}
+                  />
                   <label className="field" htmlFor="q">
                     <span>Tag or colony</span>
                     <input id="q" name="q" className="input" defaultValue={one(sp.q) ?? ''} />
@@ -247,19 +254,7 @@ export default async function LotPage({
             ) : null}
           </section>
         ) : (
-          <section className="space-y-2 card" aria-labelledby="parents-h">
-            <h2 id="parents-h">Made from</h2>
-            <ul className="text-sm">
-              {lot.parents.map((p) => (
-                <li key={p.lotId}>
-                  <Link href={`/admin/lots/${p.lotId}`} className="font-mono">
-                    {p.code}
-                  </Link>
-                  : {w(p.grams)}
-                </li>
-              ))}
-            </ul>
-          </section>
+          <BlendLinks id="parents-h" title="Made from" links={lot.parents} weight={w} />
         )}
 
         {!lot.isBlend ? (
@@ -271,21 +266,7 @@ export default async function LotPage({
             <div className="overflow-x-auto">
               <table className="data-table">
                 <caption className="sr-only">Containers of this lot</caption>
-                <thead>
-                  <tr>
-                    <th scope="col">Container</th>
-                    <th scope="col" className="num">
-                      Gross
-                    </th>
-                    <th scope="col" className="num">
-                      Tare
-                    </th>
-                    <th scope="col" className="num">
-                      Net
-                    </th>
-                    <th scope="col">Status</th>
-                  </tr>
-                </thead>
+                <TableHead columns={['Container', num('Gross'), num('Tare'), num('Net'), 'Status']} />
                 <tbody>
                   {lot.containers.map((c) => (
                     <tr key={c.id} className={c.voidedAt ? 'line-through decoration-ink-faint' : undefined}>
@@ -312,13 +293,7 @@ export default async function LotPage({
                       </td>
                     </tr>
                   ))}
-                  {lot.containers.length === 0 ? (
-                    <tr>
-                      <td colSpan={5} className="hint">
-                        No containers weighed yet.
-                      </td>
-                    </tr>
-                  ) : null}
+                  {lot.containers.length === 0 ? <EmptyRow columns={5}>No containers weighed yet.</EmptyRow> : null}
                 </tbody>
                 <tfoot>
                   <tr>
@@ -414,19 +389,7 @@ export default async function LotPage({
             <div className="overflow-x-auto">
               <table className="data-table">
                 <caption className="sr-only">Moisture readings</caption>
-                <thead>
-                  <tr>
-                    <th scope="col">Taken</th>
-                    <th scope="col">Read as</th>
-                    <th scope="col" className="num">
-                      Temperature
-                    </th>
-                    <th scope="col" className="num">
-                      Water at 20 °C
-                    </th>
-                    <th scope="col">Status</th>
-                  </tr>
-                </thead>
+                <TableHead columns={['Taken', 'Read as', num('Temperature'), num('Water at 20 °C'), 'Status']} />
                 <tbody>
                   {lot.readings.map((r) => (
                     <tr key={r.id} className={r.voidedAt ? 'line-through decoration-ink-faint' : undefined}>
@@ -498,24 +461,16 @@ export default async function LotPage({
             <div className="overflow-x-auto">
               <table className="data-table">
                 <caption className="sr-only">Lab reports</caption>
-                <thead>
-                  <tr>
-                    <th scope="col">File</th>
-                    <th scope="col" className="num">
-                      HMF
-                    </th>
-                    <th scope="col" className="num">
-                      Diastase
-                    </th>
-                    <th scope="col" className="num">
-                      Insoluble
-                    </th>
-                    <th scope="col">Result</th>
-                    <th scope="col">
-                      <span className="sr-only">Actions</span>
-                    </th>
-                  </tr>
-                </thead>
+                <TableHead
+                  columns={[
+                    'File',
+                    num('HMF'),
+                    num('Diastase'),
+                    num('Insoluble'),
+                    'Result',
+                    { label: 'Actions', hidden: true },
+                  ]}
+                />
                 <tbody>
                   {lot.labFiles.map((f) => (
                     <tr key={f.id} className={f.voidedAt ? 'line-through decoration-ink-faint' : undefined}>
@@ -566,19 +521,7 @@ export default async function LotPage({
         </section>
 
         {lot.children.length ? (
-          <section className="space-y-2 card" aria-labelledby="children-h">
-            <h2 id="children-h">Blended into</h2>
-            <ul className="text-sm">
-              {lot.children.map((c) => (
-                <li key={c.lotId}>
-                  <Link href={`/admin/lots/${c.lotId}`} className="font-mono">
-                    {c.code}
-                  </Link>
-                  : {w(c.grams)}
-                </li>
-              ))}
-            </ul>
-          </section>
+          <BlendLinks id="children-h" title="Blended into" links={lot.children} weight={w} />
         ) : null}
 
         <section className="space-y-3 card" aria-labelledby="trace-h">

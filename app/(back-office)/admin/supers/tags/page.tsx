@@ -2,6 +2,7 @@ import { requirePermission } from '@/lib/auth/session';
 import { listTags } from '@/lib/data/supers/tags';
 import { BUILT_IN_LAYOUTS } from '@/lib/domain/label-layout';
 import { PageHeader } from '@/components/ui/page-header';
+import { SelectField } from '@/components/ui/select-field';
 import { TagBatchForm } from '@/components/supers/tag-batch-form';
 import { createTagBatchAction } from '../actions';
 
@@ -28,27 +29,13 @@ export default async function SuperTagsPage() {
             {tags.length} tags in use{prefixes.length ? ` (prefixes ${prefixes.join(', ')})` : ''}.
           </p>
           <form method="get" action="/api/super-tags/sheet" className="grid gap-3 sm:grid-cols-3 sm:items-end">
-            <label className="field" htmlFor="prefix">
-              <span>Prefix (blank for all)</span>
-              <select id="prefix" name="prefix" className="input min-h-11">
-                <option value="">All tags</option>
-                {prefixes.map((p) => (
-                  <option key={p} value={p}>
-                    {p}
-                  </option>
-                ))}
-              </select>
-            </label>
-            <label className="field" htmlFor="layout">
-              <span>Label sheet</span>
-              <select id="layout" name="layout" className="input min-h-11">
-                {BUILT_IN_LAYOUTS.map((l) => (
-                  <option key={l.name} value={l.name}>
-                    {l.name}
-                  </option>
-                ))}
-              </select>
-            </label>
+            <SelectField
+              id="prefix"
+              name="prefix"
+              label="Prefix (blank for all)"
+              options={[{ value: '', label: 'All tags' }, ...prefixes]}
+            />
+            <SelectField id="layout" name="layout" label="Label sheet" options={BUILT_IN_LAYOUTS.map((l) => l.name)} />
             <button type="submit" className="btn-primary min-h-11" disabled={tags.length === 0}>
               Download PDF
             </button>
