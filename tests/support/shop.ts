@@ -60,6 +60,8 @@ export async function startShopFake(options: { retryBaseMs?: number } = {}): Pro
 }
 
 let seq = 0;
+/** Tells this file's guests and addresses apart from another test file's (each file starts its counters at 0). */
+const RUN = Math.floor(Math.random() * 0xffff).toString(16);
 /** A product with `lots` released lots holding the given jar counts (oldest best-before first). */
 export async function makeProduct(
   tag: string,
@@ -120,7 +122,10 @@ export function hook(fake: StripeFake, path: string, body: unknown = {}) {
   }));
 }
 
-export const guest = (items: { productId: number; quantity: number }[], email = `guest-${++seq}@example.test`) => ({
+export const guest = (
+  items: { productId: number; quantity: number }[],
+  email = `guest-${RUN}-${++seq}@example.test`,
+) => ({
   items,
   email,
   name: 'Ada Fenwick',
@@ -131,8 +136,8 @@ export const guest = (items: { productId: number; quantity: number }[], email = 
 export const orderOf = (number: string) => getDb().models.Order.findOne({ where: { number } });
 
 let ipSeq = 0;
-/** A fresh client address per test checkout (2001:db8::/32, the documentation range), so per-address checkout limits do not pile up across tests. */
-export const nextIp = () => `2001:db8::${(process.pid % 0xffff).toString(16)}:${(++ipSeq).toString(16)}`;
+/** A fresh client address per test checkout (2001:db8::/32, the documentation range), so per-address checkout limits do not pile up across tests and files. */
+export const nextIp = () => `2001:db8:${RUN}::${(++ipSeq).toString(16)}`;
 
 /** A POST /api/checkout request from `ip` (a fresh address unless given). */
 export const checkoutRequest = (body: unknown, ip: string = nextIp()) =>
