@@ -46,6 +46,8 @@ export class Order extends Model<InferAttributes<Order>, InferCreationAttributes
   declare stripeSessionId: CreationOptional<string | null>;
   declare paymentIntentId: CreationOptional<string | null>;
   declare reservedUntil: CreationOptional<Date | null>;
+  /** The client address the checkout came from (lib/http/client-ip.ts), for the checkout limits. */
+  declare clientIp: CreationOptional<string | null>;
   declare paidAt: CreationOptional<Date | null>;
   declare packedAt: CreationOptional<Date | null>;
   declare shippedAt: CreationOptional<Date | null>;
@@ -81,6 +83,7 @@ export function initOrder(sequelize: Sequelize) {
       stripeSessionId: { type: DataTypes.STRING(120), allowNull: true, unique: true },
       paymentIntentId: { type: DataTypes.STRING(120), allowNull: true },
       reservedUntil: { type: DataTypes.DATE, allowNull: true },
+      clientIp: { type: DataTypes.STRING(64), allowNull: true },
       paidAt: { type: DataTypes.DATE, allowNull: true },
       packedAt: { type: DataTypes.DATE, allowNull: true },
       shippedAt: { type: DataTypes.DATE, allowNull: true },

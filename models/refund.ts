@@ -16,6 +16,8 @@ export class Refund extends Model<InferAttributes<Refund>, InferCreationAttribut
   declare orderId: number;
   declare stripeRefundId: CreationOptional<string | null>;
   declare amountCents: number;
+  /** Derived from the refund request; unique, so the same refund cannot be made twice. */
+  declare requestKey: CreationOptional<string | null>;
   declare restock: boolean;
   declare reason: CreationOptional<string>;
   declare createdBy: number | null;
@@ -29,6 +31,7 @@ export function initRefund(sequelize: Sequelize) {
       orderId: { type: DataTypes.INTEGER, allowNull: false },
       stripeRefundId: { type: DataTypes.STRING(120), allowNull: true, unique: true },
       amountCents: { type: DataTypes.INTEGER, allowNull: false },
+      requestKey: { type: DataTypes.STRING(120), allowNull: true, unique: true },
       restock: { type: DataTypes.BOOLEAN, allowNull: false },
       reason: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       createdBy: { type: DataTypes.INTEGER, allowNull: true },

@@ -3,6 +3,7 @@ import type { ActionResult } from '@/lib/schemas/result';
 import { orderIdInput, refundFormInput, shipInput, type RefundInput, type ShipInput } from '@/lib/schemas/orders';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
+import { newEntryKey } from '@/components/ui/entry-key';
 
 type IdAction = (v: { orderId: number }) => Promise<ActionResult>;
 type Props = {
@@ -56,8 +57,11 @@ export function OrderDeskActions({ order, lines, canRefund, actions }: Props) {
       jars: lines.map((l) => ({ lineId: l.id, quantity: l.sold })),
       restock: lines.some((l) => l.sold > 0),
       reason: '',
+      // One key per refund form shown: a double click or a retry is the same refund, never a second one.
+      requestKey: newEntryKey(),
     },
     successMessage: 'Refund sent.',
+    onSuccess: (): void => refund.form.setValue('requestKey', newEntryKey()),
   });
 
   // The steps share one message and one pending state: starting one clears what another said.

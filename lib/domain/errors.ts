@@ -4,7 +4,7 @@
  * action to `{ ok: false, message }`; nothing below the edge knows about HTTP.
  */
 export type RefusalKind =
-  'invalid' | 'forbidden' | 'not-found' | 'conflict' | 'too-large' | 'unsupported-type' | 'unavailable';
+  'invalid' | 'forbidden' | 'not-found' | 'conflict' | 'too-large' | 'unsupported-type' | 'too-many' | 'unavailable';
 
 export class DomainError extends Error {
   constructor(
@@ -41,5 +41,12 @@ export class NotFoundError extends DomainError {
 export class ConflictError extends DomainError {
   constructor(message: string) {
     super('conflict', message);
+  }
+}
+
+/** Too many requests of this kind from this address or e-mail in a short time (429). */
+export class TooManyError extends DomainError {
+  constructor(message: string) {
+    super('too-many', message);
   }
 }

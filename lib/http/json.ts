@@ -3,6 +3,8 @@ import { AuthError } from '@/lib/auth/session';
 import { OriginError } from './origin';
 import { toFieldErrors } from '@/lib/schemas/result';
 import { DomainError, type RefusalKind } from '@/lib/domain/errors';
+import { readTextLimited } from './body';
+import { containsNul } from '@/lib/schemas/fields';
 
 /** A JSON answer with a message a person understands. */
 export function jsonError(
@@ -14,13 +16,14 @@ export function jsonError(
 }
 
 /** The HTTP status of each kind of refusal that lib/data raises. */
-export const STATUS_OF: Record<RefusalKind, 400 | 403 | 404 | 409 | 413 | 415 | 422 | 503> = {
+export const STATUS_OF: Record<RefusalKind, 400 | 403 | 404 | 409 | 413 | 415 | 422 | 429 | 503> = {
   invalid: 422,
   forbidden: 403,
   'not-found': 404,
   conflict: 409,
   'too-large': 413,
   'unsupported-type': 415,
+  'too-many': 429,
   unavailable: 503,
 };
 
@@ -46,13 +49,16 @@ export function handleRouteError(err: unknown): Response {
   return Response.json({ error: `Something went wrong on our side. Reference ${ref}.` }, { status: 500 });
 }
 
-/** Reads a JSON body without trusting it: bad JSON is a 400, not a crash. */
+/** Reads a JSON body without trusting it: over `maxBytes` is a 413 while it streams, bad JSON a 400, not a crash. */
 export async function readJson(req: Request, maxBytes = 1_000_000): Promise<unknown> {
-  const text = await req.text();
-  if (text.length > maxBytes) throw new HttpError(413, 'The request is too large.');
+  const text = await readTextLimited(req, maxBytes);
+  let value: unknown;
   try {
-    return JSON.parse(text);
+    value = JSON.parse(text);
   } catch {
     throw new HttpError(400, 'The request body is not valid JSON.');
   }
+  // PostgreSQL refuses U+0000 in text: refused here for every JSON route, whatever its schema says.
+  if (containsNul(value)) throw new HttpError(400, 'Some text contains a character that is not allowed (NUL).');
+  return value;
 }

@@ -7,6 +7,7 @@ import { fail, toFieldErrors, type ActionResult } from '@/lib/schemas/result';
 import { assertSameOrigin, OriginError } from './origin';
 import { HttpError } from './json';
 import { DomainError } from '@/lib/domain/errors';
+import { containsNul } from '@/lib/schemas/fields';
 
 /**
  * Builds a server action that checks, in order: same origin, the signed-in user's permission
@@ -22,6 +23,8 @@ export function guardedAction<S extends z.ZodType, R = undefined>(
     try {
       await assertSameOrigin(await headers());
       const user = await authorize(permission);
+      // PostgreSQL refuses U+0000 in text; a field schema that forgot plainText() must not turn it into a 500.
+      if (containsNul(input)) return fail('Some text contains a character that is not allowed (NUL).');
       const parsed = schema.safeParse(input);
       if (!parsed.success) return fail('Please fix the marked fields.', toFieldErrors(parsed.error));
       return await run(user, parsed.data);

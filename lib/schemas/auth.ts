@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { safeString } from './fields';
 import { passwordProblem } from '@/lib/domain/password-rules';
 
 export const email = z
@@ -7,7 +8,7 @@ export const email = z
   .toLowerCase()
   .max(254, 'That e-mail address is too long.')
   .email('Enter a valid e-mail address.');
-export const personName = z.string().trim().min(1, 'Enter a name.').max(120, 'Keep the name under 120 characters.');
+export const personName = safeString().trim().min(1, 'Enter a name.').max(120, 'Keep the name under 120 characters.');
 
 export const password = z.string().superRefine((value, ctx) => {
   const problem = passwordProblem(value);

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { blankToNull, code, id, idempotencyKey, isoDay, optionalDay } from './fields';
+import { blankToNull, code, id, idempotencyKey, isoDay, optionalDay, safeString } from './fields';
 import { listQuery } from './list-query';
 
 export const colonyListQuery = listQuery(
@@ -7,7 +7,7 @@ export const colonyListQuery = listQuery(
   {
     yardId: id.optional(),
     status: z.enum(['active', 'dead_out', 'combined', 'sold']).optional(),
-    q: z.string().trim().max(30).optional(),
+    q: safeString().trim().max(30).optional(),
   },
   'code',
 );
@@ -23,7 +23,7 @@ export const colonyInput = z.object({
   parentColonyId: blankToNull(z.coerce.number().int().positive()),
   queenYear,
   startedOn: optionalDay,
-  notes: z.string().trim().max(2000).default(''),
+  notes: safeString().trim().max(2000).default(''),
 });
 export type ColonyInput = z.input<typeof colonyInput>;
 export const colonyUpdateInput = colonyInput.omit({ yardId: true }).extend({ colonyId: id });
@@ -32,27 +32,27 @@ export const moveInput = z.object({
   colonyId: id,
   yardId: id,
   occurredOn: isoDay,
-  note: z.string().trim().max(500).default(''),
+  note: safeString().trim().max(500).default(''),
 });
 export const statusInput = z.object({
   colonyId: id,
   status: z.enum(['active', 'dead_out', 'combined', 'sold']),
-  combinedIntoCode: z.string().trim().max(30).optional(),
+  combinedIntoCode: safeString().trim().max(30).optional(),
   occurredOn: isoDay,
-  note: z.string().trim().max(500).default(''),
+  note: safeString().trim().max(500).default(''),
 });
 export const splitInput = z.object({
   colonyId: id,
   newCode: code,
   occurredOn: isoDay,
   queenYear,
-  note: z.string().trim().max(500).default(''),
+  note: safeString().trim().max(500).default(''),
   idempotencyKey,
 });
 export const noteInput = z.object({
   colonyId: id,
   occurredOn: isoDay,
-  note: z.string().trim().min(1, 'Write the note').max(2000),
+  note: safeString().trim().min(1, 'Write the note').max(2000),
   idempotencyKey,
 });
 
@@ -64,10 +64,10 @@ export const feedingInput = z
   .object({
     colonyId: id,
     kind: z.enum(FEEDING_KINDS),
-    amount: z.string().trim().max(60).default(''),
+    amount: safeString().trim().max(60).default(''),
     startedOn: isoDay,
     endedOn: optionalDay,
-    note: z.string().trim().max(500).default(''),
+    note: safeString().trim().max(500).default(''),
     idempotencyKey,
   })
   .refine(endAfterStart, { path: ['endedOn'], message: 'Ends before it starts' });
@@ -77,10 +77,10 @@ export const treatmentInput = z
   .object({
     colonyId: id,
     treatmentKindId: id,
-    productName: z.string().trim().max(120).default(''),
+    productName: safeString().trim().max(120).default(''),
     appliedOn: isoDay,
     removedOn: optionalDay,
-    note: z.string().trim().max(500).default(''),
+    note: safeString().trim().max(500).default(''),
     idempotencyKey,
   })
   .refine((v) => v.removedOn === null || v.removedOn >= v.appliedOn, {

@@ -1,5 +1,14 @@
 import { z } from 'zod';
 
+/** PostgreSQL text cannot hold U+0000, and no person types it: refused as a field error, not a 500. */
+export const NO_NUL = {
+  test: (s: string) => !s.includes('\u0000'),
+  message: 'Contains a character that is not allowed.',
+};
+
+/** A string that cannot hold NUL; every text field of lib/schemas starts here (`safeString().trim().max(…)`). */
+export const safeString = () => z.string().refine(NO_NUL.test, NO_NUL.message);
+
 /** Field schemas shared by the yard, colony and super forms. */
 export const isoDay = z.iso.date('Use a date like 2026-07-14');
 export const optionalDay = z
@@ -7,7 +16,7 @@ export const optionalDay = z
   .optional()
   .transform((v) => v ?? null);
 export const id = z.coerce.number().int().positive();
-export const idempotencyKey = z.string().trim().min(8, 'Missing entry key').max(80);
+export const idempotencyKey = safeString().trim().min(8, 'Missing entry key').max(80);
 export const code = z
   .string()
   .trim()
@@ -36,3 +45,20 @@ export const chosenFile = (maxBytes: number, messages: { missing: string; tooLar
       messages.missing,
     )
     .refine((v) => !v?.[0] || v[0].size <= maxBytes, messages.tooLarge);
+
+/** A trimmed text field of at most `max` characters without NUL: names, addresses, notes, reasons. */
+export const plainText = (max: number) => safeString().trim().max(max, `At most ${max} characters`);
+
+/** Whether any string in this JSON-like value (keys included) holds a NUL character. */
+export function containsNul(value: unknown, depth = 0): boolean {
+  if (typeof value === 'string') return value.includes('\u0000');
+  if (depth > 20 || value === null || typeof value !== 'object') return false;
+  if (value instanceof Blob) return false;
+  if (typeof FormData !== 'undefined' && value instanceof FormData) {
+    for (const [k, v] of value.entries())
+      if (k.includes('\u0000') || (typeof v === 'string' && v.includes('\u0000'))) return true;
+    return false;
+  }
+  for (const [k, v] of Object.entries(value)) if (k.includes('\u0000') || containsNul(v, depth + 1)) return true;
+  return false;
+}

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { safeString } from './fields';
 import { listQuery } from './list-query';
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Pick a date.');
@@ -40,7 +41,7 @@ export type JarringRunData = z.output<typeof jarringRunInput>;
 
 export const overrideRunInput = z.object({
   runId: z.coerce.number().int().positive(),
-  reason: z.string().trim().min(10, 'Write why these jars may be sold (at least 10 characters).').max(1000),
+  reason: safeString().trim().min(10, 'Write why these jars may be sold (at least 10 characters).').max(1000),
 });
 export type OverrideRunInput = z.input<typeof overrideRunInput>;
 

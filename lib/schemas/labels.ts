@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { safeString } from './fields';
 
 const mm = (label: string, min = 0) =>
   z.coerce
@@ -7,7 +8,7 @@ const mm = (label: string, min = 0) =>
     .max(500);
 export const labelLayoutInput = z.object({
   layoutId: z.coerce.number().int().positive().optional(),
-  name: z.string().trim().min(1, 'Name the layout.').max(60),
+  name: safeString().trim().min(1, 'Name the layout.').max(60),
   paper: z.enum(['letter', 'a4', 'roll']),
   labelWidthMm: mm('Width', 5),
   labelHeightMm: mm('Height', 5),

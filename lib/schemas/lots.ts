@@ -1,12 +1,12 @@
 import { z } from 'zod';
 import { listQuery } from './list-query';
-import { chosenFile } from './fields';
+import { chosenFile, safeString } from './fields';
 import { LAB_FILE_MAX_BYTES } from '@/lib/domain/file-type';
 import { HONEY_SOURCES, type HoneySource } from '@/lib/domain/lab-results';
 
 const id = z.coerce.number().int().positive();
 const reason = (what: string) =>
-  z.string().trim().min(5, `Write a reason for ${what} (at least 5 characters).`).max(1000);
+  safeString().trim().min(5, `Write a reason for ${what} (at least 5 characters).`).max(1000);
 const weight = (label: string) =>
   z.coerce
     .number({ error: `${label}: enter a number.` })
@@ -30,7 +30,7 @@ export const annexSource = z.union([
 ]);
 
 export const lotInput = z.object({
-  floralSource: z.string().trim().max(80, 'At most 80 characters.'),
+  floralSource: safeString().trim().max(80, 'At most 80 characters.'),
   heather: z.boolean().default(false),
   honeyOrigin: z.enum(['blossom', 'honeydew', 'honeydew-blossom-blend']).default('blossom'),
   annexSource: annexSource.default(''),
@@ -39,7 +39,7 @@ export const lotInput = z.object({
   tropical: z.boolean().default(false),
   lowEnzyme: z.boolean().default(false),
   extractedOn: z.union([z.literal(''), day]).optional(),
-  notes: z.string().trim().max(2000).default(''),
+  notes: safeString().trim().max(2000).default(''),
 });
 export type LotInput = z.input<typeof lotInput>;
 
@@ -48,8 +48,8 @@ export type LotDetailsInput = z.input<typeof lotDetailsInput>;
 
 export const scanSuperInput = z.object({
   lotId: id,
-  tagCode: z.string().trim().min(1, 'Scan or type a tag code.').max(30),
-  overrideReason: z.string().trim().max(1000).optional(),
+  tagCode: safeString().trim().min(1, 'Scan or type a tag code.').max(30),
+  overrideReason: safeString().trim().max(1000).optional(),
 });
 export type ScanSuperInput = z.input<typeof scanSuperInput>;
 
@@ -74,7 +74,7 @@ export const containerInput = z
   .object({
     lotId: id,
     containerTypeId: z.preprocess((v) => (v === '' || v === null ? undefined : v), id.optional()),
-    label: z.string().trim().max(40).default(''),
+    label: safeString().trim().max(40).default(''),
     gross: weight('Gross weight').positive('Gross weight must be above 0.'),
     tare: weight('Tare'),
     unit: weightUnit,
@@ -108,9 +108,9 @@ export const readingFormInput = z
   .object({
     lotId: id,
     method: z.enum(['ri', 'scale']),
-    refractiveIndex: z.string().trim(),
-    scaleWaterPct: z.string().trim(),
-    temperatureC: z.string().trim(),
+    refractiveIndex: safeString().trim(),
+    scaleWaterPct: safeString().trim(),
+    temperatureC: safeString().trim(),
     takenOn: day,
   })
   .superRefine((v, ctx) => {
@@ -150,13 +150,13 @@ export type VoidInput = z.input<typeof voidInput>;
 export const stageInput = z.object({
   lotId: id,
   target: z.enum(['extracted', 'released', 'held']),
-  reason: z.string().trim().max(1000).optional(),
+  reason: safeString().trim().max(1000).optional(),
 });
 export type StageInput = z.input<typeof stageInput>;
 
 export const blendFormInput = z.object({
-  floralSource: z.string().trim().max(80),
-  notes: z.string().trim().max(2000).default(''),
+  floralSource: safeString().trim().max(80),
+  notes: safeString().trim().max(2000).default(''),
   unit: weightUnit,
   parts: z
     .array(z.object({ lotId: id, amount: z.coerce.number().positive('Take more than 0.') }))
@@ -167,7 +167,7 @@ export type BlendFormInput = z.input<typeof blendFormInput>;
 
 export const containerTypeInput = z.object({
   id: z.preprocess((v) => (v === '' || v === null ? undefined : v), id.optional()),
-  name: z.string().trim().min(1, 'Name the container type.').max(60),
+  name: safeString().trim().min(1, 'Name the container type.').max(60),
   usualTare: weight('Usual tare'),
   unit: weightUnit,
   active: z.boolean().default(true),
@@ -219,7 +219,7 @@ export const lotListQuery = listQuery(
   {
     stage: z.enum(['gathering', 'extracted', 'released', 'packed_out', 'held']).optional().catch(undefined),
     year: z.coerce.number().int().min(2000).max(2100).optional().catch(undefined),
-    floral: z.string().trim().max(80).optional(),
+    floral: safeString().trim().max(80).optional(),
   },
   'createdAt',
   { defaultDir: 'desc' },

@@ -1,12 +1,13 @@
 import { z } from 'zod';
 import { ORDER_STATUSES } from '@/lib/domain/order-status';
+import { idempotencyKey, safeString } from './fields';
 import { listQuery } from './list-query';
 
 export const orderIdInput = z.object({ orderId: z.number().int().positive() });
 
 export const shipInput = z.object({
   orderId: z.number().int().positive(),
-  tracking: z.string().trim().max(200, 'At most 200 characters').default(''),
+  tracking: safeString().trim().max(200, 'At most 200 characters').default(''),
 });
 export type ShipInput = z.input<typeof shipInput>;
 
@@ -22,7 +23,9 @@ export const refundInput = z.object({
     .default([]),
   /** true: the jars go back on the shelf; false: they are written off (broken, opened). */
   restock: z.boolean(),
-  reason: z.string().trim().max(500).default(''),
+  reason: safeString().trim().max(500).default(''),
+  /** One per refund form shown: the same refund sent twice is refused (lib/data/orders/desk.ts, refundKey). */
+  requestKey: idempotencyKey.optional(),
 });
 export type RefundInput = z.input<typeof refundInput>;
 
@@ -42,7 +45,7 @@ export const orderListQuery = listQuery(
   ['createdAt', 'totalCents'],
   {
     status: z.enum(ORDER_DESK_FILTERS).default('open'),
-    q: z.string().trim().max(80).optional(),
+    q: safeString().trim().max(80).optional(),
   },
   'createdAt',
   { defaultDir: 'desc' },

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { isValidGtin } from '@/lib/domain/gs1';
-import { chosenFile } from './fields';
+import { chosenFile, safeString } from './fields';
 
 const money = z.coerce
   .number({ error: 'Enter a price.' })
@@ -11,7 +11,7 @@ const money = z.coerce
 export const productInput = z
   .object({
     productId: z.coerce.number().int().positive().optional(),
-    name: z.string().trim().min(1, 'Enter a name.').max(120),
+    name: safeString().trim().min(1, 'Enter a name.').max(120),
     slug: z
       .string()
       .trim()
@@ -19,10 +19,10 @@ export const productInput = z
       .regex(/^([a-z0-9]+(-[a-z0-9]+)*)?$/, 'Lower-case letters, digits and dashes only.')
       .optional()
       .default(''),
-    description: z.string().trim().max(2000).optional().default(''),
+    description: safeString().trim().max(2000).optional().default(''),
     netAmount: z.coerce.number({ error: 'Enter the net quantity.' }).positive('Enter the net quantity.').max(100_000),
     netUnit: z.enum(['g', 'oz']),
-    containerKind: z.string().trim().min(1, 'Say what the honey goes in (e.g. glass jar).').max(60),
+    containerKind: safeString().trim().min(1, 'Say what the honey goes in (e.g. glass jar).').max(60),
     containerGrams: z.coerce
       .number({ error: 'Enter the empty container weight.' })
       .int('Whole grams.')
@@ -31,8 +31,8 @@ export const productInput = z
     price: money,
     active: z.boolean().default(true),
     gtinMode: z.enum(['none', 'typed', 'made']),
-    gtin: z.string().trim().optional().default(''),
-    itemReference: z.string().trim().optional().default(''),
+    gtin: safeString().trim().optional().default(''),
+    itemReference: safeString().trim().optional().default(''),
   })
   .superRefine((v, ctx) => {
     if (v.gtinMode === 'typed' && !isValidGtin(v.gtin)) {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { safeString } from './fields';
 
 const pct = (label: string) =>
   z.coerce
@@ -8,12 +9,12 @@ const pct = (label: string) =>
 
 /** What the owner may change on the settings page. Unknown fields are dropped, never trusted. */
 export const settingsInput = z.object({
-  businessName: z.string().trim().min(1, 'Enter the business name.').max(120),
-  address: z.string().trim().max(500),
-  region: z.string().trim().max(120),
-  contactEmail: z.union([z.literal(''), z.string().trim().email('Enter a valid e-mail address.')]),
-  story: z.string().trim().max(2000),
-  publicLotNote: z.string().trim().max(1000),
+  businessName: safeString().trim().min(1, 'Enter the business name.').max(120),
+  address: safeString().trim().max(500),
+  region: safeString().trim().max(120),
+  contactEmail: z.union([z.literal(''), safeString().trim().email('Enter a valid e-mail address.')]),
+  story: safeString().trim().max(2000),
+  publicLotNote: safeString().trim().max(1000),
   timeZone: z
     .string()
     .trim()

@@ -1,6 +1,9 @@
 import { z } from 'zod';
-import { id } from './fields';
+import { id, safeString } from './fields';
 import { listQuery } from './list-query';
+
+/** One adjustment moves at most this many jars (stock columns are 32-bit integers; no shelf holds more). */
+export const MAX_ADJUST_JARS = 100_000;
 
 export const ADJUSTMENT_KINDS = ['breakage', 'adjustment', 'return'] as const;
 export const stockAdjustInput = z
@@ -11,8 +14,10 @@ export const stockAdjustInput = z
     delta: z.coerce
       .number({ error: 'Enter a number of jars.' })
       .int('Whole jars.')
+      .min(-MAX_ADJUST_JARS, `At most ${MAX_ADJUST_JARS.toLocaleString('en')} jars in one adjustment.`)
+      .max(MAX_ADJUST_JARS, `At most ${MAX_ADJUST_JARS.toLocaleString('en')} jars in one adjustment.`)
       .refine((n) => n !== 0, 'Enter a change other than 0.'),
-    reason: z.string().trim().min(3, 'Say why (at least 3 characters).').max(500),
+    reason: safeString().trim().min(3, 'Say why (at least 3 characters).').max(500),
   })
   .superRefine((v, ctx) => {
     if (v.kind === 'breakage' && v.delta > 0)

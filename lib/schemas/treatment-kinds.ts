@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { id } from './fields';
+import { id, safeString } from './fields';
 
 export const treatmentKindInput = z.object({
   id: id.optional(),
@@ -11,7 +11,7 @@ export const treatmentKindInput = z.object({
     .regex(/^[\p{L}\p{N}]/u, 'Start the name with a letter or digit'),
   supersAllowed: z.boolean(),
   waitingDays: z.coerce.number().int().min(0, '0 or more').max(365),
-  notes: z.string().trim().max(1000).default(''),
+  notes: safeString().trim().max(1000).default(''),
   active: z.boolean().default(true),
 });
 export type TreatmentKindInput = z.input<typeof treatmentKindInput>;

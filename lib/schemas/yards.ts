@@ -1,11 +1,11 @@
 import { z } from 'zod';
-import { blankToNull, id } from './fields';
+import { blankToNull, id, safeString } from './fields';
 import { listQuery } from './list-query';
 
 export const yardListQuery = listQuery(
   ['name', 'colonies'],
   {
-    q: z.string().trim().max(80).optional(),
+    q: safeString().trim().max(80).optional(),
   },
   'name',
 );
@@ -19,10 +19,10 @@ export const yardInput = z.object({
     .min(1, 'Give the yard a name')
     .max(80)
     .regex(/^[\p{L}\p{N}]/u, 'Start the name with a letter or digit'),
-  place: z.string().trim().max(500).default(''),
+  place: safeString().trim().max(500).default(''),
   latitude: coordinate(90),
   longitude: coordinate(180),
-  forageNotes: z.string().trim().max(2000).default(''),
+  forageNotes: safeString().trim().max(2000).default(''),
   keeperIds: z.array(z.coerce.number().int().positive()).max(50).default([]),
 });
 export type YardInput = z.input<typeof yardInput>;

@@ -109,4 +109,18 @@ export const ROUTES: Record<string, Allowed> = {
   'app/api/trace/recall/route.ts#GET': HOUSE,
 };
 
+/**
+ * Per-record scope (one rule for lots, jarring, stock and trace): a keeper reads only what came from
+ * their own colonies' lots (lib/data/lots/access.ts, readableLotIds/canReadLot); a record from another
+ * keeper's lot is "not found", never shown. Owner and crew read every lot. Checked record by record in
+ * tests/data/permission-matrix.test.ts.
+ */
+export const KEEPER_SCOPE = [
+  "lot page of another keeper's lot: not found",
+  "jarring run of another keeper's lot (page and /api/jarring list): not found / not listed",
+  "stock rows and totals of another keeper's lot (stock page): not listed",
+  "stock ledger entries of another keeper's lot (/api/stock/ledger): not listed",
+  'trace and recall list (/api/trace/recall): owner and crew only (403)',
+] as const;
+
 export const GROUPS = { OWNER, STAFF, YARD_WORK, HOUSE };

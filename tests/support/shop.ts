@@ -60,6 +60,8 @@ export async function startShopFake(options: { retryBaseMs?: number } = {}): Pro
 }
 
 let seq = 0;
+/** Tells this file's guests and addresses apart from another test file's (each file starts its counters at 0). */
+const RUN = Math.floor(Math.random() * 0xffff).toString(16);
 /** A product with `lots` released lots holding the given jar counts (oldest best-before first). */
 export async function makeProduct(
   tag: string,
@@ -120,7 +122,10 @@ export function hook(fake: StripeFake, path: string, body: unknown = {}) {
   }));
 }
 
-export const guest = (items: { productId: number; quantity: number }[], email = `guest-${++seq}@example.test`) => ({
+export const guest = (
+  items: { productId: number; quantity: number }[],
+  email = `guest-${RUN}-${++seq}@example.test`,
+) => ({
   items,
   email,
   name: 'Ada Fenwick',
@@ -130,11 +135,21 @@ export const guest = (items: { productId: number; quantity: number }[], email = 
 
 export const orderOf = (number: string) => getDb().models.Order.findOne({ where: { number } });
 
+let ipSeq = 0;
+/** A fresh client address per test checkout (2001:db8::/32, the documentation range), so per-address checkout limits do not pile up across tests and files. */
+export const nextIp = () => `2001:db8:${RUN}::${(++ipSeq).toString(16)}`;
+
+/** A POST /api/checkout request from `ip` (a fresh address unless given). */
+export const checkoutRequest = (body: unknown, ip: string = nextIp()) =>
+  new Request('http://127.0.0.1/api/checkout', {
+    method: 'POST',
+    headers: { 'x-forwarded-for': ip },
+    body: JSON.stringify(body),
+  });
+
 /** A guest checkout through the real route handler (it must succeed); the order it made. */
 export async function startOrder(items: { productId: number; quantity: number }[]) {
-  const res = await checkoutPOST(
-    new Request('http://127.0.0.1/api/checkout', { method: 'POST', body: JSON.stringify(guest(items)) }),
-  );
+  const res = await checkoutPOST(checkoutRequest(guest(items)));
   if (res.status !== 200) throw new Error(`checkout answered ${res.status}: ${await res.text()}`);
   return (await orderOf(((await res.json()) as { number: string }).number))!;
 }

@@ -1,5 +1,7 @@
 import 'server-only';
+import { Op } from 'sequelize';
 import { getDb } from '@/lib/db/index';
+import { canReadLot, readableLotIds } from '@/lib/data/lots/access';
 import { jarsLotCanFill } from '@/lib/domain/jars';
 import type { FillRuleSet } from '@/models/jarring-run';
 import { getSettings } from '@/lib/data/settings/settings';
@@ -102,12 +104,14 @@ function toRunRow(r: RunModel): RunRow {
   };
 }
 
-/** One page of jarring runs (all, or one lot's), newest first unless sorted otherwise. */
-export async function listJarringRuns(_user: SessionUser, query: JarringRunListQuery): Promise<Page<RunRow>> {
+/** One page of jarring runs (all, or one lot's) of the lots this user may read, newest first unless sorted otherwise. */
+export async function listJarringRuns(user: SessionUser, query: JarringRunListQuery): Promise<Page<RunRow>> {
   const { JarringRun, Lot, Product } = getDb().models;
   const { page, pageSize } = query;
   const dir = query.dir === 'asc' ? 'ASC' : 'DESC';
-  const where = query.lotId ? { lotId: query.lotId } : {};
+  const readable = await readableLotIds(user);
+  const lotIds = query.lotId ? [query.lotId].filter((id) => !readable || readable.includes(id)) : readable;
+  const where = lotIds ? { lotId: { [Op.in]: lotIds } } : {};
   const [total, rows] = await Promise.all([
     JarringRun.count({ where }),
     JarringRun.findAll({
@@ -127,7 +131,8 @@ export async function listJarringRuns(_user: SessionUser, query: JarringRunListQ
   return { rows: rows.map(toRunRow), total, page, pageSize };
 }
 
-export async function getJarringRun(id: number): Promise<RunRow | null> {
+/** One jarring run, or null when there is none or its lot is not one this user may read (a 404 either way). */
+export async function getJarringRun(user: SessionUser, id: number): Promise<RunRow | null> {
   const { JarringRun, Lot, Product, User } = getDb().models;
   const r = await JarringRun.findByPk(id, {
     include: [
@@ -135,7 +140,7 @@ export async function getJarringRun(id: number): Promise<RunRow | null> {
       { model: Product, as: 'product', attributes: ['name'] },
     ],
   });
-  if (!r) return null;
+  if (!r || !(await canReadLot(user, r.lotId))) return null;
   const row = toRunRow(r);
   if (r.createdBy) row.byName = (await User.findByPk(r.createdBy, { attributes: ['name'] }))?.name ?? null;
   return row;

@@ -32,6 +32,21 @@ export async function canReadLot(user: SessionUser, lotId: number): Promise<bool
   return rows.length > 0;
 }
 
+/**
+ * The one scope rule for everything made from a lot (the lot, its jarring runs, stock rows, ledger
+ * entries): owner and crew see every lot; a keeper only the lots from their own colonies
+ * (KEEPER_LOTS_SQL); anybody else none. Null = no limit; otherwise the lot ids this user may read.
+ */
+export async function readableLotIds(user: SessionUser): Promise<number[] | null> {
+  if (user.role === 'owner' || user.role === 'crew') return null;
+  if (user.role !== 'keeper') return [];
+  const rows = await getDb().sequelize.query<{ id: number }>(KEEPER_LOTS_SQL, {
+    type: QueryTypes.SELECT,
+    replacements: { keeperId: user.id },
+  });
+  return rows.map((r) => r.id);
+}
+
 /** The lot, locked for this transaction; a missing lot is a 404. */
 export async function lockLot(lotId: number, t: Transaction): Promise<Lot> {
   const lot = await getDb().models.Lot.findByPk(lotId, { transaction: t, lock: t.LOCK.UPDATE });

@@ -1,4 +1,5 @@
 import 'server-only';
+import { createHash, randomUUID } from 'node:crypto';
 import { getDb } from '@/lib/db/index';
 import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { enqueueMail } from '@/lib/mail/outbox';
@@ -93,20 +94,50 @@ export type RefundRequest = {
   jars: { lineId: number; quantity: number }[];
   restock: boolean;
   reason: string;
+  /** The refund form's own key (one per form shown); a request without one is never a repeat. */
+  requestKey?: string;
 };
 
 /**
- * Refunds fully or partly through Stripe. The amount is claimed on the order first (so the
- * charge.refunded webhook that races back finds it already counted), then Stripe is asked with an
- * idempotency key per refund row; if Stripe refuses, the claim is undone and nothing else changed.
- * On success, jars come back to stock or are written off, and the customer is told.
+ * The idempotency key of a refund: derived from what is refunded (order, amount, jars) and the form's
+ * request key, so the same refund sent twice (double click, retry, two people at once) is one refund
+ * at Stripe, and a refund row with this key already in the table refuses the repeat before any money moves.
+ */
+export function refundKey(r: RefundRequest): string {
+  const jars = r.jars
+    .filter((j) => j.quantity > 0)
+    .map((j) => `${j.lineId}x${j.quantity}`)
+    .sort()
+    .join(',');
+  const what = [r.orderId, r.amountCents, jars, r.restock ? 'restock' : 'writeoff', r.requestKey ?? randomUUID()].join(
+    '|',
+  );
+  return `refund-${r.orderId}-${createHash('sha256').update(what).digest('hex').slice(0, 32)}`;
+}
+
+/** How long the refund waits for Stripe while it holds the order (the row lock): the refund desk, not the shop, waits. */
+const STRIPE_REFUND_TIMEOUT_MS = 20_000;
+
+/**
+ * Refunds fully or partly through Stripe, in ONE transaction that holds the order row locked from
+ * the checks until the refund is recorded: a second refund of the same order (another person, a
+ * double click) waits, then sees the money and jars already refunded and is refused before Stripe
+ * is called. Stripe is asked with a key derived from the request (refundKey), so a repeat of the same
+ * request is refused here or answered by Stripe with the first refund, never a second one. Whatever
+ * Stripe did is recorded in the same transaction: the refund row, jars back to stock or written off,
+ * the audit entry (with Stripe's refund id and status) and the customer's mail. If Stripe refuses,
+ * the transaction rolls back and nothing changed.
  */
 export async function refundOrder(actorUserId: number, r: RefundRequest): Promise<{ refundId: number }> {
   const { sequelize, models } = getDb();
   if (!Number.isInteger(r.amountCents) || r.amountCents <= 0) throw new InvalidError('Enter an amount to refund.');
-  const claim = await sequelize.transaction(async (t) => {
+  const key = refundKey(r);
+  const settings = await getSettings();
+  return sequelize.transaction(async (t) => {
     const order = await models.Order.findByPk(r.orderId, { transaction: t, lock: t.LOCK.UPDATE });
     if (!order) throw new NotFoundError('No such order.');
+    if (await models.Refund.findOne({ where: { requestKey: key }, transaction: t }))
+      throw new ConflictError(`This refund of order ${order.number} was already made; nothing more was refunded.`);
     if (!order.paidAt) throw new ConflictError('This order was never paid; cancel it instead.');
     if (!order.paymentIntentId)
       throw new ConflictError(
@@ -123,43 +154,49 @@ export async function refundOrder(actorUserId: number, r: RefundRequest): Promis
         throw new ConflictError(`Only ${have} jar${have === 1 ? '' : 's'} of that line can be returned.`);
     }
     const refund = await models.Refund.create(
-      { orderId: order.id, amountCents: r.amountCents, restock: r.restock, reason: r.reason, createdBy: actorUserId },
+      {
+        orderId: order.id,
+        amountCents: r.amountCents,
+        restock: r.restock,
+        reason: r.reason,
+        createdBy: actorUserId,
+        requestKey: key,
+      },
       { transaction: t },
     );
-    await order.update({ refundedCents: order.refundedCents + r.amountCents }, { transaction: t });
-    return { refundId: refund.id, paymentIntentId: order.paymentIntentId };
-  });
 
-  let stripeRefundId: string;
-  try {
-    const refund = await stripe().refunds.create(
+    let stripeRefund: { id: string; status: string | null };
+    try {
+      const made = await stripe().refunds.create(
+        {
+          payment_intent: order.paymentIntentId,
+          amount: r.amountCents,
+          reason: 'requested_by_customer',
+          metadata: { orderId: String(order.id), refundId: String(refund.id) },
+        },
+        { idempotencyKey: key, timeout: STRIPE_REFUND_TIMEOUT_MS },
+      );
+      stripeRefund = { id: made.id, status: made.status ?? null };
+    } catch (err) {
+      console.error(`[refund] order ${order.number}: Stripe refused or did not answer`, err);
+      const message =
+        err instanceof Error && 'type' in err
+          ? `The card payment service refused the refund: ${err.message}`
+          : 'The card payment service could not be reached; nothing was refunded. Try again: the same refund is never made twice.';
+      throw new ConflictError(message);
+    }
+
+    await refund.update({ stripeRefundId: stripeRefund.id }, { transaction: t });
+    const refundedCents = order.refundedCents + r.amountCents;
+    const before = { status: order.status, refundedCents: order.refundedCents };
+    const full = refundedCents >= order.totalCents;
+    await order.update(
       {
-        payment_intent: claim.paymentIntentId,
-        amount: r.amountCents,
-        reason: 'requested_by_customer',
-        metadata: { orderId: String(r.orderId), refundId: String(claim.refundId) },
+        refundedCents,
+        ...(full && !['expired', 'cancelled'].includes(order.status) ? { status: 'refunded' as const } : {}),
       },
-      { idempotencyKey: `refund-${claim.refundId}-v1` },
+      { transaction: t },
     );
-    stripeRefundId = refund.id;
-  } catch (err) {
-    await sequelize.transaction(async (t) => {
-      const order = await models.Order.findByPk(r.orderId, { transaction: t, lock: t.LOCK.UPDATE });
-      await order?.update({ refundedCents: Math.max(0, order.refundedCents - r.amountCents) }, { transaction: t });
-      await models.Refund.destroy({ where: { id: claim.refundId }, transaction: t });
-    });
-    const message =
-      err instanceof Error && 'type' in err
-        ? `The card payment service refused the refund: ${err.message}`
-        : 'The card payment service could not be reached; nothing was refunded.';
-    throw new ConflictError(message);
-  }
-
-  const settings = await getSettings();
-  await sequelize.transaction(async (t) => {
-    const order = await models.Order.findByPk(r.orderId, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!order) throw new NotFoundError('No such order.');
-    await models.Refund.update({ stripeRefundId }, { where: { id: claim.refundId }, transaction: t });
     for (const j of r.jars.filter((x) => x.quantity > 0)) {
       await returnSold(t, {
         orderId: order.id,
@@ -170,10 +207,6 @@ export async function refundOrder(actorUserId: number, r: RefundRequest): Promis
         actorUserId,
       });
     }
-    const full = order.refundedCents >= order.totalCents;
-    const before = { status: order.status };
-    if (full && !['expired', 'cancelled'].includes(order.status))
-      await order.update({ status: 'refunded' }, { transaction: t });
     await recordAudit(
       {
         actorUserId,
@@ -181,7 +214,15 @@ export async function refundOrder(actorUserId: number, r: RefundRequest): Promis
         entityType: 'order',
         entityId: order.id,
         before,
-        after: { status: order.status, amountCents: r.amountCents, jars: r.jars, restock: r.restock, stripeRefundId },
+        after: {
+          status: order.status,
+          refundedCents,
+          amountCents: r.amountCents,
+          jars: r.jars,
+          restock: r.restock,
+          stripeRefundId: stripeRefund.id,
+          stripeStatus: stripeRefund.status,
+        },
         reason: r.reason || null,
       },
       t,
@@ -193,10 +234,10 @@ export async function refundOrder(actorUserId: number, r: RefundRequest): Promis
           business: settings.businessName,
           link: link(order.number),
           amountCents: r.amountCents,
-          refundId: claim.refundId,
+          refundId: refund.id,
         }),
         t,
       );
+    return { refundId: refund.id };
   });
-  return { refundId: claim.refundId };
 }

@@ -1,7 +1,7 @@
 import 'server-only';
 import { Op, QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/db/index';
-import { ConflictError, DomainError } from '@/lib/domain/errors';
+import { ConflictError, DomainError, TooManyError } from '@/lib/domain/errors';
 import { parcelWeightGrams, shippingCents } from '@/lib/domain/shipping';
 import type { CheckoutData } from '@/lib/schemas/checkout';
 import type { SessionUser } from '@/lib/auth/session';
@@ -18,14 +18,71 @@ const RESERVE_MINUTES = 30;
 // after ours: a little slack keeps the request valid (docs.stripe.com/api/checkout/sessions/create, expires_at).
 const SLACK_SECONDS = 30;
 
+/**
+ * Checkout limits (docs/architecture.md, "Checkout limits"): a checkout holds real jars, so one
+ * address or e-mail may start only so many, and hold only so many unpaid at once.
+ */
+export const CHECKOUT_LIMITS = {
+  windowMinutes: 10,
+  /** Checkouts started per client address in the window (a household or office shares one address). */
+  startsPerAddress: 10,
+  /** Checkouts started per e-mail in the window. */
+  startsPerEmail: 5,
+  /** Unpaid orders holding jars at once, per client address. */
+  openPerAddress: 3,
+  /** Unpaid orders holding jars at once, per e-mail. */
+  openPerEmail: 2,
+} as const;
+
 export type StartedCheckout = { orderId: number; number: string; url: string };
+
+/**
+ * Refuses (429) a checkout past CHECKOUT_LIMITS. Counted from the orders table, so the limits hold
+ * across app processes and restarts. 'local' (no address known: tests, scripts) counts like any other.
+ */
+async function assertWithinCheckoutLimits(email: string, ip: string): Promise<void> {
+  const [row] = await getDb().sequelize.query<{
+    startsIp: number;
+    startsEmail: number;
+    openIp: number;
+    openEmail: number;
+  }>(
+    `SELECT
+       count(*) FILTER (WHERE client_ip = :ip AND created_at > now() - make_interval(mins => :mins))::int AS "startsIp",
+       count(*) FILTER (WHERE lower(email) = :email AND created_at > now() - make_interval(mins => :mins))::int AS "startsEmail",
+       count(*) FILTER (WHERE client_ip = :ip AND status = 'awaiting_payment')::int AS "openIp",
+       count(*) FILTER (WHERE lower(email) = :email AND status = 'awaiting_payment')::int AS "openEmail"
+     FROM orders
+     WHERE (client_ip = :ip OR lower(email) = :email)
+       AND (status = 'awaiting_payment' OR created_at > now() - make_interval(mins => :mins))`,
+    {
+      type: QueryTypes.SELECT,
+      replacements: { ip, email: email.toLowerCase(), mins: CHECKOUT_LIMITS.windowMinutes },
+    },
+  );
+  if (row.openIp >= CHECKOUT_LIMITS.openPerAddress || row.openEmail >= CHECKOUT_LIMITS.openPerEmail)
+    throw new TooManyError(
+      'You already have unpaid orders holding jars. Finish paying for one, or cancel it from its payment page, then try again.',
+    );
+  if (row.startsIp >= CHECKOUT_LIMITS.startsPerAddress || row.startsEmail >= CHECKOUT_LIMITS.startsPerEmail)
+    throw new TooManyError(
+      `Too many checkouts in a short time. Please wait ${CHECKOUT_LIMITS.windowMinutes} minutes and try again.`,
+    );
+}
 
 /**
  * Builds the order from OUR prices, reserves the jars (one transaction, row locks), then asks
  * Stripe for a Checkout Session and returns its URL. If Stripe fails the reservation is released.
  */
-export async function startCheckout(input: CheckoutData, user: SessionUser | null): Promise<StartedCheckout> {
+export async function startCheckout(
+  input: CheckoutData,
+  user: SessionUser | null,
+  clientIp = 'local',
+): Promise<StartedCheckout> {
   const { sequelize, models } = getDb();
+  const email = user?.role === 'customer' ? user.email : input.email;
+  await releaseOverdueReservations();
+  await assertWithinCheckoutLimits(email, clientIp);
   const settings = await getSettings();
   const wanted = new Map<number, number>();
   for (const i of input.items) wanted.set(i.productId, (wanted.get(i.productId) ?? 0) + i.quantity);
@@ -51,7 +108,6 @@ export async function startCheckout(input: CheckoutData, user: SessionUser | nul
     shipping = price;
   }
   const expiresAt = Math.floor(Date.now() / 1000) + RESERVE_MINUTES * 60 + SLACK_SECONDS;
-  await releaseOverdueReservations();
 
   const order = await sequelize.transaction(async (t) => {
     const [{ n }] = await sequelize.query<{ n: number }>(`SELECT nextval('order_number_seq')::int AS n`, {
@@ -62,7 +118,8 @@ export async function startCheckout(input: CheckoutData, user: SessionUser | nul
       {
         number: `C-${n}`,
         customerId: user?.role === 'customer' ? user.id : null,
-        email: user?.role === 'customer' ? user.email : input.email,
+        email,
+        clientIp: clientIp.slice(0, 64),
         name: input.name,
         phone: input.phone,
         fulfilment: input.fulfilment,

@@ -9,6 +9,7 @@ import { bestBeforeDate } from '@/lib/domain/jars';
 import type { StockEntryKind } from '@/models/stock-entry';
 import { recordAudit } from '@/lib/data/audit';
 import { getSettings } from '@/lib/data/settings/settings';
+import { readableLotIds } from '@/lib/data/lots/access';
 
 export type StockEntryInput = {
   productId: number;
@@ -139,10 +140,15 @@ export type StockProductTotal = {
   earliestBestBefore: string | null;
 };
 
-export async function listStockLevels(filter: { productId?: number } = {}): Promise<StockLotRow[]> {
+/** Stock per product and lot, of the lots this user may read (a keeper: their own colonies' lots). */
+export async function listStockLevels(user: SessionUser, filter: { productId?: number } = {}): Promise<StockLotRow[]> {
   const { StockLevel, Product, Lot } = getDb().models;
+  const readable = await readableLotIds(user);
+  const where: Record<string | symbol, unknown> = {};
+  if (filter.productId) where.productId = filter.productId;
+  if (readable) where.lotId = { [Op.in]: readable };
   const rows = await StockLevel.findAll({
-    where: filter.productId ? { productId: filter.productId } : {},
+    where,
     include: [
       { model: Product, as: 'product', attributes: ['name', 'sortOrder'] },
       { model: Lot, as: 'lot', attributes: ['code', 'floralSource'] },
@@ -166,8 +172,8 @@ export async function listStockLevels(filter: { productId?: number } = {}): Prom
   }));
 }
 
-/** Totals per product (every product, also those with no stock). */
-export async function stockTotals(): Promise<StockProductTotal[]> {
+/** Totals per product (every product, also those with no stock), over the lots this user may read. */
+export async function stockTotals(user: SessionUser): Promise<StockProductTotal[]> {
   const { Product } = getDb().models;
   const [products, levels] = await Promise.all([
     Product.findAll({
@@ -176,7 +182,7 @@ export async function stockTotals(): Promise<StockProductTotal[]> {
         ['name', 'ASC'],
       ],
     }),
-    listStockLevels(),
+    listStockLevels(user),
   ]);
   return products.map((p) => {
     const mine = levels.filter((l) => l.productId === p.id);
@@ -206,13 +212,15 @@ export type LedgerRow = {
   byName: string | null;
 };
 
-/** One page of the stock ledger (every staff member reads all of it). Entries are numbered in the order they were written. */
-export async function listLedger(_user: SessionUser, query: LedgerListQuery): Promise<Page<LedgerRow>> {
+/** One page of the stock ledger, entries of the lots this user may read. Entries are numbered in the order they were written. */
+export async function listLedger(user: SessionUser, query: LedgerListQuery): Promise<Page<LedgerRow>> {
   const { StockEntry, Product, Lot, User } = getDb().models;
   const { page, pageSize } = query;
-  const where: Record<string, unknown> = {};
+  const readable = await readableLotIds(user);
+  const where: Record<string | symbol, unknown> = {};
   if (query.productId) where.productId = query.productId;
-  if (query.lotId) where.lotId = query.lotId;
+  const lotIds = query.lotId ? [query.lotId].filter((id) => !readable || readable.includes(id)) : readable;
+  if (lotIds) where.lotId = { [Op.in]: lotIds };
   const [total, entries] = await Promise.all([
     StockEntry.count({ where }),
     StockEntry.findAll({

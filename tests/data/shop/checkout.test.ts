@@ -13,6 +13,7 @@ import {
   stockOf,
   waitUntil,
   type ShopFake,
+  checkoutRequest,
 } from '@/tests/support/shop';
 
 let shop: ShopFake;
@@ -28,8 +29,7 @@ beforeEach(async () => {
   await signInAs(null);
 });
 
-const post = (body: unknown) =>
-  checkoutPOST(new Request('http://127.0.0.1/api/checkout', { method: 'POST', body: JSON.stringify(body) }));
+const post = (body: unknown) => checkoutPOST(checkoutRequest(body));
 
 describe('checkout', () => {
   it('reserves oldest best-before first at our price, whatever the browser says', async () => {

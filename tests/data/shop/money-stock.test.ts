@@ -17,6 +17,7 @@ import {
   stockOf,
   waitUntil,
   type ShopFake,
+  checkoutRequest,
 } from '@/tests/support/shop';
 
 // Money and stock: multi-line checkouts under contention, and a webhook whose
@@ -47,8 +48,7 @@ type EventRecord = { event: Stripe.Event; attempts: { status: number | null }[] 
 const signer = new Stripe('sk_test_signer');
 const select = <T extends object>(sql: string, replacements: Record<string, unknown> = {}) =>
   getDb().sequelize.query<T>(sql, { type: QueryTypes.SELECT, replacements });
-const post = (items: Item[]) =>
-  checkoutPOST(new Request('http://127.0.0.1/api/checkout', { method: 'POST', body: JSON.stringify(guest(items)) }));
+const post = (items: Item[]) => checkoutPOST(checkoutRequest(guest(items)));
 
 function deliver(event: Stripe.Event) {
   const payload = JSON.stringify(event, null, 2);

@@ -18,6 +18,7 @@ import {
   stockOf,
   waitUntil,
   type ShopFake,
+  checkoutRequest,
 } from '@/tests/support/shop';
 
 let shop: ShopFake;
@@ -314,12 +315,7 @@ describe('who sees an order', () => {
   it('its customer, staff and the signed link; another customer or a forged link gets nothing', async () => {
     const p = await makeProduct('view', [3]);
     const mine = await signInAs(DEMO.customer);
-    const res = await checkoutPOST(
-      new Request('http://127.0.0.1/api/checkout', {
-        method: 'POST',
-        body: JSON.stringify(guest([{ productId: p.productId, quantity: 1 }])),
-      }),
-    );
+    const res = await checkoutPOST(checkoutRequest(guest([{ productId: p.productId, quantity: 1 }])));
     const { number } = (await res.json()) as { number: string };
     const asOwner = await getOrderForViewer(
       number,

@@ -46,6 +46,7 @@ export const refundOrderAction = guardedAction('orders.refund', refundInput, asy
     jars: data.jars,
     restock: data.restock,
     reason: data.reason,
+    requestKey: data.requestKey,
   });
   return done(data.orderId);
 });

@@ -35,7 +35,11 @@ export default async function StockPage({
   const user = await requirePermission('stock.read', '/admin/stock');
   const parsed = ledgerListQuery.safeParse(queryRecord(await searchParams));
   const query = parsed.success ? parsed.data : ledgerListQuery.parse({});
-  const [totals, levels, ledger] = await Promise.all([stockTotals(), listStockLevels(), listLedger(user, query)]);
+  const [totals, levels, ledger] = await Promise.all([
+    stockTotals(user),
+    listStockLevels(user),
+    listLedger(user, query),
+  ]);
   const filters = Object.fromEntries(
     Object.entries({ productId: query.productId, lotId: query.lotId })
       .filter(([, v]) => v !== undefined)

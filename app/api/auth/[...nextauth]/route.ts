@@ -1,4 +1,7 @@
 import NextAuth from 'next-auth';
+import { NextRequest } from 'next/server';
+import { readBodyLimited } from '@/lib/http/body';
+import { handleRouteError } from '@/lib/http/json';
 import { authOptions } from '@/lib/auth/options';
 import { appUrl } from '@/lib/config/app-url';
 import { isThrottled } from '@/lib/data/auth/sign-in';
@@ -17,9 +20,21 @@ export function GET(req: Request, ctx: Ctx) {
  * checked (ASVS 6.3.1). next-auth's client reads the error from the returned URL.
  */
 export async function POST(req: Request, ctx: Ctx) {
+  // Sign-in, sign-out and CSRF posts are a few hundred bytes: read at most 16 KB while it streams.
+  let bytes: Uint8Array;
+  try {
+    bytes = await readBodyLimited(req, 16_000);
+  } catch (err) {
+    return handleRouteError(err);
+  }
+  const body = () =>
+    new NextRequest(req.url, {
+      method: req.method,
+      headers: req.headers,
+      body: bytes.byteLength ? (bytes as BodyInit) : null,
+    });
   if (new URL(req.url).pathname.endsWith('/callback/credentials')) {
-    const form = await req
-      .clone()
+    const form = await body()
       .formData()
       .catch(() => null);
     const email = String(form?.get('email') ?? '')
@@ -33,5 +48,5 @@ export async function POST(req: Request, ctx: Ctx) {
       );
     }
   }
-  return handler(req, ctx);
+  return handler(body(), ctx);
 }

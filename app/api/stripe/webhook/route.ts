@@ -2,8 +2,13 @@ import Stripe from 'stripe';
 import { stripe, webhookSecret } from '@/lib/payments/stripe';
 import { applyStripeEvent } from '@/lib/data/orders/payment';
 import { kickMail } from '@/lib/mail/outbox';
+import { readTextLimited } from '@/lib/http/body';
+import { handleRouteError } from '@/lib/http/json';
 
 export const dynamic = 'force-dynamic';
+
+/** Stripe's events are a few kilobytes; anything far larger is not one of them (read while streaming). */
+const MAX_EVENT_BYTES = 1_000_000;
 
 /**
  * Stripe's webhook. Only a request signed with our endpoint secret is read (constructEvent checks
@@ -11,9 +16,14 @@ export const dynamic = 'force-dynamic';
  * Each event id is applied once (lib/data/orders/payment.ts); a failure answers 500 so Stripe retries.
  */
 export async function POST(req: Request): Promise<Response> {
-  const body = await req.text();
   const signature = req.headers.get('stripe-signature');
   if (!signature) return Response.json({ error: 'Missing Stripe-Signature header.' }, { status: 400 });
+  let body: string;
+  try {
+    body = await readTextLimited(req, MAX_EVENT_BYTES, 'The event is too large.');
+  } catch (err) {
+    return handleRouteError(err);
+  }
   let event: Stripe.Event;
   try {
     event = stripe().webhooks.constructEvent(body, signature, webhookSecret());

@@ -18,7 +18,7 @@ export const metadata = { title: 'Jarring run' };
 export default async function JarringRunPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const user = await requirePermission('jarring.read', `/admin/jarring/${id}`);
-  const run = /^\d{1,9}$/.test(id) ? await getJarringRun(Number(id)) : null;
+  const run = /^\d{1,9}$/.test(id) ? await getJarringRun(user, Number(id)) : null;
   if (!run) notFound();
   const [settings, layouts] = await Promise.all([getSettings(), listLabelLayouts()]);
   const system = settings.weightSystem;
