@@ -18,6 +18,7 @@ import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { newEntryKey } from '@/components/ui/entry-key';
 import { useActionForm, type AnyResult } from '@/components/ui/use-action-form';
+import { TagInput } from '@/components/supers/tag-input';
 import { TreatmentCaution } from './treatment-caution';
 
 type Save<S extends z.ZodType, Res extends AnyResult = AnyResult> = (v: z.input<S>) => Promise<Res>;
@@ -185,7 +186,13 @@ export function TreatmentForm({
   );
 }
 
-export function SuperOnForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof superOnInput> }) {
+export function SuperOnForm({
+  colonyId,
+  today,
+  tags,
+  allowUntagged,
+  onSave,
+}: Base & { tags: string[]; allowUntagged: boolean; onSave: Save<typeof superOnInput> }) {
   const router = useRouter();
   const k = useEntryKey();
   const { form, submit, pending, errors, message } = useActionForm({
@@ -220,7 +227,14 @@ export function SuperOnForm({ colonyId, today, onSave }: Base & { onSave: Save<t
           registration={register('frameCount')}
           error={errors.frameCount}
         />
-        <TextField id="on-tag" label="Tag code (optional)" registration={register('tagCode')} error={errors.tagCode} />
+        <TagInput
+          id="on-tag"
+          label={allowUntagged ? 'Tag code (optional)' : 'Tag code'}
+          tags={tags}
+          registration={register('tagCode')}
+          error={errors.tagCode}
+          onScan={(code) => form.setValue('tagCode', code, { shouldValidate: true })}
+        />
         <TextField id="on-date" label="Put on" type="date" registration={register('putOnOn')} error={errors.putOnOn} />
       </div>
       <FormMessage {...message} />

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { listQuery } from './list-query';
-import { chosenFile } from './fields';
+import { canonicalTag, chosenFile } from './fields';
 import { LAB_FILE_MAX_BYTES } from '@/lib/domain/file-type';
 
 const id = z.coerce.number().int().positive();
@@ -35,7 +35,7 @@ export type LotDetailsInput = z.input<typeof lotDetailsInput>;
 
 export const scanSuperInput = z.object({
   lotId: id,
-  tagCode: z.string().trim().min(1, 'Scan or type a tag code.').max(30),
+  tagCode: z.string().trim().min(1, 'Scan or type a tag code.').max(30).transform(canonicalTag),
   overrideReason: z.string().trim().max(1000).optional(),
 });
 export type ScanSuperInput = z.input<typeof scanSuperInput>;
