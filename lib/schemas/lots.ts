@@ -138,6 +138,8 @@ export const stageInput = z.object({
   lotId: id,
   target: z.enum(['extracted', 'released', 'held']),
   reason: z.string().trim().max(1000).optional(),
+  /** Marking a gathering lot extracted: the day it was extracted (the best-before counts from it). */
+  extractedOn: z.union([z.literal('').transform(() => undefined), day]).optional(),
 });
 export type StageInput = z.input<typeof stageInput>;
 

@@ -57,6 +57,7 @@ export function lotSnapshot(lot: Lot): Record<string, unknown> {
     floralSource: lot.floralSource,
     heather: lot.heather,
     extractedOn: lot.extractedOn,
+    bestBeforeOn: lot.bestBeforeOn,
     netGrams: lot.netGrams,
     usedGrams: lot.usedGrams,
     cappingsWaxGrams: lot.cappingsWaxGrams,

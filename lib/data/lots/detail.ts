@@ -81,6 +81,8 @@ export type LotDetail = {
   floralSource: string;
   heather: boolean;
   extractedOn: string | null;
+  /** Set when the lot is marked extracted (or first jarred); jars carry it. */
+  bestBeforeOn: string | null;
   isBlend: boolean;
   notes: string;
   holdReasons: string[];
@@ -271,6 +273,7 @@ export async function getLotDetail(user: SessionUser, lotId: number): Promise<Lo
     floralSource: lot.floralSource,
     heather: lot.heather,
     extractedOn: lot.extractedOn,
+    bestBeforeOn: lot.bestBeforeOn ?? null,
     isBlend: lot.isBlend,
     notes: lot.notes,
     holdReasons: lot.holdReasons ?? [],
