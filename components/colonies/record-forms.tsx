@@ -20,8 +20,15 @@ import { newEntryKey } from '@/components/ui/entry-key';
 import { useActionForm, type AnyResult } from '@/components/ui/use-action-form';
 import { TagInput } from '@/components/supers/tag-input';
 import { TreatmentCaution } from './treatment-caution';
+import { markedMessage, SupersWarning, type SuperWarningView } from './supers-warning';
 
 type Save<S extends z.ZodType, Res extends AnyResult = AnyResult> = (v: z.input<S>) => Promise<Res>;
+/** A feeding or treatment answer: saved, or held back with the supers it would touch. */
+type RecordAnswer = ActionResult<{ saved: boolean; reflagged: number; warning: SuperWarningView | null }>;
+
+/** Not saved: the keeper chose to take the supers off first. */
+const TAKE_OFF_FIRST =
+  'Not saved. Take the supers off and record their pull, then save this again (or start it the day after the pull).';
 type Base = { colonyId: number; today: string };
 
 /** Fresh key after every saved entry: a retry of the same entry reuses it, a new entry never does. */
@@ -47,10 +54,11 @@ const FEEDING_NAMES = {
   other: 'Other',
 } as const;
 
-export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof feedingInput> }) {
+export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof feedingInput, RecordAnswer> }) {
   const router = useRouter();
   const k = useEntryKey();
-  const { form, submit, pending, errors, message } = useActionForm({
+  const [warning, setWarning] = useState<SuperWarningView | null>(null);
+  const { form, submit, run, pending, errors, message, setMessage } = useActionForm({
     schema: feedingInput,
     action: (v) => onSave({ ...v, idempotencyKey: k.key }),
     defaultValues: {
@@ -61,10 +69,13 @@ export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<t
       endedOn: '',
       note: '',
       idempotencyKey: k.key,
+      onSupers: 'ask',
     },
-    successMessage: 'Saved.',
-    resetOnSuccess: true,
-    onSuccess: () => {
+    successMessage: (r) => (r.saved ? markedMessage('feeding', r.warning) : undefined),
+    onSuccess: (r) => {
+      setWarning(r.saved ? null : r.warning);
+      if (!r.saved) return;
+      form.reset();
       k.renew();
       router.refresh();
     },
@@ -105,6 +116,18 @@ export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<t
           error={errors.endedOn}
         />
       </div>
+      {warning ? (
+        <SupersWarning
+          what="feeding"
+          warning={warning}
+          busy={pending}
+          onTakeOff={() => {
+            setWarning(null);
+            setMessage({ error: TAKE_OFF_FIRST });
+          }}
+          onMark={() => void run({ ...form.getValues(), onSupers: 'mark' })}
+        />
+      ) : null}
       <FormMessage {...message} />
       <Submit busy={pending} label="Save feeding" />
     </form>
@@ -118,11 +141,12 @@ export function TreatmentForm({
   onSave,
 }: Base & {
   kinds: { id: number; name: string; supersAllowed: boolean; waitingDays: number }[];
-  onSave: Save<typeof treatmentInput>;
+  onSave: Save<typeof treatmentInput, RecordAnswer>;
 }) {
   const router = useRouter();
   const k = useEntryKey();
-  const { form, submit, pending, errors, message } = useActionForm({
+  const [warning, setWarning] = useState<SuperWarningView | null>(null);
+  const { form, submit, run, pending, errors, message, setMessage } = useActionForm({
     schema: treatmentInput,
     action: (v) => onSave({ ...v, idempotencyKey: k.key }),
     defaultValues: {
@@ -133,10 +157,13 @@ export function TreatmentForm({
       removedOn: '',
       note: '',
       idempotencyKey: k.key,
+      onSupers: 'ask',
     },
-    successMessage: 'Saved.',
-    resetOnSuccess: true,
-    onSuccess: () => {
+    successMessage: (r) => (r.saved ? markedMessage('treatment', r.warning) : undefined),
+    onSuccess: (r) => {
+      setWarning(r.saved ? null : r.warning);
+      if (!r.saved) return;
+      form.reset();
       k.renew();
       router.refresh();
     },
@@ -180,6 +207,18 @@ export function TreatmentForm({
           error={errors.removedOn}
         />
       </div>
+      {warning ? (
+        <SupersWarning
+          what="treatment"
+          warning={warning}
+          busy={pending}
+          onTakeOff={() => {
+            setWarning(null);
+            setMessage({ error: TAKE_OFF_FIRST });
+          }}
+          onMark={() => void run({ ...form.getValues(), onSupers: 'mark' })}
+        />
+      ) : null}
       <FormMessage {...message} />
       <Submit busy={pending} label="Save treatment" />
     </form>

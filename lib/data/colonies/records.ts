@@ -1,13 +1,49 @@
 import 'server-only';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
-import type { FeedingKind } from '@/lib/domain/conflicts';
+import type { Transaction } from 'sequelize';
+import { supersAtRisk, type FeedingKind, type SupersAtRisk } from '@/lib/domain/conflicts';
 import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { recordAudit } from '@/lib/data/audit';
 import { writableColony } from './write';
 import { recomputeColonyFlags } from '@/lib/data/supers/flags';
 
-/** Adds a feeding (idempotent by key) and re-checks the colony's pulled supers. */
+/**
+ * What to do when the record would touch supers still on the hive: `ask` saves nothing and
+ * returns the warning (the form then offers to take them off first or to mark them); `mark` saves
+ * and flags those supers now. A sender that cannot ask (a queued entry, the API) gets `mark`: the
+ * entry is never lost, never saved silently, and its result carries the warning.
+ */
+export type OnSupers = 'ask' | 'mark';
+export type SuperWarning = NonNullable<SupersAtRisk>;
+export type RecordResult = { saved: boolean; reflagged: number; warning: SuperWarning | null };
+
+async function supersOnHive(colonyId: number, t: Transaction) {
+  const rows = await getDb().models.SuperPull.findAll({
+    where: { colonyId, pulledOn: null, voidedAt: null },
+    order: [['id', 'ASC']],
+    transaction: t,
+    lock: t.LOCK.UPDATE,
+  });
+  return rows.map((r) => ({ id: r.id, tagCode: r.tagCode ?? null, depth: r.depth, putOnOn: r.putOnOn ?? null }));
+}
+
+/** Flags the supers still on the hive that the new record touches (a pull recomputes the same flag later). */
+async function markSupers(warning: SuperWarning, t: Transaction): Promise<number> {
+  const { models } = getDb();
+  for (const s of warning.supers) {
+    const row = await models.SuperPull.findByPk(s.id, { transaction: t });
+    if (!row) continue;
+    const reasons = row.flagReasons.includes(warning.reason) ? row.flagReasons : [...row.flagReasons, warning.reason];
+    await row.update({ flagged: true, flagReasons: reasons }, { transaction: t });
+  }
+  return warning.supers.length;
+}
+
+/**
+ * Adds a feeding (idempotent by key) and re-checks the colony's pulled supers. Sugar fed while
+ * supers are on the hive is caught now, not at the pull: see `OnSupers`.
+ */
 export async function addFeeding(
   user: SessionUser,
   input: {
@@ -18,24 +54,36 @@ export async function addFeeding(
     endedOn: string | null;
     note: string;
     idempotencyKey: string;
+    onSupers?: OnSupers;
   },
-): Promise<{ reflagged: number }> {
+): Promise<RecordResult> {
   const { sequelize, models } = getDb();
-  if (await models.Feeding.findOne({ where: { idempotencyKey: input.idempotencyKey } })) return { reflagged: 0 };
+  const { onSupers = 'mark', ...fields } = input;
+  if (await models.Feeding.findOne({ where: { idempotencyKey: input.idempotencyKey } }))
+    return { saved: true, reflagged: 0, warning: null };
   return sequelize.transaction(async (t) => {
     const colony = await writableColony(user, input.colonyId, t);
-    const row = await models.Feeding.create({ ...input, colonyId: colony.id, recordedBy: user.id }, { transaction: t });
+    const warning = supersAtRisk(
+      { feeding: { kind: input.kind, startedOn: input.startedOn, endedOn: input.endedOn } },
+      await supersOnHive(colony.id, t),
+    );
+    if (warning && onSupers === 'ask') return { saved: false, reflagged: 0, warning };
+    const row = await models.Feeding.create(
+      { ...fields, colonyId: colony.id, recordedBy: user.id },
+      { transaction: t },
+    );
     await recordAudit(
       {
         actorUserId: user.id,
         action: 'feeding.create',
         entityType: 'colony',
         entityId: colony.id,
-        after: row.get({ plain: true }),
+        after: { ...row.get({ plain: true }), ...(warning ? { markedSupers: warning.supers.map((s) => s.id) } : {}) },
       },
       t,
     );
-    return { reflagged: await recomputeColonyFlags(colony.id, t) };
+    const marked = warning ? await markSupers(warning, t) : 0;
+    return { saved: true, reflagged: marked + (await recomputeColonyFlags(colony.id, t)), warning };
   });
 }
 
@@ -78,17 +126,35 @@ export async function addTreatment(
     removedOn: string | null;
     note: string;
     idempotencyKey: string;
+    onSupers?: OnSupers;
   },
-): Promise<{ reflagged: number }> {
+): Promise<RecordResult> {
   const { sequelize, models } = getDb();
-  if (await models.Treatment.findOne({ where: { idempotencyKey: input.idempotencyKey } })) return { reflagged: 0 };
+  const { onSupers = 'mark', ...fields } = input;
+  if (await models.Treatment.findOne({ where: { idempotencyKey: input.idempotencyKey } }))
+    return { saved: true, reflagged: 0, warning: null };
   return sequelize.transaction(async (t) => {
     const colony = await writableColony(user, input.colonyId, t);
     const kind = await models.TreatmentKind.findByPk(input.treatmentKindId, { transaction: t });
     if (!kind || !kind.active) throw new InvalidError('Choose a treatment kind from the list.');
+    // A label that forbids supers needs the keeper's confirmation while supers are on the hive.
+    const warning = supersAtRisk(
+      {
+        treatment: {
+          kindName: kind.name,
+          productName: input.productName,
+          supersAllowed: kind.supersAllowed,
+          waitingDays: kind.waitingDays,
+          appliedOn: input.appliedOn,
+          removedOn: input.removedOn,
+        },
+      },
+      await supersOnHive(colony.id, t),
+    );
+    if (warning && onSupers === 'ask') return { saved: false, reflagged: 0, warning };
     const row = await models.Treatment.create(
       {
-        ...input,
+        ...fields,
         colonyId: colony.id,
         supersAllowed: kind.supersAllowed,
         waitingDays: kind.waitingDays,
@@ -102,11 +168,12 @@ export async function addTreatment(
         action: 'treatment.create',
         entityType: 'colony',
         entityId: colony.id,
-        after: row.get({ plain: true }),
+        after: { ...row.get({ plain: true }), ...(warning ? { markedSupers: warning.supers.map((s) => s.id) } : {}) },
       },
       t,
     );
-    return { reflagged: await recomputeColonyFlags(colony.id, t) };
+    const marked = warning ? await markSupers(warning, t) : 0;
+    return { saved: true, reflagged: marked + (await recomputeColonyFlags(colony.id, t)), warning };
   });
 }
 
