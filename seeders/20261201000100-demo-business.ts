@@ -21,6 +21,8 @@ export async function up({ context: q }: { context: QueryInterface }) {
       weight_system: 'metric',
       gs1_company_prefix: '0614141',
       lot_code_prefix: 'HH',
+      // The demo keepers also pull straight from the yard without reading tags.
+      allow_untagged_supers: true,
       shipping_bands: JSON.stringify([
         { upToGrams: 1000, cents: 595 },
         { upToGrams: 3000, cents: 895 },

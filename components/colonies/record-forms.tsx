@@ -1,7 +1,6 @@
 'use client';
-import { useState, type ComponentProps } from 'react';
+import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import type { DefaultValues, FieldValues } from 'react-hook-form';
 import type { z } from 'zod';
 import {
   feedingInput,
@@ -16,39 +15,26 @@ import {
 import { superOnInput, SUPER_DEPTHS } from '@/lib/schemas/supers';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
-import { SelectField, namedChoices } from '@/components/ui/select-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { newEntryKey } from '@/components/ui/entry-key';
-import { useActionForm, type AnyResult, type ResultData } from '@/components/ui/use-action-form';
+import { useActionForm, type AnyResult } from '@/components/ui/use-action-form';
+import { TagInput } from '@/components/supers/tag-input';
 import { TreatmentCaution } from './treatment-caution';
+import { markedMessage, SupersWarning, type SuperWarningView } from './supers-warning';
 
 type Save<S extends z.ZodType, Res extends AnyResult = AnyResult> = (v: z.input<S>) => Promise<Res>;
-type Base = { colonyId: number; today: string };
-type Keyed = { idempotencyKey: string };
+/** A feeding or treatment answer: saved, or held back with the supers it would touch. */
+type RecordAnswer = ActionResult<{ saved: boolean; reflagged: number; warning: SuperWarningView | null }>;
 
-/**
- * The form of one entry sent with its own key: a retry of the same entry reuses the key, the next entry gets a fresh
- * one. A saved entry is confirmed, the form cleared and the page refreshed; `then` (a split) goes elsewhere instead.
- */
-function useEntryForm<S extends z.ZodType<FieldValues & Keyed, FieldValues>, Res extends AnyResult>(
-  schema: S,
-  onSave: (v: z.output<S>) => Promise<Res>,
-  defaultValues: DefaultValues<z.input<S>>,
-  then?: (data: ResultData<Res>) => void,
-) {
-  const router = useRouter();
+/** Not saved: the keeper chose to take the supers off first. */
+const TAKE_OFF_FIRST =
+  'Not saved. Take the supers off and record their pull, then save this again (or start it the day after the pull).';
+type Base = { colonyId: number; today: string };
+
+/** Fresh key after every saved entry: a retry of the same entry reuses it, a new entry never does. */
+function useEntryKey() {
   const [key, setKey] = useState(newEntryKey);
-  return useActionForm({
-    schema,
-    action: (v) => onSave({ ...v, idempotencyKey: key }),
-    defaultValues: { ...defaultValues, idempotencyKey: key },
-    ...(then ? {} : { successMessage: 'Saved.', resetOnSuccess: true }),
-    onSuccess: (data) => {
-      setKey(newEntryKey());
-      if (then) then(data);
-      else router.refresh();
-    },
-  });
+  return { key, renew: () => setKey(newEntryKey()) };
 }
 
 function Submit({ busy, label }: { busy: boolean; label: string }) {
@@ -61,16 +47,6 @@ function Submit({ busy, label }: { busy: boolean; label: string }) {
   );
 }
 
-/** A record that runs from one day to another (a feeding, a treatment); the end is blank while it runs. */
-function DateSpan({ start, end }: { start: ComponentProps<typeof TextField>; end: ComponentProps<typeof TextField> }) {
-  return (
-    <div className="grid gap-3 sm:grid-cols-2">
-      <TextField type="date" {...start} />
-      <TextField type="date" {...end} />
-    </div>
-  );
-}
-
 const FEEDING_NAMES = {
   sugar_syrup: 'Sugar syrup',
   fondant: 'Fondant / candy',
@@ -78,33 +54,80 @@ const FEEDING_NAMES = {
   other: 'Other',
 } as const;
 
-export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof feedingInput> }) {
-  const { form, field, submit, pending, message } = useEntryForm(feedingInput, onSave, {
-    colonyId,
-    kind: 'sugar_syrup',
-    amount: '',
-    startedOn: today,
-    endedOn: '',
-    note: '',
+export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof feedingInput, RecordAnswer> }) {
+  const router = useRouter();
+  const k = useEntryKey();
+  const [warning, setWarning] = useState<SuperWarningView | null>(null);
+  const { form, submit, run, pending, errors, message, setMessage } = useActionForm({
+    schema: feedingInput,
+    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
+    defaultValues: {
+      colonyId,
+      kind: 'sugar_syrup',
+      amount: '',
+      startedOn: today,
+      endedOn: '',
+      note: '',
+      idempotencyKey: k.key,
+      onSupers: 'ask',
+    },
+    successMessage: (r) => (r.saved ? markedMessage('feeding', r.warning) : undefined),
+    onSuccess: (r) => {
+      setWarning(r.saved ? null : r.warning);
+      if (!r.saved) return;
+      form.reset();
+      k.renew();
+      router.refresh();
+    },
   });
   const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a feeding">
-      <SelectField
-        id="feed-kind"
-        label="Feed"
-        registration={register('kind')}
-        options={FEEDING_KINDS.map((f) => ({ value: f, label: FEEDING_NAMES[f] }))}
+      <label className="field" htmlFor="feed-kind">
+        <span>Feed</span>
+        <select id="feed-kind" className="input min-h-11" {...register('kind')}>
+          {FEEDING_KINDS.map((f) => (
+            <option key={f} value={f}>
+              {FEEDING_NAMES[f]}
+            </option>
+          ))}
+        </select>
+      </label>
+      <TextField
+        id="feed-amount"
+        label="Amount"
+        hint="e.g. 2 L 1:1, 1 kg"
+        registration={register('amount')}
+        error={errors.amount}
       />
-      <TextField id="feed-amount" label="Amount" hint="e.g. 2 L 1:1, 1 kg" {...field('amount')} />
-      <DateSpan
-        start={{ id: 'feed-start', label: 'Started', ...field('startedOn') }}
-        end={{
-          id: 'feed-end',
-          label: 'Ended (blank if still feeding)',
-          ...field('endedOn'),
-        }}
-      />
+      <div className="grid gap-3 sm:grid-cols-2">
+        <TextField
+          id="feed-start"
+          label="Started"
+          type="date"
+          registration={register('startedOn')}
+          error={errors.startedOn}
+        />
+        <TextField
+          id="feed-end"
+          label="Ended (blank if still feeding)"
+          type="date"
+          registration={register('endedOn')}
+          error={errors.endedOn}
+        />
+      </div>
+      {warning ? (
+        <SupersWarning
+          what="feeding"
+          warning={warning}
+          busy={pending}
+          onTakeOff={() => {
+            setWarning(null);
+            setMessage({ error: TAKE_OFF_FIRST });
+          }}
+          onMark={() => void run({ ...form.getValues(), onSupers: 'mark' })}
+        />
+      ) : null}
       <FormMessage {...message} />
       <Submit busy={pending} label="Save feeding" />
     </form>
@@ -118,64 +141,140 @@ export function TreatmentForm({
   onSave,
 }: Base & {
   kinds: { id: number; name: string; supersAllowed: boolean; waitingDays: number }[];
-  onSave: Save<typeof treatmentInput>;
+  onSave: Save<typeof treatmentInput, RecordAnswer>;
 }) {
-  const { form, field, submit, pending, message } = useEntryForm(treatmentInput, onSave, {
-    colonyId,
-    treatmentKindId: kinds[0]?.id,
-    productName: '',
-    appliedOn: today,
-    removedOn: '',
-    note: '',
+  const router = useRouter();
+  const k = useEntryKey();
+  const [warning, setWarning] = useState<SuperWarningView | null>(null);
+  const { form, submit, run, pending, errors, message, setMessage } = useActionForm({
+    schema: treatmentInput,
+    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
+    defaultValues: {
+      colonyId,
+      treatmentKindId: kinds[0]?.id,
+      productName: '',
+      appliedOn: today,
+      removedOn: '',
+      note: '',
+      idempotencyKey: k.key,
+      onSupers: 'ask',
+    },
+    successMessage: (r) => (r.saved ? markedMessage('treatment', r.warning) : undefined),
+    onSuccess: (r) => {
+      setWarning(r.saved ? null : r.warning);
+      if (!r.saved) return;
+      form.reset();
+      k.renew();
+      router.refresh();
+    },
   });
   const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a mite treatment">
       <TreatmentCaution />
-      <SelectField
-        id="treat-kind"
-        label="Treatment kind"
-        registration={register('treatmentKindId')}
-        options={kinds.map((x) => ({
-          value: x.id,
-          label: `${x.name} — ${
-            x.supersAllowed
-              ? 'supers allowed (per your list)'
-              : `no supers${x.waitingDays ? `, wait ${x.waitingDays} d` : ''}`
-          }`,
-        }))}
+      <label className="field" htmlFor="treat-kind">
+        <span>Treatment kind</span>
+        <select id="treat-kind" className="input min-h-11" {...register('treatmentKindId')}>
+          {kinds.map((x) => (
+            <option key={x.id} value={x.id}>
+              {x.name} —{' '}
+              {x.supersAllowed
+                ? 'supers allowed (per your list)'
+                : `no supers${x.waitingDays ? `, wait ${x.waitingDays} d` : ''}`}
+            </option>
+          ))}
+        </select>
+      </label>
+      <TextField
+        id="treat-product"
+        label="Product name"
+        registration={register('productName')}
+        error={errors.productName}
       />
-      <TextField id="treat-product" label="Product name" {...field('productName')} />
-      <DateSpan
-        start={{ id: 'treat-on', label: 'Applied', ...field('appliedOn') }}
-        end={{
-          id: 'treat-off',
-          label: 'Removed (blank if still on)',
-          ...field('removedOn'),
-        }}
-      />
+      <div className="grid gap-3 sm:grid-cols-2">
+        <TextField
+          id="treat-on"
+          label="Applied"
+          type="date"
+          registration={register('appliedOn')}
+          error={errors.appliedOn}
+        />
+        <TextField
+          id="treat-off"
+          label="Removed (blank if still on)"
+          type="date"
+          registration={register('removedOn')}
+          error={errors.removedOn}
+        />
+      </div>
+      {warning ? (
+        <SupersWarning
+          what="treatment"
+          warning={warning}
+          busy={pending}
+          onTakeOff={() => {
+            setWarning(null);
+            setMessage({ error: TAKE_OFF_FIRST });
+          }}
+          onMark={() => void run({ ...form.getValues(), onSupers: 'mark' })}
+        />
+      ) : null}
       <FormMessage {...message} />
       <Submit busy={pending} label="Save treatment" />
     </form>
   );
 }
 
-export function SuperOnForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof superOnInput> }) {
-  const { form, field, submit, pending, message } = useEntryForm(superOnInput, onSave, {
-    colonyId,
-    depth: 'medium',
-    frameCount: 10,
-    tagCode: '',
-    putOnOn: today,
+export function SuperOnForm({
+  colonyId,
+  today,
+  tags,
+  allowUntagged,
+  onSave,
+}: Base & { tags: string[]; allowUntagged: boolean; onSave: Save<typeof superOnInput> }) {
+  const router = useRouter();
+  const k = useEntryKey();
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: superOnInput,
+    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
+    defaultValues: { colonyId, depth: 'medium', frameCount: 10, tagCode: '', putOnOn: today, idempotencyKey: k.key },
+    successMessage: 'Saved.',
+    resetOnSuccess: true,
+    onSuccess: () => {
+      k.renew();
+      router.refresh();
+    },
   });
   const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a super put on">
       <div className="grid gap-3 sm:grid-cols-2">
-        <SelectField id="on-depth" label="Box depth" registration={register('depth')} options={SUPER_DEPTHS} />
-        <TextField id="on-frames" label="Frames" inputMode="numeric" {...field('frameCount')} />
-        <TextField id="on-tag" label="Tag code (optional)" {...field('tagCode')} />
-        <TextField id="on-date" label="Put on" type="date" {...field('putOnOn')} />
+        <label className="field" htmlFor="on-depth">
+          <span>Box depth</span>
+          <select id="on-depth" className="input min-h-11" {...register('depth')}>
+            {SUPER_DEPTHS.map((d) => (
+              <option key={d} value={d}>
+                {d}
+              </option>
+            ))}
+          </select>
+        </label>
+        <TextField
+          id="on-frames"
+          label="Frames"
+          inputMode="numeric"
+          registration={register('frameCount')}
+          error={errors.frameCount}
+        />
+        <TagInput
+          id="on-tag"
+          label={allowUntagged ? 'Tag code (optional)' : 'Tag code'}
+          tags={tags}
+          registration={register('tagCode')}
+          error={errors.tagCode}
+          onScan={(code) => form.setValue('tagCode', code, { shouldValidate: true })}
+        />
+        <TextField id="on-date" label="Put on" type="date" registration={register('putOnOn')} error={errors.putOnOn} />
       </div>
       <FormMessage {...message} />
       <Submit busy={pending} label="Save super on" />
@@ -184,10 +283,18 @@ export function SuperOnForm({ colonyId, today, onSave }: Base & { onSave: Save<t
 }
 
 export function NoteForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof noteInput> }) {
-  const { form, field, submit, pending, errors, message } = useEntryForm(noteInput, onSave, {
-    colonyId,
-    occurredOn: today,
-    note: '',
+  const router = useRouter();
+  const k = useEntryKey();
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: noteInput,
+    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
+    defaultValues: { colonyId, occurredOn: today, note: '', idempotencyKey: k.key },
+    successMessage: 'Saved.',
+    resetOnSuccess: true,
+    onSuccess: () => {
+      k.renew();
+      router.refresh();
+    },
   });
   const { register } = form;
   return (
@@ -201,7 +308,13 @@ export function NoteForm({ colonyId, today, onSave }: Base & { onSave: Save<type
           </small>
         ) : null}
       </label>
-      <TextField id="note-date" label="Date" type="date" {...field('occurredOn')} />
+      <TextField
+        id="note-date"
+        label="Date"
+        type="date"
+        registration={register('occurredOn')}
+        error={errors.occurredOn}
+      />
       <FormMessage {...message} />
       <Submit busy={pending} label="Save note" />
     </form>
@@ -214,18 +327,35 @@ export function SplitForm({
   onSave,
 }: Base & { onSave: Save<typeof splitInput, ActionResult<{ id: number }>> }) {
   const router = useRouter();
-  const { field, submit, pending, message } = useEntryForm(
-    splitInput,
-    onSave,
-    { colonyId, newCode: '', occurredOn: today, queenYear: '', note: '' },
-    (data) => router.push(`/admin/colonies/${data.id}`),
-  );
+  const k = useEntryKey();
+  const { form, submit, pending, errors, message } = useActionForm({
+    schema: splitInput,
+    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
+    defaultValues: { colonyId, newCode: '', occurredOn: today, queenYear: '', note: '', idempotencyKey: k.key },
+    onSuccess: (data) => {
+      k.renew();
+      router.push(`/admin/colonies/${data.id}`);
+    },
+  });
+  const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a split">
       <div className="grid gap-3 sm:grid-cols-2">
-        <TextField id="split-code" label="New colony code" {...field('newCode')} />
-        <TextField id="split-date" label="Split on" type="date" {...field('occurredOn')} />
-        <TextField id="split-queen" label="New queen year (optional)" inputMode="numeric" {...field('queenYear')} />
+        <TextField id="split-code" label="New colony code" registration={register('newCode')} error={errors.newCode} />
+        <TextField
+          id="split-date"
+          label="Split on"
+          type="date"
+          registration={register('occurredOn')}
+          error={errors.occurredOn}
+        />
+        <TextField
+          id="split-queen"
+          label="New queen year (optional)"
+          inputMode="numeric"
+          registration={register('queenYear')}
+          error={errors.queenYear}
+        />
       </div>
       <FormMessage {...message} />
       <Submit busy={pending} label="Save split" />
@@ -240,7 +370,7 @@ export function MoveForm({
   onSave,
 }: Base & { yards: { id: number; name: string }[]; onSave: Save<typeof moveInput> }) {
   const router = useRouter();
-  const { form, field, submit, pending, message } = useActionForm({
+  const { form, submit, pending, errors, message } = useActionForm({
     schema: moveInput,
     action: onSave,
     defaultValues: { colonyId, yardId: yards[0]?.id, occurredOn: today, note: '' },
@@ -251,8 +381,23 @@ export function MoveForm({
   if (yards.length === 0) return <p className="hint">No other yard to move to.</p>;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Move to another yard">
-      <SelectField id="move-yard" label="Move to" registration={register('yardId')} options={namedChoices(yards)} />
-      <TextField id="move-date" label="Moved on" type="date" {...field('occurredOn')} />
+      <label className="field" htmlFor="move-yard">
+        <span>Move to</span>
+        <select id="move-yard" className="input min-h-11" {...register('yardId')}>
+          {yards.map((y) => (
+            <option key={y.id} value={y.id}>
+              {y.name}
+            </option>
+          ))}
+        </select>
+      </label>
+      <TextField
+        id="move-date"
+        label="Moved on"
+        type="date"
+        registration={register('occurredOn')}
+        error={errors.occurredOn}
+      />
       <FormMessage {...message} />
       <Submit busy={pending} label="Move colony" />
     </form>
@@ -266,7 +411,7 @@ export function StatusForm({
   onSave,
 }: Base & { status: string; onSave: Save<typeof statusInput> }) {
   const router = useRouter();
-  const { form, field, submit, pending, message } = useActionForm({
+  const { form, submit, pending, errors, message } = useActionForm({
     schema: statusInput,
     action: onSave,
     defaultValues: { colonyId, status: status as 'active', combinedIntoCode: '', occurredOn: today, note: '' },
@@ -276,22 +421,31 @@ export function StatusForm({
   const { register, watch } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Change status">
-      <SelectField
-        id="status-value"
-        label="Status"
-        registration={register('status')}
-        options={[
-          'active',
-          { value: 'dead_out', label: 'dead-out' },
-          { value: 'combined', label: 'combined into another colony' },
-          'sold',
-        ]}
-      />
+      <label className="field" htmlFor="status-value">
+        <span>Status</span>
+        <select id="status-value" className="input min-h-11" {...register('status')}>
+          <option value="active">active</option>
+          <option value="dead_out">dead-out</option>
+          <option value="combined">combined into another colony</option>
+          <option value="sold">sold</option>
+        </select>
+      </label>
       {watch('status') === 'combined' ? (
-        <TextField id="status-into" label="Combined into (colony code)" {...field('combinedIntoCode')} />
+        <TextField
+          id="status-into"
+          label="Combined into (colony code)"
+          registration={register('combinedIntoCode')}
+          error={errors.combinedIntoCode}
+        />
       ) : null}
-      <TextField id="status-date" label="Date" type="date" {...field('occurredOn')} />
-      <TextField id="status-note" label="Note" {...field('note')} />
+      <TextField
+        id="status-date"
+        label="Date"
+        type="date"
+        registration={register('occurredOn')}
+        error={errors.occurredOn}
+      />
+      <TextField id="status-note" label="Note" registration={register('note')} error={errors.note} />
       <FormMessage {...message} />
       <Submit busy={pending} label="Save status" />
     </form>

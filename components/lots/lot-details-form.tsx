@@ -1,4 +1,5 @@
 'use client';
+import { useEffect } from 'react';
 import { lotDetailsInput, type LotDetailsInput } from '@/lib/schemas/lots';
 import { HONEY_SOURCES } from '@/lib/domain/lab-results';
 import type { ActionResult } from '@/lib/schemas/result';
@@ -22,6 +23,11 @@ export function LotDetailsForm({
     defaultValues: defaults,
     successMessage: 'Details saved.',
   });
+  // Marking the lot extracted sets its date elsewhere on the page: show it here at once, not after a reload.
+  const { setValue } = form;
+  useEffect(() => {
+    setValue('extractedOn', defaults.extractedOn ?? '');
+  }, [defaults.extractedOn, setValue]);
   return (
     <form onSubmit={submit} className="grid gap-3 sm:grid-cols-2" noValidate aria-label="Lot details">
       <TextField label="Floral source" {...field('floralSource')} list="floral-sources" autoComplete="off" />

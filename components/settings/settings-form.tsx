@@ -99,6 +99,18 @@ export function SettingsForm({
         <TextField label="Water-insoluble max, g/100 g" {...field('insolubleMaxG100g')} inputMode="decimal" />
         <TextField label="Best before, months after extraction" {...field('bestBeforeMonths')} inputMode="numeric" />
         <TextField label="Expected jarring loss, %" {...field('expectedLossPct')} inputMode="decimal" />
+        <label className="flex items-start gap-2 sm:col-span-2" htmlFor="allowUntaggedSupers">
+          <input
+            id="allowUntaggedSupers"
+            type="checkbox"
+            className="mt-1 size-5"
+            {...form.register('allowUntaggedSupers')}
+          />
+          <span>
+            Allow supers with no tag (put on and pulled without a printed tag code). Off: every super on and every pull
+            names a tag from your tag list.
+          </span>
+        </label>
       </fieldset>
       <fieldset className="grid gap-4 card sm:grid-cols-2">
         <legend className="font-heading text-lg font-semibold text-forest-800">Labels and fill checks</legend>

@@ -1,4 +1,5 @@
 'use client';
+import { CameraScan } from '@/components/lots/camera-scan';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { Check, CloudOff, RotateCw, TriangleAlert } from 'lucide-react';
 import { SUPER_DEPTHS, type PullEntry } from '@/lib/schemas/supers';
@@ -39,7 +40,8 @@ type Shown = {
   reasons?: string[];
   message?: string;
 };
-type Colony = { id: number; code: string; lastPulledOn: string | null };
+/** `tags`: the tags on this hive now, offered as a pick list for the pull. */
+type Colony = { id: number; code: string; lastPulledOn: string | null; tags?: string[] };
 
 const DEPTH_KEY = 'combtrace.pull.depth';
 const FRAMES_KEY = 'combtrace.pull.frames';
@@ -177,12 +179,20 @@ function Details({
         <span>Tag code</span>
         <input
           id={id('t')}
-          className="input min-h-11"
+          className="input min-h-11 font-mono uppercase"
           autoCapitalize="characters"
+          autoComplete="off"
+          list={id('tags')}
           value={String(value.tagCode ?? '')}
-          onChange={(e) => onChange({ tagCode: e.target.value })}
+          onChange={(e) => onChange({ tagCode: e.target.value.toUpperCase() })}
         />
+        <datalist id={id('tags')}>
+          {(colony.tags ?? []).map((t) => (
+            <option key={t} value={t} />
+          ))}
+        </datalist>
       </label>
+      <CameraScan onCode={(code) => onChange({ tagCode: code.trim().toUpperCase() })} />
     </div>
   );
 }

@@ -88,3 +88,45 @@ export function superConflicts(
 
   return { flagged: reasons.length > 0, reasons };
 }
+
+/** A super still on the hive (not pulled, not voided). */
+export type SuperOnHive = { id: number; tagCode: string | null; depth: string; putOnOn: string | null };
+export type SupersAtRisk = { supers: (SuperOnHive & { label: string })[]; reason: string } | null;
+
+/** How a keeper recognises a super on the hive: its tag, or its depth and put-on day. */
+export function superLabel(s: Pick<SuperOnHive, 'tagCode' | 'depth' | 'putOnOn'>): string {
+  if (s.tagCode) return `super ${s.tagCode}`;
+  return `untagged ${s.depth} super put on ${s.putOnOn ?? '(day not recorded)'}`;
+}
+
+/**
+ * The supers on the hive now that a feeding or treatment being recorded would touch, by the same
+ * rule as `superConflicts` (sugar syrup or fondant; a treatment whose label does not allow supers,
+ * through its waiting period). A super still on has no pull date yet: it counts when it went on
+ * on or before the record's last day (any day, for a record still going on). Null when none.
+ */
+export function supersAtRisk(
+  record: { feeding: FeedingRecord } | { treatment: TreatmentRecord },
+  onHive: SuperOnHive[],
+): SupersAtRisk {
+  let lastDay: number | null;
+  let reason: string;
+  if ('feeding' in record) {
+    const f = record.feeding;
+    const name = SUGAR_NAMES[f.kind];
+    if (!name) return null;
+    dayNumber(f.startedOn);
+    lastDay = f.endedOn === null ? null : dayNumber(f.endedOn);
+    reason = `${name} fed ${f.endedOn === null ? `from ${f.startedOn} (still ongoing)` : `${f.startedOn} to ${f.endedOn}`} while this super was on`;
+  } else {
+    const t = record.treatment;
+    if (t.supersAllowed) return null;
+    if (!Number.isInteger(t.waitingDays) || t.waitingDays < 0)
+      throw new RangeError(`Waiting days must be a whole number ≥ 0 (${treatmentName(t)})`);
+    dayNumber(t.appliedOn);
+    lastDay = t.removedOn === null ? null : dayNumber(t.removedOn) + t.waitingDays;
+    reason = `${treatmentName(t)} applied ${t.appliedOn}${t.removedOn === null ? ' (still on)' : `, removed ${t.removedOn}`} while this super was on; its label does not allow honey supers`;
+  }
+  const hit = onHive.filter((s) => lastDay === null || s.putOnOn === null || dayNumber(s.putOnOn) <= lastDay);
+  return hit.length === 0 ? null : { supers: hit.map((s) => ({ ...s, label: superLabel(s) })), reason };
+}

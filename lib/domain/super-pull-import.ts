@@ -115,7 +115,8 @@ export function validatePullRows(
       }
     }
 
-    const tagCode = get(mapping.tagCode) || null;
+    // Tags are printed in capitals; a sheet's "wt-0001" is the same box as "WT-0001".
+    const tagCode = get(mapping.tagCode).toUpperCase() || null;
     const key = colonyText && pulledOn ? `${colonyCode ?? colonyText}|${pulledOn}|${tagCode ?? ''}` : null;
     const firstRow = key === null ? undefined : seenKeys.get(key);
     if (firstRow !== undefined) messages.push(`Same colony, date and tag as row ${firstRow}`);

@@ -57,6 +57,12 @@ export const noteInput = z.object({
 });
 
 // ---- feedings and treatments ----
+/**
+ * Supers on the hive during a sugar feeding or a treatment whose label forbids them: `ask` (the
+ * form) saves nothing and returns the warning; `mark` saves and flags them now. Left out (a queued
+ * entry, the API) means `mark`, so an entry is never lost and never saved without its warning.
+ */
+export const onSupers = z.enum(['ask', 'mark']).default('mark');
 export const FEEDING_KINDS = ['sugar_syrup', 'fondant', 'pollen_substitute', 'other'] as const;
 const endAfterStart = <T extends { startedOn: string; endedOn: string | null }>(v: T) =>
   v.endedOn === null || v.endedOn >= v.startedOn;
@@ -69,6 +75,7 @@ export const feedingInput = z
     endedOn: optionalDay,
     note: safeString().trim().max(500).default(''),
     idempotencyKey,
+    onSupers,
   })
   .refine(endAfterStart, { path: ['endedOn'], message: 'Ends before it starts' });
 export const feedingEndInput = z.object({ feedingId: id, endedOn: isoDay });
@@ -82,6 +89,7 @@ export const treatmentInput = z
     removedOn: optionalDay,
     note: safeString().trim().max(500).default(''),
     idempotencyKey,
+    onSupers,
   })
   .refine((v) => v.removedOn === null || v.removedOn >= v.appliedOn, {
     path: ['removedOn'],

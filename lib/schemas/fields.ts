@@ -23,8 +23,11 @@ export const code = z
   .min(1, 'Required')
   .max(30, 'At most 30 characters')
   .regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'Letters, digits, dot, dash or underscore');
+/** One spelling of a printed tag: upper case, as the tag sheets print it ("wt-0001" is "WT-0001"). */
+export const canonicalTag = (value: string) => value.trim().toUpperCase();
+/** An optional super tag code, upper-cased on every path (forms, scan, import, API). */
 export const tagCode = z
-  .union([code, z.literal('').transform(() => null), z.null()])
+  .union([code.transform(canonicalTag), z.literal('').transform(() => null), z.null()])
   .optional()
   .transform((v) => v ?? null);
 /** An optional number: blank, NaN (an empty number input) and missing all become null. */

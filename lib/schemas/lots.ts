@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { listQuery } from './list-query';
-import { chosenFile, safeString } from './fields';
+import { canonicalTag, chosenFile, safeString } from './fields';
 import { LAB_FILE_MAX_BYTES } from '@/lib/domain/file-type';
 import { HONEY_SOURCES, type HoneySource } from '@/lib/domain/lab-results';
 
@@ -48,7 +48,7 @@ export type LotDetailsInput = z.input<typeof lotDetailsInput>;
 
 export const scanSuperInput = z.object({
   lotId: id,
-  tagCode: safeString().trim().min(1, 'Scan or type a tag code.').max(30),
+  tagCode: safeString().trim().min(1, 'Scan or type a tag code.').max(30).transform(canonicalTag),
   overrideReason: safeString().trim().max(1000).optional(),
 });
 export type ScanSuperInput = z.input<typeof scanSuperInput>;
@@ -151,6 +151,8 @@ export const stageInput = z.object({
   lotId: id,
   target: z.enum(['extracted', 'released', 'held']),
   reason: safeString().trim().max(1000).optional(),
+  /** Marking a gathering lot extracted: the day it was extracted (the best-before counts from it). */
+  extractedOn: z.union([z.literal('').transform(() => undefined), day]).optional(),
 });
 export type StageInput = z.input<typeof stageInput>;
 

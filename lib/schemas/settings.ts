@@ -40,6 +40,8 @@ export const settingsInput = z.object({
   insolubleMaxG100g: z.coerce.number().min(0).max(5),
   bestBeforeMonths: z.coerce.number().int('Whole months.').min(1).max(120),
   expectedLossPct: z.coerce.number().min(0).max(20),
+  /** Left out (an older client): the stored choice stays as it is. */
+  allowUntaggedSupers: z.boolean().optional(),
   fillRuleSet: z.enum(['oiml', 'nist']),
   labelDeclaration: z.enum(['us-dual', 'metric']),
   barcodeKind: z.enum(['gs1-128', 'gs1datamatrix']),

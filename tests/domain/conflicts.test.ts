@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { superConflicts, type FeedingRecord, type TreatmentRecord } from '@/lib/domain/conflicts';
+import { superConflicts, supersAtRisk, type FeedingRecord, type TreatmentRecord } from '@/lib/domain/conflicts';
 
 const onSuper = { putOn: '2026-05-10', pulled: '2026-07-20' };
 const none = { feedings: [] as FeedingRecord[], treatments: [] as TreatmentRecord[] };
@@ -115,5 +115,46 @@ describe('superConflicts: bad input', () => {
     expect(() => superConflicts(onSuper, { ...none, treatments: [treatment({ waitingDays: -1 })] })).toThrow(
       RangeError,
     );
+  });
+});
+
+describe('supersAtRisk: warn while recording a feeding or treatment over supers on the hive', () => {
+  const on = [
+    { id: 1, tagCode: 'WT-0001', depth: 'medium', putOnOn: '2026-06-01' },
+    { id: 2, tagCode: null, depth: 'deep', putOnOn: '2026-06-01' },
+    { id: 3, tagCode: 'WT-0003', depth: 'medium', putOnOn: '2026-08-01' },
+  ];
+  it('sugar syrup names every super on during the feeding, tag or depth and put-on day', () => {
+    const r = supersAtRisk({ feeding: { kind: 'sugar_syrup', startedOn: '2026-07-01', endedOn: '2026-07-05' } }, on);
+    expect(r?.supers.map((s) => s.label)).toEqual(['super WT-0001', 'untagged deep super put on 2026-06-01']);
+    expect(r?.reason).toBe('Sugar syrup fed 2026-07-01 to 2026-07-05 while this super was on');
+  });
+  it('a feeding still going on reaches supers put on later', () => {
+    const r = supersAtRisk({ feeding: { kind: 'fondant', startedOn: '2026-07-01', endedOn: null } }, on);
+    expect(r?.supers.map((s) => s.id)).toEqual([1, 2, 3]);
+  });
+  it('pollen substitute and a treatment the label allows with supers do not warn', () => {
+    expect(
+      supersAtRisk({ feeding: { kind: 'pollen_substitute', startedOn: '2026-07-01', endedOn: null } }, on),
+    ).toBeNull();
+    const allowed = {
+      kindName: 'Allowed',
+      supersAllowed: true,
+      waitingDays: 0,
+      appliedOn: '2026-07-01',
+      removedOn: null,
+    };
+    expect(supersAtRisk({ treatment: allowed }, on)).toBeNull();
+  });
+  it('a treatment whose label forbids supers counts through its waiting period', () => {
+    const t = {
+      kindName: 'Strip',
+      supersAllowed: false,
+      waitingDays: 30,
+      appliedOn: '2026-06-20',
+      removedOn: '2026-07-05',
+    };
+    expect(supersAtRisk({ treatment: t }, on)?.supers.map((s) => s.id)).toEqual([1, 2, 3]);
+    expect(supersAtRisk({ treatment: { ...t, waitingDays: 0 } }, on)?.supers.map((s) => s.id)).toEqual([1, 2]);
   });
 });

@@ -69,8 +69,21 @@ describe('honey house', () => {
     await addContainer('26.5', '1.5');
     await page.getByRole('table', { name: 'Containers of this lot' }).getByText('54.00 kg').waitFor();
 
+    // Marking extracted asks for the date and shows the best-before it gives before confirming.
     await page.getByRole('button', { name: 'Mark extracted' }).click();
-    await page.getByRole('region', { name: 'Stage' }).getByText('The lot is now extracted.').waitFor();
+    await page.getByLabel('Extracted on').fill('2026-07-25');
+    await page.getByText(/Best before 20\d\d-07-25 \(\d+ months after extraction/).waitFor();
+    await page.getByRole('button', { name: 'Confirm extracted' }).click();
+    await page
+      .getByRole('region', { name: 'Stage' })
+      .getByText(/The lot is now extracted\. Extracted on 2026-07-25, best before 20\d\d-07-25\./)
+      .waitFor();
+    // The page shows the new date at once: the details form and the stage summary, no reload.
+    await page.waitForFunction(
+      () =>
+        (document.querySelector('form[aria-label="Lot details"] input[type="date"]') as HTMLInputElement)?.value ===
+        '2026-07-25',
+    );
 
     await addScaleReading('17.6');
     await page.getByRole('button', { name: 'Release the lot' }).click();
@@ -88,6 +101,7 @@ describe('honey house', () => {
     await scan(tags[3]);
     await addContainer('20', '1');
     await page.getByRole('button', { name: 'Mark extracted' }).click();
+    await page.getByRole('button', { name: 'Confirm extracted' }).click();
     await page.getByRole('region', { name: 'Stage' }).getByText('The lot is now extracted.').waitFor();
     await addScaleReading('21.4');
     await page.getByRole('button', { name: 'Release the lot' }).click();

@@ -50,3 +50,9 @@ export async function yardFixture(tag: string) {
 }
 
 export const key = () => crypto.randomUUID();
+
+/** Printed tags (super_tags rows) for the codes a test puts on or pulls; a tag must exist to be used. */
+export async function printTags(...codes: string[]) {
+  const { SuperTag } = getDb().models;
+  for (const code of codes) await SuperTag.findOrCreate({ where: { code }, defaults: { code, depth: 'medium' } });
+}

@@ -1,59 +1,49 @@
 import 'server-only';
-import type { Model, ModelStatic, Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
-import type { FeedingKind } from '@/lib/domain/conflicts';
+import type { Transaction } from 'sequelize';
+import { supersAtRisk, type FeedingKind, type SupersAtRisk } from '@/lib/domain/conflicts';
 import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
-import { recordAudit, type AuditInput } from '@/lib/data/audit';
+import { recordAudit } from '@/lib/data/audit';
 import { writableColony } from './write';
 import { recomputeColonyFlags } from '@/lib/data/supers/flags';
 
-type Reflagged = { reflagged: number };
-
 /**
- * One change of a colony's feedings or treatments, in one transaction: `change` checks that the colony is the user's
- * to write, writes, and says which colony and what to audit; the audit entry follows and the colony's pulled supers
- * are re-checked against the change.
+ * What to do when the record would touch supers still on the hive: `ask` saves nothing and
+ * returns the warning (the form then offers to take them off first or to mark them); `mark` saves
+ * and flags those supers now. A sender that cannot ask (a queued entry, the API) gets `mark`: the
+ * entry is never lost, never saved silently, and its result carries the warning.
  */
-async function changeColonyRecord(
-  user: SessionUser,
-  change: (t: Transaction) => Promise<{ colonyId: number } & Pick<AuditInput, 'action' | 'before' | 'after'>>,
-): Promise<Reflagged> {
-  return getDb().sequelize.transaction(async (t) => {
-    const { colonyId, ...audit } = await change(t);
-    await recordAudit({ actorUserId: user.id, entityType: 'colony', entityId: colonyId, ...audit }, t);
-    return { reflagged: await recomputeColonyFlags(colonyId, t) };
+export type OnSupers = 'ask' | 'mark';
+export type SuperWarning = NonNullable<SupersAtRisk>;
+export type RecordResult = { saved: boolean; reflagged: number; warning: SuperWarning | null };
+
+async function supersOnHive(colonyId: number, t: Transaction) {
+  const rows = await getDb().models.SuperPull.findAll({
+    where: { colonyId, pulledOn: null, voidedAt: null },
+    order: [['id', 'ASC']],
+    transaction: t,
+    lock: t.LOCK.UPDATE,
   });
+  return rows.map((r) => ({ id: r.id, tagCode: r.tagCode ?? null, depth: r.depth, putOnOn: r.putOnOn ?? null }));
+}
+
+/** Flags the supers still on the hive that the new record touches (a pull recomputes the same flag later). */
+async function markSupers(warning: SuperWarning, t: Transaction): Promise<number> {
+  const { models } = getDb();
+  for (const s of warning.supers) {
+    const row = await models.SuperPull.findByPk(s.id, { transaction: t });
+    if (!row) continue;
+    const reasons = row.flagReasons.includes(warning.reason) ? row.flagReasons : [...row.flagReasons, warning.reason];
+    await row.update({ flagged: true, flagReasons: reasons }, { transaction: t });
+  }
+  return warning.supers.length;
 }
 
 /**
- * Ends an open feeding or treatment (`what`) on `on`, not before it began: its `start` and `end` name the
- * record's own date columns.
+ * Adds a feeding (idempotent by key) and re-checks the colony's pulled supers. Sugar fed while
+ * supers are on the hive is caught now, not at the pull: see `OnSupers`.
  */
-async function endColonyRecord<Start extends string, End extends string>(
-  user: SessionUser,
-  model: ModelStatic<Model & { colonyId: number } & Record<Start, string> & Record<End, string | null>>,
-  spec: { what: 'feeding' | 'treatment'; start: Start; end: End; early: string },
-  id: number,
-  on: string,
-): Promise<Reflagged> {
-  return changeColonyRecord(user, async (t) => {
-    const row = await model.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!row) throw new NotFoundError(`No such ${spec.what}.`);
-    await writableColony(user, row.colonyId, t);
-    if (on < row[spec.start]) throw new InvalidError(spec.early);
-    const before = { [spec.end]: row[spec.end] };
-    await row.update({ [spec.end]: on }, { transaction: t });
-    return {
-      colonyId: row.colonyId,
-      action: `${spec.what}.update`,
-      before,
-      after: { [`${spec.what}Id`]: id, [spec.end]: on },
-    };
-  });
-}
-
-/** Adds a feeding (idempotent by key) and re-checks the colony's pulled supers. */
 export async function addFeeding(
   user: SessionUser,
   input: {
@@ -64,25 +54,65 @@ export async function addFeeding(
     endedOn: string | null;
     note: string;
     idempotencyKey: string;
+    onSupers?: OnSupers;
   },
-): Promise<Reflagged> {
-  const { models } = getDb();
-  if (await models.Feeding.findOne({ where: { idempotencyKey: input.idempotencyKey } })) return { reflagged: 0 };
-  return changeColonyRecord(user, async (t) => {
+): Promise<RecordResult> {
+  const { sequelize, models } = getDb();
+  const { onSupers = 'mark', ...fields } = input;
+  if (await models.Feeding.findOne({ where: { idempotencyKey: input.idempotencyKey } }))
+    return { saved: true, reflagged: 0, warning: null };
+  return sequelize.transaction(async (t) => {
     const colony = await writableColony(user, input.colonyId, t);
-    const row = await models.Feeding.create({ ...input, colonyId: colony.id, recordedBy: user.id }, { transaction: t });
-    return { colonyId: colony.id, action: 'feeding.create', after: row.get({ plain: true }) };
+    const warning = supersAtRisk(
+      { feeding: { kind: input.kind, startedOn: input.startedOn, endedOn: input.endedOn } },
+      await supersOnHive(colony.id, t),
+    );
+    if (warning && onSupers === 'ask') return { saved: false, reflagged: 0, warning };
+    const row = await models.Feeding.create(
+      { ...fields, colonyId: colony.id, recordedBy: user.id },
+      { transaction: t },
+    );
+    await recordAudit(
+      {
+        actorUserId: user.id,
+        action: 'feeding.create',
+        entityType: 'colony',
+        entityId: colony.id,
+        after: { ...row.get({ plain: true }), ...(warning ? { markedSupers: warning.supers.map((s) => s.id) } : {}) },
+      },
+      t,
+    );
+    const marked = warning ? await markSupers(warning, t) : 0;
+    return { saved: true, reflagged: marked + (await recomputeColonyFlags(colony.id, t)), warning };
   });
 }
 
-export function endFeeding(user: SessionUser, feedingId: number, endedOn: string): Promise<Reflagged> {
-  const spec = {
-    what: 'feeding',
-    start: 'startedOn',
-    end: 'endedOn',
-    early: 'The feeding cannot end before it started.',
-  } as const;
-  return endColonyRecord(user, getDb().models.Feeding, spec, feedingId, endedOn);
+export async function endFeeding(
+  user: SessionUser,
+  feedingId: number,
+  endedOn: string,
+): Promise<{ reflagged: number }> {
+  const { sequelize, models } = getDb();
+  return sequelize.transaction(async (t) => {
+    const row = await models.Feeding.findByPk(feedingId, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!row) throw new NotFoundError('No such feeding.');
+    await writableColony(user, row.colonyId, t);
+    if (endedOn < row.startedOn) throw new InvalidError('The feeding cannot end before it started.');
+    const before = { endedOn: row.endedOn };
+    await row.update({ endedOn }, { transaction: t });
+    await recordAudit(
+      {
+        actorUserId: user.id,
+        action: 'feeding.update',
+        entityType: 'colony',
+        entityId: row.colonyId,
+        before,
+        after: { feedingId, endedOn },
+      },
+      t,
+    );
+    return { reflagged: await recomputeColonyFlags(row.colonyId, t) };
+  });
 }
 
 /** Copies the kind's supers-allowed and waiting days onto the record, so later edits of the list do not rewrite history. */
@@ -96,17 +126,35 @@ export async function addTreatment(
     removedOn: string | null;
     note: string;
     idempotencyKey: string;
+    onSupers?: OnSupers;
   },
-): Promise<Reflagged> {
-  const { models } = getDb();
-  if (await models.Treatment.findOne({ where: { idempotencyKey: input.idempotencyKey } })) return { reflagged: 0 };
-  return changeColonyRecord(user, async (t) => {
+): Promise<RecordResult> {
+  const { sequelize, models } = getDb();
+  const { onSupers = 'mark', ...fields } = input;
+  if (await models.Treatment.findOne({ where: { idempotencyKey: input.idempotencyKey } }))
+    return { saved: true, reflagged: 0, warning: null };
+  return sequelize.transaction(async (t) => {
     const colony = await writableColony(user, input.colonyId, t);
     const kind = await models.TreatmentKind.findByPk(input.treatmentKindId, { transaction: t });
     if (!kind || !kind.active) throw new InvalidError('Choose a treatment kind from the list.');
+    // A label that forbids supers needs the keeper's confirmation while supers are on the hive.
+    const warning = supersAtRisk(
+      {
+        treatment: {
+          kindName: kind.name,
+          productName: input.productName,
+          supersAllowed: kind.supersAllowed,
+          waitingDays: kind.waitingDays,
+          appliedOn: input.appliedOn,
+          removedOn: input.removedOn,
+        },
+      },
+      await supersOnHive(colony.id, t),
+    );
+    if (warning && onSupers === 'ask') return { saved: false, reflagged: 0, warning };
     const row = await models.Treatment.create(
       {
-        ...input,
+        ...fields,
         colonyId: colony.id,
         supersAllowed: kind.supersAllowed,
         waitingDays: kind.waitingDays,
@@ -114,18 +162,47 @@ export async function addTreatment(
       },
       { transaction: t },
     );
-    return { colonyId: colony.id, action: 'treatment.create', after: row.get({ plain: true }) };
+    await recordAudit(
+      {
+        actorUserId: user.id,
+        action: 'treatment.create',
+        entityType: 'colony',
+        entityId: colony.id,
+        after: { ...row.get({ plain: true }), ...(warning ? { markedSupers: warning.supers.map((s) => s.id) } : {}) },
+      },
+      t,
+    );
+    const marked = warning ? await markSupers(warning, t) : 0;
+    return { saved: true, reflagged: marked + (await recomputeColonyFlags(colony.id, t)), warning };
   });
 }
 
-export function endTreatment(user: SessionUser, treatmentId: number, removedOn: string): Promise<Reflagged> {
-  const spec = {
-    what: 'treatment',
-    start: 'appliedOn',
-    end: 'removedOn',
-    early: 'The treatment cannot be removed before it was applied.',
-  } as const;
-  return endColonyRecord(user, getDb().models.Treatment, spec, treatmentId, removedOn);
+export async function endTreatment(
+  user: SessionUser,
+  treatmentId: number,
+  removedOn: string,
+): Promise<{ reflagged: number }> {
+  const { sequelize, models } = getDb();
+  return sequelize.transaction(async (t) => {
+    const row = await models.Treatment.findByPk(treatmentId, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!row) throw new NotFoundError('No such treatment.');
+    await writableColony(user, row.colonyId, t);
+    if (removedOn < row.appliedOn) throw new InvalidError('The treatment cannot be removed before it was applied.');
+    const before = { removedOn: row.removedOn };
+    await row.update({ removedOn }, { transaction: t });
+    await recordAudit(
+      {
+        actorUserId: user.id,
+        action: 'treatment.update',
+        entityType: 'colony',
+        entityId: row.colonyId,
+        before,
+        after: { treatmentId, removedOn },
+      },
+      t,
+    );
+    return { reflagged: await recomputeColonyFlags(row.colonyId, t) };
+  });
 }
 
 export type TreatmentKindRow = {

@@ -78,6 +78,7 @@ export function lotSnapshot(lot: Lot): Record<string, unknown> {
     tropical: lot.tropical,
     lowEnzyme: lot.lowEnzyme,
     extractedOn: lot.extractedOn,
+    bestBeforeOn: lot.bestBeforeOn,
     netGrams: lot.netGrams,
     usedGrams: lot.usedGrams,
     cappingsWaxGrams: lot.cappingsWaxGrams,

@@ -143,6 +143,8 @@ export type LotDetail = {
   /** Per Annex II criterion: the latest non-voided lab value and whether it meets the category's limit. */
   composition: CompositionRow[];
   extractedOn: string | null;
+  /** Set when the lot is marked extracted (or first jarred); jars carry it. */
+  bestBeforeOn: string | null;
   isBlend: boolean;
   notes: string;
   holdReasons: string[];
@@ -335,6 +337,7 @@ export async function getLotDetail(user: SessionUser, lotId: number): Promise<Lo
     annexSource: lot.annexSource,
     composition: compositionVerdict(lot, files),
     extractedOn: lot.extractedOn,
+    bestBeforeOn: lot.bestBeforeOn ?? null,
     isBlend: lot.isBlend,
     notes: lot.notes,
     holdReasons: lot.holdReasons ?? [],

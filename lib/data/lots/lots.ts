@@ -8,6 +8,8 @@ import { remainingGrams } from '@/lib/domain/lot-weights';
 import type { LotListQuery } from '@/lib/schemas/lots';
 import type { Page } from '@/lib/schemas/list-query';
 import { recordAudit } from '@/lib/data/audit';
+import { ConflictError } from '@/lib/domain/errors';
+import { bestBeforeDate } from '@/lib/domain/jars';
 import { getSettings } from '@/lib/data/settings/settings';
 import { assertOpen, KEEPER_LOTS_SQL, lockLot, lotSnapshot } from './access';
 import type { HoneyOrigin, Lot } from '@/models/lot';
@@ -104,11 +106,27 @@ export async function updateLotDetails(actor: SessionUser, lotId: number, input:
     const lot = await lockLot(lotId, t);
     assertOpen(lot, 'changing its details');
     const before = lotSnapshot(lot);
+    const extractedOn = input.extractedOn || null;
+    const dates: { extractedOn?: string | null; bestBeforeOn?: string | null } = {};
+    if (extractedOn !== (lot.extractedOn ?? null)) {
+      // The best-before follows the extraction date until a jar carries it; after that both stay.
+      const { JarringRun, StockLevel } = getDb().models;
+      const jarred =
+        (await JarringRun.count({ where: { lotId: lot.id }, transaction: t })) > 0 ||
+        (await StockLevel.count({ where: { lotId: lot.id }, transaction: t })) > 0;
+      if (jarred)
+        throw new ConflictError(
+          `Jars of lot ${lot.code} already carry best-before ${lot.bestBeforeOn ?? '(set)'}, counted from extraction on ${lot.extractedOn ?? '(not recorded)'}; the extraction date can no longer change. Note the correction in the lot's notes.`,
+        );
+      const settings = await getSettings();
+      dates.extractedOn = extractedOn;
+      dates.bestBeforeOn = extractedOn ? bestBeforeDate(extractedOn, settings.bestBeforeMonths) : null;
+    }
     await lot.update(
       {
         floralSource: input.floralSource.trim(),
         heather: input.heather ?? false,
-        extractedOn: input.extractedOn || null,
+        ...dates,
         notes: input.notes ?? '',
         ...categoryColumns(input),
       },

@@ -1,24 +1,36 @@
 import 'server-only';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
-import { ConflictError } from '@/lib/domain/errors';
+import { ConflictError, InvalidError } from '@/lib/domain/errors';
+import { bestBeforeDate } from '@/lib/domain/jars';
+import { localDate } from '@/lib/domain/local-date';
 import { nextStage, type LotStage } from '@/lib/domain/lot-stage';
 import { recordAudit } from '@/lib/data/audit';
 import { lockLot } from './access';
 import { lotChecks } from './checks';
 import { getSettings } from '@/lib/data/settings/settings';
 
+export type StageResult = {
+  stage: LotStage;
+  holdReasons: string[];
+  extractedOn: string | null;
+  bestBeforeOn: string | null;
+};
+
 /**
  * Moves a lot towards `target`; the one place that applies nextStage (lib/domain/lot-stage.ts).
  * A release whose checks fail puts the lot in *held* with the reasons; leaving *held* needs the
- * owner and a written reason. Returns the stage the lot ended in.
+ * owner and a written reason. Marking a gathering lot extracted needs the extraction date (not
+ * after today in the business's time zone) and sets the best-before from it (extraction + the
+ * owner's months, lib/domain/jars.ts). Returns the stage the lot ended in and its dates.
  */
 export async function changeLotStage(
   actor: SessionUser,
   lotId: number,
   target: LotStage,
   reason?: string,
-): Promise<{ stage: LotStage; holdReasons: string[] }> {
+  extractedOn?: string,
+): Promise<StageResult> {
   const { sequelize } = getDb();
   const settings = await getSettings();
   return sequelize.transaction(async (t) => {
@@ -35,11 +47,18 @@ export async function changeLotStage(
         : [reason!.trim()];
       if (holdReasons.length === 0) holdReasons = result.holdReasons ?? [];
     }
-    const patch: { stage: LotStage; holdReasons: string[]; extractedOn?: string } = {
+    const patch: { stage: LotStage; holdReasons: string[]; extractedOn?: string; bestBeforeOn?: string } = {
       stage: result.stage,
       holdReasons,
     };
-    if (result.stage === 'extracted' && !lot.extractedOn) patch.extractedOn = new Date().toISOString().slice(0, 10);
+    if (lot.stage === 'gathering' && result.stage === 'extracted') {
+      if (!extractedOn) throw new InvalidError('Give the extraction date: the best-before date is counted from it.');
+      const today = localDate(new Date(), settings.timeZone);
+      if (extractedOn > today) throw new InvalidError(`The extraction date cannot be after today (${today}).`);
+      patch.extractedOn = extractedOn;
+      // Nothing is jarred from a gathering lot yet, so nothing carries a best-before that could change.
+      patch.bestBeforeOn = bestBeforeDate(extractedOn, settings.bestBeforeMonths);
+    }
     await lot.update(patch, { transaction: t });
     const action =
       before.stage === 'held'
@@ -54,11 +73,16 @@ export async function changeLotStage(
         entityType: 'lot',
         entityId: lot.id,
         before,
-        after: { stage: result.stage, holdReasons, asked: target },
+        after: { ...patch, asked: target },
         reason: reason?.trim() || null,
       },
       t,
     );
-    return { stage: result.stage, holdReasons };
+    return {
+      stage: result.stage,
+      holdReasons,
+      extractedOn: lot.extractedOn ?? null,
+      bestBeforeOn: lot.bestBeforeOn ?? null,
+    };
   });
 }

@@ -66,7 +66,7 @@ async function known(user: SessionUser) {
   return {
     colonyIds: new Map(colonies.map((c) => [c.code, c.id])),
     colonyCodes: new Set(colonies.map((c) => c.code)),
-    existingTagCodes: new Set(tags.map((t) => t.tagCode as string)),
+    existingTagCodes: new Set(tags.map((t) => (t.tagCode as string).toUpperCase())),
   };
 }
 

@@ -52,3 +52,29 @@ export async function listTags(
   });
   return rows.map((r) => ({ code: r.code, depth: r.depth, frameCount: r.frameCount }));
 }
+
+/** Printed tags that are free to go on a hive: not retired and not on any hive now (for the Super on pick list). */
+export async function listFreeTags(limit = 2000): Promise<string[]> {
+  const [rows] = (await getDb().sequelize.query(
+    `SELECT t.code FROM super_tags t
+      WHERE t.retired_at IS NULL
+        AND NOT EXISTS (SELECT 1 FROM super_pulls p
+                         WHERE upper(p.tag_code) = t.code AND p.pulled_on IS NULL AND p.voided_at IS NULL)
+      ORDER BY t.code LIMIT :limit`,
+    { replacements: { limit } },
+  )) as [{ code: string }[], unknown];
+  return rows.map((r) => r.code);
+}
+
+/** The tags on each of these colonies now (for the pull pick list): colony id → codes. */
+export async function listTagsOnColonies(colonyIds: number[]): Promise<Record<number, string[]>> {
+  if (colonyIds.length === 0) return {};
+  const rows = await getDb().models.SuperPull.findAll({
+    where: { colonyId: colonyIds, pulledOn: null, voidedAt: null, tagCode: { [Op.ne]: null } },
+    attributes: ['colonyId', 'tagCode'],
+    order: [['tagCode', 'ASC']],
+  });
+  const out: Record<number, string[]> = {};
+  for (const r of rows) (out[r.colonyId] ??= []).push(r.tagCode as string);
+  return out;
+}

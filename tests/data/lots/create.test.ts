@@ -177,7 +177,7 @@ describe('taking a super out', () => {
     });
     expect(audit?.reason).toBe('Scanned the wrong box');
     await addContainerAction({ lotId: lot.data.id, label: 'B', gross: 10, tare: 1, unit: 'kg' });
-    await changeStageAction({ lotId: lot.data.id, target: 'extracted' });
+    await changeStageAction({ lotId: lot.data.id, target: 'extracted', extractedOn: '2026-07-25' });
     expect(
       await removeSuperAction({ lotId: lot.data.id, superPullId: supers[1].id, reason: 'Too late for this' }),
     ).toMatchObject({ ok: false, message: /only be taken out while the lot is gathering/ });

@@ -38,7 +38,7 @@ async function extractedLot(waterPct?: number, opts: { heather?: boolean } = {})
   for (const tag of tags) ok(await scanSuperAction({ lotId: lot.id, tagCode: tag }));
   ok(await addContainerAction({ lotId: lot.id, label: 'B1', gross: 30, tare: 1, unit: 'kg' }));
   ok(await addContainerAction({ lotId: lot.id, label: 'B2', gross: 27, tare: 1, unit: 'kg' }));
-  ok(await changeStageAction({ lotId: lot.id, target: 'extracted' }));
+  ok(await changeStageAction({ lotId: lot.id, target: 'extracted', extractedOn: '2026-07-25' }));
   if (waterPct !== undefined)
     ok(await addReadingAction({ lotId: lot.id, method: 'scale', scaleWaterPct: waterPct, takenOn: '2026-08-01' }));
   return { ...lot, supers };

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/lib/db/index';
 import { DEMO, setRequestHeaders, signInAs } from '@/tests/support/session';
-import { yardFixture, key } from '@/tests/support/yard-fixtures';
+import { yardFixture, key, printTags } from '@/tests/support/yard-fixtures';
 import { recordPullsAction } from '@/app/(back-office)/admin/yards/actions';
 import {
   addFeedingAction,
@@ -17,6 +17,7 @@ beforeEach(() => setRequestHeaders({}));
 let f: Awaited<ReturnType<typeof yardFixture>>;
 beforeAll(async () => {
   f = await yardFixture('PUL');
+  await printTags('PUL-T1', 'PUL-T2', 'PUL-T9');
 });
 
 const entry = (colonyId: number, extra: Record<string, unknown> = {}) => ({

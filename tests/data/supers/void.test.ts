@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/lib/db/index';
 import { DEMO, setRequestHeaders, signInAs } from '@/tests/support/session';
-import { yardFixture, key } from '@/tests/support/yard-fixtures';
+import { yardFixture, key, printTags } from '@/tests/support/yard-fixtures';
 import { recordPullsAction } from '@/app/(back-office)/admin/yards/actions';
 import { addFeedingAction, superOnAction } from '@/app/(back-office)/admin/colonies/actions';
 import { voidSuperPullAction } from '@/app/(back-office)/admin/supers/actions';
@@ -22,6 +22,7 @@ beforeEach(() => setRequestHeaders({}));
 let f: Awaited<ReturnType<typeof yardFixture>>;
 beforeAll(async () => {
   f = await yardFixture('VOI');
+  await printTags('VOI-T1', 'VOI-T2', 'VOI-LOT1', 'VOI-ON-T1', 'VOI-ON-T2');
 });
 
 /** Records one pull as whoever is signed in and returns its id. */

@@ -26,10 +26,9 @@ import {
   type AddedSuper,
 } from '@/lib/data/lots/supers';
 import { addContainer, addReading, voidRecord } from '@/lib/data/lots/records';
-import { changeLotStage } from '@/lib/data/lots/stage';
+import { changeLotStage, type StageResult } from '@/lib/data/lots/stage';
 import { createBlend } from '@/lib/data/lots/blends';
 import { saveContainerType } from '@/lib/data/lots/container-types';
-import type { LotStage } from '@/lib/domain/lot-stage';
 
 const touched = (lotId: number) => {
   revalidatePath('/admin/lots');
@@ -125,8 +124,8 @@ export const voidRecordAction = guardedAction('lots.write', voidInput, async (us
 export const changeStageAction = guardedAction(
   'lots.write',
   stageInput,
-  async (user, data): Promise<{ ok: true; data: { stage: LotStage; holdReasons: string[] } }> => {
-    const result = await changeLotStage(user, data.lotId, data.target, data.reason);
+  async (user, data): Promise<{ ok: true; data: StageResult }> => {
+    const result = await changeLotStage(user, data.lotId, data.target, data.reason, data.extractedOn);
     touched(data.lotId);
     return { ok: true, data: result };
   },

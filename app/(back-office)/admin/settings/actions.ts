@@ -5,7 +5,8 @@ import { settingsInput } from '@/lib/schemas/settings';
 import { updateSettings } from '@/lib/data/settings/settings';
 
 export const saveSettingsAction = guardedAction('settings.manage', settingsInput, async (user, data) => {
-  await updateSettings(user.id, data);
+  const { allowUntaggedSupers, ...rest } = data;
+  await updateSettings(user.id, allowUntaggedSupers === undefined ? rest : { ...rest, allowUntaggedSupers });
   revalidatePath('/', 'layout');
   return { ok: true };
 });

@@ -44,6 +44,7 @@ export default async function SettingsPage() {
           insolubleMaxG100g: s.insolubleMaxG100g,
           bestBeforeMonths: s.bestBeforeMonths,
           expectedLossPct: s.expectedLossPct,
+          allowUntaggedSupers: s.allowUntaggedSupers,
           fillRuleSet: s.fillRuleSet,
           labelDeclaration: s.labelDeclaration,
           barcodeKind: s.barcodeKind,

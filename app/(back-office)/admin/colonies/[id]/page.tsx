@@ -8,6 +8,7 @@ import { colonyTimeline } from '@/lib/data/colonies/timeline';
 import { listTreatmentKinds } from '@/lib/data/colonies/records';
 import { listYardChoices } from '@/lib/data/yards/yards';
 import { getSettings } from '@/lib/data/settings/settings';
+import { listFreeTags } from '@/lib/data/supers/tags';
 import { formatWeight } from '@/lib/domain/units';
 import { localDate } from '@/lib/domain/local-date';
 import { PageHeader } from '@/components/ui/page-header';
@@ -58,8 +59,12 @@ export default async function ColonyPage({ params }: { params: Promise<{ id: str
   const settings = await getSettings();
   const fmt = (g: number) => formatWeight(g, settings.weightSystem);
   const today = localDate(new Date(), settings.timeZone);
-  const [supers, timeline] = await Promise.all([listColonySupers(colony.id), colonyTimeline(colony.id, fmt)]);
   const write = can(user.role, 'colonies.write');
+  const [supers, timeline, freeTags] = await Promise.all([
+    listColonySupers(colony.id),
+    colonyTimeline(colony.id, fmt),
+    write ? listFreeTags() : Promise.resolve([]),
+  ]);
   const canVoid = can(user.role, 'supers.write');
   const voidedOn = (at: string) => localDate(new Date(at), settings.timeZone);
   const superOnWhat = (s: { putOnOn: string | null; tagCode: string | null }) =>
@@ -293,7 +298,13 @@ export default async function ColonyPage({ params }: { params: Promise<{ id: str
         {write ? (
           <aside className="space-y-3">
             <Section title="Super on">
-              <SuperOnForm colonyId={colony.id} today={today} onSave={superOnAction} />
+              <SuperOnForm
+                colonyId={colony.id}
+                today={today}
+                tags={freeTags}
+                allowUntagged={settings.allowUntaggedSupers}
+                onSave={superOnAction}
+              />
             </Section>
             <Section title="Feeding">
               <FeedingForm colonyId={colony.id} today={today} onSave={addFeedingAction} />

@@ -10,6 +10,7 @@ import { formatWeight } from '@/lib/domain/units';
 import { PageHeader } from '@/components/ui/page-header';
 import { Chip } from '@/components/ui/chip';
 import { Caution } from '@/components/ui/caution';
+import { localDate } from '@/lib/domain/local-date';
 import { StageChip } from '@/components/lots/stage-chip';
 import { StageControls } from '@/components/lots/stage-controls';
 import { SuperScanner } from '@/components/lots/super-scanner';
@@ -101,7 +102,7 @@ export default async function LotPage({
   const [pullable, yards, types] = takesSupers
     ? await Promise.all([listPullableSupers({ yardId, q: one(sp.q) }), listYardsBrief(), listContainerTypes()])
     : [[], [], writer ? await listContainerTypes() : []];
-  const today = new Date().toISOString().slice(0, 10);
+  const today = localDate(new Date(), settings.timeZone);
   const live = <T extends { voidedAt: Date | null }>(rows: T[]) => rows.filter((r) => !r.voidedAt);
 
   return (
@@ -155,9 +156,25 @@ export default async function LotPage({
               <dt className="hint">Highest water</dt>
               <dd>{lot.water ? `${lot.water.highest.toFixed(1)} %` : '—'}</dd>
             </div>
+            <div>
+              <dt className="hint">Extracted</dt>
+              <dd>{lot.extractedOn ?? '—'}</dd>
+            </div>
+            <div>
+              <dt className="hint">Best before</dt>
+              <dd>{lot.bestBeforeOn ?? '—'}</dd>
+            </div>
           </dl>
           {writer ? (
-            <StageControls lotId={lot.id} stage={lot.stage} isOwner={isOwner} onChange={changeStageAction} />
+            <StageControls
+              lotId={lot.id}
+              stage={lot.stage}
+              isOwner={isOwner}
+              today={today}
+              extractedOn={lot.extractedOn}
+              bestBeforeMonths={settings.bestBeforeMonths}
+              onChange={changeStageAction}
+            />
           ) : null}
         </section>
 

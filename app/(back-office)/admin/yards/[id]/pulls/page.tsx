@@ -4,6 +4,7 @@ import { requirePermission } from '@/lib/auth/session';
 import { getYard } from '@/lib/data/yards/yards';
 import { listColonies } from '@/lib/data/colonies/read';
 import { getSettings } from '@/lib/data/settings/settings';
+import { listTagsOnColonies } from '@/lib/data/supers/tags';
 import { localDate } from '@/lib/domain/local-date';
 import { PageHeader } from '@/components/ui/page-header';
 import { Caution } from '@/components/ui/caution';
@@ -26,6 +27,7 @@ export default async function RecordPullsPage({ params }: { params: Promise<{ id
     yardId: yard.id,
     status: 'active',
   });
+  const tagsOn = await listTagsOnColonies(rows.map((c) => c.id));
   return (
     <>
       <PageHeader
@@ -37,7 +39,12 @@ export default async function RecordPullsPage({ params }: { params: Promise<{ id
           A full super can weigh 20–40 kg. Lift with your legs, and get help or use a cart for heavy boxes.
         </Caution>
         <PullPass
-          colonies={rows.map((c) => ({ id: c.id, code: c.code, lastPulledOn: c.lastPulledOn }))}
+          colonies={rows.map((c) => ({
+            id: c.id,
+            code: c.code,
+            lastPulledOn: c.lastPulledOn,
+            tags: tagsOn[c.id] ?? [],
+          }))}
           today={localDate(new Date(), settings.timeZone)}
           defaultUnit={settings.weightSystem === 'us' ? 'lb' : 'kg'}
           onSave={recordPullsAction}
