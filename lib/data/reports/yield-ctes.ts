@@ -37,13 +37,38 @@ END)`;
 export const LOT_SEASON_SQL = (l: string) =>
   `EXTRACT(YEAR FROM COALESCE(${l}.extracted_on, (${l}.created_at AT TIME ZONE 'UTC')::date))::int`;
 
-/** Revenue kept from an allocation: jars × unit price, less the order's refunds pro rata. */
-const REVENUE_SQL = `oa.quantity * ol.unit_price_cents
-  * COALESCE(1 - o.refunded_cents::numeric / NULLIF(o.total_cents, 0), 1)`;
+/**
+ * Revenue kept for honey (docs/trade-rules.md, "Revenue kept for honey"), per order:
+ * - sold = Σ jars × unit price over allocations still `sold` (a returned or written-off jar has
+ *   already left `sold`, so the money refunded for it is not taken off again);
+ * - back = Σ jars × unit price over allocations `returned` or `written_off`;
+ * - honey refund = the money refunded beyond the jars that came back, less what fits in the
+ *   shipping charge (a refund never counts against honey while it can be shipping), at most sold.
+ * Each still-sold allocation keeps its price × (sold − honey refund) / sold.
+ */
 const SOLD_WHERE = `oa.state = 'sold' AND o.status NOT IN ('awaiting_payment', 'cancelled', 'expired')`;
-export const revCte = `rev AS (
-  SELECT oa.lot_id, ROUND(SUM(${REVENUE_SQL}))::bigint AS cents
+export const revCte = `order_honey AS (
+  SELECT ol.order_id,
+         SUM(CASE WHEN oa.state = 'sold' THEN oa.quantity * ol.unit_price_cents ELSE 0 END)::numeric AS sold,
+         SUM(CASE WHEN oa.state IN ('returned', 'written_off') THEN oa.quantity * ol.unit_price_cents ELSE 0 END)::numeric AS back
+  FROM order_allocations oa JOIN order_lines ol ON ol.id = oa.order_line_id
+  WHERE ol.order_id IN (
+    SELECT ol2.order_id FROM order_allocations oa2 JOIN order_lines ol2 ON ol2.id = oa2.order_line_id
+    WHERE oa2.lot_id IN (SELECT id FROM roots)
+  )
+  GROUP BY ol.order_id
+),
+order_keep AS (
+  SELECT o.id AS order_id,
+         CASE WHEN oh.sold > 0
+           THEN (oh.sold - LEAST(oh.sold, GREATEST(o.refunded_cents - oh.back - o.shipping_cents, 0))) / oh.sold
+           ELSE 0 END AS keep
+  FROM orders o JOIN order_honey oh ON oh.order_id = o.id
+),
+rev AS (
+  SELECT oa.lot_id, ROUND(SUM(oa.quantity * ol.unit_price_cents * k.keep))::bigint AS cents
   FROM order_allocations oa JOIN order_lines ol ON ol.id = oa.order_line_id JOIN orders o ON o.id = ol.order_id
+  JOIN order_keep k ON k.order_id = o.id
   WHERE oa.lot_id IN (SELECT id FROM roots) AND ${SOLD_WHERE}
   GROUP BY oa.lot_id
 )`;
