@@ -33,6 +33,7 @@ export class BusinessSetting extends Model<InferAttributes<BusinessSetting>, Inf
   declare diastaseMinSchade: CreationOptional<number>;
   declare insolubleMaxG100g: CreationOptional<number>;
   declare bestBeforeMonths: CreationOptional<number>;
+  declare seasonStartMonth: CreationOptional<number>;
   declare expectedLossPct: CreationOptional<number>;
   declare fillRuleSet: CreationOptional<'oiml' | 'nist'>;
   declare labelDeclaration: CreationOptional<'us-dual' | 'metric'>;
@@ -66,6 +67,7 @@ export function initBusinessSetting(sequelize: Sequelize) {
       diastaseMinSchade: { type: dec(5, 1), allowNull: false, defaultValue: 8 },
       insolubleMaxG100g: { type: dec(5, 2), allowNull: false, defaultValue: 0.1 },
       bestBeforeMonths: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 24 },
+      seasonStartMonth: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
       expectedLossPct: { type: dec(4, 1), allowNull: false, defaultValue: 2 },
       fillRuleSet: { type: DataTypes.ENUM('oiml', 'nist'), allowNull: false, defaultValue: 'oiml' },
       labelDeclaration: { type: DataTypes.ENUM('us-dual', 'metric'), allowNull: false, defaultValue: 'metric' },

@@ -9,6 +9,21 @@ import { useActionForm } from '@/components/ui/use-action-form';
 
 type Values = SettingsInput;
 
+const MONTHS = [
+  'January (the calendar year)',
+  'February',
+  'March',
+  'April',
+  'May',
+  'June',
+  'July (across New Year, e.g. the southern hemisphere)',
+  'August',
+  'September',
+  'October',
+  'November',
+  'December',
+];
+
 function Select({
   label,
   name,
@@ -159,6 +174,12 @@ export function SettingsForm({
           registration={form.register('expectedLossPct')}
           error={e.expectedLossPct}
           inputMode="decimal"
+        />
+        <Select
+          form={form}
+          name="seasonStartMonth"
+          label="Season starts in"
+          options={MONTHS.map((m, i) => [String(i + 1), m])}
         />
       </fieldset>
       <fieldset className="grid gap-4 card sm:grid-cols-2">

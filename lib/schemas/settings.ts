@@ -38,6 +38,12 @@ export const settingsInput = z.object({
   diastaseMinSchade: z.coerce.number().min(0).max(50),
   insolubleMaxG100g: z.coerce.number().min(0).max(5),
   bestBeforeMonths: z.coerce.number().int('Whole months.').min(1).max(120),
+  /** The month the beekeeping season starts (1 = January); reports group by it. */
+  seasonStartMonth: z.coerce
+    .number({ error: 'Pick the month the season starts.' })
+    .int('Pick the month the season starts.')
+    .min(1, 'Pick the month the season starts.')
+    .max(12, 'Pick the month the season starts.'),
   expectedLossPct: z.coerce.number().min(0).max(20),
   fillRuleSet: z.enum(['oiml', 'nist']),
   labelDeclaration: z.enum(['us-dual', 'metric']),

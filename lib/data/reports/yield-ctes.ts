@@ -1,5 +1,6 @@
 import 'server-only';
 import type { SuperEstimates } from '@/lib/domain/yield-allocation';
+import { assertStartMonth, seasonBounds } from '@/lib/domain/season';
 
 /**
  * The SQL pieces shared by the season queries (yield-sql.ts): a super's honey, a lot's season,
@@ -33,9 +34,15 @@ const HONEY_SQL = (sp: string) => `(CASE
     * LEAST(GREATEST(COALESCE(${sp}.capped_frames, ${sp}.frame_count), 0), ${sp}.frame_count))
 END)`;
 
-/** A lot's season: the year it was extracted (or, still gathering, the year it was opened). */
-export const LOT_SEASON_SQL = (l: string) =>
-  `EXTRACT(YEAR FROM COALESCE(${l}.extracted_on, (${l}.created_at AT TIME ZONE 'UTC')::date))::int`;
+/** The season of a date column: the year of (date − (start month − 1) months), as seasonOf computes it. */
+export const SEASON_OF_SQL = (date: string, startMonth: number) => {
+  assertStartMonth(startMonth);
+  return `EXTRACT(YEAR FROM (${date} - make_interval(months => ${startMonth - 1})))::int`;
+};
+
+/** A lot's season: the season it was extracted in (or, still gathering, the one it was opened in). */
+export const LOT_SEASON_SQL = (l: string, startMonth: number) =>
+  SEASON_OF_SQL(`COALESCE(${l}.extracted_on, (${l}.created_at AT TIME ZONE 'UTC')::date)`, startMonth);
 
 /**
  * Revenue kept for honey (docs/trade-rules.md, "Revenue kept for honey"), per order:
@@ -76,11 +83,10 @@ rev AS (
 /** The same test as LOT_SEASON_SQL = :season, written as date ranges so the planner can estimate it (and use lots_extracted_on). */
 const LOT_IN_SEASON = (l: string) => `((${l}.extracted_on >= :seasonFrom AND ${l}.extracted_on < :seasonTo)
   OR (${l}.extracted_on IS NULL AND (${l}.created_at AT TIME ZONE 'UTC')::date >= :seasonFrom AND (${l}.created_at AT TIME ZONE 'UTC')::date < :seasonTo))`;
-export const seasonRange = (season: number) => ({
-  season,
-  seasonFrom: `${season}-01-01`,
-  seasonTo: `${season + 1}-01-01`,
-});
+export const seasonRange = (season: number, startMonth: number) => {
+  const { from, to } = seasonBounds(season, startMonth);
+  return { season, seasonFrom: from, seasonTo: to };
+};
 
 export const rootsCte = `given AS (SELECT parent_lot_id AS lot_id, SUM(grams) AS g FROM lot_parents GROUP BY parent_lot_id),
 roots AS (
