@@ -7,6 +7,7 @@ import { nextStage } from '@/lib/domain/lot-stage';
 import { remainingGrams } from '@/lib/domain/lot-weights';
 import { blendBestBefore, lotBestBefore } from '@/lib/domain/jars';
 import { getSettings } from '@/lib/data/settings/settings';
+import { todayIn } from '@/lib/domain/local-date';
 import { recordAudit } from '@/lib/data/audit';
 import { createLot } from './lots';
 import { lotSnapshot } from './access';
@@ -47,8 +48,8 @@ export async function createBlend(
         throw new ConflictError(`Lot ${parent.code} has only ${left} g left; ${part.grams} g cannot be taken from it.`);
     }
     const netGrams = input.parts.reduce((sum, p) => sum + p.grams, 0);
-    const { bestBeforeMonths } = await getSettings();
-    const blendedOn = new Date().toISOString().slice(0, 10);
+    const { bestBeforeMonths, timeZone } = await getSettings();
+    const blendedOn = todayIn(timeZone);
     const bestBeforeOn = blendBestBefore(
       blendedOn,
       bestBeforeMonths,

@@ -7,6 +7,7 @@ import { recordAudit } from '@/lib/data/audit';
 import { lockLot } from './access';
 import { lotChecks } from './checks';
 import { getSettings } from '@/lib/data/settings/settings';
+import { todayIn } from '@/lib/domain/local-date';
 
 /**
  * Moves a lot towards `target`; the one place that applies nextStage (lib/domain/lot-stage.ts).
@@ -39,7 +40,7 @@ export async function changeLotStage(
       stage: result.stage,
       holdReasons,
     };
-    if (result.stage === 'extracted' && !lot.extractedOn) patch.extractedOn = new Date().toISOString().slice(0, 10);
+    if (result.stage === 'extracted' && !lot.extractedOn) patch.extractedOn = todayIn(settings.timeZone);
     await lot.update(patch, { transaction: t });
     const action =
       before.stage === 'held'

@@ -6,6 +6,7 @@ import type { Page } from '@/lib/schemas/list-query';
 import type { LedgerListQuery } from '@/lib/schemas/stock';
 import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { bestBeforeDate } from '@/lib/domain/jars';
+import { todayIn } from '@/lib/domain/local-date';
 import type { StockEntryKind } from '@/models/stock-entry';
 import { recordAudit } from '@/lib/data/audit';
 import { getSettings } from '@/lib/data/settings/settings';
@@ -37,8 +38,8 @@ async function lotBestBefore(lotId: number, t: Transaction): Promise<string> {
   const lot = await getDb().models.Lot.findByPk(lotId, { transaction: t });
   if (!lot) throw new NotFoundError('No such lot.');
   if (lot.bestBeforeOn) return lot.bestBeforeOn;
-  const { bestBeforeMonths } = await getSettings();
-  return bestBeforeDate(lot.extractedOn ?? new Date().toISOString().slice(0, 10), bestBeforeMonths);
+  const { bestBeforeMonths, timeZone } = await getSettings();
+  return bestBeforeDate(lot.extractedOn ?? todayIn(timeZone), bestBeforeMonths);
 }
 
 /**

@@ -9,7 +9,7 @@ import { listTreatmentKinds } from '@/lib/data/colonies/records';
 import { listYardChoices } from '@/lib/data/yards/yards';
 import { getSettings } from '@/lib/data/settings/settings';
 import { formatWeight } from '@/lib/domain/units';
-import { localDate } from '@/lib/domain/local-date';
+import { localDate, todayIn } from '@/lib/domain/local-date';
 import { PageHeader } from '@/components/ui/page-header';
 import { Chip } from '@/components/ui/chip';
 import { ColonyStatusChip, FlagCell, QueenColour } from '@/components/colonies/chips';
@@ -56,7 +56,7 @@ export default async function ColonyPage({ params }: { params: Promise<{ id: str
   if (!colony) notFound();
   const settings = await getSettings();
   const fmt = (g: number) => formatWeight(g, settings.weightSystem);
-  const today = localDate(new Date(), settings.timeZone);
+  const today = todayIn(settings.timeZone);
   const [supers, timeline] = await Promise.all([listColonySupers(colony.id), colonyTimeline(colony.id, fmt)]);
   const write = can(user.role, 'colonies.write');
   const canVoid = can(user.role, 'supers.write');

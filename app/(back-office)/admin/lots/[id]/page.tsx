@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { todayIn } from '@/lib/domain/local-date';
 import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
@@ -68,7 +69,7 @@ export default async function LotPage({
   const [pullable, yards, types] = takesSupers
     ? await Promise.all([listPullableSupers({ yardId, q: one(sp.q) }), listYardsBrief(), listContainerTypes()])
     : [[], [], writer ? await listContainerTypes() : []];
-  const today = new Date().toISOString().slice(0, 10);
+  const today = todayIn(settings.timeZone);
   const live = <T extends { voidedAt: Date | null }>(rows: T[]) => rows.filter((r) => !r.voidedAt);
 
   return (

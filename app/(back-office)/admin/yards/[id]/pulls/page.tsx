@@ -4,7 +4,7 @@ import { requirePermission } from '@/lib/auth/session';
 import { getYard } from '@/lib/data/yards/yards';
 import { listColonies } from '@/lib/data/colonies/read';
 import { getSettings } from '@/lib/data/settings/settings';
-import { localDate } from '@/lib/domain/local-date';
+import { todayIn } from '@/lib/domain/local-date';
 import { PageHeader } from '@/components/ui/page-header';
 import { Caution } from '@/components/ui/caution';
 import { PullPass } from '@/components/yards/pull-pass';
@@ -38,7 +38,7 @@ export default async function RecordPullsPage({ params }: { params: Promise<{ id
         </Caution>
         <PullPass
           colonies={rows.map((c) => ({ id: c.id, code: c.code, lastPulledOn: c.lastPulledOn }))}
-          today={localDate(new Date(), settings.timeZone)}
+          today={todayIn(settings.timeZone)}
           defaultUnit={settings.weightSystem === 'us' ? 'lb' : 'kg'}
           onSave={recordPullsAction}
           userId={user.id}
