@@ -140,7 +140,7 @@ export function SettingsForm({
           inputMode="decimal"
         />
         <TextField
-          label="US Grade A/B line, %"
+          label="US Grade A water limit, %"
           registration={form.register('moistureGradeAPct')}
           error={e.moistureGradeAPct}
           inputMode="decimal"

@@ -33,7 +33,7 @@ export const settingsInput = z.object({
     .regex(/^[A-Z]{1,4}$/, 'Use 1 to 4 capital letters.'),
   moistureLimitPct: pct('General moisture limit'),
   moistureLimitHeatherPct: pct('Heather moisture limit'),
-  moistureGradeAPct: pct('Grade A/B line'),
+  moistureGradeAPct: pct('US Grade A water limit'),
   hmfMaxMgKg: z.coerce.number().min(0).max(200),
   diastaseMinSchade: z.coerce.number().min(0).max(50),
   insolubleMaxG100g: z.coerce.number().min(0).max(5),

@@ -393,7 +393,7 @@ export default async function LotPage({
                   {lot.grade.withinLimit ? 'within limit' : 'over limit'}
                 </Chip>
               ) : null}
-              {lot.grade?.usGradeAB ? <Chip tone="info">US Grade A/B moisture</Chip> : null}
+              {lot.grade?.usGradeAB ? <Chip tone="info">water within US Grade A limit</Chip> : null}
               {lot.fermentation ? (
                 <Chip tone={FERMENT_TONE[lot.fermentation.band]}>
                   fermentation: {lot.fermentation.band.replace(/-/g, ' ')}
