@@ -6,7 +6,7 @@ import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors'
 import { nextStage } from '@/lib/domain/lot-stage';
 import { remainingGrams } from '@/lib/domain/lot-weights';
 import { blendBestBefore, lotBestBefore } from '@/lib/domain/jars';
-import { getSettings } from '@/lib/data/settings/settings';
+import { getSettingsIn } from '@/lib/data/settings/settings';
 import { todayIn } from '@/lib/domain/local-date';
 import { recordAudit } from '@/lib/data/audit';
 import { createLot } from './lots';
@@ -48,7 +48,7 @@ export async function createBlend(
         throw new ConflictError(`Lot ${parent.code} has only ${left} g left; ${part.grams} g cannot be taken from it.`);
     }
     const netGrams = input.parts.reduce((sum, p) => sum + p.grams, 0);
-    const { bestBeforeMonths, timeZone } = await getSettings();
+    const { bestBeforeMonths, timeZone } = await getSettingsIn(t);
     const blendedOn = todayIn(timeZone);
     const bestBeforeOn = blendBestBefore(
       blendedOn,

@@ -9,7 +9,7 @@ import { bestBeforeDate } from '@/lib/domain/jars';
 import { todayIn } from '@/lib/domain/local-date';
 import type { StockEntryKind } from '@/models/stock-entry';
 import { recordAudit } from '@/lib/data/audit';
-import { getSettings } from '@/lib/data/settings/settings';
+import { getSettings, getSettingsIn } from '@/lib/data/settings/settings';
 
 export type StockEntryInput = {
   productId: number;
@@ -38,7 +38,7 @@ async function lotBestBefore(lotId: number, t: Transaction): Promise<string> {
   const lot = await getDb().models.Lot.findByPk(lotId, { transaction: t });
   if (!lot) throw new NotFoundError('No such lot.');
   if (lot.bestBeforeOn) return lot.bestBeforeOn;
-  const { bestBeforeMonths, timeZone } = await getSettings();
+  const { bestBeforeMonths, timeZone } = await getSettingsIn(t);
   return bestBeforeDate(lot.extractedOn ?? todayIn(timeZone), bestBeforeMonths);
 }
 
@@ -249,4 +249,28 @@ export async function listLedger(_user: SessionUser, query: LedgerListQuery): Pr
       byName: e.createdBy ? (names.get(e.createdBy) ?? null) : null,
     })),
   };
+}
+
+export type PastBestBeforeRow = { productName: string; lotCode: string; onHand: number; bestBeforeOn: string };
+
+/** Jars on hand past their best-before date (the business's today): not sold, to be dealt with. */
+export async function stockPastBestBefore(): Promise<PastBestBeforeRow[]> {
+  const today = todayIn((await getSettings()).timeZone);
+  const rows = await getDb().models.StockLevel.findAll({
+    where: { onHand: { [Op.gt]: 0 }, bestBeforeOn: { [Op.lt]: today } },
+    include: [
+      { association: 'product', attributes: ['name'] },
+      { association: 'lot', attributes: ['code'] },
+    ],
+    order: [
+      ['bestBeforeOn', 'ASC'],
+      ['lotId', 'ASC'],
+    ],
+  });
+  return rows.map((r) => ({
+    productName: r.product?.name ?? '',
+    lotCode: r.lot?.code ?? '',
+    onHand: r.onHand,
+    bestBeforeOn: r.bestBeforeOn,
+  }));
 }

@@ -3,7 +3,7 @@ import { Op, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import { superConflicts, type FeedingRecord, type TreatmentRecord } from '@/lib/domain/conflicts';
 import { flagReasons, pullWindow } from '@/lib/domain/pull-window';
-import { getSettings } from '@/lib/data/settings/settings';
+import { getSettingsIn } from '@/lib/data/settings/settings';
 
 export type ColonyRecords = {
   feedings: FeedingRecord[];
@@ -40,7 +40,7 @@ export async function colonyRecords(colonyId: number, t: Transaction): Promise<C
       removedOn: x.removedOn ?? null,
     })),
     pulledDates: pulls.map((p) => ({ id: p.id, pulledOn: p.pulledOn as string })),
-    seasonStartMonth: (await getSettings()).seasonStartMonth,
+    seasonStartMonth: (await getSettingsIn(t)).seasonStartMonth,
   };
 }
 

@@ -362,6 +362,11 @@ export default async function LotPage({
                 <dd>{lot.cappingsWaxGrams === null ? '—' : w(lot.cappingsWaxGrams)}</dd>
               </div>
             </dl>
+            {lot.yield.warning ? (
+              <p role="status" className="text-sm">
+                <Chip tone="warn">check</Chip> {lot.yield.warning}
+              </p>
+            ) : null}
             {writer && open ? <WaxForm lotId={lot.id} unit={unit} onSave={waxAction} /> : null}
             <p className="hint">
               Estimates use the owner’s honey per super by depth; a super’s empty weight makes it measured (full −
