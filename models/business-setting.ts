@@ -36,6 +36,7 @@ export class BusinessSetting extends Model<InferAttributes<BusinessSetting>, Inf
   declare bestBeforeMonths: CreationOptional<number>;
   /** Whether a super may go on or come off with no tag (else every super carries a printed tag). */
   declare allowUntaggedSupers: CreationOptional<boolean>;
+  declare seasonStartMonth: CreationOptional<number>;
   declare expectedLossPct: CreationOptional<number>;
   declare fillRuleSet: CreationOptional<'oiml' | 'nist'>;
   declare labelDeclaration: CreationOptional<'us-dual' | 'metric'>;
@@ -68,6 +69,7 @@ export function initBusinessSetting(sequelize: Sequelize) {
       insolubleMaxG100g: { type: dec(5, 2), allowNull: false, defaultValue: 0.1 },
       bestBeforeMonths: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 24 },
       allowUntaggedSupers: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+      seasonStartMonth: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
       expectedLossPct: { type: dec(4, 1), allowNull: false, defaultValue: 2 },
       fillRuleSet: { type: DataTypes.ENUM('oiml', 'nist'), allowNull: false, defaultValue: 'oiml' },
       labelDeclaration: { type: DataTypes.ENUM('us-dual', 'metric'), allowNull: false, defaultValue: 'metric' },

@@ -2,7 +2,13 @@ import { formatMoney } from '@/lib/domain/units';
 import type { OrderDetail } from '@/lib/data/orders/read';
 import { TableHead, num } from '@/components/ui/table-parts';
 
-const STATE: Record<string, string> = { reserved: 'held', sold: '', returned: 'returned', written_off: 'written off' };
+/** Words for an allocation's state; "held" is a lot stage, so a reservation says "reserved". */
+export const ALLOCATION_WORDS: Record<string, string> = {
+  reserved: 'reserved',
+  sold: '',
+  returned: 'returned',
+  written_off: 'written off',
+};
 
 /** The order's lines with the lot codes that fill them (a recall reaches the customer through these). */
 export function OrderLines({ order }: { order: OrderDetail }) {
@@ -24,7 +30,7 @@ export function OrderLines({ order }: { order: OrderDetail }) {
                   {l.lots.map((a, i) => (
                     <li key={i}>
                       <span className="font-mono">{a.code}</span> × {a.quantity}
-                      {STATE[a.state] ? ` (${STATE[a.state]})` : ''}
+                      {ALLOCATION_WORDS[a.state] ? ` (${ALLOCATION_WORDS[a.state]})` : ''}
                     </li>
                   ))}
                 </ul>

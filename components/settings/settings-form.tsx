@@ -9,6 +9,21 @@ import { useActionForm } from '@/components/ui/use-action-form';
 
 type Values = SettingsInput;
 
+const MONTHS = [
+  'January (the calendar year)',
+  'February',
+  'March',
+  'April',
+  'May',
+  'June',
+  'July (across New Year, e.g. the southern hemisphere)',
+  'August',
+  'September',
+  'October',
+  'November',
+  'December',
+];
+
 function Select({
   label,
   name,
@@ -93,7 +108,7 @@ export function SettingsForm({
         <TextField label="Lot code prefix" {...field('lotCodePrefix')} hint="e.g. HH → HH26-014" />
         <TextField label="Moisture limit, %" {...field('moistureLimitPct')} inputMode="decimal" />
         <TextField label="Heather moisture limit, %" {...field('moistureLimitHeatherPct')} inputMode="decimal" />
-        <TextField label="US Grade A/B line, %" {...field('moistureGradeAPct')} inputMode="decimal" />
+        <TextField label="US Grade A water limit, %" {...field('moistureGradeAPct')} inputMode="decimal" />
         <TextField label="HMF max, mg/kg" {...field('hmfMaxMgKg')} inputMode="decimal" />
         <TextField label="Diastase min, Schade" {...field('diastaseMinSchade')} inputMode="decimal" />
         <TextField label="Water-insoluble max, g/100 g" {...field('insolubleMaxG100g')} inputMode="decimal" />
@@ -111,6 +126,12 @@ export function SettingsForm({
             names a tag from your tag list.
           </span>
         </label>
+        <Select
+          form={form}
+          name="seasonStartMonth"
+          label="Season starts in"
+          options={MONTHS.map((m, i) => [String(i + 1), m])}
+        />
       </fieldset>
       <fieldset className="grid gap-4 card sm:grid-cols-2">
         <legend className="font-heading text-lg font-semibold text-forest-800">Labels and fill checks</legend>

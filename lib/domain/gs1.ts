@@ -21,6 +21,8 @@ export function gs1CheckDigit(dataDigits: string): number {
 /** GTIN-8, -12, -13 or -14 (GS1 General Specifications, GTIN formats — section from memory): digits only, right check digit. */
 export function isValidGtin(code: string): boolean {
   if (!/^\d+$/.test(code) || !GTIN_LENGTHS.has(code.length)) return false;
+  // All zeros passes the check-digit sum but identifies no trade item (no company prefix is 0…0).
+  if (/^0+$/.test(code)) return false;
   return gs1CheckDigit(code.slice(0, -1)) === Number(code.slice(-1));
 }
 
@@ -40,7 +42,8 @@ export function gtin14(code: string): string {
 export function makeGtin(companyPrefix: string, itemReference: string, indicator = ''): string {
   if (!/^\d+$/.test(companyPrefix)) throw new Error('Company prefix must be digits');
   if (!/^\d*$/.test(itemReference)) throw new Error('Item reference must be digits');
-  if (!/^\d?$/.test(indicator)) throw new Error('Indicator must be one digit');
+  // Indicator digits 1–8 mark groupings; 0 would be a padded GTIN-13 and 9 is for variable-measure items (from memory).
+  if (!/^[1-8]?$/.test(indicator)) throw new Error('Indicator must be one digit from 1 to 8');
   const free = 12 - companyPrefix.length;
   if (free < 0 || itemReference.length > free) {
     throw new Error('Company prefix and item reference are longer than 12 digits');
@@ -132,11 +135,26 @@ const PREDEFINED_LENGTH: Record<string, number> = {
 
 const GS = '\x1d';
 
-/** YYMMDD → YYYY-MM-DD. Century 20xx (fine until 2099; GS1 General Specifications §7.12 has a sliding window — from memory).
+/**
+ * The full year of a two-digit year, by the GS1 General Specifications' century rule (§7.12,
+ * "Determination of century in dates"; section and wording from memory): with d = YY minus the
+ * last two digits of the current year, d from 51 to 99 is the previous century, d from −99 to −50
+ * the next century, anything else the current one — a window from 49 years back to 50 ahead.
+ */
+export function gs1Year(yy: number, currentYear: number): number {
+  if (!Number.isInteger(yy) || yy < 0 || yy > 99) throw new RangeError('A two-digit year is 0–99');
+  const century = currentYear - (currentYear % 100);
+  const d = yy - (currentYear % 100);
+  if (d >= 51) return century - 100 + yy;
+  if (d <= -50) return century + 100 + yy;
+  return century + yy;
+}
+
+/** YYMMDD → YYYY-MM-DD, the century by gs1Year.
  * DD = 00 means the last day of the month (GS1 General Specifications, AI (15) best before date). */
-function isoFromYymmdd(v: string): string | undefined {
+function isoFromYymmdd(v: string, currentYear: number): string | undefined {
   if (!/^\d{6}$/.test(v)) return undefined;
-  const year = 2000 + Number(v.slice(0, 2));
+  const year = gs1Year(Number(v.slice(0, 2)), currentYear);
   const month = Number(v.slice(2, 4));
   let day = Number(v.slice(4, 6));
   if (month < 1 || month > 12) return undefined;
@@ -146,10 +164,10 @@ function isoFromYymmdd(v: string): string | undefined {
   return `${year}-${String(month).padStart(2, '0')}-${String(day).padStart(2, '0')}`;
 }
 
-function collect(out: Gs1Fields, ai: string, value: string): void {
+function collect(out: Gs1Fields, ai: string, value: string, currentYear: number): void {
   if (ai === '01' && isValidGtin(value)) out.gtin = value;
   else if (ai === '15') {
-    const iso = isoFromYymmdd(value);
+    const iso = isoFromYymmdd(value, currentYear);
     if (iso) out.bestBefore = iso;
   } else if (ai === '10' && value.length >= 1 && value.length <= 20 && isGs1Cset82(value)) out.lot = value;
 }
@@ -168,9 +186,9 @@ function splitBracketed(s: string): { ai: string; value: string }[] {
   }));
 }
 
-function parseBracketed(s: string): Gs1Fields {
+function parseBracketed(s: string, currentYear: number): Gs1Fields {
   const out: Gs1Fields = {};
-  for (const { ai, value } of splitBracketed(s)) collect(out, ai, value);
+  for (const { ai, value } of splitBracketed(s)) collect(out, ai, value, currentYear);
   return out;
 }
 
@@ -190,7 +208,7 @@ export function gs1RawElementString(bracketed: string): string {
     .join('');
 }
 
-function parseRaw(s: string): Gs1Fields {
+function parseRaw(s: string, currentYear: number): Gs1Fields {
   const out: Gs1Fields = {};
   let i = 0;
   while (i < s.length) {
@@ -210,7 +228,7 @@ function parseRaw(s: string): Gs1Fields {
       end = gs === -1 ? s.length : gs;
     }
     // The three AIs we read are two digits long; others are skipped whole.
-    if (head === '01' || head === '15' || head === '10') collect(out, head, s.slice(i + 2, end));
+    if (head === '01' || head === '15' || head === '10') collect(out, head, s.slice(i + 2, end), currentYear);
     i = end;
   }
   return out;
@@ -220,12 +238,14 @@ function parseRaw(s: string): Gs1Fields {
  * Reads GTIN, best-before (as YYYY-MM-DD) and lot from a human-readable element string
  * `(01)…(15)…(10)…`, from a scanner's raw output (optional symbology identifier `]C1`,
  * `]d2`, `]Q3`, `]e0`; GS separators after variable-length fields), or from a bare
- * GTIN. Never throws: fields that are missing or fail their check are left out.
+ * GTIN. Never throws: fields that are missing or fail their check are left out. A two-digit
+ * year is read by the GS1 century rule against `now`'s year (gs1Year).
  */
-export function parseGs1ElementString(s: string): Gs1Fields {
+export function parseGs1ElementString(s: string, now: Date = new Date()): Gs1Fields {
+  const currentYear = now.getUTCFullYear();
   let text = s.trim();
   if (/^\d+$/.test(text) && isValidGtin(text)) return { gtin: gtin14(text) };
   text = text.replace(/^\][A-Za-z]\d/, '');
-  if (text.startsWith('(')) return parseBracketed(text);
-  return parseRaw(text);
+  if (text.startsWith('(')) return parseBracketed(text, currentYear);
+  return parseRaw(text, currentYear);
 }

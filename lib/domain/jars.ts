@@ -54,3 +54,21 @@ export function bestBeforeDate(extractedOn: string, months: number): string {
   const day = Math.min(d, daysInMonth(year, month));
   return `${String(year).padStart(4, '0')}-${String(month).padStart(2, '0')}-${String(day).padStart(2, '0')}`;
 }
+
+/** A lot's best-before: the date it was given (on first jarring, or when blended), else extractedOn + months. */
+export function lotBestBefore(
+  lot: { bestBeforeOn: string | null; extractedOn: string | null },
+  months: number,
+  today: string,
+): string {
+  return lot.bestBeforeOn ?? bestBeforeDate(lot.extractedOn ?? today, months);
+}
+
+/**
+ * A blend is never better than its oldest honey: its best-before is the earliest of its parents'
+ * best-before dates and the blend date + the owner's months.
+ */
+export function blendBestBefore(blendedOn: string, months: number, parentBestBefore: string[]): string {
+  for (const d of parentBestBefore) parseIsoDate(d);
+  return [bestBeforeDate(blendedOn, months), ...parentBestBefore].sort()[0];
+}

@@ -31,14 +31,21 @@ export function extractionYield(
   pct: number | null;
   measuredCount: number;
   estimatedCount: number;
+  /** Set when the lot weighs more than its supers held: something was weighed or estimated wrong. */
+  warning: string | null;
 } {
   const expectedGrams = superHoney.reduce((sum, s) => sum + Math.max(0, s.grams), 0);
   const measuredCount = superHoney.filter((s) => s.measured).length;
+  const pct = expectedGrams > 0 ? (lotNetGrams / expectedGrams) * 100 : null;
   return {
     expectedGrams,
-    pct: expectedGrams > 0 ? (lotNetGrams / expectedGrams) * 100 : null,
+    pct,
     measuredCount,
     estimatedCount: superHoney.length - measuredCount,
+    warning:
+      pct !== null && pct > 100
+        ? 'The lot weighs more than its supers held. Check the container weights, the super weights and the honey-per-box estimates in the settings.'
+        : null,
   };
 }
 

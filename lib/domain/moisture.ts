@@ -64,6 +64,16 @@ export function moistureSummary(values: number[]): { highest: number; mean: numb
   return { highest: Math.max(...values), mean: sum / values.length, count: values.length };
 }
 
+/**
+ * The water content a decision is made on: the value rounded (half up) to the display precision
+ * of 0.1 %, as a honey refractometer reads it. So the figure shown and the verdict never disagree:
+ * RI 1.4864 (20.02 %) shows "20 %" and is within a 20 % limit; 20.05 % shows 20.1 % and is over.
+ */
+export function decisionPct(waterPct: number): number {
+  if (!Number.isFinite(waterPct)) throw new RangeError('Water content must be a finite number');
+  return Math.round(waterPct * 10 + EPS) / 10;
+}
+
 function pct(value: number): string {
   return `${Number(value.toFixed(1))} %`;
 }
@@ -76,12 +86,14 @@ export function gradeMoisture(
 ): { withinLimit: boolean; limitPct: number; usGradeAB: boolean; label: string } {
   if (!Number.isFinite(waterPct)) throw new RangeError('Water content must be a finite number');
   const limitPct = opts.heather ? limits.heatherPct : limits.generalPct;
-  const withinLimit = waterPct <= limitPct + EPS;
-  const usGradeAB = waterPct <= limits.gradeAPct + EPS;
+  const water = decisionPct(waterPct);
+  const withinLimit = water <= limitPct + EPS;
+  const usGradeAB = water <= limits.gradeAPct + EPS;
   const limitText = `${opts.heather ? 'heather ' : ''}limit of ${pct(limitPct)}`;
+  // Water is one factor of a USDA grade, not the grade: say only that the water is within its limit.
   const label = withinLimit
-    ? `${pct(waterPct)} water: within the ${limitText}${usGradeAB ? `; meets US Grade A/B (≤ ${pct(limits.gradeAPct)})` : ''}`
-    : `${pct(waterPct)} water: over the ${limitText}`;
+    ? `${pct(water)} water: within the ${limitText}${usGradeAB ? `; water within the US Grade A limit (≤ ${pct(limits.gradeAPct)})` : ''}`
+    : `${pct(water)} water: over the ${limitText}`;
   return { withinLimit, limitPct, usGradeAB, label };
 }
 
@@ -90,11 +102,11 @@ export type FermentationBand = 'low' | 'yeast-dependent' | 'high-yeast-dependent
 /**
  * Fermentation risk bands (USDA Agriculture Handbook 335 after Lochhead; treated as
  * common practice): below 17.1 % low; up to 18.0 % safe if yeast ≤ 1000/g; up to
- * 19.0 % safe only if yeast ≤ 10/g; above 19 % likely. The table is in 0.1 % steps,
- * so a value between steps (18.05) takes the riskier band.
+ * 19.0 % safe only if yeast ≤ 10/g; above 19 % likely. The table is in 0.1 % steps and
+ * is read, like the limits, on the value rounded to 0.1 % (decisionPct): 18.05 → 18.1 %, 18.04 → 18.0 %.
  */
-export function fermentationRisk(waterPct: number): { band: FermentationBand; label: string } {
-  if (!Number.isFinite(waterPct)) throw new RangeError('Water content must be a finite number');
+export function fermentationRisk(rawPct: number): { band: FermentationBand; label: string } {
+  const waterPct = decisionPct(rawPct);
   if (waterPct < 17.1 - EPS) return { band: 'low', label: 'Low risk: keeps a year whatever the yeast count' };
   if (waterPct <= 18.0 + EPS) return { band: 'yeast-dependent', label: 'Safe only if yeast count ≤ 1000/g' };
   if (waterPct <= 19.0 + EPS) return { band: 'high-yeast-dependent', label: 'Safe only if yeast count ≤ 10/g' };

@@ -82,9 +82,10 @@ export function declareNetQuantity(product: NetQuantityProduct, mode: 'us-dual' 
   const amount = positive(product.declaredAmount, 'Declared amount');
   if (mode === 'us-dual') {
     if (product.declaredUnit === 'oz') return declareNetWeightUS(amount);
-    // Declared in grams: the metric figure is exact, ounces are 3 significant figures, rounded down.
+    // Declared in grams: ounces and the metric figure both in 3 significant figures, rounded down
+    // (1361 g → "1.36 kg", not "1.361 kg"); a whole-gram amount under 1 kg stays as declared.
     const ounces = floorSignificant(amount / GRAMS_PER_OUNCE, 3).value;
-    return `NET WT ${usCustomaryPart(ounces)} (${declareNetWeightMetric(amount)})`;
+    return `NET WT ${usCustomaryPart(ounces)} (${usMetricFigure(amount)})`;
   }
   if (product.declaredUnit === 'g') return declareNetWeightMetric(amount);
   return declareNetWeightMetric(metricFigure(amount * GRAMS_PER_OUNCE).value);

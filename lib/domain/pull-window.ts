@@ -1,11 +1,14 @@
+import { seasonBounds, seasonOf } from './season';
+
 /**
  * The days a pulled super is taken to have been on its colony, for the conflict check.
  * When the put-on date was recorded, that is the start. When it was not (a pull entered
  * straight from the yard or a field sheet), we cannot know, so the window is widened on
- * the safe side: it starts the day after the colony's previous pull that season, or on
- * 1 January of the pull's year when there was none. Widening can only add flags, never
- * hide one: a super flagged wrongly can be cleared by the owner with a reason; honey fed
- * with syrup cannot be unmixed from a lot.
+ * the safe side: it starts the day after the colony's previous pull, whatever the year (a
+ * pull on 15 January after one on 20 December is checked from 21 December), or, when the
+ * colony has no earlier pull, on the first day of the season the pull is in (the owner's
+ * season start month). Widening can only add flags, never hide one: a super flagged wrongly
+ * can be cleared by the owner with a reason; honey fed with syrup cannot be unmixed from a lot.
  */
 export type PullWindow = { putOn: string; pulled: string; putOnKnown: boolean };
 
@@ -15,14 +18,21 @@ function nextDay(date: string): string {
   return d.toISOString().slice(0, 10);
 }
 
-export function pullWindow(pulledOn: string, putOnOn: string | null, previousPulls: string[]): PullWindow {
+export function pullWindow(
+  pulledOn: string,
+  putOnOn: string | null,
+  previousPulls: string[],
+  seasonStartMonth = 1,
+): PullWindow {
   if (putOnOn) {
     if (putOnOn > pulledOn) throw new RangeError(`Super pulled (${pulledOn}) before it was put on (${putOnOn})`);
     return { putOn: putOnOn, pulled: pulledOn, putOnKnown: true };
   }
-  const yearStart = `${pulledOn.slice(0, 4)}-01-01`;
-  const earlier = previousPulls.filter((d) => d >= yearStart && d < pulledOn).sort();
-  const start = earlier.length > 0 ? nextDay(earlier[earlier.length - 1]) : yearStart;
+  const earlier = previousPulls.filter((d) => d < pulledOn).sort();
+  const start =
+    earlier.length > 0
+      ? nextDay(earlier[earlier.length - 1])
+      : seasonBounds(seasonOf(pulledOn, seasonStartMonth), seasonStartMonth).from;
   return { putOn: start, pulled: pulledOn, putOnKnown: false };
 }
 

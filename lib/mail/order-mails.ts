@@ -95,7 +95,7 @@ export function orderRefundMail(o: OrderDetail, c: Ctx & { amountCents: number; 
 }
 
 export function paidAfterReleaseMail(o: OrderDetail, c: Ctx & { to: string }): MailInput {
-  const lead = `Order ${o.number} (${o.email}) was paid after its reservation had ended, and there were not enough jars left to fill it. Please refund it from the order desk.`;
+  const lead = `Order ${o.number} (${o.email}) was paid after its reservation had ended, and there were not enough jars left to fill it. Please refund it on the Orders page of the back office (Admin › Orders), from the order's Refund form.`;
   return {
     to: c.to,
     subject: `Refund needed: order ${o.number}`,

@@ -1,4 +1,5 @@
 import 'server-only';
+import { seasonLabel } from '@/lib/domain/season';
 import type { SessionUser } from '@/lib/auth/session';
 import { getSeasonReport } from '@/lib/data/reports/yield-report';
 import { getSettings } from '@/lib/data/settings/settings';
@@ -25,7 +26,7 @@ export async function keeperReportPdf(viewer: SessionUser, keeperId: number, sea
     };
   };
   const bytes = await renderTableReport({
-    title: `Season ${season} yield report: ${keeperName}`,
+    title: `Season ${seasonLabel(season, settings.seasonStartMonth)} yield report: ${keeperName}`,
     subtitle:
       `${settings.businessName}. ${report.colonies.length} colonies, ${formatWeight(report.totals.honeyGrams, units.weightSystem)} of honey, ` +
       `${formatMoney(report.totals.revenueCents, units.currency)} of jar sales shared back by weight.`,
@@ -39,7 +40,7 @@ export async function keeperReportPdf(viewer: SessionUser, keeperId: number, sea
       strip(t.shares, []),
       strip(t.nothing, ['Keeper']),
     ],
-    footer: `${settings.businessName} · season ${season} · ${keeperName}`,
+    footer: `${settings.businessName} · season ${seasonLabel(season, settings.seasonStartMonth)} · ${keeperName}`,
   });
   return { bytes, filename: `season-${season}-${keeperName}`, report };
 }

@@ -34,11 +34,17 @@ export const settingsInput = z.object({
     .regex(/^[A-Z]{1,4}$/, 'Use 1 to 4 capital letters.'),
   moistureLimitPct: pct('General moisture limit'),
   moistureLimitHeatherPct: pct('Heather moisture limit'),
-  moistureGradeAPct: pct('Grade A/B line'),
+  moistureGradeAPct: pct('US Grade A water limit'),
   hmfMaxMgKg: z.coerce.number().min(0).max(200),
   diastaseMinSchade: z.coerce.number().min(0).max(50),
   insolubleMaxG100g: z.coerce.number().min(0).max(5),
   bestBeforeMonths: z.coerce.number().int('Whole months.').min(1).max(120),
+  /** The month the beekeeping season starts (1 = January); reports group by it. */
+  seasonStartMonth: z.coerce
+    .number({ error: 'Pick the month the season starts.' })
+    .int('Pick the month the season starts.')
+    .min(1, 'Pick the month the season starts.')
+    .max(12, 'Pick the month the season starts.'),
   expectedLossPct: z.coerce.number().min(0).max(20),
   /** Left out (an older client): the stored choice stays as it is. */
   allowUntaggedSupers: z.boolean().optional(),

@@ -7,6 +7,7 @@ import {
   isGs1Cset82,
   isValidGtin,
   makeGtin,
+  gs1Year,
   parseGs1ElementString,
 } from '@/lib/domain/gs1';
 
@@ -164,5 +165,30 @@ describe('parsing scanned and typed element strings', () => {
       `0109521234543213${'10HH26-014'}${GS}15271231`,
     );
     expect(gs1RawElementString('(01)09521234543213(15)271231(10)HH26-014')).toBe('01095212345432131527123110HH26-014');
+  });
+});
+
+// GS1 General Specifications; the century rule is §7.12 and the indicator range 1–8 is from memory.
+describe('GS1 edge cases', () => {
+  it('a GTIN of all zeros is not valid, though its check digit sums', () => {
+    for (const zeros of ['00000000', '000000000000', '0000000000000', '00000000000000'])
+      expect(isValidGtin(zeros)).toBe(false);
+    expect(parseGs1ElementString('(01)00000000000000(10)A1')).toEqual({ lot: 'A1' });
+  });
+  it('makeGtin takes indicator digits 1–8 only', () => {
+    expect(makeGtin('9521234', '5', '8')).toHaveLength(14);
+    expect(() => makeGtin('9521234', '5', '0')).toThrow();
+    expect(() => makeGtin('9521234', '5', '9')).toThrow();
+  });
+  it('reads a two-digit year by the GS1 century rule, not always 20xx', () => {
+    expect(gs1Year(27, 2026)).toBe(2027);
+    expect(gs1Year(76, 2026)).toBe(2076); // 50 ahead: current century
+    expect(gs1Year(77, 2026)).toBe(1977); // 51 ahead: previous century
+    expect(gs1Year(1, 2098)).toBe(2101); // 97 behind: next century
+    expect(gs1Year(48, 2098)).toBe(2148); // −50: next century
+    expect(gs1Year(49, 2098)).toBe(2049); // −49: current century
+    const now = new Date('2098-06-01T00:00:00Z');
+    expect(parseGs1ElementString('(15)010630(10)A1', now).bestBefore).toBe('2101-06-30');
+    expect(parseGs1ElementString('(15)990630(10)A1', new Date('2026-06-01T00:00:00Z')).bestBefore).toBe('1999-06-30');
   });
 });

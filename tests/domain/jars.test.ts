@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { bestBeforeDate, honeyUsedByRun, jarsLotCanFill } from '@/lib/domain/jars';
+import { bestBeforeDate, blendBestBefore, honeyUsedByRun, jarsLotCanFill } from '@/lib/domain/jars';
 
 describe('jarsLotCanFill', () => {
   it('floors after the expected loss', () => {
@@ -61,5 +61,20 @@ describe('bestBeforeDate', () => {
     expect(() => bestBeforeDate('15/08/2026', 12)).toThrow(RangeError);
     expect(() => bestBeforeDate('2026-08-15', 1.5)).toThrow(RangeError);
     expect(() => bestBeforeDate('2026-08-15', -1)).toThrow(RangeError);
+  });
+});
+
+// A blend is never better than its oldest honey (the owner's months are a choice; Regulation (EU)
+// No 1169/2011, Annex X sets only the wording).
+describe('blend best-before: never later than its oldest honey', () => {
+  it('takes a parent best-before earlier than blend date + months', () => {
+    // Blended 1 Nov 2026 from a lot extracted 1 Jun 2025 (best before 1 Jun 2027), 24 months.
+    expect(blendBestBefore('2026-11-01', 24, ['2027-06-01', '2028-08-15'])).toBe('2027-06-01');
+  });
+  it('takes blend date + months when every parent keeps longer', () => {
+    expect(blendBestBefore('2026-11-01', 6, ['2027-06-01'])).toBe('2027-05-01');
+  });
+  it('refuses a malformed parent date', () => {
+    expect(() => blendBestBefore('2026-11-01', 24, ['2027-6-1'])).toThrow(RangeError);
   });
 });

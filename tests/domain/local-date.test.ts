@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { localDate } from '@/lib/domain/local-date';
+import { localDate, todayIn } from '@/lib/domain/local-date';
 
 describe('localDate', () => {
   it('gives the date in the business time zone, not UTC', () => {
@@ -10,5 +10,20 @@ describe('localDate', () => {
   });
   it('throws on an unknown zone', () => {
     expect(() => localDate(new Date(), 'Not/AZone')).toThrow(RangeError);
+  });
+});
+
+// Calendar dates are the business's (its time zone setting), not UTC's: IANA time zone database.
+describe('todayIn: dates in the business time zone, not UTC', () => {
+  it('at 02:30 UTC on 2 March it is still 1 March in a UTC−5 zone', () => {
+    const now = new Date('2026-03-02T02:30:00Z'); // New York is on EST (UTC−5) until 8 March 2026
+    expect(todayIn('America/New_York', now)).toBe('2026-03-01');
+    expect(todayIn('UTC', now)).toBe('2026-03-02');
+  });
+  it('at 23:30 UTC on 1 March it is already 2 March in Auckland (UTC+13)', () => {
+    expect(todayIn('Pacific/Auckland', new Date('2026-03-01T23:30:00Z'))).toBe('2026-03-02');
+  });
+  it('falls back to UTC for an unknown zone rather than failing a write', () => {
+    expect(todayIn('Not/AZone', new Date('2026-03-01T23:30:00Z'))).toBe('2026-03-01');
   });
 });

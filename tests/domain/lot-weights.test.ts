@@ -22,9 +22,16 @@ describe('extractionYield', () => {
       { grams: 20_000, measured: true },
       { grams: 20_000, measured: false },
     ]);
-    expect(y).toEqual({ expectedGrams: 40_000, pct: 90, measuredCount: 1, estimatedCount: 1 });
+    expect(y).toEqual({ expectedGrams: 40_000, pct: 90, measuredCount: 1, estimatedCount: 1, warning: null });
   });
   it('has no percentage without supers', () => expect(extractionYield(1000, []).pct).toBeNull());
+  // A lot cannot hold more honey than its supers gave (conservation of mass): over 100 % is an error somewhere.
+  it('an extraction yield over 100 % warns', () => {
+    expect(extractionYield(40_001, [{ grams: 40_000, measured: true }]).warning).toMatch(
+      /weighs more than its supers held/,
+    );
+    expect(extractionYield(40_000, [{ grams: 40_000, measured: true }]).warning).toBeNull();
+  });
 });
 
 describe('blendWaterPct (weight-weighted mean)', () => {

@@ -144,8 +144,24 @@ describe('gradeMoisture', () => {
   it('marks US Grade A/B at 18.6 % and below', () => {
     // USDA U.S. Standards for Grades of Extracted Honey (1985), Grade A and B ≤ 18.6 %
     expect(gradeMoisture(18.6, DEFAULT_MOISTURE_LIMITS).usGradeAB).toBe(true);
-    expect(gradeMoisture(18.6, DEFAULT_MOISTURE_LIMITS).label).toContain('meets US Grade A/B');
+    expect(gradeMoisture(18.6, DEFAULT_MOISTURE_LIMITS).label).toContain(
+      'water within the US Grade A limit (≤ 18.6 %)',
+    );
+    expect(gradeMoisture(18.6, DEFAULT_MOISTURE_LIMITS).label).not.toMatch(/meets|Grade A\/B/);
     expect(gradeMoisture(18.7, DEFAULT_MOISTURE_LIMITS).usGradeAB).toBe(false);
+  });
+
+  // Decided on the value rounded to the refractometer's 0.1 % (Chataway/Wedmore table, AOAC 969.38 B is in 0.1 % steps).
+  it('moisture at the limit: decides on the value shown, rounded to 0.1 %', () => {
+    const w = waterFromRefractiveIndex(1.4864); // 20.02 % by the Wedmore formula
+    expect(w).toBeGreaterThan(20);
+    const g = gradeMoisture(w, DEFAULT_MOISTURE_LIMITS);
+    expect(g.withinLimit).toBe(true);
+    expect(g.label).toBe('20 % water: within the limit of 20 %');
+    expect(gradeMoisture(20.049, DEFAULT_MOISTURE_LIMITS).withinLimit).toBe(true);
+    expect(gradeMoisture(20.05, DEFAULT_MOISTURE_LIMITS).label).toBe('20.1 % water: over the limit of 20 %');
+    expect(gradeMoisture(18.64, DEFAULT_MOISTURE_LIMITS).usGradeAB).toBe(true);
+    expect(gradeMoisture(18.65, DEFAULT_MOISTURE_LIMITS).usGradeAB).toBe(false);
   });
 
   it('follows owner-set limits', () => {
@@ -161,7 +177,12 @@ describe('fermentationRisk', () => {
     [17.0, 'low'],
     [17.1, 'yeast-dependent'],
     [18.0, 'yeast-dependent'],
-    [18.05, 'high-yeast-dependent'],
+    [17.04, 'low'], // reads 17.0 %
+    [17.05, 'yeast-dependent'], // reads 17.1 %
+    [18.04, 'yeast-dependent'], // reads 18.0 %
+    [18.05, 'high-yeast-dependent'], // reads 18.1 %
+    [19.04, 'high-yeast-dependent'], // reads 19.0 %
+    [19.05, 'likely'], // reads 19.1 %
     [18.1, 'high-yeast-dependent'],
     [19.0, 'high-yeast-dependent'],
     [19.1, 'likely'],

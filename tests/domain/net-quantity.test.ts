@@ -76,4 +76,12 @@ describe('declaration for a product', () => {
       'NET WT 11.9 OZ (340 g)',
     ); // 11.99 → 11.9
   });
+  // NIST Handbook 130 (metric figure in three significant figures, never overstating) and
+  // 16 CFR 500.19 (dual declaration): a kilogram figure is rounded like every other figure.
+  it('US dual, gram product of 1 kg or more: kg in three significant figures, rounded down', () => {
+    const big = (g: number) => ({ netGrams: g, declaredUnit: 'g' as const, declaredAmount: g });
+    expect(declareNetQuantity(big(1361), 'us-dual')).toBe('NET WT 3 LB (1.36 kg)'); // 48.007 oz → 48.0
+    expect(declareNetQuantity(big(1000), 'us-dual')).toBe('NET WT 2 LB 3.2 OZ (1 kg)'); // 35.27 oz → 35.2
+    expect(declareNetQuantity(big(2999), 'us-dual')).toBe('NET WT 6 LB 9 OZ (2.99 kg)'); // 105.78 oz → 105
+  });
 });

@@ -22,12 +22,24 @@ describe('pullWindow', () => {
     expect(pullWindow('2026-03-02', null, ['2026-02-28']).putOn).toBe('2026-03-01');
     expect(pullWindow('2024-03-02', null, ['2024-02-28']).putOn).toBe('2024-02-29'); // leap year
   });
-  it('falls back to 1 January when there is no earlier pull that year', () => {
-    expect(pullWindow('2026-07-20', null, ['2025-09-01'])).toEqual({
+  it('falls back to the start of the season when the colony has no earlier pull', () => {
+    expect(pullWindow('2026-07-20', null, [])).toEqual({
       putOn: '2026-01-01',
       pulled: '2026-07-20',
       putOnKnown: false,
     });
+    // A season starting in July (southern hemisphere): a January pull belongs to the season begun last July.
+    expect(pullWindow('2027-01-15', null, [], 7).putOn).toBe('2026-07-01');
+  });
+  // The season is not the calendar year: the window runs from the previous pull whatever the year.
+  it('the season is not the calendar year: a January pull after a December pull is checked from the December pull', () => {
+    const w = pullWindow('2027-01-15', null, ['2026-12-20']);
+    expect(w.putOn).toBe('2026-12-21');
+    const c = superConflicts(w, {
+      feedings: [{ kind: 'sugar_syrup', startedOn: '2026-12-25', endedOn: '2026-12-26' }],
+      treatments: [],
+    });
+    expect(c.flagged).toBe(true);
   });
   it('an unknown put-on date can only widen the check: spring syrup flags an unweighed first pull', () => {
     const w = pullWindow('2026-06-15', null, []);

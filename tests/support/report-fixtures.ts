@@ -5,7 +5,7 @@ import { getDb } from '@/lib/db/index';
  * An invented season (far in the future, so the demo data never shares it) with two keepers,
  * a split, weighed and unweighed supers, a blend and paid orders, written straight with SQL.
  */
-async function insert(table: string, row: Record<string, unknown>): Promise<number> {
+export async function insert(table: string, row: Record<string, unknown>): Promise<number> {
   const { sequelize } = getDb();
   const cols = Object.keys(row);
   const [r] = await sequelize.query<{ id: number }>(

@@ -2,6 +2,8 @@ import Link from 'next/link';
 import { requirePermission } from '@/lib/auth/session';
 import { menuFor } from '@/lib/auth/roles';
 import { PageHeader } from '@/components/ui/page-header';
+import { Chip } from '@/components/ui/chip';
+import { stockPastBestBefore } from '@/lib/data/stock/stock';
 
 export const metadata = { title: 'Today' };
 
@@ -22,9 +24,28 @@ const BLURBS: Record<string, string> = {
 export default async function AdminHome() {
   const user = await requirePermission('backoffice.enter');
   const items = menuFor(user.role).filter((m) => m.href !== '/admin');
+  const past = user.role === 'owner' ? await stockPastBestBefore() : [];
   return (
     <>
       <PageHeader title={`Good day, ${user.name.split(' ')[0]}`} lead="Where would you like to start?" />
+      {past.length > 0 ? (
+        <section className="mb-6 card" aria-labelledby="past-bb-h">
+          <h2 id="past-bb-h" className="text-lg">
+            <Chip tone="bad">past best-before</Chip> Jars the shop no longer sells
+          </h2>
+          <p className="hint">
+            These jars are past their best-before date, so checkout and orders skip them. Count them out on the{' '}
+            <Link href="/admin/stock">Stock</Link> page.
+          </p>
+          <ul className="mt-2 text-sm">
+            {past.map((r) => (
+              <li key={`${r.lotCode}-${r.productName}`}>
+                {r.onHand} × {r.productName}, lot {r.lotCode}, best before {r.bestBeforeOn}
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
       <ul className="grid gap-3 sm:grid-cols-2 xl:grid-cols-3">
         {items.map((m) => (
           <li key={m.href}>

@@ -5,6 +5,9 @@ import type { SessionUser } from '@/lib/auth/session';
 import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { nextStage } from '@/lib/domain/lot-stage';
 import { remainingGrams } from '@/lib/domain/lot-weights';
+import { blendBestBefore, lotBestBefore } from '@/lib/domain/jars';
+import { getSettingsIn } from '@/lib/data/settings/settings';
+import { todayIn } from '@/lib/domain/local-date';
 import { recordAudit } from '@/lib/data/audit';
 import { createLot } from './lots';
 import { lotSnapshot } from './access';
@@ -15,7 +18,8 @@ export type BlendPart = { lotId: number; grams: number };
  * A blend: a new lot made from parts of released lots, by weight. Each parent is locked
  * (in id order, so two blends never deadlock) and its remaining honey (net − used) checked;
  * the grams taken are added to its used_grams in the same transaction. A parent emptied by
- * the blend is packed out. The blend starts *extracted* with net = Σ parts.
+ * the blend is packed out. The blend starts *extracted* with net = Σ parts, and its best-before is
+ * set at once: never later than its oldest honey (blendBestBefore).
  */
 export async function createBlend(
   actor: SessionUser,
@@ -44,16 +48,23 @@ export async function createBlend(
         throw new ConflictError(`Lot ${parent.code} has only ${left} g left; ${part.grams} g cannot be taken from it.`);
     }
     const netGrams = input.parts.reduce((sum, p) => sum + p.grams, 0);
+    const { bestBeforeMonths, timeZone } = await getSettingsIn(t);
+    const blendedOn = todayIn(timeZone);
+    const bestBeforeOn = blendBestBefore(
+      blendedOn,
+      bestBeforeMonths,
+      parents.map((p) => lotBestBefore(p, bestBeforeMonths, blendedOn)),
+    );
     const blend = await createLot(
       actor,
       {
         floralSource: input.floralSource,
         notes: input.notes ?? '',
-        extractedOn: new Date().toISOString().slice(0, 10),
+        extractedOn: blendedOn,
       },
       { isBlend: true, stage: 'extracted', t },
     );
-    await blend.update({ netGrams }, { transaction: t });
+    await blend.update({ netGrams, bestBeforeOn }, { transaction: t });
     for (const part of input.parts) {
       const parent = byId.get(part.lotId)!;
       const before = lotSnapshot(parent);
@@ -89,7 +100,7 @@ export async function createBlend(
         action: 'lot.blend.parts',
         entityType: 'lot',
         entityId: blend.id,
-        after: { netGrams, parts: input.parts.map((p) => ({ ...p, code: byId.get(p.lotId)!.code })) },
+        after: { netGrams, bestBeforeOn, parts: input.parts.map((p) => ({ ...p, code: byId.get(p.lotId)!.code })) },
       },
       t,
     );

@@ -5,6 +5,7 @@ import type { SessionUser } from '@/lib/auth/session';
 import { lotCode } from '@/lib/domain/lot-code';
 import type { LotStage } from '@/lib/domain/lot-stage';
 import { remainingGrams } from '@/lib/domain/lot-weights';
+import { todayIn } from '@/lib/domain/local-date';
 import type { LotListQuery } from '@/lib/schemas/lots';
 import type { Page } from '@/lib/schemas/list-query';
 import { recordAudit } from '@/lib/data/audit';
@@ -16,11 +17,7 @@ import type { HoneyOrigin, Lot } from '@/models/lot';
 
 /** The calendar year now in the business's time zone (the lot code's year). */
 export function businessYear(timeZone: string, now = new Date()): number {
-  try {
-    return Number(new Intl.DateTimeFormat('en-GB', { timeZone, year: 'numeric' }).format(now));
-  } catch {
-    return now.getUTCFullYear();
-  }
+  return Number(todayIn(timeZone, now).slice(0, 4));
 }
 
 /**

@@ -3,12 +3,12 @@ import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
 import { ConflictError, InvalidError } from '@/lib/domain/errors';
 import { bestBeforeDate } from '@/lib/domain/jars';
-import { localDate } from '@/lib/domain/local-date';
 import { nextStage, type LotStage } from '@/lib/domain/lot-stage';
 import { recordAudit } from '@/lib/data/audit';
 import { lockLot } from './access';
 import { lotChecks } from './checks';
 import { getSettings } from '@/lib/data/settings/settings';
+import { todayIn } from '@/lib/domain/local-date';
 
 export type StageResult = {
   stage: LotStage;
@@ -53,7 +53,7 @@ export async function changeLotStage(
     };
     if (lot.stage === 'gathering' && result.stage === 'extracted') {
       if (!extractedOn) throw new InvalidError('Give the extraction date: the best-before date is counted from it.');
-      const today = localDate(new Date(), settings.timeZone);
+      const today = todayIn(settings.timeZone);
       if (extractedOn > today) throw new InvalidError(`The extraction date cannot be after today (${today}).`);
       patch.extractedOn = extractedOn;
       // Nothing is jarred from a gathering lot yet, so nothing carries a best-before that could change.

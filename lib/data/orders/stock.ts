@@ -4,6 +4,8 @@ import { getDb } from '@/lib/db/index';
 import { ConflictError } from '@/lib/domain/errors';
 import { SELLABLE_STAGES } from '@/lib/data/shop/catalogue';
 import { recordAudit } from '@/lib/data/audit';
+import { getSettingsIn } from '@/lib/data/settings/settings';
+import { todayIn } from '@/lib/domain/local-date';
 import type { Order } from '@/models/order';
 
 /**
@@ -17,13 +19,16 @@ type LockedRow = { productId: number; lotId: number; onHand: number; reserved: n
 const COLS = `product_id AS "productId", lot_id AS "lotId", on_hand AS "onHand", reserved, best_before_on AS "bestBeforeOn"`;
 const ORDER = 'ORDER BY product_id, best_before_on, lot_id';
 
+/** Stock that may be sold: a sellable lot, not past its best-before date (the business's today). */
 async function lockSellable(t: Transaction, productIds: number[]): Promise<LockedRow[]> {
   if (productIds.length === 0) return [];
+  const today = todayIn((await getSettingsIn(t)).timeZone);
   return getDb().sequelize.query<LockedRow>(
     `SELECT ${COLS} FROM stock_levels
      WHERE product_id IN (:productIds) AND lot_id IN (SELECT id FROM lots WHERE stage IN ${SELLABLE_STAGES})
+       AND best_before_on >= :today
      ${ORDER} FOR UPDATE`,
-    { type: QueryTypes.SELECT, replacements: { productIds }, transaction: t },
+    { type: QueryTypes.SELECT, replacements: { productIds, today }, transaction: t },
   );
 }
 

@@ -2,6 +2,9 @@ import 'server-only';
 import { QueryTypes } from 'sequelize';
 import type { SessionUser } from '@/lib/auth/session';
 import { getDb } from '@/lib/db/index';
+import { getSettings } from '@/lib/data/settings/settings';
+import { seasonBounds } from '@/lib/domain/season';
+import { LOT_SEASON_SQL } from './yield-ctes';
 
 /** Who a season report covers and who may see it. */
 
@@ -24,14 +27,15 @@ export async function reportKeeper(keeperId: number): Promise<{ id: number; name
 /** Keepers with at least one colony that gave honey or had a super pulled in the season. */
 export async function keepersWithColonies(season: number): Promise<{ id: number; name: string; email: string }[]> {
   const { sequelize } = getDb();
+  const m = (await getSettings()).seasonStartMonth;
   return sequelize.query<{ id: number; name: string; email: string }>(
     `SELECT DISTINCT u.id, u.name, u.email FROM users u JOIN colonies c ON c.keeper_id = u.id
      WHERE u.role = 'keeper' AND u.disabled_at IS NULL AND (
        EXISTS (SELECT 1 FROM super_pulls sp WHERE sp.colony_id = c.id AND sp.pulled_on >= :from AND sp.pulled_on < :to AND sp.voided_at IS NULL)
        OR EXISTS (SELECT 1 FROM super_pulls sp JOIN lots l ON l.id = sp.lot_id WHERE sp.colony_id = c.id
-                  AND EXTRACT(YEAR FROM COALESCE(l.extracted_on, (l.created_at AT TIME ZONE 'UTC')::date)) = :season))
+                  AND ${LOT_SEASON_SQL('l', m)} = :season))
      ORDER BY u.name`,
-    { type: QueryTypes.SELECT, replacements: { season, from: `${season}-01-01`, to: `${season + 1}-01-01` } },
+    { type: QueryTypes.SELECT, replacements: { season, ...seasonBounds(season, m) } },
   );
 }
 

@@ -1,5 +1,6 @@
 import 'server-only';
 import type { SuperEstimates } from '@/lib/domain/yield-allocation';
+import { assertStartMonth, seasonBounds } from '@/lib/domain/season';
 
 /**
  * The SQL pieces shared by the season queries (yield-sql.ts): a super's honey, a lot's season,
@@ -33,17 +34,48 @@ const HONEY_SQL = (sp: string) => `(CASE
     * LEAST(GREATEST(COALESCE(${sp}.capped_frames, ${sp}.frame_count), 0), ${sp}.frame_count))
 END)`;
 
-/** A lot's season: the year it was extracted (or, still gathering, the year it was opened). */
-export const LOT_SEASON_SQL = (l: string) =>
-  `EXTRACT(YEAR FROM COALESCE(${l}.extracted_on, (${l}.created_at AT TIME ZONE 'UTC')::date))::int`;
+/** The season of a date column: the year of (date − (start month − 1) months), as seasonOf computes it. */
+export const SEASON_OF_SQL = (date: string, startMonth: number) => {
+  assertStartMonth(startMonth);
+  return `EXTRACT(YEAR FROM (${date} - make_interval(months => ${startMonth - 1})))::int`;
+};
 
-/** Revenue kept from an allocation: jars × unit price, less the order's refunds pro rata. */
-const REVENUE_SQL = `oa.quantity * ol.unit_price_cents
-  * COALESCE(1 - o.refunded_cents::numeric / NULLIF(o.total_cents, 0), 1)`;
+/** A lot's season: the season it was extracted in (or, still gathering, the one it was opened in). */
+export const LOT_SEASON_SQL = (l: string, startMonth: number) =>
+  SEASON_OF_SQL(`COALESCE(${l}.extracted_on, (${l}.created_at AT TIME ZONE 'UTC')::date)`, startMonth);
+
+/**
+ * Revenue kept for honey (docs/trade-rules.md, "Revenue kept for honey"), per order:
+ * - sold = Σ jars × unit price over allocations still `sold` (a returned or written-off jar has
+ *   already left `sold`, so the money refunded for it is not taken off again);
+ * - back = Σ jars × unit price over allocations `returned` or `written_off`;
+ * - honey refund = the money refunded beyond the jars that came back, less what fits in the
+ *   shipping charge (a refund never counts against honey while it can be shipping), at most sold.
+ * Each still-sold allocation keeps its price × (sold − honey refund) / sold.
+ */
 const SOLD_WHERE = `oa.state = 'sold' AND o.status NOT IN ('awaiting_payment', 'cancelled', 'expired')`;
-export const revCte = `rev AS (
-  SELECT oa.lot_id, ROUND(SUM(${REVENUE_SQL}))::bigint AS cents
+export const revCte = `order_honey AS (
+  SELECT ol.order_id,
+         SUM(CASE WHEN oa.state = 'sold' THEN oa.quantity * ol.unit_price_cents ELSE 0 END)::numeric AS sold,
+         SUM(CASE WHEN oa.state IN ('returned', 'written_off') THEN oa.quantity * ol.unit_price_cents ELSE 0 END)::numeric AS back
+  FROM order_allocations oa JOIN order_lines ol ON ol.id = oa.order_line_id
+  WHERE ol.order_id IN (
+    SELECT ol2.order_id FROM order_allocations oa2 JOIN order_lines ol2 ON ol2.id = oa2.order_line_id
+    WHERE oa2.lot_id IN (SELECT id FROM roots)
+  )
+  GROUP BY ol.order_id
+),
+order_keep AS (
+  SELECT o.id AS order_id,
+         CASE WHEN oh.sold > 0
+           THEN (oh.sold - LEAST(oh.sold, GREATEST(o.refunded_cents - oh.back - o.shipping_cents, 0))) / oh.sold
+           ELSE 0 END AS keep
+  FROM orders o JOIN order_honey oh ON oh.order_id = o.id
+),
+rev AS (
+  SELECT oa.lot_id, ROUND(SUM(oa.quantity * ol.unit_price_cents * k.keep))::bigint AS cents
   FROM order_allocations oa JOIN order_lines ol ON ol.id = oa.order_line_id JOIN orders o ON o.id = ol.order_id
+  JOIN order_keep k ON k.order_id = o.id
   WHERE oa.lot_id IN (SELECT id FROM roots) AND ${SOLD_WHERE}
   GROUP BY oa.lot_id
 )`;
@@ -51,11 +83,10 @@ export const revCte = `rev AS (
 /** The same test as LOT_SEASON_SQL = :season, written as date ranges so the planner can estimate it (and use lots_extracted_on). */
 const LOT_IN_SEASON = (l: string) => `((${l}.extracted_on >= :seasonFrom AND ${l}.extracted_on < :seasonTo)
   OR (${l}.extracted_on IS NULL AND (${l}.created_at AT TIME ZONE 'UTC')::date >= :seasonFrom AND (${l}.created_at AT TIME ZONE 'UTC')::date < :seasonTo))`;
-export const seasonRange = (season: number) => ({
-  season,
-  seasonFrom: `${season}-01-01`,
-  seasonTo: `${season + 1}-01-01`,
-});
+export const seasonRange = (season: number, startMonth: number) => {
+  const { from, to } = seasonBounds(season, startMonth);
+  return { season, seasonFrom: from, seasonTo: to };
+};
 
 export const rootsCte = `given AS (SELECT parent_lot_id AS lot_id, SUM(grams) AS g FROM lot_parents GROUP BY parent_lot_id),
 roots AS (

@@ -1,4 +1,6 @@
 import 'server-only';
+import { todayIn } from '@/lib/domain/local-date';
+import { seasonOf } from '@/lib/domain/season';
 import { QueryTypes } from 'sequelize';
 import type { SessionUser } from '@/lib/auth/session';
 import { getDb } from '@/lib/db/index';
@@ -37,7 +39,7 @@ export async function getSeasonReport(user: SessionUser, filter: ReportFilter): 
   const scope = reportScope(user, filter);
   if (!scope) return null;
   const [settings, seasons] = await Promise.all([getSettings(), listSeasons()]);
-  const season = scope.season ?? seasons[0] ?? new Date().getUTCFullYear();
+  const season = scope.season ?? seasons[0] ?? seasonOf(todayIn(settings.timeZone), settings.seasonStartMonth);
   const est = superEstimatesFrom(settings.superEstimates);
   // Independent queries run side by side; the colony list waits only for the shares.
   const sharesP = seasonShares(season, est);

@@ -2,7 +2,12 @@ import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import { DEFAULT_SUPER_ESTIMATES, type SuperEstimates } from '@/lib/domain/yield-allocation';
-import { LOT_SEASON_SQL, estimateParams, revCte, rootsCte, seasonRange, walkCte } from './yield-ctes';
+import { getSettings } from '@/lib/data/settings/settings';
+import { seasonBounds } from '@/lib/domain/season';
+import { LOT_SEASON_SQL, SEASON_OF_SQL, estimateParams, revCte, rootsCte, seasonRange, walkCte } from './yield-ctes';
+
+/** The owner's season start month (settings); seasons run from its 1st to the day before it a year on. */
+const startMonth = async () => (await getSettings()).seasonStartMonth;
 
 /**
  * The SQL behind the season report. Everything that touches many rows (super pulls, lot
@@ -49,7 +54,7 @@ export async function seasonShares(season: number, est: SuperEstimates): Promise
     `WITH RECURSIVE ${rootsCte}, ${walkCte}
      SELECT f.root_id AS "lotId", f.colony_id AS "colonyId", c.yard_id AS "yardId", f.frac
      FROM fracs f JOIN colonies c ON c.id = f.colony_id`,
-    { type: QueryTypes.SELECT, replacements: { ...seasonRange(season), ...estimateParams(est) } },
+    { type: QueryTypes.SELECT, replacements: { ...seasonRange(season, await startMonth()), ...estimateParams(est) } },
   );
 }
 
@@ -68,7 +73,7 @@ export async function seasonLots(season: number): Promise<LotRow[]> {
      FROM roots r JOIN lots l ON l.id = r.id
      LEFT JOIN rev ON rev.lot_id = r.id LEFT JOIN water ON water.lot_id = r.id LEFT JOIN supers ON supers.lot_id = r.id
      ORDER BY l.code`,
-    { type: QueryTypes.SELECT, replacements: seasonRange(season) },
+    { type: QueryTypes.SELECT, replacements: seasonRange(season, await startMonth()) },
   );
 }
 
@@ -93,8 +98,7 @@ export async function seasonColonies(
   scope: { yardId?: number; keeperId?: number },
 ): Promise<ColonyBase[]> {
   const { sequelize } = getDb();
-  const from = `${season}-01-01`;
-  const to = `${season + 1}-01-01`;
+  const { from, to } = seasonBounds(season, await startMonth());
   return sequelize.query<ColonyBase>(
     `SELECT c.id, c.code, c.status, c.yard_id AS "yardId", y.name AS "yardName", c.keeper_id AS "keeperId", u.name AS "keeperName",
             c.parent_colony_id AS "parentId", p.code AS "parentCode",
@@ -129,10 +133,11 @@ export async function seasonHistory(
   scope: { yardId?: number; keeperId?: number },
 ): Promise<HistoryRow[]> {
   const { sequelize } = getDb();
+  const m = await startMonth();
   return sequelize.query<HistoryRow>(
     `WITH RECURSIVE given AS (SELECT parent_lot_id AS lot_id, SUM(grams) AS g FROM lot_parents GROUP BY parent_lot_id),
      roots AS (
-       SELECT l.id, GREATEST(l.net_grams - COALESCE(gv.g, 0), 0)::bigint AS own, ${LOT_SEASON_SQL('l')} AS season
+       SELECT l.id, GREATEST(l.net_grams - COALESCE(gv.g, 0), 0)::bigint AS own, ${LOT_SEASON_SQL('l', m)} AS season
        FROM lots l LEFT JOIN given gv ON gv.lot_id = l.id
      ), ${walkCte}
      SELECT r.season, c.yard_id AS "yardId", y.name AS "yardName", ROUND(SUM(r.own * f.frac))::bigint AS "honeyGrams"
@@ -149,10 +154,11 @@ export async function seasonHistory(
 /** Seasons that have lots or super pulls, newest first. */
 export async function listSeasons(): Promise<number[]> {
   const { sequelize } = getDb();
+  const m = await startMonth();
   const rows = await sequelize.query<{ season: number }>(
     `SELECT DISTINCT s AS season FROM (
-       SELECT ${LOT_SEASON_SQL('l')} AS s FROM lots l
-       UNION SELECT EXTRACT(YEAR FROM pulled_on)::int FROM super_pulls WHERE pulled_on IS NOT NULL AND voided_at IS NULL
+       SELECT ${LOT_SEASON_SQL('l', m)} AS s FROM lots l
+       UNION SELECT ${SEASON_OF_SQL('pulled_on', m)} FROM super_pulls WHERE pulled_on IS NOT NULL AND voided_at IS NULL
      ) x ORDER BY 1 DESC`,
     { type: QueryTypes.SELECT },
   );
@@ -173,6 +179,6 @@ export async function seasonColonyTotals(season: number, est: SuperEstimates): P
      SELECT f.colony_id AS "colonyId", ROUND(SUM(r.own * f.frac))::bigint AS "honeyGrams", ROUND(SUM(COALESCE(rev.cents, 0) * f.frac))::bigint AS "revenueCents"
      FROM fracs f JOIN roots r ON r.id = f.root_id LEFT JOIN rev ON rev.lot_id = f.root_id
      GROUP BY f.colony_id`,
-    { type: QueryTypes.SELECT, replacements: { ...seasonRange(season), ...estimateParams(est) } },
+    { type: QueryTypes.SELECT, replacements: { ...seasonRange(season, await startMonth()), ...estimateParams(est) } },
   );
 }

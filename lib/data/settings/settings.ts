@@ -27,6 +27,18 @@ export const getSettings = cache(async (): Promise<Settings> => {
   return rest;
 });
 
+/**
+ * The settings read on the caller's transaction connection. Use this inside a transaction: the
+ * pooled getSettings would take a second connection, and many concurrent transactions could then
+ * wait on each other for the pool.
+ */
+export async function getSettingsIn(t: Transaction): Promise<Settings> {
+  const row = await getDb().models.BusinessSetting.findByPk(1, { transaction: t });
+  if (!row) return getSettings();
+  const { createdAt: _c, updatedAt: _u, ...rest } = row.get({ plain: true });
+  return { ...rest, superEstimates: { ...DEFAULT_SUPER_ESTIMATES, ...rest.superEstimates } };
+}
+
 export async function updateSettings(actorUserId: number, patch: Partial<Settings>): Promise<void> {
   const { sequelize, models } = getDb();
   await sequelize.transaction(async (t: Transaction) => {

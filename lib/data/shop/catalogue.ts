@@ -1,4 +1,6 @@
 import 'server-only';
+import { getSettings } from '@/lib/data/settings/settings';
+import { todayIn } from '@/lib/domain/local-date';
 import { QueryTypes } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 
@@ -34,13 +36,15 @@ SELECT p.id, p.slug, p.name, p.description, p.net_grams AS "netGrams", p.declare
 FROM products p
 LEFT JOIN stock_levels sl ON sl.product_id = p.id
   AND sl.lot_id IN (SELECT id FROM lots WHERE stage IN ${SELLABLE_STAGES})
+  AND sl.best_before_on >= :today
 LEFT JOIN lots l ON l.id = sl.lot_id
 WHERE p.active AND (:slug::text IS NULL OR p.slug = :slug)
 GROUP BY p.id
 ORDER BY p.sort_order, p.name`;
 
 async function query(slug: string | null): Promise<CatalogueItem[]> {
-  const rows = await getDb().sequelize.query<Row>(SQL, { type: QueryTypes.SELECT, replacements: { slug } });
+  const today = todayIn((await getSettings()).timeZone);
+  const rows = await getDb().sequelize.query<Row>(SQL, { type: QueryTypes.SELECT, replacements: { slug, today } });
   return rows.map((r) => ({ ...r, floralSources: r.floralSources ?? [] }));
 }
 

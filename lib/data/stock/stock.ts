@@ -6,9 +6,10 @@ import type { Page } from '@/lib/schemas/list-query';
 import type { LedgerListQuery } from '@/lib/schemas/stock';
 import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { bestBeforeDate } from '@/lib/domain/jars';
+import { todayIn } from '@/lib/domain/local-date';
 import type { StockEntryKind } from '@/models/stock-entry';
 import { recordAudit } from '@/lib/data/audit';
-import { getSettings } from '@/lib/data/settings/settings';
+import { getSettings, getSettingsIn } from '@/lib/data/settings/settings';
 import { readableLotIds } from '@/lib/data/lots/access';
 
 export type StockEntryInput = {
@@ -38,8 +39,8 @@ async function lotBestBefore(lotId: number, t: Transaction): Promise<string> {
   const lot = await getDb().models.Lot.findByPk(lotId, { transaction: t });
   if (!lot) throw new NotFoundError('No such lot.');
   if (lot.bestBeforeOn) return lot.bestBeforeOn;
-  const { bestBeforeMonths } = await getSettings();
-  return bestBeforeDate(lot.extractedOn ?? new Date().toISOString().slice(0, 10), bestBeforeMonths);
+  const { bestBeforeMonths, timeZone } = await getSettingsIn(t);
+  return bestBeforeDate(lot.extractedOn ?? todayIn(timeZone), bestBeforeMonths);
 }
 
 /**
@@ -256,4 +257,28 @@ export async function listLedger(user: SessionUser, query: LedgerListQuery): Pro
       byName: e.createdBy ? (names.get(e.createdBy) ?? null) : null,
     })),
   };
+}
+
+export type PastBestBeforeRow = { productName: string; lotCode: string; onHand: number; bestBeforeOn: string };
+
+/** Jars on hand past their best-before date (the business's today): not sold, to be dealt with. */
+export async function stockPastBestBefore(): Promise<PastBestBeforeRow[]> {
+  const today = todayIn((await getSettings()).timeZone);
+  const rows = await getDb().models.StockLevel.findAll({
+    where: { onHand: { [Op.gt]: 0 }, bestBeforeOn: { [Op.lt]: today } },
+    include: [
+      { association: 'product', attributes: ['name'] },
+      { association: 'lot', attributes: ['code'] },
+    ],
+    order: [
+      ['bestBeforeOn', 'ASC'],
+      ['lotId', 'ASC'],
+    ],
+  });
+  return rows.map((r) => ({
+    productName: r.product?.name ?? '',
+    lotCode: r.lot?.code ?? '',
+    onHand: r.onHand,
+    bestBeforeOn: r.bestBeforeOn,
+  }));
 }

@@ -3,11 +3,14 @@ import { Op, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import { superConflicts, type FeedingRecord, type TreatmentRecord } from '@/lib/domain/conflicts';
 import { flagReasons, pullWindow } from '@/lib/domain/pull-window';
+import { getSettingsIn } from '@/lib/data/settings/settings';
 
 export type ColonyRecords = {
   feedings: FeedingRecord[];
   treatments: TreatmentRecord[];
   pulledDates: { id: number; pulledOn: string }[];
+  /** The owner's season start month: where a window with no earlier pull starts. */
+  seasonStartMonth: number;
 };
 
 export async function colonyRecords(colonyId: number, t: Transaction): Promise<ColonyRecords> {
@@ -37,12 +40,13 @@ export async function colonyRecords(colonyId: number, t: Transaction): Promise<C
       removedOn: x.removedOn ?? null,
     })),
     pulledDates: pulls.map((p) => ({ id: p.id, pulledOn: p.pulledOn as string })),
+    seasonStartMonth: (await getSettingsIn(t)).seasonStartMonth,
   };
 }
 
 export function flagsWith(records: ColonyRecords, pull: { id?: number; pulledOn: string; putOnOn: string | null }) {
   const previous = records.pulledDates.filter((p) => p.id !== pull.id).map((p) => p.pulledOn);
-  const window = pullWindow(pull.pulledOn, pull.putOnOn, previous);
+  const window = pullWindow(pull.pulledOn, pull.putOnOn, previous, records.seasonStartMonth);
   const result = superConflicts(window, records);
   return { flagged: result.flagged, flagReasons: flagReasons(window, result.reasons) };
 }

@@ -88,6 +88,7 @@ describe('roles are checked in the action itself', () => {
       diastaseMinSchade: 8,
       insolubleMaxG100g: 0.1,
       bestBeforeMonths: 24,
+      seasonStartMonth: 1,
       expectedLossPct: 2,
       fillRuleSet: 'oiml',
       labelDeclaration: 'metric',

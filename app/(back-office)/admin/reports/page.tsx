@@ -5,6 +5,7 @@ import { getSeasonHistory, getSeasonReport } from '@/lib/data/reports/yield-repo
 import { reportFilterChoices } from '@/lib/data/reports/scope';
 import { getSettings } from '@/lib/data/settings/settings';
 import { formatMoney, formatWeight, gramsToKg, gramsToLb } from '@/lib/domain/units';
+import { seasonLabel } from '@/lib/domain/season';
 import { seasonTables, type TableKey } from '@/lib/reports/season-tables';
 import { parseReportQuery } from '@/lib/schemas/reports';
 import { PageHeader } from '@/components/ui/page-header';
@@ -31,6 +32,7 @@ export default async function ReportsPage({
   ]);
   if (!report || !history) notFound();
   const units = { weightSystem: settings.weightSystem, currency: settings.currency };
+  const label = (season: number) => seasonLabel(season, settings.seasonStartMonth);
   const tables = seasonTables(report, units);
   const w = (g: number) => formatWeight(g, units.weightSystem);
   const unit = units.weightSystem === 'us' ? 'lb' : 'kg';
@@ -51,7 +53,7 @@ export default async function ReportsPage({
     byYard.set(c.yardName, [...(byYard.get(c.yardName) ?? []), { colony: c.code, honey: chartNumber(c.honeyGrams) }]);
   const historyYards = [...new Set(history.map((h) => h.yardName))];
   const historyData = [...new Set(history.map((h) => h.season))].map((season) => ({
-    season: String(season),
+    season: label(season),
     ...Object.fromEntries(
       historyYards.map((y) => [
         y,
@@ -64,7 +66,7 @@ export default async function ReportsPage({
   return (
     <>
       <PageHeader
-        title={`Season ${report.season} yield`}
+        title={`Season ${label(report.season)} yield`}
         lead="Each lot's net weight is shared back to the supers that made it: by measured honey (full minus empty), or by an estimate from box depth and capped frames where a super was not weighed. Blends pass their weight back through their parent lots; revenue of sold jars is shared the same way."
       />
       <form method="get" className="mb-6 flex flex-wrap items-end gap-4 card" aria-label="Filter the report">
@@ -72,7 +74,10 @@ export default async function ReportsPage({
           label="Season"
           name="season"
           defaultValue={report.season}
-          options={report.seasons.length ? report.seasons : [report.season]}
+          options={(report.seasons.length ? report.seasons : [report.season]).map((s) => ({
+            value: s,
+            label: label(s),
+          }))}
         />
         <SelectField
           label="Yard"

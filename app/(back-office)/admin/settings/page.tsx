@@ -43,6 +43,7 @@ export default async function SettingsPage() {
           diastaseMinSchade: s.diastaseMinSchade,
           insolubleMaxG100g: s.insolubleMaxG100g,
           bestBeforeMonths: s.bestBeforeMonths,
+          seasonStartMonth: s.seasonStartMonth,
           expectedLossPct: s.expectedLossPct,
           allowUntaggedSupers: s.allowUntaggedSupers,
           fillRuleSet: s.fillRuleSet,

@@ -3,6 +3,8 @@ import { can } from '@/lib/auth/roles';
 import { listLedger, listStockLevels, stockTotals } from '@/lib/data/stock/stock';
 import { queryRecord } from '@/lib/schemas/list-query';
 import { ledgerListQuery } from '@/lib/schemas/stock';
+import { getSettings } from '@/lib/data/settings/settings';
+import { todayIn } from '@/lib/domain/local-date';
 import { PageHeader } from '@/components/ui/page-header';
 import { Chip } from '@/components/ui/chip';
 import { AdjustForm } from '@/components/stock/adjust-form';
@@ -12,17 +14,18 @@ import { TableHead, EmptyRow, num } from '@/components/ui/table-parts';
 
 export const metadata = { title: 'Stock' };
 
-function monthsUntil(iso: string): number {
+/** Whole calendar months from today's month to the best-before month (the business's today). */
+function monthsUntil(iso: string, today: string): number {
   const [y, m] = iso.split('-').map(Number);
-  const now = new Date();
-  return (y - now.getUTCFullYear()) * 12 + (m - 1 - now.getUTCMonth());
+  const [ty, tm] = today.split('-').map(Number);
+  return (y - ty) * 12 + (m - tm);
 }
 
-function BestBefore({ iso }: { iso: string }) {
-  const months = monthsUntil(iso);
+function BestBefore({ iso, today }: { iso: string; today: string }) {
+  const months = monthsUntil(iso, today);
   return (
     <span className="whitespace-nowrap">
-      {iso} {months < 0 ? <Chip tone="bad">past</Chip> : months < 3 ? <Chip tone="warn">soon</Chip> : null}
+      {iso} {iso < today ? <Chip tone="bad">past</Chip> : months < 3 ? <Chip tone="warn">soon</Chip> : null}
     </span>
   );
 }
@@ -33,6 +36,7 @@ export default async function StockPage({
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
   const user = await requirePermission('stock.read', '/admin/stock');
+  const today = todayIn((await getSettings()).timeZone);
   const parsed = ledgerListQuery.safeParse(queryRecord(await searchParams));
   const query = parsed.success ? parsed.data : ledgerListQuery.parse({});
   const [totals, levels, ledger] = await Promise.all([
@@ -76,7 +80,7 @@ export default async function StockPage({
                     <td className="num">{t.reserved}</td>
                     <td className="num">{t.available}</td>
                     <td className="num">{t.lots}</td>
-                    <td>{t.earliestBestBefore ? <BestBefore iso={t.earliestBestBefore} /> : '—'}</td>
+                    <td>{t.earliestBestBefore ? <BestBefore iso={t.earliestBestBefore} today={today} /> : '—'}</td>
                   </tr>
                 ))}
               </tbody>
@@ -97,7 +101,7 @@ export default async function StockPage({
                     <td className="num">{l.onHand}</td>
                     <td className="num">{l.reserved}</td>
                     <td>
-                      <BestBefore iso={l.bestBeforeOn} />
+                      <BestBefore iso={l.bestBeforeOn} today={today} />
                     </td>
                   </tr>
                 ))}

@@ -1,4 +1,7 @@
 import { authorize } from '@/lib/auth/session';
+import { getSettings } from '@/lib/data/settings/settings';
+import { todayIn } from '@/lib/domain/local-date';
+import { seasonOf } from '@/lib/domain/season';
 import { reportKeeper } from '@/lib/data/reports/scope';
 import { listSeasons } from '@/lib/data/reports/yield-sql';
 import { handleRouteError, HttpError } from '@/lib/http/json';
@@ -26,7 +29,9 @@ export async function GET(req: Request) {
     if (user.role !== 'owner' && user.id !== keeperId) throw new HttpError(404, 'There is no such report.');
     const keeper = await reportKeeper(keeperId);
     if (!keeper) throw new HttpError(404, 'There is no such report.');
-    const season = query.season ?? (await listSeasons())[0] ?? new Date().getUTCFullYear();
+    const settings = await getSettings();
+    const season =
+      query.season ?? (await listSeasons())[0] ?? seasonOf(todayIn(settings.timeZone), settings.seasonStartMonth);
     const pdf = await keeperReportPdf(user, keeper.id, season, keeper.name);
     if (!pdf) throw new HttpError(404, 'There is no such report.');
     return pdfResponse(pdf.bytes, pdf.filename);

@@ -5,7 +5,7 @@ import { readUploadForm, uploadedFile } from '@/lib/http/upload';
 import { getSettings } from '@/lib/data/settings/settings';
 import { commitImport, MAX_IMPORT_BYTES, previewImport } from '@/lib/data/supers/import';
 import { importMapping } from '@/lib/schemas/supers';
-import { localDate } from '@/lib/domain/local-date';
+import { todayIn } from '@/lib/domain/local-date';
 
 export const dynamic = 'force-dynamic';
 
@@ -53,7 +53,7 @@ export async function POST(req: Request) {
         throw new HttpError(400, 'The column mapping is not valid JSON.');
       }
     }
-    const today = localDate(new Date(), (await getSettings()).timeZone);
+    const today = todayIn((await getSettings()).timeZone);
     if (mode === 'preview') {
       const mapping = mappingJson === null ? null : importMapping.parse(mappingJson);
       return Response.json(await previewImport(user, text, mapping, today));

@@ -10,7 +10,7 @@ import { listYardChoices } from '@/lib/data/yards/yards';
 import { getSettings } from '@/lib/data/settings/settings';
 import { listFreeTags } from '@/lib/data/supers/tags';
 import { formatWeight } from '@/lib/domain/units';
-import { localDate } from '@/lib/domain/local-date';
+import { localDate, todayIn } from '@/lib/domain/local-date';
 import { PageHeader } from '@/components/ui/page-header';
 import { Chip } from '@/components/ui/chip';
 import { ColonyStatusChip, FlagCell, QueenColour } from '@/components/colonies/chips';
@@ -58,7 +58,7 @@ export default async function ColonyPage({ params }: { params: Promise<{ id: str
   if (!colony) notFound();
   const settings = await getSettings();
   const fmt = (g: number) => formatWeight(g, settings.weightSystem);
-  const today = localDate(new Date(), settings.timeZone);
+  const today = todayIn(settings.timeZone);
   const write = can(user.role, 'colonies.write');
   const [supers, timeline, freeTags] = await Promise.all([
     listColonySupers(colony.id),

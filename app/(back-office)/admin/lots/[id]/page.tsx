@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { todayIn } from '@/lib/domain/local-date';
 import { notFound } from 'next/navigation';
 import { requirePermission } from '@/lib/auth/session';
 import { can } from '@/lib/auth/roles';
@@ -102,7 +103,7 @@ export default async function LotPage({
   const [pullable, yards, types] = takesSupers
     ? await Promise.all([listPullableSupers({ yardId, q: one(sp.q) }), listYardsBrief(), listContainerTypes()])
     : [[], [], writer ? await listContainerTypes() : []];
-  const today = localDate(new Date(), settings.timeZone);
+  const today = todayIn(settings.timeZone);
   const live = <T extends { voidedAt: Date | null }>(rows: T[]) => rows.filter((r) => !r.voidedAt);
 
   return (
@@ -355,6 +356,11 @@ export default async function LotPage({
                 <dd>{lot.cappingsWaxGrams === null ? '—' : w(lot.cappingsWaxGrams)}</dd>
               </div>
             </dl>
+            {lot.yield.warning ? (
+              <p role="status" className="text-sm">
+                <Chip tone="warn">check</Chip> {lot.yield.warning}
+              </p>
+            ) : null}
             {writer && open ? <WaxForm lotId={lot.id} unit={unit} onSave={waxAction} /> : null}
             <p className="hint">
               Estimates use the owner’s honey per super by depth; a super’s empty weight makes it measured (full −
@@ -386,7 +392,7 @@ export default async function LotPage({
                   {lot.grade.withinLimit ? 'within limit' : 'over limit'}
                 </Chip>
               ) : null}
-              {lot.grade?.usGradeAB ? <Chip tone="info">US Grade A/B moisture</Chip> : null}
+              {lot.grade?.usGradeAB ? <Chip tone="info">water within US Grade A limit</Chip> : null}
               {lot.fermentation ? (
                 <Chip tone={FERMENT_TONE[lot.fermentation.band]}>
                   fermentation: {lot.fermentation.band.replace(/-/g, ' ')}

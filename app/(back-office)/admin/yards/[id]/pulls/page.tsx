@@ -5,7 +5,7 @@ import { getYard } from '@/lib/data/yards/yards';
 import { listColonies } from '@/lib/data/colonies/read';
 import { getSettings } from '@/lib/data/settings/settings';
 import { listTagsOnColonies } from '@/lib/data/supers/tags';
-import { localDate } from '@/lib/domain/local-date';
+import { todayIn } from '@/lib/domain/local-date';
 import { PageHeader } from '@/components/ui/page-header';
 import { Caution } from '@/components/ui/caution';
 import { PullPass } from '@/components/yards/pull-pass';
@@ -45,7 +45,7 @@ export default async function RecordPullsPage({ params }: { params: Promise<{ id
             lastPulledOn: c.lastPulledOn,
             tags: tagsOn[c.id] ?? [],
           }))}
-          today={localDate(new Date(), settings.timeZone)}
+          today={todayIn(settings.timeZone)}
           defaultUnit={settings.weightSystem === 'us' ? 'lb' : 'kg'}
           onSave={recordPullsAction}
           userId={user.id}
