@@ -11,7 +11,6 @@ import { formatWeight } from '@/lib/domain/units';
 import { PageHeader } from '@/components/ui/page-header';
 import { Chip } from '@/components/ui/chip';
 import { Caution } from '@/components/ui/caution';
-import { localDate } from '@/lib/domain/local-date';
 import { StageChip } from '@/components/lots/stage-chip';
 import { StageControls } from '@/components/lots/stage-controls';
 import { SuperScanner } from '@/components/lots/super-scanner';
