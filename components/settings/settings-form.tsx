@@ -131,24 +131,6 @@ export function SettingsForm({
           inputMode="decimal"
         />
         <TextField
-          label="HMF max, mg/kg"
-          registration={form.register('hmfMaxMgKg')}
-          error={e.hmfMaxMgKg}
-          inputMode="decimal"
-        />
-        <TextField
-          label="Diastase min, Schade"
-          registration={form.register('diastaseMinSchade')}
-          error={e.diastaseMinSchade}
-          inputMode="decimal"
-        />
-        <TextField
-          label="Water-insoluble max, g/100 g"
-          registration={form.register('insolubleMaxG100g')}
-          error={e.insolubleMaxG100g}
-          inputMode="decimal"
-        />
-        <TextField
           label="Best before, months after extraction"
           registration={form.register('bestBeforeMonths')}
           error={e.bestBeforeMonths}
