@@ -30,9 +30,8 @@ export class BusinessSetting extends Model<InferAttributes<BusinessSetting>, Inf
   declare moistureLimitPct: CreationOptional<number>;
   declare moistureLimitHeatherPct: CreationOptional<number>;
   declare moistureGradeAPct: CreationOptional<number>;
-  declare hmfMaxMgKg: CreationOptional<number>;
-  declare diastaseMinSchade: CreationOptional<number>;
-  declare insolubleMaxG100g: CreationOptional<number>;
+  // The table's hmf_max_mg_kg, diastase_min_schade and insoluble_max_g100g columns are unused and
+  // not mapped: release follows the lot's honey category (2001/110/EC Annex II), not owner limits.
   declare bestBeforeMonths: CreationOptional<number>;
   /** Whether a super may go on or come off with no tag (else every super carries a printed tag). */
   declare allowUntaggedSupers: CreationOptional<boolean>;
@@ -64,9 +63,6 @@ export function initBusinessSetting(sequelize: Sequelize) {
       moistureLimitPct: { type: dec(4, 1), allowNull: false, defaultValue: 20 },
       moistureLimitHeatherPct: { type: dec(4, 1), allowNull: false, defaultValue: 23 },
       moistureGradeAPct: { type: dec(4, 1), allowNull: false, defaultValue: 18.6 },
-      hmfMaxMgKg: { type: dec(6, 1), allowNull: false, defaultValue: 40 },
-      diastaseMinSchade: { type: dec(5, 1), allowNull: false, defaultValue: 8 },
-      insolubleMaxG100g: { type: dec(5, 2), allowNull: false, defaultValue: 0.1 },
       bestBeforeMonths: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 24 },
       allowUntaggedSupers: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       seasonStartMonth: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },

@@ -8,14 +8,18 @@ import {
   type Sequelize,
 } from 'sequelize';
 import { serialId, idempotencyKey, timestamps, type IdempotencyKey, type Timestamps } from './columns';
-import type { FillAssessment, assessFillUs } from '@/lib/domain/fill-check';
+import type { FillAssessment, RunReferenceTest, assessFillUs } from '@/lib/domain/fill-check';
 import type { Lot } from './lot';
 import type { Product } from './product';
 
 export const FILL_RULE_SETS = ['oiml', 'nist'] as const;
 export type FillRuleSet = (typeof FILL_RULE_SETS)[number];
-/** The fill check's result as computed for ruleSet (oiml: assessFill, nist: assessFillUs). */
-export type FillReport = FillAssessment | ReturnType<typeof assessFillUs>;
+/**
+ * The fill check's result as computed for ruleSet. oiml: the producer's check (assessFill) at the top
+ * level and, for runs recorded since it was wired in, the 76/211/EEC Annex II reference test with the
+ * jar count as the batch under `reference`. nist: assessFillUs. fillPass is the decision over all.
+ */
+export type FillReport = (FillAssessment & { reference?: RunReferenceTest }) | ReturnType<typeof assessFillUs>;
 
 /** Jars filled from one lot into one product, with sample fill weights. */
 export interface JarringRun extends Timestamps, IdempotencyKey {}

@@ -1,7 +1,14 @@
 'use client';
 import { useState } from 'react';
 import Link from 'next/link';
-import { jarringRunInput, type JarringRunInput } from '@/lib/schemas/jarring';
+import { jarringRunInput, parseSampleWeights, type JarringRunInput } from '@/lib/schemas/jarring';
+import {
+  describeReferenceTest,
+  referenceTestPlan,
+  runReferenceTest,
+  tolerableNegativeError,
+  type NamedFillCheck,
+} from '@/lib/domain/fill-check';
 import type { ActionResult } from '@/lib/schemas/result';
 import type { RunResult } from '@/lib/data/jarring/runs';
 import { TextField } from '@/components/ui/text-field';
@@ -14,7 +21,14 @@ export type RunFormLot = {
   remainingText: string;
   jars: { productId: number; jars: number }[];
 };
-export type RunFormProduct = { id: number; name: string; containerGrams: number; netText: string };
+export type RunFormProduct = {
+  id: number;
+  name: string;
+  containerGrams: number;
+  /** The labelled quantity in grams (Qn). */
+  nominalGrams: number;
+  netText: string;
+};
 
 const newKey = () =>
   typeof crypto !== 'undefined' && 'randomUUID' in crypto ? crypto.randomUUID() : `${Date.now()}-${Math.random()}`;
@@ -60,6 +74,11 @@ export function RunForm({
   const lot = lots.find((l) => l.id === lotId);
   const product = products.find((p) => p.id === productId);
   const canFill = lot?.jars.find((j) => j.productId === productId)?.jars;
+  const jarCount = Number(form.watch('jarCount'));
+  const typedSamples = form.watch('samples') ?? '';
+
+  const batch = Number.isInteger(jarCount) && jarCount >= 1 && jarCount <= 100_000 ? jarCount : null;
+  const guide = ruleSet === 'oiml' && batch !== null ? referenceGuide(batch, product, mode, typedSamples) : null;
 
   if (lots.length === 0)
     return <p className="hint">No released lot has honey left. Release a lot in the honey house first.</p>;
@@ -96,9 +115,31 @@ export function RunForm({
         </p>
       ) : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Jars filled" {...field('jarCount')} inputMode="numeric" />
+        <TextField
+          label="Jars filled"
+          {...field('jarCount')}
+          inputMode="numeric"
+          hint={
+            ruleSet === 'oiml'
+              ? 'The jars of this run are the batch for the reference test (76/211/EEC Annex II).'
+              : 'US rules (NIST Handbook 133): average and MAV; the EU reference test does not apply.'
+          }
+        />
         <TextField label="Date" type="date" {...field('runOn')} />
       </div>
+      {guide ? (
+        <div className="space-y-1 rounded-lg bg-info-bg px-3 py-2 text-sm" aria-live="polite" data-testid="weigh-plan">
+          <p>
+            {guide.plan}{' '}
+            <strong>
+              Weigh <span data-testid="jars-to-weigh">{guide.firstSample}</span> jars
+            </strong>
+            {guide.firstSample === guide.batch ? ' (every jar).' : ' (first sample).'}
+          </p>
+          {guide.secondRule ? <p className="hint">{guide.secondRule}</p> : null}
+          {guide.progress ? <p data-testid="weigh-progress">{guide.progress}</p> : null}
+        </div>
+      ) : null}
       <fieldset className="space-y-2">
         <legend className="text-sm font-medium">Sample weights are</legend>
         <div className="flex flex-wrap gap-4">
@@ -147,10 +188,12 @@ export function RunForm({
           <div role="status" className="rounded-lg bg-ok-bg px-3 py-2 text-sm font-medium text-ok-fg">
             Fill check passed; the jars are in stock.{result.packedOut ? ' The lot is now packed out.' : ''}{' '}
             <Link href={`/admin/jarring/${result.runId}`}>Print labels for run {result.runId}</Link>
+            <CheckLines checks={result.checks} />
           </div>
         ) : (
           <div role="alert" className="rounded-lg border-2 border-bad-fg bg-bad-bg px-3 py-2 text-sm text-bad-fg">
             <p className="font-semibold">Fill check failed: these jars are not in stock.</p>
+            <CheckLines checks={result.checks} />
             <ul className="ml-5 list-disc">
               {result.reasons.map((r) => (
                 <li key={r}>{r}</li>
@@ -168,4 +211,50 @@ export function RunForm({
       </button>
     </form>
   );
+}
+
+/** Each fill check by name with its one-line result. */
+function CheckLines({ checks }: { checks: NamedFillCheck[] }) {
+  return (
+    <ul className="mt-1 font-normal" data-testid="run-checks">
+      {checks.map((c) => (
+        <li key={c.name}>
+          {c.name}: {c.summary}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+/**
+ * What to weigh for a batch of `batch` jars under the reference test (76/211/EEC Annex II), and,
+ * once weights are typed, how far the weighing has come and whether a second sample is needed.
+ */
+function referenceGuide(batch: number, product: RunFormProduct | undefined, mode: string, typed: string) {
+  const plan = referenceTestPlan(batch);
+  const firstSample = plan.inspectAll ? batch : plan.first.sample;
+  const planText = plan.inspectAll
+    ? `A batch under 100 jars is checked whole.`
+    : `A batch of ${batch} jars is checked by sampling.`;
+  const secondRule =
+    !plan.inspectAll && plan.second
+      ? `After the first ${plan.first.sample}: ${plan.first.accept} or fewer below T1 accepts, ${plan.first.reject} or more rejects; in between, weigh a second sample of ${plan.second.sample} more jars.`
+      : null;
+  let progress: string | null = null;
+  const weights = parseSampleWeights(typed).filter((n) => Number.isFinite(n) && n > 0);
+  if (product && weights.length > 0 && product.nominalGrams >= 5) {
+    const net = mode === 'gross' ? weights.map((g) => g - product.containerGrams) : weights;
+    if (net.every((g) => g > 0)) {
+      const r = runReferenceTest(product.nominalGrams, batch, net);
+      const t1 = product.nominalGrams - tolerableNegativeError(product.nominalGrams);
+      if (r.verdict === 'weigh-more' && r.secondSampleNeeded) {
+        progress = `Second sample needed: ${r.defectives} of the first ${r.firstSample} are below T1 (${t1.toFixed(1)} g). Weigh ${r.jarsNeeded - r.weighed} more jars (${r.weighed} of ${r.jarsNeeded}).`;
+      } else if (r.verdict === 'weigh-more') {
+        progress = `${r.weighed} of ${r.jarsNeeded} jars weighed: weigh ${r.jarsNeeded - r.weighed} more.`;
+      } else {
+        progress = `Reference test so far: ${describeReferenceTest(r)}.`;
+      }
+    }
+  }
+  return { batch, firstSample, plan: planText, secondRule, progress };
 }

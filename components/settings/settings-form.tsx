@@ -109,9 +109,6 @@ export function SettingsForm({
         <TextField label="Moisture limit, %" {...field('moistureLimitPct')} inputMode="decimal" />
         <TextField label="Heather moisture limit, %" {...field('moistureLimitHeatherPct')} inputMode="decimal" />
         <TextField label="US Grade A water limit, %" {...field('moistureGradeAPct')} inputMode="decimal" />
-        <TextField label="HMF max, mg/kg" {...field('hmfMaxMgKg')} inputMode="decimal" />
-        <TextField label="Diastase min, Schade" {...field('diastaseMinSchade')} inputMode="decimal" />
-        <TextField label="Water-insoluble max, g/100 g" {...field('insolubleMaxG100g')} inputMode="decimal" />
         <TextField label="Best before, months after extraction" {...field('bestBeforeMonths')} inputMode="numeric" />
         <TextField label="Expected jarring loss, %" {...field('expectedLossPct')} inputMode="decimal" />
         <label className="flex items-start gap-2 sm:col-span-2" htmlFor="allowUntaggedSupers">

@@ -11,6 +11,13 @@
  * short by more than its maximum allowable variation (MAV).
  */
 
+import { GRAMS_PER_OUNCE } from './units';
+
+/** The labelled quantity of a product in grams, unrounded: 12 oz is 340.19 g, not the stored 340 g. */
+export function nominalGrams(p: { netGrams: number; declaredUnit: 'g' | 'oz'; declaredAmount: number }): number {
+  return p.declaredUnit === 'oz' ? Number(p.declaredAmount) * GRAMS_PER_OUNCE : Number(p.declaredAmount) || p.netGrams;
+}
+
 // [upper bound of Qn in g (inclusive), TNE as % of Qn or fixed g]. The bands meet at
 // their edges (9 % of 50 g = 4.5 g, 4.5 % of 200 g = 9 g …), so the edge's band does not matter.
 const TNE_BANDS: readonly [number, { pct: number } | { grams: number }][] = [
@@ -386,4 +393,112 @@ export function assessReferenceTest(
     mean,
     verdict: reasons.length === 0 ? 'accept' : 'reject',
   };
+}
+
+// ---------------------------------------------------------------------------------------------
+// A jarring run under the EU/OIML rule set: the run's jar count is the batch. Two checks are made
+// and both are kept: the reference test above (76/211/EEC Annex II) and the producer's own check
+// (assessFill). The jars go into stock only when the reference test accepts and the producer's
+// check passes. The US rule set (NIST Handbook 133) does not use the reference test.
+
+export const REFERENCE_TEST_NAME = 'Reference test (76/211/EEC Annex II)';
+export const PRODUCER_CHECK_NAME = 'Producer’s check';
+
+/** The reference test as kept with a run (in its fill report). */
+export type RunReferenceTest = {
+  batchSize: number;
+  weighed: number;
+  verdict: ReferenceVerdict;
+  jarsNeeded: number;
+  /** The first sample is weighed and a second sample is called for (or was weighed). */
+  secondSampleNeeded: boolean;
+  /** Jars to weigh at first: the whole batch under 100, else the first sample. */
+  firstSample: number;
+  defectives: number;
+  belowT2: number;
+  /** limit is Qn itself for a batch weighed whole (≥), else Qn − t·s/√n (>). */
+  mean: { mean: number; limit: number; pass: boolean; sample: number; wholeBatch: boolean } | null;
+  reasons: string[];
+};
+
+/** Judges a run's weighed jars by the reference test, with its jar count as the batch. */
+export function runReferenceTest(nominalGrams: number, batchSize: number, sampleGrams: number[]): RunReferenceTest {
+  const r = assessReferenceTest(nominalGrams, batchSize, sampleGrams);
+  const wholeBatch = r.plan.inspectAll;
+  return {
+    batchSize,
+    weighed: sampleGrams.length,
+    verdict: r.verdict,
+    jarsNeeded: r.jarsNeeded,
+    secondSampleNeeded: r.secondSampleNeeded,
+    firstSample: r.plan.inspectAll ? batchSize : r.plan.first.sample,
+    defectives: r.defectives,
+    belowT2: r.belowT2,
+    mean: r.mean
+      ? { mean: r.mean.mean, limit: r.mean.limit, pass: r.mean.pass, sample: r.mean.sample, wholeBatch }
+      : null,
+    reasons: r.reasons,
+  };
+}
+
+/** One line: "accept — 30 of 30 jars weighed, 0 below T1, mean 342.1 g > limit 339.6 g". */
+export function describeReferenceTest(r: RunReferenceTest): string {
+  const parts = [`${r.weighed} of ${r.jarsNeeded} jars weighed`, `${r.defectives} below T1`];
+  if (r.belowT2 > 0) parts.push(`${r.belowT2} below T2`);
+  if (r.mean) {
+    const sign = r.mean.wholeBatch ? (r.mean.pass ? '≥' : '<') : r.mean.pass ? '>' : '≤';
+    parts.push(
+      `mean ${r.mean.mean.toFixed(1)} g ${sign} ${r.mean.wholeBatch ? 'Qn' : 'limit'} ${r.mean.limit.toFixed(1)} g`,
+    );
+  }
+  return `${r.verdict} — ${parts.join(', ')}`;
+}
+
+export type NamedFillCheck = { name: string; pass: boolean; summary: string; reasons: string[] };
+
+/**
+ * The named checks of a run's stored fill report, for the run result and the run screen. EU runs
+ * recorded before the reference test was wired in carry only the producer's check.
+ */
+export function namedFillChecks(
+  ruleSet: 'oiml' | 'nist',
+  report: (FillAssessment & { reference?: RunReferenceTest }) | { pass: boolean; reasons: string[] },
+): NamedFillCheck[] {
+  if (ruleSet === 'nist') {
+    return [
+      {
+        name: 'NIST Handbook 133 (average and MAV)',
+        pass: report.pass,
+        summary: report.pass ? 'pass' : 'fail',
+        reasons: report.reasons,
+      },
+    ];
+  }
+  const checks: NamedFillCheck[] = [];
+  const ref = 'reference' in report ? report.reference : undefined;
+  if (ref) {
+    checks.push({
+      name: REFERENCE_TEST_NAME,
+      pass: ref.verdict === 'accept',
+      summary: describeReferenceTest(ref),
+      reasons: ref.reasons,
+    });
+  }
+  checks.push({
+    name: PRODUCER_CHECK_NAME,
+    pass: report.pass,
+    summary: report.pass ? 'pass' : 'fail',
+    reasons: report.reasons,
+  });
+  return checks;
+}
+
+/** Whether the run's jars may go into stock without the owner: every named check passes. */
+export function fillChecksPass(checks: NamedFillCheck[]): boolean {
+  return checks.every((c) => c.pass);
+}
+
+/** The reasons of the failing checks, each named: "Reference test (76/211/EEC Annex II): …". */
+export function fillCheckReasons(checks: NamedFillCheck[]): string[] {
+  return checks.flatMap((c) => (c.pass ? [] : c.reasons.map((r) => `${c.name}: ${r}`)));
 }

@@ -35,9 +35,6 @@ export const settingsInput = z.object({
   moistureLimitPct: pct('General moisture limit'),
   moistureLimitHeatherPct: pct('Heather moisture limit'),
   moistureGradeAPct: pct('US Grade A water limit'),
-  hmfMaxMgKg: z.coerce.number().min(0).max(200),
-  diastaseMinSchade: z.coerce.number().min(0).max(50),
-  insolubleMaxG100g: z.coerce.number().min(0).max(5),
   bestBeforeMonths: z.coerce.number().int('Whole months.').min(1).max(120),
   /** The month the beekeeping season starts (1 = January); reports group by it. */
   seasonStartMonth: z.coerce

@@ -73,10 +73,15 @@ describe('jarring in the honey house', () => {
     // 40 kg less the 2 % expected loss fills floor(39 200 / 340) = 115 jars
     expect(await page.getByTestId('can-fill').textContent()).toBe('115');
 
-    const form = await runJarring('24', '342, 344 341');
-    const ok = form.getByRole('status');
+    // The run's 24 jars are the batch: under 100, every jar is weighed (76/211/EEC Annex II 2.1.3).
+    await page.getByLabel('Jars filled').fill('24');
+    expect(await page.getByTestId('jars-to-weigh').textContent()).toBe('24');
+    const weights = Array.from({ length: 24 }, (_, i) => [342, 344, 341][i % 3]).join(', ');
+    const form = await runJarring('24', weights);
+    const ok = form.getByRole('status').filter({ hasText: 'Fill check passed' });
     await ok.waitFor();
-    expect(await ok.textContent()).toMatch(/Fill check passed/);
+    expect(await ok.textContent()).toMatch(/Reference test \(76\/211\/EEC Annex II\): accept — 24 of 24 jars weighed/);
+    expect(await ok.textContent()).toMatch(/Producer’s check: pass/);
     expect(await onHand()).toBe(24);
     await page.screenshot({ path: 'tests/.artifacts/jarring-stock.png', fullPage: true });
 
@@ -91,6 +96,9 @@ describe('jarring in the honey house', () => {
       .getByRole('link')
       .click();
     await page.getByRole('heading', { name: /Jarring run #\d+/ }).waitFor();
+    expect(await page.getByTestId('fill-checks').textContent()).toMatch(
+      /Reference test \(76\/211\/EEC Annex II\): accept/,
+    );
     // The print preview frame loads the first page of the run's PDF.
     const previewRes = await preview;
     expect(previewRes.status()).toBe(200);

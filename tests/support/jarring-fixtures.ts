@@ -53,3 +53,7 @@ export const key = () => randomUUID();
 
 /** Samples typed as in the form. */
 export const samples = (...grams: number[]) => grams.join(', ');
+
+/** n sample weights taking `grams` in turn, typed as in the form: enough jars for the reference test. */
+export const weighed = (n: number, ...grams: number[]) =>
+  samples(...Array.from({ length: n }, (_, i) => grams[i % grams.length]));

@@ -2,6 +2,7 @@ import 'server-only';
 import { Op } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import { canReadLot, readableLotIds } from '@/lib/data/lots/access';
+import { fillCheckReasons, namedFillChecks, type NamedFillCheck } from '@/lib/domain/fill-check';
 import { jarsLotCanFill } from '@/lib/domain/jars';
 import type { FillRuleSet } from '@/models/jarring-run';
 import { getSettings } from '@/lib/data/settings/settings';
@@ -74,6 +75,8 @@ export type RunRow = {
   ruleSet: FillRuleSet;
   pass: boolean;
   reasons: string[];
+  /** Each fill check by name with its one-line result (EU: reference test and producer's check). */
+  checks: NamedFillCheck[];
   mean: number;
   samples: number[];
   overrideReason: string | null;
@@ -83,6 +86,7 @@ export type RunRow = {
 
 type RunModel = InstanceType<ReturnType<typeof getDb>['models']['JarringRun']> & { createdByUser?: { name: string } };
 function toRunRow(r: RunModel): RunRow {
+  const checks = r.fillReport?.reasons ? namedFillChecks(r.ruleSet, r.fillReport) : [];
   return {
     id: r.id,
     runOn: r.runOn,
@@ -95,7 +99,8 @@ function toRunRow(r: RunModel): RunRow {
     honeyUsedGrams: r.honeyUsedGrams,
     ruleSet: r.ruleSet,
     pass: r.fillPass,
-    reasons: r.fillReport?.reasons ?? [],
+    reasons: fillCheckReasons(checks),
+    checks,
     mean: r.fillReport?.mean ?? 0,
     samples: r.sampleGrams,
     overrideReason: r.overrideReason ?? null,

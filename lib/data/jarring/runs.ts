@@ -3,10 +3,20 @@ import { UniqueConstraintError, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import type { SessionUser } from '@/lib/auth/session';
-import { assessFill, assessFillUs, maximumAllowableVariation } from '@/lib/domain/fill-check';
+import {
+  assessFill,
+  assessFillUs,
+  fillCheckReasons,
+  fillChecksPass,
+  maximumAllowableVariation,
+  namedFillChecks,
+  nominalGrams,
+  runReferenceTest,
+  type NamedFillCheck,
+} from '@/lib/domain/fill-check';
 import { bestBeforeDate, honeyUsedByRun, jarsLotCanFill } from '@/lib/domain/jars';
 import { nextStage, type LotRole } from '@/lib/domain/lot-stage';
-import { formatWeight, GRAMS_PER_OUNCE } from '@/lib/domain/units';
+import { formatWeight } from '@/lib/domain/units';
 import { parseSampleWeights, type JarringRunData } from '@/lib/schemas/jarring';
 import type { FillReport, FillRuleSet } from '@/models/jarring-run';
 import { recordAudit } from '@/lib/data/audit';
@@ -22,16 +32,20 @@ export class MavNeededError extends InvalidError {
   }
 }
 
-type ProductForFill = { netGrams: number; declaredUnit: 'g' | 'oz'; declaredAmount: number };
-
-/** The labelled quantity in grams, unrounded: 12 oz is 340.19 g, not the stored 340 g. */
-function nominalGrams(p: ProductForFill): number {
-  return p.declaredUnit === 'oz' ? Number(p.declaredAmount) * GRAMS_PER_OUNCE : Number(p.declaredAmount) || p.netGrams;
-}
-
-/** Fill check by the owner's rule set: OIML R 87 / 76/211/EEC (TNE) or NIST Handbook 133 (average + MAV). */
-function checkFill(ruleSet: FillRuleSet, nominal: number, samples: number[], mavGrams?: number | null): FillReport {
-  if (ruleSet === 'oiml') return assessFill(nominal, samples);
+/**
+ * Fill check by the owner's rule set. EU/OIML: the 76/211/EEC Annex II reference test with the run's
+ * jar count as the batch, and the producer's own check (OIML R 87 / 76/211/EEC Annex I TNE, at most
+ * floor(2.5 %) below T1, none below T2). US: NIST Handbook 133 (average + MAV), no reference test.
+ */
+function checkFill(
+  ruleSet: FillRuleSet,
+  nominal: number,
+  jarCount: number,
+  samples: number[],
+  mavGrams?: number | null,
+): FillReport {
+  if (ruleSet === 'oiml')
+    return { ...assessFill(nominal, samples), reference: runReferenceTest(nominal, jarCount, samples) };
   const mav = maximumAllowableVariation(nominal) ?? mavGrams ?? null;
   if (mav === null) throw new MavNeededError(nominal);
   return assessFillUs(nominal, samples, mav);
@@ -41,6 +55,8 @@ export type RunResult = {
   runId: number;
   pass: boolean;
   reasons: string[];
+  /** Each check by name (reference test and producer's check under EU/OIML), with its one-line result. */
+  checks: NamedFillCheck[];
   stocked: boolean;
   packedOut: boolean;
   duplicate: boolean;
@@ -49,10 +65,12 @@ export type RunResult = {
 async function existingRun(key: string, t?: Transaction): Promise<RunResult | null> {
   const run = await getDb().models.JarringRun.findOne({ where: { idempotencyKey: key }, transaction: t });
   if (!run) return null;
+  const checks = namedFillChecks(run.ruleSet, run.fillReport);
   return {
     runId: run.id,
     pass: run.fillPass,
-    reasons: run.fillReport.reasons,
+    reasons: fillCheckReasons(checks),
+    checks,
     stocked: run.fillPass || !!run.overrideReason,
     packedOut: false,
     duplicate: true,
@@ -96,7 +114,16 @@ export async function createJarringRun(user: SessionUser, data: JarringRunData):
 
       const samples = netSamples(data, product.containerGrams);
       const nominal = nominalGrams(product);
-      const report = checkFill(settings.fillRuleSet, nominal, samples, data.mavGrams === '' ? null : data.mavGrams);
+      const report = checkFill(
+        settings.fillRuleSet,
+        nominal,
+        data.jarCount,
+        samples,
+        data.mavGrams === '' ? null : data.mavGrams,
+      );
+      const checks = namedFillChecks(settings.fillRuleSet, report);
+      const pass = fillChecksPass(checks);
+      const reasons = fillCheckReasons(checks);
       const used = honeyUsedByRun(data.jarCount, nominal, samples);
       const remaining = lot.netGrams - lot.usedGrams;
       if (used > remaining) {
@@ -115,7 +142,7 @@ export async function createJarringRun(user: SessionUser, data: JarringRunData):
           runOn: data.runOn,
           sampleGrams: samples,
           ruleSet: settings.fillRuleSet,
-          fillPass: report.pass,
+          fillPass: pass,
           fillReport: report,
           honeyUsedGrams: used,
           createdBy: user.id,
@@ -124,7 +151,7 @@ export async function createJarringRun(user: SessionUser, data: JarringRunData):
         { transaction: t },
       );
       await lot.update({ usedGrams: lot.usedGrams + used, bestBeforeOn }, { transaction: t });
-      if (report.pass) {
+      if (pass) {
         await addStockEntry(
           {
             productId: product.id,
@@ -150,8 +177,9 @@ export async function createJarringRun(user: SessionUser, data: JarringRunData):
             product: product.name,
             jarCount: data.jarCount,
             honeyUsedGrams: used,
-            pass: report.pass,
-            reasons: report.reasons,
+            pass,
+            checks: checks.map((c) => `${c.name}: ${c.summary}`),
+            reasons,
             packedOut,
           },
         },
@@ -159,9 +187,10 @@ export async function createJarringRun(user: SessionUser, data: JarringRunData):
       );
       return {
         runId: run.id,
-        pass: report.pass,
-        reasons: report.reasons,
-        stocked: report.pass,
+        pass,
+        reasons,
+        checks,
+        stocked: pass,
         packedOut,
         duplicate: false,
       };
@@ -220,7 +249,7 @@ export async function overrideJarringRun(user: SessionUser, runId: number, reaso
   await sequelize.transaction(async (t) => {
     const run = await models.JarringRun.findByPk(runId, { transaction: t, lock: t.LOCK.UPDATE });
     if (!run) throw new NotFoundError('No such jarring run.');
-    if (run.fillPass) throw new ConflictError('This run passed its fill check; its jars are already in stock.');
+    if (run.fillPass) throw new ConflictError('This run passed its fill checks; its jars are already in stock.');
     if (run.overrideReason) throw new ConflictError('This run was already overridden.');
     await run.update({ overrideReason: reason, overrideBy: user.id }, { transaction: t });
     await addStockEntry(

@@ -3,7 +3,7 @@ import { closeDb, getDb } from '@/lib/db/index';
 import { DEMO, signInAs } from '@/tests/support/session';
 import { createJarringRunAction, overrideJarringRunAction } from '@/app/(back-office)/admin/jarring/actions';
 import { listJarrableLots } from '@/lib/data/jarring/read';
-import { key, product, releasedLot, samples } from '@/tests/support/jarring-fixtures';
+import { key, product, releasedLot, samples, weighed } from '@/tests/support/jarring-fixtures';
 
 afterAll(closeDb);
 
@@ -27,22 +27,22 @@ describe('jarring runs', () => {
     const res = await createJarringRunAction({
       lotId: lot.id,
       productId: jar.id,
-      jarCount: 10,
+      jarCount: 9,
       runOn: today,
       sampleMode: 'net',
-      samples: samples(342, 341, 345),
+      samples: weighed(9, 342, 341, 345), // under 100 jars every jar is weighed (76/211/EEC Annex II 2.1.3)
       idempotencyKey: key(),
     });
     expect(res).toMatchObject({ ok: true, data: { pass: true, stocked: true, packedOut: false } });
     await lot.reload();
-    // honeyUsedByRun: 10 jars × max(340, mean 342.67) = 3427 g
-    expect(lot.usedGrams).toBe(3427);
+    // honeyUsedByRun: 9 jars × max(340, mean 342.67) = 3084 g
+    expect(lot.usedGrams).toBe(3084);
     expect(lot.bestBeforeOn).toBe('2028-07-15'); // 24 months after extraction (owner setting)
     const stock = await level(jar.id, lot.id);
-    expect(stock?.onHand).toBe(10);
+    expect(stock?.onHand).toBe(9);
     expect(stock?.bestBeforeOn).toBe('2028-07-15');
     const entries = await getDb().models.StockEntry.findAll({ where: { productId: jar.id, lotId: lot.id } });
-    expect(entries.map((e) => [e.kind, e.delta])).toEqual([['jarring', 10]]);
+    expect(entries.map((e) => [e.kind, e.delta])).toEqual([['jarring', 9]]);
   });
 
   it('shows before the run how many jars the lot can still fill (expected loss 2 %)', async () => {
@@ -146,7 +146,7 @@ describe('jarring runs', () => {
       jarCount: 10,
       runOn: today,
       sampleMode: 'net',
-      samples: samples(340, 340.4),
+      samples: weighed(10, 340, 340.4),
       idempotencyKey: key(),
     });
     expect(res).toMatchObject({ ok: true, data: { packedOut: true } });
@@ -191,7 +191,7 @@ describe('jarring runs', () => {
       jarCount: 5,
       runOn: today,
       sampleMode: 'net' as const,
-      samples: samples(345, 346), // at least 2 jars: one weighed jar passes nothing
+      samples: weighed(5, 345, 346), // every jar of a batch under 100 (76/211/EEC Annex II 2.1.3)
       idempotencyKey: key(),
     };
     const [a, b] = await Promise.all([createJarringRunAction(input), createJarringRunAction(input)]);
@@ -241,6 +241,8 @@ describe('jarring runs', () => {
       // 12 oz = 340.19 g (1 oz = 28.349523125 g); the average 342 g is at least the label; MAV entered by the owner.
       const withMav = await createJarringRunAction({ ...base, mavGrams: 10, idempotencyKey: key() });
       expect(withMav).toMatchObject({ ok: true, data: { pass: true } });
+      // US rules keep their own path: 3 jars of 4 weighed, no 76/211/EEC reference test
+      expect(withMav.ok && withMav.data.checks.map((c) => c.name)).toEqual(['NIST Handbook 133 (average and MAV)']);
       const run = await getDb().models.JarringRun.findByPk(withMav.ok ? withMav.data.runId : 0);
       expect(run?.ruleSet).toBe('nist');
     });

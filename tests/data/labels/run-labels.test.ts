@@ -8,7 +8,7 @@ import { saveLabelLayoutAction } from '@/app/(back-office)/admin/labels/actions'
 import { parseGs1ElementString } from '@/lib/domain/gs1';
 import { decodePng } from '@/tests/pdf/decode';
 import { hasPoppler, pdfPagePng, pdfText } from '@/tests/pdf/poppler';
-import { key, product, releasedLot, samples } from '@/tests/support/jarring-fixtures';
+import { key, product, releasedLot, samples, weighed } from '@/tests/support/jarring-fixtures';
 
 afterAll(closeDb);
 
@@ -35,7 +35,7 @@ beforeAll(async () => {
     jarCount: 25,
     runOn: '2026-09-02',
     sampleMode: 'net',
-    samples: samples(342, 343, 341),
+    samples: weighed(25, 342, 343, 341), // a batch under 100 is weighed whole (76/211/EEC Annex II 2.1.3)
     idempotencyKey: key(),
   });
   if (!res.ok) throw new Error(res.message);

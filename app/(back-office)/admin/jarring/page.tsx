@@ -4,6 +4,7 @@ import { can } from '@/lib/auth/roles';
 import { getSettings } from '@/lib/data/settings/settings';
 import { listJarrableLots, listJarringRuns } from '@/lib/data/jarring/read';
 import { listProducts } from '@/lib/data/products/products';
+import { nominalGrams } from '@/lib/domain/fill-check';
 import { formatWeight } from '@/lib/domain/units';
 import { declareNetQuantity } from '@/lib/domain/net-quantity';
 import { PageHeader } from '@/components/ui/page-header';
@@ -114,6 +115,7 @@ export default async function JarringPage() {
               id: p.id,
               name: p.name,
               containerGrams: p.containerGrams,
+              nominalGrams: nominalGrams(p),
               netText: declareNetQuantity(p, settings.labelDeclaration),
             }))}
             ruleSet={settings.fillRuleSet}

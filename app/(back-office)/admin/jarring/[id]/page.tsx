@@ -43,15 +43,26 @@ export default async function JarringRunPage({ params }: { params: Promise<{ id:
           <h2 id="fill-h">Fill check</h2>
           <p>
             <RunStatus pass={run.pass} overridden={!!run.overrideReason} />{' '}
-            <span className="hint">{run.ruleSet === 'oiml' ? 'OIML R 87 / 76/211/EEC' : 'NIST Handbook 133'}</span>
+            <span className="hint">
+              {run.ruleSet === 'oiml'
+                ? `EU rules (OIML R 87 / 76/211/EEC); the batch is the run’s ${run.jarCount} jars`
+                : 'US rules (NIST Handbook 133); no EU reference test'}
+            </span>
           </p>
-          {!run.pass ? (
-            <ul className="ml-5 list-disc text-sm text-bad-fg">
-              {run.reasons.map((r) => (
-                <li key={r}>{r}</li>
-              ))}
-            </ul>
-          ) : null}
+          <ul className="space-y-2 text-sm" data-testid="fill-checks">
+            {run.checks.map((c) => (
+              <li key={c.name}>
+                <strong>{c.name}:</strong> <span className={c.pass ? '' : 'text-bad-fg'}>{c.summary}</span>
+                {!c.pass && c.reasons.length > 0 ? (
+                  <ul className="ml-5 list-disc text-bad-fg">
+                    {c.reasons.map((r) => (
+                      <li key={r}>{r}</li>
+                    ))}
+                  </ul>
+                ) : null}
+              </li>
+            ))}
+          </ul>
           <dl className="grid grid-cols-2 gap-1 text-sm">
             <dt>Mean sample</dt>
             <dd className="num">{run.mean.toFixed(1)} g</dd>
