@@ -1,6 +1,7 @@
 import { NextResponse, type NextRequest } from 'next/server';
 import { getToken } from 'next-auth/jwt';
 import { contentSecurityPolicy, newNonce } from '@/lib/http/csp';
+import { markForwardedHeaders } from '@/lib/http/client-ip';
 import {
   PublicPageCache,
   RENDER_HEADER,
@@ -40,9 +41,17 @@ async function renderPublicPage(pathname: string) {
  *    own fresh nonce (lib/http/public-page-cache.ts).
  * 3. Signed-out visitors to /admin go to sign-in. This is only a convenience: every page, action and
  *    route handler checks the user itself (lib/auth/session.ts).
+ * 4. The client's address: a client's own X-Forwarded-For is moved aside so that Next fills the
+ *    header from the socket, and the request is marked as seen here (lib/http/client-ip.ts). The
+ *    sign-in throttle reads the address this way; /api/auth is matched for that alone.
  */
 export async function proxy(req: NextRequest) {
   const { pathname, search } = req.nextUrl;
+  if (pathname.startsWith('/api/')) {
+    const headers = new Headers(req.headers);
+    markForwardedHeaders(headers);
+    return NextResponse.next({ request: { headers } });
+  }
   if (pathname.startsWith('/admin')) {
     const token = await getToken({ req, secret: process.env.NEXTAUTH_SECRET });
     if (!token?.role || token.role === 'customer') {
@@ -60,6 +69,7 @@ export async function proxy(req: NextRequest) {
 
   const csp = contentSecurityPolicy(nonce);
   const headers = new Headers(req.headers);
+  markForwardedHeaders(headers);
   headers.set('Content-Security-Policy', csp);
   const res = NextResponse.next({ request: { headers } });
   res.headers.set('Content-Security-Policy', csp);
@@ -67,5 +77,8 @@ export async function proxy(req: NextRequest) {
 }
 
 export const config = {
-  matcher: [{ source: '/((?!api|_next/static|_next/image|favicon.ico|icons/|manifest.webmanifest).*)' }],
+  matcher: [
+    { source: '/((?!api|_next/static|_next/image|favicon.ico|icons/|manifest.webmanifest).*)' },
+    { source: '/api/auth/:path*' },
+  ],
 };

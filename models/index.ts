@@ -5,6 +5,7 @@ import { initBusinessSetting } from './business-setting';
 import { initAuditEntry } from './audit-entry';
 import { initOutboxMessage } from './outbox-message';
 import { initSignInAttempt } from './sign-in-attempt';
+import { initAccountRequest } from './account-request';
 import { initYard } from './yard';
 import { initYardKeeper } from './yard-keeper';
 import { initTreatmentKind } from './treatment-kind';
@@ -63,6 +64,7 @@ export function initModels(sequelize: Sequelize) {
     AuditEntry: initAuditEntry(sequelize),
     OutboxMessage: initOutboxMessage(sequelize),
     SignInAttempt: initSignInAttempt(sequelize),
+    AccountRequest: initAccountRequest(sequelize),
     // Yards, colonies and supers
     Yard: initYard(sequelize),
     YardKeeper: initYardKeeper(sequelize),

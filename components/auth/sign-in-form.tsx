@@ -6,10 +6,12 @@ import { fail, type ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
+import { safeRedirectPath } from '@/lib/http/redirect-target';
 
 const MESSAGES: Record<string, string> = {
   CredentialsSignin: 'That e-mail and password do not match an account.',
   Throttled: 'Too many attempts. Wait a few minutes, then try again.',
+  Busy: 'The server is busy. Wait a minute, then try again.',
 };
 
 export function SignInForm({ next }: { next?: string }) {
@@ -21,9 +23,8 @@ export function SignInForm({ next }: { next?: string }) {
       return !res || res.error ? fail(MESSAGES[res?.error ?? ''] ?? MESSAGES.CredentialsSignin) : { ok: true };
     },
     onSuccess: () => {
-      // Only same-site paths are followed after sign-in.
-      const target = next && next.startsWith('/') && !next.startsWith('//') ? next : '/welcome';
-      window.location.assign(target);
+      // Only our own pages are followed after sign-in; anything else goes to the role's home.
+      window.location.assign(safeRedirectPath(next));
     },
   });
 

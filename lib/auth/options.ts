@@ -1,10 +1,12 @@
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { authenticate } from '@/lib/data/auth/sign-in';
-import { bumpSessionVersion } from '@/lib/data/staff/users';
+import { bumpSessionVersion, getActiveUser } from '@/lib/data/staff/users';
 import { isRole, type Role } from './roles';
 import { clientIp } from '@/lib/http/client-ip';
+import { safeAuthRedirect } from '@/lib/http/redirect-target';
 import { signInInput } from '@/lib/schemas/auth';
+import { PasswordHashingBusyError } from './password';
 
 declare module 'next-auth' {
   interface Session {
@@ -48,11 +50,12 @@ export const authOptions: NextAuthOptions = {
       async authorize(raw, req) {
         const parsed = signInInput.safeParse(raw);
         if (!parsed.success) return null;
-        const result = await authenticate(
-          parsed.data.email,
-          parsed.data.password,
-          clientIp(req?.headers as Record<string, unknown> | undefined),
-        );
+        const ip = clientIp(req?.headers as Record<string, unknown> | undefined);
+        const result = await authenticate(parsed.data.email, parsed.data.password, ip).catch((err) => {
+          // Too many hashes waiting (lib/auth/password.ts): say so rather than hang.
+          if (err instanceof PasswordHashingBusyError) throw new Error('Busy');
+          throw err;
+        });
         if (result.status === 'throttled') throw new Error('Throttled');
         if (result.status !== 'ok') return null;
         const u = result.user;
@@ -61,24 +64,36 @@ export const authOptions: NextAuthOptions = {
     }),
   ],
   callbacks: {
+    // Only our own pages after sign-in or sign-out (callbackUrl is written by whoever made the link).
+    redirect({ url, baseUrl }) {
+      return safeAuthRedirect(url, baseUrl);
+    },
+    /**
+     * Every read of a session, next-auth's own /api/auth/session included, re-reads the user: a
+     * cookie from before a sign-out, a disabling or a role change comes back empty (ASVS 7.4.1),
+     * exactly as currentUser() refuses it for the app's pages.
+     */
     async jwt({ token, user }) {
       if (user) {
         token.uid = Number(user.id);
         token.role = user.role;
         token.sv = user.sessionVersion;
+        return token;
       }
+      if (!token.uid) return {};
+      const current = await getActiveUser(token.uid);
+      if (!current || current.sessionVersion !== token.sv || current.role !== token.role) return {};
       return token;
     },
     async session({ session, token }) {
-      if (token.uid && isRole(token.role)) {
-        session.user = {
-          id: token.uid,
-          name: token.name ?? '',
-          email: token.email ?? '',
-          role: token.role,
-          sv: token.sv ?? 0,
-        };
-      }
+      if (!token.uid || !isRole(token.role)) return {} as typeof session;
+      session.user = {
+        id: token.uid,
+        name: token.name ?? '',
+        email: token.email ?? '',
+        role: token.role,
+        sv: token.sv ?? 0,
+      };
       return session;
     },
   },

@@ -1,8 +1,55 @@
+import { DomainError } from '../domain/errors';
 import { randomBytes, scrypt as scryptCb, timingSafeEqual, createHash, type ScryptOptions } from 'node:crypto';
 
+/**
+ * At most SCRYPT_CONCURRENCY hashes run at once (default 2 of libuv's 4 threads, so file, DNS and
+ * other crypto work always has threads left); up to SCRYPT_QUEUE more wait their turn in order,
+ * and past that a request is refused at once with "busy" rather than piling up memory (each hash
+ * holds 128 MiB at N=2^17) and delaying every sign-in behind it.
+ */
+const MAX_RUNNING = Math.max(1, Number(process.env.SCRYPT_CONCURRENCY ?? 2));
+const MAX_WAITING = Math.max(0, Number(process.env.SCRYPT_QUEUE ?? 32));
+const hashing = { running: 0, peak: 0, started: 0, refused: 0, waiting: [] as (() => void)[] };
+
+/** Counters for tests and logs: how many hashes started, the most at once, how many were refused. */
+export function hashingStats() {
+  return { started: hashing.started, peak: hashing.peak, refused: hashing.refused, waiting: hashing.waiting.length };
+}
+
+export class PasswordHashingBusyError extends DomainError {
+  constructor() {
+    super('unavailable', 'The server is busy. Wait a minute, then try again.');
+  }
+}
+
+async function withHashSlot<T>(work: () => Promise<T>): Promise<T> {
+  if (hashing.running >= MAX_RUNNING) {
+    if (hashing.waiting.length >= MAX_WAITING) {
+      hashing.refused++;
+      throw new PasswordHashingBusyError();
+    }
+    await new Promise<void>((resolve) => hashing.waiting.push(resolve));
+  } else {
+    hashing.running++;
+  }
+  hashing.started++;
+  hashing.peak = Math.max(hashing.peak, hashing.running);
+  try {
+    return await work();
+  } finally {
+    const next = hashing.waiting.shift();
+    if (next)
+      next(); // the slot passes straight to the next in line
+    else hashing.running--;
+  }
+}
+
 function scrypt(password: string, salt: Buffer, keylen: number, opts: ScryptOptions): Promise<Buffer> {
-  return new Promise((resolve, reject) =>
-    scryptCb(password, salt, keylen, opts, (err, key) => (err ? reject(err) : resolve(key))),
+  return withHashSlot(
+    () =>
+      new Promise((resolve, reject) =>
+        scryptCb(password, salt, keylen, opts, (err, key) => (err ? reject(err) : resolve(key))),
+      ),
   );
 }
 

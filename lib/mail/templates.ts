@@ -40,3 +40,37 @@ export function passwordMail(p: {
     ),
   };
 }
+
+/** The mail that finishes a sign-up: the new customer chooses a password through the link. */
+export function finishSignUpMail(p: { to: string; name: string; business: string; link: string }): MailInput {
+  const lead = `Thank you for signing up at ${p.business}. Choose a password to finish creating your account (the link works for 24 hours, once). If you did not sign up, ignore this message and nothing more happens.`;
+  return {
+    to: p.to,
+    subject: `Finish creating your account at ${p.business}`,
+    text: `Hello ${p.name},\n\n${lead}\n\n${p.link}\n`,
+    html: mailHtml(
+      p.business,
+      `<p>Hello ${escapeHtml(p.name)},</p><p>${escapeHtml(lead)}</p><p><a href="${escapeHtml(p.link)}" style="background:#234a35;color:#fff;padding:10px 16px;border-radius:6px;text-decoration:none">Choose a password</a></p><p style="font-size:13px">Or paste this link: ${escapeHtml(p.link)}</p>`,
+    ),
+  };
+}
+
+/** Someone tried to sign up with an address that already has an account: its owner is told, nothing else happens. */
+export function accountExistsMail(p: {
+  to: string;
+  name: string;
+  business: string;
+  signInLink: string;
+  resetLink: string;
+}): MailInput {
+  const lead = `Someone tried to create an account at ${p.business} with this e-mail address, which already has one. If it was you, sign in, or ask for a new password if you have forgotten it. If not, you need do nothing: your account is unchanged.`;
+  return {
+    to: p.to,
+    subject: `You already have an account at ${p.business}`,
+    text: `Hello ${p.name},\n\n${lead}\n\nSign in: ${p.signInLink}\nNew password: ${p.resetLink}\n`,
+    html: mailHtml(
+      p.business,
+      `<p>Hello ${escapeHtml(p.name)},</p><p>${escapeHtml(lead)}</p><p><a href="${escapeHtml(p.signInLink)}">Sign in</a> · <a href="${escapeHtml(p.resetLink)}">Ask for a new password</a></p>`,
+    ),
+  };
+}

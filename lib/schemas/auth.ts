@@ -20,7 +20,9 @@ export const signInInput = z.object({ email, password: z.string().min(1, 'Enter 
 export type SignInInput = z.input<typeof signInInput>;
 
 // .strict() is not used: extra fields such as `role` are dropped by zod, never trusted.
-export const signUpInput = z.object({ name: personName, email, password });
+// No password here: the new customer chooses one through the link mailed to the address, so a
+// sign-up proves the mailbox and answers the same whether or not the address has an account.
+export const signUpInput = z.object({ name: personName, email });
 export type SignUpInput = z.input<typeof signUpInput>;
 
 export const forgotPasswordInput = z.object({ email });

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
 import { QueryTypes } from 'sequelize';
 import { closeDb, getDb } from '@/lib/db/index';
+import { hashPassword } from '@/lib/auth/password';
 import { BASE, DEMO_LOGINS, openBrowser, signIn, waitForMail } from './support';
 
 let browser: BrowserContext;
@@ -81,15 +82,34 @@ describe('each role signs in and sees its own area', () => {
 });
 
 describe('accounts', () => {
-  it('a new customer signs up and lands on their account', async () => {
+  it('a new customer signs up, confirms through the mailed link and lands on their account', async () => {
     const page = await freshPage();
     await page.goto(`${BASE()}/sign-up`);
     await page.getByLabel('Your name').fill('Rowan Tilby');
     await page.getByLabel('E-mail').fill('rowan@example.test');
-    await page.getByLabel('Password').fill('bramble and thyme');
     await page.getByRole('button', { name: 'Create account' }).click();
-    await page.waitForURL('**/account');
+    expect(await page.getByRole('status').textContent()).toMatch(/Check your mail/);
+    const mail = await waitForMail('rowan@example.test', /Finish creating your account/);
+    const link = mail.text.match(/https?:\/\/\S+reset-password\?token=\S+/)?.[0];
+    expect(link).toBeTruthy();
+    await page.goto(link!);
+    await page.getByLabel('New password').fill('bramble and thyme');
+    await page.getByRole('button', { name: 'Save password' }).click();
+    await page.getByRole('status').waitFor();
+    await signIn(page, 'rowan@example.test', 'bramble and thyme');
+    expect(new URL(page.url()).pathname).toBe('/account');
     expect(await page.getByRole('heading', { level: 1 }).textContent()).toContain('Rowan Tilby');
+  });
+
+  it('sign-up with an address that has an account answers the same and mails its owner a notice', async () => {
+    const page = await freshPage();
+    await page.goto(`${BASE()}/sign-up`);
+    await page.getByLabel('Your name').fill('Not The Owner');
+    await page.getByLabel('E-mail').fill(DEMO_LOGINS.keeper.email);
+    await page.getByRole('button', { name: 'Create account' }).click();
+    expect(await page.getByRole('status').textContent()).toMatch(/Check your mail/);
+    const notice = await waitForMail(DEMO_LOGINS.keeper.email, /already have an account/);
+    expect(notice.text).not.toMatch(/token=/);
   });
 
   it('a password reset mail arrives and its link sets a new password', async () => {
@@ -107,6 +127,83 @@ describe('accounts', () => {
     await page.getByRole('status').waitFor();
     await signIn(page, 'corin@hollowmere.test', 'a fresh long phrase');
     expect(new URL(page.url()).pathname).toBe('/account');
+  });
+});
+
+/** next-auth's CSRF cookie and token, as its own client gets them before posting. */
+async function csrf(): Promise<{ cookie: string; token: string }> {
+  const res = await fetch(`${BASE()}/api/auth/csrf`);
+  const cookie = res.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
+  return { cookie, token: ((await res.json()) as { csrfToken: string }).csrfToken };
+}
+
+async function postCredentials(email: string, password: string, extra: Record<string, string> = {}) {
+  const { cookie, token } = await csrf();
+  return fetch(`${BASE()}/api/auth/callback/credentials`, {
+    method: 'POST',
+    redirect: 'manual',
+    headers: { 'content-type': 'application/x-www-form-urlencoded', cookie, ...extra },
+    body: new URLSearchParams({ email, password, csrfToken: token, json: 'true' }),
+  });
+}
+
+describe('attacks on sign-in (against the real server)', () => {
+  it('spoofed X-Forwarded-For: after six wrong passwords the right one is still refused with 429', async () => {
+    const email = 'spoof-e2e@example.test';
+    await getDb().models.User.create({
+      email,
+      name: 'Spoof Target',
+      role: 'customer',
+      passwordHash: await hashPassword('the right phrase'),
+    });
+    const statuses: number[] = [];
+    for (let i = 0; i < 6; i++) statuses.push((await postCredentials(email, `wrong guess ${i}`)).status);
+    expect(statuses.at(-1)).toBe(429);
+    for (const forwarded of ['203.0.113.8', '198.51.100.1, 203.0.113.7', '127.0.0.1']) {
+      const res = await postCredentials(email, 'the right phrase', { 'x-forwarded-for': forwarded });
+      expect(res.status, forwarded).toBe(429);
+    }
+    const { sequelize } = getDb();
+    const addresses = await sequelize.query<{ ip: string }>(
+      `SELECT DISTINCT ip FROM sign_in_attempts WHERE email = :email`,
+      { replacements: { email }, type: QueryTypes.SELECT },
+    );
+    // Recorded under the socket's address, never under a value the client typed.
+    expect(addresses.map((a) => a.ip)).not.toContain('203.0.113.8');
+    expect(addresses.map((a) => a.ip)).not.toContain('unverified');
+  });
+
+  it('open redirect: ?next=/%5C127.0.0.1:1080/ and ?next=/%09/127.0.0.1:1080/ stay on our origin', async () => {
+    for (const next of [
+      '/%5C127.0.0.1:1080/',
+      '/%09/127.0.0.1:1080/',
+      '//127.0.0.1:1080/',
+      'https://127.0.0.1:1080/',
+    ]) {
+      const page = await freshPage();
+      await page.goto(`${BASE()}/sign-in?next=${next}`);
+      await page.getByLabel('E-mail').fill(DEMO_LOGINS.crew.email);
+      await page.getByLabel('Password').fill(DEMO_LOGINS.crew.password);
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'), { timeout: 30_000 });
+      expect(new URL(page.url()).origin, next).toBe(new URL(BASE()).origin);
+    }
+  });
+
+  it("next-auth's /api/auth/session refuses a cookie from before sign-out", async () => {
+    const page = await freshPage();
+    await signIn(page, DEMO_LOGINS.crew.email, DEMO_LOGINS.crew.password);
+    const cookie = (await browser.cookies()).find((c) => /next-auth\.session-token$/.test(c.name))!;
+    const asCopied = { headers: { cookie: `${cookie.name}=${cookie.value}` } };
+    const before = (await (await fetch(`${BASE()}/api/auth/session`, asCopied)).json()) as { user?: { email: string } };
+    expect(before.user?.email).toBe(DEMO_LOGINS.crew.email);
+    const { csrfToken } = (await (await page.request.get(`${BASE()}/api/auth/csrf`)).json()) as { csrfToken: string };
+    await page.request.post(`${BASE()}/api/auth/signout`, { form: { csrfToken, json: 'true' } });
+    const after = await (await fetch(`${BASE()}/api/auth/session`, asCopied)).json();
+    expect(after).toEqual({});
   });
 });
 

@@ -35,3 +35,13 @@ export const DEMO = {
   crew: 'crew@hollowmere.test',
   customer: 'customer@hollowmere.test',
 } as const;
+
+/**
+ * Request headers as proxy.ts leaves them for a client at `ip` (lib/http/client-ip.ts): the socket
+ * address in x-forwarded-for, what the client itself sent in the moved-aside header, and the proof.
+ * Needs NEXTAUTH_SECRET (the proof is derived from it).
+ */
+export async function headersFromClient(ip: string, sentForwardedFor = ''): Promise<Record<string, string>> {
+  const { FORWARDED_CHAIN_HEADER, PROXY_PROOF_HEADER, proxyProof } = await import('@/lib/http/client-ip');
+  return { 'x-forwarded-for': ip, [FORWARDED_CHAIN_HEADER]: sentForwardedFor, [PROXY_PROOF_HEADER]: proxyProof() };
+}

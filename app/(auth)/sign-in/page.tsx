@@ -1,4 +1,5 @@
 import { SignInForm } from '@/components/auth/sign-in-form';
+import { safeRedirectPath } from '@/lib/http/redirect-target';
 
 export const metadata = { title: 'Sign in' };
 
@@ -7,7 +8,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
   return (
     <div className="space-y-4">
       <h1>Sign in</h1>
-      <SignInForm next={next} />
+      <SignInForm next={safeRedirectPath(next)} />
     </div>
   );
 }

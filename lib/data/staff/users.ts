@@ -1,5 +1,5 @@
 import 'server-only';
-import { Op, UniqueConstraintError } from 'sequelize';
+import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import { getDb } from '@/lib/db/index';
 import { appUrl } from '@/lib/config/app-url';
 import { hashPassword, newToken, sha256 } from '@/lib/auth/password';
@@ -44,10 +44,6 @@ export async function getActiveUser(id: number): Promise<UserRow | null> {
   return u && !u.disabledAt ? toRow(u) : null;
 }
 
-async function getUserByEmail(email: string) {
-  return getDb().models.User.findOne({ where: { email: email.toLowerCase() } });
-}
-
 export async function bumpSessionVersion(userId: number): Promise<void> {
   await getDb().models.User.increment('sessionVersion', { where: { id: userId } });
 }
@@ -55,33 +51,6 @@ export async function bumpSessionVersion(userId: number): Promise<void> {
 export class EmailTakenError extends Error {
   constructor() {
     super('An account with that e-mail already exists. Sign in, or reset the password.');
-  }
-}
-
-export async function createCustomer(input: { email: string; name: string; password: string }): Promise<UserRow> {
-  const { sequelize, models } = getDb();
-  const passwordHash = await hashPassword(input.password);
-  try {
-    return await sequelize.transaction(async (t) => {
-      const u = await models.User.create(
-        { email: input.email.toLowerCase(), name: input.name, role: 'customer', passwordHash },
-        { transaction: t },
-      );
-      await recordAudit(
-        {
-          actorUserId: u.id,
-          action: 'user.signup',
-          entityType: 'user',
-          entityId: u.id,
-          after: { email: u.email, role: u.role },
-        },
-        t,
-      );
-      return toRow(u);
-    });
-  } catch (err) {
-    if (err instanceof UniqueConstraintError) throw new EmailTakenError();
-    throw err;
   }
 }
 
@@ -133,42 +102,27 @@ export async function createStaff(
   }
 }
 
-/** Same answer whether or not the account exists (ASVS 6.3.8); only a real account gets mail. */
-export async function requestPasswordReset(email: string): Promise<void> {
-  const { sequelize, models } = getDb();
-  const user = await getUserByEmail(email);
-  if (!user || user.disabledAt) {
-    await hashPassword('timing-equaliser'); // similar work on both paths
-    return;
-  }
-  const settings = await getSettings();
-  await sequelize.transaction(async (t) => {
-    const { token, tokenHash } = newToken();
-    await models.PasswordToken.create(
-      { userId: user.id, purpose: 'reset', tokenHash, expiresAt: new Date(Date.now() + 3600_000) },
-      { transaction: t },
-    );
-    await enqueueMail(
-      passwordMail({
-        kind: 'reset',
-        to: user.email,
-        name: user.name,
-        business: settings.businessName,
-        link: `${appUrl()}/reset-password?token=${token}`,
-      }),
-      t,
-    );
-  });
-  kickMail();
+/** Every set or reset link of this user that is still open is marked used. */
+export async function endOpenPasswordTokens(userId: number, t: Transaction): Promise<void> {
+  await getDb().models.PasswordToken.update(
+    { usedAt: new Date() },
+    { where: { userId, usedAt: null }, transaction: t },
+  );
 }
 
-/** Sets a password from an e-mailed token; the token works once and ends every other session. */
+/**
+ * Sets a password from an e-mailed token; the token works once, ends every other session and every
+ * other open link of the account.
+ */
 export async function resetPassword(token: string, password: string): Promise<'ok' | 'invalid'> {
   const { sequelize, models } = getDb();
+  // The token is looked up before any hashing: a made-up token costs one indexed read, not a hash.
+  const open = { tokenHash: sha256(token), usedAt: null, expiresAt: { [Op.gt]: new Date() } };
+  if (!(await models.PasswordToken.count({ where: open }))) return 'invalid';
   const passwordHash = await hashPassword(password);
   return sequelize.transaction(async (t) => {
     const row = await models.PasswordToken.findOne({
-      where: { tokenHash: sha256(token), usedAt: null, expiresAt: { [Op.gt]: new Date() } },
+      where: open,
       lock: t.LOCK.UPDATE,
       transaction: t,
     });
@@ -177,6 +131,9 @@ export async function resetPassword(token: string, password: string): Promise<'o
     const user = await models.User.findByPk(row.userId, { transaction: t, lock: t.LOCK.UPDATE });
     if (!user || user.disabledAt) return 'invalid';
     await user.update({ passwordHash, sessionVersion: user.sessionVersion + 1 }, { transaction: t });
+    // A password that was just set ends every other open link for the account: an older reset mail
+    // (read by someone else, or still in a shared inbox) must not set it again (ASVS 6.4.x).
+    await endOpenPasswordTokens(user.id, t);
     await recordAudit(
       { actorUserId: user.id, action: `user.password.${row.purpose}`, entityType: 'user', entityId: user.id },
       t,
