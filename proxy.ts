@@ -43,7 +43,8 @@ async function renderPublicPage(pathname: string) {
  *    route handler checks the user itself (lib/auth/session.ts).
  * 4. The client's address: a client's own X-Forwarded-For is moved aside so that Next fills the
  *    header from the socket, and the request is marked as seen here (lib/http/client-ip.ts). The
- *    sign-in throttle reads the address this way; /api/auth is matched for that alone.
+ *    sign-in throttle and the checkout limits read the address this way, so every /api route is
+ *    matched for that (nothing else is done to API requests here).
  */
 export async function proxy(req: NextRequest) {
   const { pathname, search } = req.nextUrl;
@@ -79,6 +80,6 @@ export async function proxy(req: NextRequest) {
 export const config = {
   matcher: [
     { source: '/((?!api|_next/static|_next/image|favicon.ico|icons/|manifest.webmanifest).*)' },
-    { source: '/api/auth/:path*' },
+    { source: '/api/:path*' },
   ],
 };

@@ -1,3 +1,4 @@
+import { PROXY_PROOF_HEADER, proxyProof } from '@/lib/http/client-ip';
 // Shop integration fixtures: the Stripe fake in-process (real SDK, real HTTP), delivering its
 // webhooks straight into our route handler, and products with released lots and stock.
 import { createServer } from 'node:http';
@@ -143,7 +144,8 @@ export const nextIp = () => `2001:db8:${RUN}::${(++ipSeq).toString(16)}`;
 export const checkoutRequest = (body: unknown, ip: string = nextIp()) =>
   new Request('http://127.0.0.1/api/checkout', {
     method: 'POST',
-    headers: { 'x-forwarded-for': ip },
+    // As proxy.ts hands it on: the socket address in x-forwarded-for and its mark (lib/http/client-ip.ts).
+    headers: { 'x-forwarded-for': ip, [PROXY_PROOF_HEADER]: proxyProof() },
     body: JSON.stringify(body),
   });
 
