@@ -24,7 +24,7 @@ async function owner(): Promise<SessionUser> {
 }
 
 describe('dates in the business time zone, not UTC', () => {
-  it('a lot extracted at 21:30 on 1 March in New York is extracted on 1 March', async () => {
+  it('at 21:30 on 1 March in New York, 2 March (UTC already) is after today; 1 March is accepted', async () => {
     const { models } = getDb();
     await models.BusinessSetting.update({ timeZone: 'America/New_York' }, { where: { id: 1 } });
     const lot = await models.Lot.create({ code: `TZ${process.pid % 10000}-${++seq}`, createdBy: null });
@@ -38,7 +38,11 @@ describe('dates in the business time zone, not UTC', () => {
     await lot.update({ netGrams: 29_000 });
     vi.useFakeTimers({ toFake: ['Date'] });
     vi.setSystemTime(NOW);
-    await changeLotStage(await owner(), lot.id, 'extracted');
+    // The form offers today in the business's zone; a date after that day is refused.
+    await expect(changeLotStage(await owner(), lot.id, 'extracted', undefined, '2026-03-02')).rejects.toThrow(
+      /cannot be after today \(2026-03-01\)/,
+    );
+    await changeLotStage(await owner(), lot.id, 'extracted', undefined, '2026-03-01');
     expect((await models.Lot.findByPk(lot.id))!.extractedOn).toBe('2026-03-01');
   });
 
