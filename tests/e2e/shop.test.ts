@@ -50,9 +50,18 @@ describe('the shop', () => {
     await page.goto(`${BASE()}/sign-up`);
     await page.getByLabel('Your name').fill(customer.name);
     await page.getByLabel('E-mail').fill(customer.email);
-    await page.getByLabel('Password').fill(customer.password);
     await page.getByRole('button', { name: 'Create account' }).click();
-    await page.waitForURL('**/account');
+    await page.getByRole('status').waitFor();
+    // The account is confirmed through the mailed link, where the customer chooses a password.
+    const welcome = await waitForMail(customer.email, /Finish creating your account/);
+    const link = welcome.text.match(/https?:\/\/\S+reset-password\?token=\S+/)?.[0];
+    expect(link).toBeTruthy();
+    await page.goto(link!);
+    await page.getByLabel('New password').fill(customer.password);
+    await page.getByRole('button', { name: 'Save password' }).click();
+    await page.getByRole('status').waitFor();
+    await signIn(page, customer.email, customer.password);
+    expect(new URL(page.url()).pathname).toBe('/account');
 
     bought = (await catalogue()).filter((p) => p.available > 2).slice(0, 2);
     expect(bought).toHaveLength(2);
