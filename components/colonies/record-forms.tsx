@@ -1,5 +1,6 @@
 'use client';
-import { useState } from 'react';
+import { useState, type ComponentProps } from 'react';
+import type { DefaultValues, FieldValues } from 'react-hook-form';
 import { useRouter } from 'next/navigation';
 import type { z } from 'zod';
 import {
@@ -15,6 +16,7 @@ import {
 import { superOnInput, SUPER_DEPTHS } from '@/lib/schemas/supers';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
+import { SelectField } from '@/components/ui/select-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { newEntryKey } from '@/components/ui/entry-key';
 import { useActionForm, type AnyResult } from '@/components/ui/use-action-form';
@@ -47,6 +49,61 @@ function Submit({ busy, label }: { busy: boolean; label: string }) {
   );
 }
 
+/** A record that runs from one day to another (a feeding, a treatment); the end is blank while it runs. */
+function DateSpan({ start, end }: { start: ComponentProps<typeof TextField>; end: ComponentProps<typeof TextField> }) {
+  return (
+    <div className="grid gap-3 sm:grid-cols-2">
+      <TextField type="date" {...start} />
+      <TextField type="date" {...end} />
+    </div>
+  );
+}
+
+type RecordSchema = z.ZodType<FieldValues & { idempotencyKey: string; onSupers?: 'ask' | 'mark' }, FieldValues>;
+
+/**
+ * A feeding or treatment form. The entry goes with its own key (a retry reuses it) and first asks about supers on the
+ * hive (`onSupers: 'ask'`). An answer held back for supers shows `warning`: the keeper takes them off first (nothing
+ * saved) or saves again with `onSupers: 'mark'`. A saved entry is confirmed (naming any supers marked), the form
+ * cleared, the key renewed and the page refreshed.
+ */
+function useRecordForm<S extends RecordSchema>(
+  what: 'feeding' | 'treatment',
+  schema: S,
+  onSave: (v: z.output<S>) => Promise<RecordAnswer>,
+  defaultValues: Omit<DefaultValues<z.input<S>>, 'idempotencyKey' | 'onSupers'>,
+) {
+  const router = useRouter();
+  const k = useEntryKey();
+  const [held, setHeld] = useState<SuperWarningView | null>(null);
+  const f = useActionForm({
+    schema,
+    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
+    defaultValues: { ...defaultValues, idempotencyKey: k.key, onSupers: 'ask' } as DefaultValues<z.input<S>>,
+    successMessage: (r) => (r.saved ? markedMessage(what, r.warning) : undefined),
+    onSuccess: (r) => {
+      setHeld(r.saved ? null : r.warning);
+      if (!r.saved) return;
+      f.form.reset();
+      k.renew();
+      router.refresh();
+    },
+  });
+  const warning = held ? (
+    <SupersWarning
+      what={what}
+      warning={held}
+      busy={f.pending}
+      onTakeOff={() => {
+        setHeld(null);
+        f.setMessage({ error: TAKE_OFF_FIRST });
+      }}
+      onMark={() => void f.run({ ...f.form.getValues(), onSupers: 'mark' })}
+    />
+  ) : null;
+  return { ...f, warning };
+}
+
 const FEEDING_NAMES = {
   sugar_syrup: 'Sugar syrup',
   fondant: 'Fondant / candy',
@@ -55,79 +112,28 @@ const FEEDING_NAMES = {
 } as const;
 
 export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof feedingInput, RecordAnswer> }) {
-  const router = useRouter();
-  const k = useEntryKey();
-  const [warning, setWarning] = useState<SuperWarningView | null>(null);
-  const { form, submit, run, pending, errors, message, setMessage } = useActionForm({
-    schema: feedingInput,
-    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
-    defaultValues: {
-      colonyId,
-      kind: 'sugar_syrup',
-      amount: '',
-      startedOn: today,
-      endedOn: '',
-      note: '',
-      idempotencyKey: k.key,
-      onSupers: 'ask',
-    },
-    successMessage: (r) => (r.saved ? markedMessage('feeding', r.warning) : undefined),
-    onSuccess: (r) => {
-      setWarning(r.saved ? null : r.warning);
-      if (!r.saved) return;
-      form.reset();
-      k.renew();
-      router.refresh();
-    },
+  const { form, field, submit, pending, message, warning } = useRecordForm('feeding', feedingInput, onSave, {
+    colonyId,
+    kind: 'sugar_syrup',
+    amount: '',
+    startedOn: today,
+    endedOn: '',
+    note: '',
   });
-  const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a feeding">
-      <label className="field" htmlFor="feed-kind">
-        <span>Feed</span>
-        <select id="feed-kind" className="input min-h-11" {...register('kind')}>
-          {FEEDING_KINDS.map((f) => (
-            <option key={f} value={f}>
-              {FEEDING_NAMES[f]}
-            </option>
-          ))}
-        </select>
-      </label>
-      <TextField
-        id="feed-amount"
-        label="Amount"
-        hint="e.g. 2 L 1:1, 1 kg"
-        registration={register('amount')}
-        error={errors.amount}
+      <SelectField
+        id="feed-kind"
+        label="Feed"
+        registration={form.register('kind')}
+        options={FEEDING_KINDS.map((f) => ({ value: f, label: FEEDING_NAMES[f] }))}
       />
-      <div className="grid gap-3 sm:grid-cols-2">
-        <TextField
-          id="feed-start"
-          label="Started"
-          type="date"
-          registration={register('startedOn')}
-          error={errors.startedOn}
-        />
-        <TextField
-          id="feed-end"
-          label="Ended (blank if still feeding)"
-          type="date"
-          registration={register('endedOn')}
-          error={errors.endedOn}
-        />
-      </div>
-      {warning ? (
-        <SupersWarning
-          what="feeding"
-          warning={warning}
-          busy={pending}
-          onTakeOff={() => {
-            setWarning(null);
-            setMessage({ error: TAKE_OFF_FIRST });
-          }}
-          onMark={() => void run({ ...form.getValues(), onSupers: 'mark' })}
-        />
-      ) : null}
+      <TextField id="feed-amount" label="Amount" hint="e.g. 2 L 1:1, 1 kg" {...field('amount')} />
+      <DateSpan
+        start={{ id: 'feed-start', label: 'Started', ...field('startedOn') }}
+        end={{ id: 'feed-end', label: 'Ended (blank if still feeding)', ...field('endedOn') }}
+      />
+      {warning}
       <FormMessage {...message} />
       <Submit busy={pending} label="Save feeding" />
     </form>
@@ -143,82 +149,36 @@ export function TreatmentForm({
   kinds: { id: number; name: string; supersAllowed: boolean; waitingDays: number }[];
   onSave: Save<typeof treatmentInput, RecordAnswer>;
 }) {
-  const router = useRouter();
-  const k = useEntryKey();
-  const [warning, setWarning] = useState<SuperWarningView | null>(null);
-  const { form, submit, run, pending, errors, message, setMessage } = useActionForm({
-    schema: treatmentInput,
-    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
-    defaultValues: {
-      colonyId,
-      treatmentKindId: kinds[0]?.id,
-      productName: '',
-      appliedOn: today,
-      removedOn: '',
-      note: '',
-      idempotencyKey: k.key,
-      onSupers: 'ask',
-    },
-    successMessage: (r) => (r.saved ? markedMessage('treatment', r.warning) : undefined),
-    onSuccess: (r) => {
-      setWarning(r.saved ? null : r.warning);
-      if (!r.saved) return;
-      form.reset();
-      k.renew();
-      router.refresh();
-    },
+  const { form, field, submit, pending, message, warning } = useRecordForm('treatment', treatmentInput, onSave, {
+    colonyId,
+    treatmentKindId: kinds[0]?.id,
+    productName: '',
+    appliedOn: today,
+    removedOn: '',
+    note: '',
   });
-  const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a mite treatment">
       <TreatmentCaution />
-      <label className="field" htmlFor="treat-kind">
-        <span>Treatment kind</span>
-        <select id="treat-kind" className="input min-h-11" {...register('treatmentKindId')}>
-          {kinds.map((x) => (
-            <option key={x.id} value={x.id}>
-              {x.name} —{' '}
-              {x.supersAllowed
-                ? 'supers allowed (per your list)'
-                : `no supers${x.waitingDays ? `, wait ${x.waitingDays} d` : ''}`}
-            </option>
-          ))}
-        </select>
-      </label>
-      <TextField
-        id="treat-product"
-        label="Product name"
-        registration={register('productName')}
-        error={errors.productName}
+      <SelectField
+        id="treat-kind"
+        label="Treatment kind"
+        registration={form.register('treatmentKindId')}
+        options={kinds.map((x) => ({
+          value: x.id,
+          label: `${x.name} — ${
+            x.supersAllowed
+              ? 'supers allowed (per your list)'
+              : `no supers${x.waitingDays ? `, wait ${x.waitingDays} d` : ''}`
+          }`,
+        }))}
       />
-      <div className="grid gap-3 sm:grid-cols-2">
-        <TextField
-          id="treat-on"
-          label="Applied"
-          type="date"
-          registration={register('appliedOn')}
-          error={errors.appliedOn}
-        />
-        <TextField
-          id="treat-off"
-          label="Removed (blank if still on)"
-          type="date"
-          registration={register('removedOn')}
-          error={errors.removedOn}
-        />
-      </div>
-      {warning ? (
-        <SupersWarning
-          what="treatment"
-          warning={warning}
-          busy={pending}
-          onTakeOff={() => {
-            setWarning(null);
-            setMessage({ error: TAKE_OFF_FIRST });
-          }}
-          onMark={() => void run({ ...form.getValues(), onSupers: 'mark' })}
-        />
-      ) : null}
+      <TextField id="treat-product" label="Product name" {...field('productName')} />
+      <DateSpan
+        start={{ id: 'treat-on', label: 'Applied', ...field('appliedOn') }}
+        end={{ id: 'treat-off', label: 'Removed (blank if still on)', ...field('removedOn') }}
+      />
+      {warning}
       <FormMessage {...message} />
       <Submit busy={pending} label="Save treatment" />
     </form>
