@@ -16,10 +16,10 @@ import {
 import { superOnInput, SUPER_DEPTHS } from '@/lib/schemas/supers';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
-import { SelectField } from '@/components/ui/select-field';
+import { SelectField, namedChoices } from '@/components/ui/select-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { newEntryKey } from '@/components/ui/entry-key';
-import { useActionForm, type AnyResult } from '@/components/ui/use-action-form';
+import { useActionForm, type AnyResult, type ResultData } from '@/components/ui/use-action-form';
 import { TagInput } from '@/components/supers/tag-input';
 import { TreatmentCaution } from './treatment-caution';
 import { markedMessage, SupersWarning, type SuperWarningView } from './supers-warning';
@@ -37,6 +37,34 @@ type Base = { colonyId: number; today: string };
 function useEntryKey() {
   const [key, setKey] = useState(newEntryKey);
   return { key, renew: () => setKey(newEntryKey()) };
+}
+
+/**
+ * The form of one entry sent with its own key: a retry of the same entry reuses the key, the next entry gets a fresh
+ * one. A saved entry is confirmed, the form cleared and the page refreshed; `then` (a split) goes elsewhere instead.
+ */
+function useEntryForm<
+  S extends z.ZodType<FieldValues & { idempotencyKey: string }, FieldValues>,
+  Res extends AnyResult,
+>(
+  schema: S,
+  onSave: (v: z.output<S>) => Promise<Res>,
+  defaultValues: Omit<DefaultValues<z.input<S>>, 'idempotencyKey'>,
+  then?: (data: ResultData<Res>) => void,
+) {
+  const router = useRouter();
+  const k = useEntryKey();
+  return useActionForm({
+    schema,
+    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
+    defaultValues: { ...defaultValues, idempotencyKey: k.key } as DefaultValues<z.input<S>>,
+    ...(then ? {} : { successMessage: 'Saved.', resetOnSuccess: true }),
+    onSuccess: (data) => {
+      k.renew();
+      if (then) then(data);
+      else router.refresh();
+    },
+  });
 }
 
 function Submit({ busy, label }: { busy: boolean; label: string }) {
@@ -192,49 +220,26 @@ export function SuperOnForm({
   allowUntagged,
   onSave,
 }: Base & { tags: string[]; allowUntagged: boolean; onSave: Save<typeof superOnInput> }) {
-  const router = useRouter();
-  const k = useEntryKey();
-  const { form, submit, pending, errors, message } = useActionForm({
-    schema: superOnInput,
-    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
-    defaultValues: { colonyId, depth: 'medium', frameCount: 10, tagCode: '', putOnOn: today, idempotencyKey: k.key },
-    successMessage: 'Saved.',
-    resetOnSuccess: true,
-    onSuccess: () => {
-      k.renew();
-      router.refresh();
-    },
+  const { form, field, submit, pending, message } = useEntryForm(superOnInput, onSave, {
+    colonyId,
+    depth: 'medium',
+    frameCount: 10,
+    tagCode: '',
+    putOnOn: today,
   });
-  const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a super put on">
       <div className="grid gap-3 sm:grid-cols-2">
-        <label className="field" htmlFor="on-depth">
-          <span>Box depth</span>
-          <select id="on-depth" className="input min-h-11" {...register('depth')}>
-            {SUPER_DEPTHS.map((d) => (
-              <option key={d} value={d}>
-                {d}
-              </option>
-            ))}
-          </select>
-        </label>
-        <TextField
-          id="on-frames"
-          label="Frames"
-          inputMode="numeric"
-          registration={register('frameCount')}
-          error={errors.frameCount}
-        />
+        <SelectField id="on-depth" label="Box depth" registration={form.register('depth')} options={SUPER_DEPTHS} />
+        <TextField id="on-frames" label="Frames" inputMode="numeric" {...field('frameCount')} />
         <TagInput
           id="on-tag"
           label={allowUntagged ? 'Tag code (optional)' : 'Tag code'}
           tags={tags}
-          registration={register('tagCode')}
-          error={errors.tagCode}
+          {...field('tagCode')}
           onScan={(code) => form.setValue('tagCode', code, { shouldValidate: true })}
         />
-        <TextField id="on-date" label="Put on" type="date" registration={register('putOnOn')} error={errors.putOnOn} />
+        <TextField id="on-date" label="Put on" type="date" {...field('putOnOn')} />
       </div>
       <FormMessage {...message} />
       <Submit busy={pending} label="Save super on" />
@@ -243,38 +248,23 @@ export function SuperOnForm({
 }
 
 export function NoteForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof noteInput> }) {
-  const router = useRouter();
-  const k = useEntryKey();
-  const { form, submit, pending, errors, message } = useActionForm({
-    schema: noteInput,
-    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
-    defaultValues: { colonyId, occurredOn: today, note: '', idempotencyKey: k.key },
-    successMessage: 'Saved.',
-    resetOnSuccess: true,
-    onSuccess: () => {
-      k.renew();
-      router.refresh();
-    },
+  const { form, field, submit, pending, errors, message } = useEntryForm(noteInput, onSave, {
+    colonyId,
+    occurredOn: today,
+    note: '',
   });
-  const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Add a note">
       <label className="field" htmlFor="note-text">
         <span>Note</span>
-        <textarea id="note-text" className="input min-h-20" {...register('note')} />
+        <textarea id="note-text" className="input min-h-20" {...form.register('note')} />
         {errors.note ? (
           <small className="field-error" role="alert">
             {errors.note.message}
           </small>
         ) : null}
       </label>
-      <TextField
-        id="note-date"
-        label="Date"
-        type="date"
-        registration={register('occurredOn')}
-        error={errors.occurredOn}
-      />
+      <TextField id="note-date" label="Date" type="date" {...field('occurredOn')} />
       <FormMessage {...message} />
       <Submit busy={pending} label="Save note" />
     </form>
@@ -287,35 +277,18 @@ export function SplitForm({
   onSave,
 }: Base & { onSave: Save<typeof splitInput, ActionResult<{ id: number }>> }) {
   const router = useRouter();
-  const k = useEntryKey();
-  const { form, submit, pending, errors, message } = useActionForm({
-    schema: splitInput,
-    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
-    defaultValues: { colonyId, newCode: '', occurredOn: today, queenYear: '', note: '', idempotencyKey: k.key },
-    onSuccess: (data) => {
-      k.renew();
-      router.push(`/admin/colonies/${data.id}`);
-    },
-  });
-  const { register } = form;
+  const { field, submit, pending, message } = useEntryForm(
+    splitInput,
+    onSave,
+    { colonyId, newCode: '', occurredOn: today, queenYear: '', note: '' },
+    (data) => router.push(`/admin/colonies/${data.id}`),
+  );
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a split">
       <div className="grid gap-3 sm:grid-cols-2">
-        <TextField id="split-code" label="New colony code" registration={register('newCode')} error={errors.newCode} />
-        <TextField
-          id="split-date"
-          label="Split on"
-          type="date"
-          registration={register('occurredOn')}
-          error={errors.occurredOn}
-        />
-        <TextField
-          id="split-queen"
-          label="New queen year (optional)"
-          inputMode="numeric"
-          registration={register('queenYear')}
-          error={errors.queenYear}
-        />
+        <TextField id="split-code" label="New colony code" {...field('newCode')} />
+        <TextField id="split-date" label="Split on" type="date" {...field('occurredOn')} />
+        <TextField id="split-queen" label="New queen year (optional)" inputMode="numeric" {...field('queenYear')} />
       </div>
       <FormMessage {...message} />
       <Submit busy={pending} label="Save split" />
@@ -330,34 +303,23 @@ export function MoveForm({
   onSave,
 }: Base & { yards: { id: number; name: string }[]; onSave: Save<typeof moveInput> }) {
   const router = useRouter();
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: moveInput,
     action: onSave,
     defaultValues: { colonyId, yardId: yards[0]?.id, occurredOn: today, note: '' },
     successMessage: 'Saved.',
     onSuccess: () => router.refresh(),
   });
-  const { register } = form;
   if (yards.length === 0) return <p className="hint">No other yard to move to.</p>;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Move to another yard">
-      <label className="field" htmlFor="move-yard">
-        <span>Move to</span>
-        <select id="move-yard" className="input min-h-11" {...register('yardId')}>
-          {yards.map((y) => (
-            <option key={y.id} value={y.id}>
-              {y.name}
-            </option>
-          ))}
-        </select>
-      </label>
-      <TextField
-        id="move-date"
-        label="Moved on"
-        type="date"
-        registration={register('occurredOn')}
-        error={errors.occurredOn}
+      <SelectField
+        id="move-yard"
+        label="Move to"
+        registration={form.register('yardId')}
+        options={namedChoices(yards)}
       />
+      <TextField id="move-date" label="Moved on" type="date" {...field('occurredOn')} />
       <FormMessage {...message} />
       <Submit busy={pending} label="Move colony" />
     </form>
@@ -371,41 +333,31 @@ export function StatusForm({
   onSave,
 }: Base & { status: string; onSave: Save<typeof statusInput> }) {
   const router = useRouter();
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: statusInput,
     action: onSave,
     defaultValues: { colonyId, status: status as 'active', combinedIntoCode: '', occurredOn: today, note: '' },
     successMessage: 'Saved.',
     onSuccess: () => router.refresh(),
   });
-  const { register, watch } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Change status">
-      <label className="field" htmlFor="status-value">
-        <span>Status</span>
-        <select id="status-value" className="input min-h-11" {...register('status')}>
-          <option value="active">active</option>
-          <option value="dead_out">dead-out</option>
-          <option value="combined">combined into another colony</option>
-          <option value="sold">sold</option>
-        </select>
-      </label>
-      {watch('status') === 'combined' ? (
-        <TextField
-          id="status-into"
-          label="Combined into (colony code)"
-          registration={register('combinedIntoCode')}
-          error={errors.combinedIntoCode}
-        />
-      ) : null}
-      <TextField
-        id="status-date"
-        label="Date"
-        type="date"
-        registration={register('occurredOn')}
-        error={errors.occurredOn}
+      <SelectField
+        id="status-value"
+        label="Status"
+        registration={form.register('status')}
+        options={[
+          'active',
+          { value: 'dead_out', label: 'dead-out' },
+          { value: 'combined', label: 'combined into another colony' },
+          'sold',
+        ]}
       />
-      <TextField id="status-note" label="Note" registration={register('note')} error={errors.note} />
+      {form.watch('status') === 'combined' ? (
+        <TextField id="status-into" label="Combined into (colony code)" {...field('combinedIntoCode')} />
+      ) : null}
+      <TextField id="status-date" label="Date" type="date" {...field('occurredOn')} />
+      <TextField id="status-note" label="Note" {...field('note')} />
       <FormMessage {...message} />
       <Submit busy={pending} label="Save status" />
     </form>
