@@ -1,5 +1,6 @@
 'use client';
-import { useState } from 'react';
+import { useState, type ComponentProps } from 'react';
+import type { DefaultValues, FieldValues } from 'react-hook-form';
 import { useRouter } from 'next/navigation';
 import type { z } from 'zod';
 import {
@@ -15,9 +16,10 @@ import {
 import { superOnInput, SUPER_DEPTHS } from '@/lib/schemas/supers';
 import type { ActionResult } from '@/lib/schemas/result';
 import { TextField } from '@/components/ui/text-field';
+import { SelectField, namedChoices } from '@/components/ui/select-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { newEntryKey } from '@/components/ui/entry-key';
-import { useActionForm, type AnyResult } from '@/components/ui/use-action-form';
+import { useActionForm, type AnyResult, type ResultData } from '@/components/ui/use-action-form';
 import { TagInput } from '@/components/supers/tag-input';
 import { TreatmentCaution } from './treatment-caution';
 import { markedMessage, SupersWarning, type SuperWarningView } from './supers-warning';
@@ -37,6 +39,34 @@ function useEntryKey() {
   return { key, renew: () => setKey(newEntryKey()) };
 }
 
+/**
+ * The form of one entry sent with its own key: a retry of the same entry reuses the key, the next entry gets a fresh
+ * one. A saved entry is confirmed, the form cleared and the page refreshed; `then` (a split) goes elsewhere instead.
+ */
+function useEntryForm<
+  S extends z.ZodType<FieldValues & { idempotencyKey: string }, FieldValues>,
+  Res extends AnyResult,
+>(
+  schema: S,
+  onSave: (v: z.output<S>) => Promise<Res>,
+  defaultValues: Omit<DefaultValues<z.input<S>>, 'idempotencyKey'>,
+  then?: (data: ResultData<Res>) => void,
+) {
+  const router = useRouter();
+  const k = useEntryKey();
+  return useActionForm({
+    schema,
+    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
+    defaultValues: { ...defaultValues, idempotencyKey: k.key } as DefaultValues<z.input<S>>,
+    ...(then ? {} : { successMessage: 'Saved.', resetOnSuccess: true }),
+    onSuccess: (data) => {
+      k.renew();
+      if (then) then(data);
+      else router.refresh();
+    },
+  });
+}
+
 function Submit({ busy, label }: { busy: boolean; label: string }) {
   return (
     <div>
@@ -47,6 +77,61 @@ function Submit({ busy, label }: { busy: boolean; label: string }) {
   );
 }
 
+/** A record that runs from one day to another (a feeding, a treatment); the end is blank while it runs. */
+function DateSpan({ start, end }: { start: ComponentProps<typeof TextField>; end: ComponentProps<typeof TextField> }) {
+  return (
+    <div className="grid gap-3 sm:grid-cols-2">
+      <TextField type="date" {...start} />
+      <TextField type="date" {...end} />
+    </div>
+  );
+}
+
+type RecordSchema = z.ZodType<FieldValues & { idempotencyKey: string; onSupers?: 'ask' | 'mark' }, FieldValues>;
+
+/**
+ * A feeding or treatment form. The entry goes with its own key (a retry reuses it) and first asks about supers on the
+ * hive (`onSupers: 'ask'`). An answer held back for supers shows `warning`: the keeper takes them off first (nothing
+ * saved) or saves again with `onSupers: 'mark'`. A saved entry is confirmed (naming any supers marked), the form
+ * cleared, the key renewed and the page refreshed.
+ */
+function useRecordForm<S extends RecordSchema>(
+  what: 'feeding' | 'treatment',
+  schema: S,
+  onSave: (v: z.output<S>) => Promise<RecordAnswer>,
+  defaultValues: Omit<DefaultValues<z.input<S>>, 'idempotencyKey' | 'onSupers'>,
+) {
+  const router = useRouter();
+  const k = useEntryKey();
+  const [held, setHeld] = useState<SuperWarningView | null>(null);
+  const f = useActionForm({
+    schema,
+    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
+    defaultValues: { ...defaultValues, idempotencyKey: k.key, onSupers: 'ask' } as DefaultValues<z.input<S>>,
+    successMessage: (r) => (r.saved ? markedMessage(what, r.warning) : undefined),
+    onSuccess: (r) => {
+      setHeld(r.saved ? null : r.warning);
+      if (!r.saved) return;
+      f.form.reset();
+      k.renew();
+      router.refresh();
+    },
+  });
+  const warning = held ? (
+    <SupersWarning
+      what={what}
+      warning={held}
+      busy={f.pending}
+      onTakeOff={() => {
+        setHeld(null);
+        f.setMessage({ error: TAKE_OFF_FIRST });
+      }}
+      onMark={() => void f.run({ ...f.form.getValues(), onSupers: 'mark' })}
+    />
+  ) : null;
+  return { ...f, warning };
+}
+
 const FEEDING_NAMES = {
   sugar_syrup: 'Sugar syrup',
   fondant: 'Fondant / candy',
@@ -55,79 +140,28 @@ const FEEDING_NAMES = {
 } as const;
 
 export function FeedingForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof feedingInput, RecordAnswer> }) {
-  const router = useRouter();
-  const k = useEntryKey();
-  const [warning, setWarning] = useState<SuperWarningView | null>(null);
-  const { form, submit, run, pending, errors, message, setMessage } = useActionForm({
-    schema: feedingInput,
-    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
-    defaultValues: {
-      colonyId,
-      kind: 'sugar_syrup',
-      amount: '',
-      startedOn: today,
-      endedOn: '',
-      note: '',
-      idempotencyKey: k.key,
-      onSupers: 'ask',
-    },
-    successMessage: (r) => (r.saved ? markedMessage('feeding', r.warning) : undefined),
-    onSuccess: (r) => {
-      setWarning(r.saved ? null : r.warning);
-      if (!r.saved) return;
-      form.reset();
-      k.renew();
-      router.refresh();
-    },
+  const { form, field, submit, pending, message, warning } = useRecordForm('feeding', feedingInput, onSave, {
+    colonyId,
+    kind: 'sugar_syrup',
+    amount: '',
+    startedOn: today,
+    endedOn: '',
+    note: '',
   });
-  const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a feeding">
-      <label className="field" htmlFor="feed-kind">
-        <span>Feed</span>
-        <select id="feed-kind" className="input min-h-11" {...register('kind')}>
-          {FEEDING_KINDS.map((f) => (
-            <option key={f} value={f}>
-              {FEEDING_NAMES[f]}
-            </option>
-          ))}
-        </select>
-      </label>
-      <TextField
-        id="feed-amount"
-        label="Amount"
-        hint="e.g. 2 L 1:1, 1 kg"
-        registration={register('amount')}
-        error={errors.amount}
+      <SelectField
+        id="feed-kind"
+        label="Feed"
+        registration={form.register('kind')}
+        options={FEEDING_KINDS.map((f) => ({ value: f, label: FEEDING_NAMES[f] }))}
       />
-      <div className="grid gap-3 sm:grid-cols-2">
-        <TextField
-          id="feed-start"
-          label="Started"
-          type="date"
-          registration={register('startedOn')}
-          error={errors.startedOn}
-        />
-        <TextField
-          id="feed-end"
-          label="Ended (blank if still feeding)"
-          type="date"
-          registration={register('endedOn')}
-          error={errors.endedOn}
-        />
-      </div>
-      {warning ? (
-        <SupersWarning
-          what="feeding"
-          warning={warning}
-          busy={pending}
-          onTakeOff={() => {
-            setWarning(null);
-            setMessage({ error: TAKE_OFF_FIRST });
-          }}
-          onMark={() => void run({ ...form.getValues(), onSupers: 'mark' })}
-        />
-      ) : null}
+      <TextField id="feed-amount" label="Amount" hint="e.g. 2 L 1:1, 1 kg" {...field('amount')} />
+      <DateSpan
+        start={{ id: 'feed-start', label: 'Started', ...field('startedOn') }}
+        end={{ id: 'feed-end', label: 'Ended (blank if still feeding)', ...field('endedOn') }}
+      />
+      {warning}
       <FormMessage {...message} />
       <Submit busy={pending} label="Save feeding" />
     </form>
@@ -143,82 +177,36 @@ export function TreatmentForm({
   kinds: { id: number; name: string; supersAllowed: boolean; waitingDays: number }[];
   onSave: Save<typeof treatmentInput, RecordAnswer>;
 }) {
-  const router = useRouter();
-  const k = useEntryKey();
-  const [warning, setWarning] = useState<SuperWarningView | null>(null);
-  const { form, submit, run, pending, errors, message, setMessage } = useActionForm({
-    schema: treatmentInput,
-    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
-    defaultValues: {
-      colonyId,
-      treatmentKindId: kinds[0]?.id,
-      productName: '',
-      appliedOn: today,
-      removedOn: '',
-      note: '',
-      idempotencyKey: k.key,
-      onSupers: 'ask',
-    },
-    successMessage: (r) => (r.saved ? markedMessage('treatment', r.warning) : undefined),
-    onSuccess: (r) => {
-      setWarning(r.saved ? null : r.warning);
-      if (!r.saved) return;
-      form.reset();
-      k.renew();
-      router.refresh();
-    },
+  const { form, field, submit, pending, message, warning } = useRecordForm('treatment', treatmentInput, onSave, {
+    colonyId,
+    treatmentKindId: kinds[0]?.id,
+    productName: '',
+    appliedOn: today,
+    removedOn: '',
+    note: '',
   });
-  const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a mite treatment">
       <TreatmentCaution />
-      <label className="field" htmlFor="treat-kind">
-        <span>Treatment kind</span>
-        <select id="treat-kind" className="input min-h-11" {...register('treatmentKindId')}>
-          {kinds.map((x) => (
-            <option key={x.id} value={x.id}>
-              {x.name} —{' '}
-              {x.supersAllowed
-                ? 'supers allowed (per your list)'
-                : `no supers${x.waitingDays ? `, wait ${x.waitingDays} d` : ''}`}
-            </option>
-          ))}
-        </select>
-      </label>
-      <TextField
-        id="treat-product"
-        label="Product name"
-        registration={register('productName')}
-        error={errors.productName}
+      <SelectField
+        id="treat-kind"
+        label="Treatment kind"
+        registration={form.register('treatmentKindId')}
+        options={kinds.map((x) => ({
+          value: x.id,
+          label: `${x.name} — ${
+            x.supersAllowed
+              ? 'supers allowed (per your list)'
+              : `no supers${x.waitingDays ? `, wait ${x.waitingDays} d` : ''}`
+          }`,
+        }))}
       />
-      <div className="grid gap-3 sm:grid-cols-2">
-        <TextField
-          id="treat-on"
-          label="Applied"
-          type="date"
-          registration={register('appliedOn')}
-          error={errors.appliedOn}
-        />
-        <TextField
-          id="treat-off"
-          label="Removed (blank if still on)"
-          type="date"
-          registration={register('removedOn')}
-          error={errors.removedOn}
-        />
-      </div>
-      {warning ? (
-        <SupersWarning
-          what="treatment"
-          warning={warning}
-          busy={pending}
-          onTakeOff={() => {
-            setWarning(null);
-            setMessage({ error: TAKE_OFF_FIRST });
-          }}
-          onMark={() => void run({ ...form.getValues(), onSupers: 'mark' })}
-        />
-      ) : null}
+      <TextField id="treat-product" label="Product name" {...field('productName')} />
+      <DateSpan
+        start={{ id: 'treat-on', label: 'Applied', ...field('appliedOn') }}
+        end={{ id: 'treat-off', label: 'Removed (blank if still on)', ...field('removedOn') }}
+      />
+      {warning}
       <FormMessage {...message} />
       <Submit busy={pending} label="Save treatment" />
     </form>
@@ -232,49 +220,26 @@ export function SuperOnForm({
   allowUntagged,
   onSave,
 }: Base & { tags: string[]; allowUntagged: boolean; onSave: Save<typeof superOnInput> }) {
-  const router = useRouter();
-  const k = useEntryKey();
-  const { form, submit, pending, errors, message } = useActionForm({
-    schema: superOnInput,
-    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
-    defaultValues: { colonyId, depth: 'medium', frameCount: 10, tagCode: '', putOnOn: today, idempotencyKey: k.key },
-    successMessage: 'Saved.',
-    resetOnSuccess: true,
-    onSuccess: () => {
-      k.renew();
-      router.refresh();
-    },
+  const { form, field, submit, pending, message } = useEntryForm(superOnInput, onSave, {
+    colonyId,
+    depth: 'medium',
+    frameCount: 10,
+    tagCode: '',
+    putOnOn: today,
   });
-  const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a super put on">
       <div className="grid gap-3 sm:grid-cols-2">
-        <label className="field" htmlFor="on-depth">
-          <span>Box depth</span>
-          <select id="on-depth" className="input min-h-11" {...register('depth')}>
-            {SUPER_DEPTHS.map((d) => (
-              <option key={d} value={d}>
-                {d}
-              </option>
-            ))}
-          </select>
-        </label>
-        <TextField
-          id="on-frames"
-          label="Frames"
-          inputMode="numeric"
-          registration={register('frameCount')}
-          error={errors.frameCount}
-        />
+        <SelectField id="on-depth" label="Box depth" registration={form.register('depth')} options={SUPER_DEPTHS} />
+        <TextField id="on-frames" label="Frames" inputMode="numeric" {...field('frameCount')} />
         <TagInput
           id="on-tag"
           label={allowUntagged ? 'Tag code (optional)' : 'Tag code'}
           tags={tags}
-          registration={register('tagCode')}
-          error={errors.tagCode}
+          {...field('tagCode')}
           onScan={(code) => form.setValue('tagCode', code, { shouldValidate: true })}
         />
-        <TextField id="on-date" label="Put on" type="date" registration={register('putOnOn')} error={errors.putOnOn} />
+        <TextField id="on-date" label="Put on" type="date" {...field('putOnOn')} />
       </div>
       <FormMessage {...message} />
       <Submit busy={pending} label="Save super on" />
@@ -283,38 +248,23 @@ export function SuperOnForm({
 }
 
 export function NoteForm({ colonyId, today, onSave }: Base & { onSave: Save<typeof noteInput> }) {
-  const router = useRouter();
-  const k = useEntryKey();
-  const { form, submit, pending, errors, message } = useActionForm({
-    schema: noteInput,
-    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
-    defaultValues: { colonyId, occurredOn: today, note: '', idempotencyKey: k.key },
-    successMessage: 'Saved.',
-    resetOnSuccess: true,
-    onSuccess: () => {
-      k.renew();
-      router.refresh();
-    },
+  const { form, field, submit, pending, errors, message } = useEntryForm(noteInput, onSave, {
+    colonyId,
+    occurredOn: today,
+    note: '',
   });
-  const { register } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Add a note">
       <label className="field" htmlFor="note-text">
         <span>Note</span>
-        <textarea id="note-text" className="input min-h-20" {...register('note')} />
+        <textarea id="note-text" className="input min-h-20" {...form.register('note')} />
         {errors.note ? (
           <small className="field-error" role="alert">
             {errors.note.message}
           </small>
         ) : null}
       </label>
-      <TextField
-        id="note-date"
-        label="Date"
-        type="date"
-        registration={register('occurredOn')}
-        error={errors.occurredOn}
-      />
+      <TextField id="note-date" label="Date" type="date" {...field('occurredOn')} />
       <FormMessage {...message} />
       <Submit busy={pending} label="Save note" />
     </form>
@@ -327,35 +277,18 @@ export function SplitForm({
   onSave,
 }: Base & { onSave: Save<typeof splitInput, ActionResult<{ id: number }>> }) {
   const router = useRouter();
-  const k = useEntryKey();
-  const { form, submit, pending, errors, message } = useActionForm({
-    schema: splitInput,
-    action: (v) => onSave({ ...v, idempotencyKey: k.key }),
-    defaultValues: { colonyId, newCode: '', occurredOn: today, queenYear: '', note: '', idempotencyKey: k.key },
-    onSuccess: (data) => {
-      k.renew();
-      router.push(`/admin/colonies/${data.id}`);
-    },
-  });
-  const { register } = form;
+  const { field, submit, pending, message } = useEntryForm(
+    splitInput,
+    onSave,
+    { colonyId, newCode: '', occurredOn: today, queenYear: '', note: '' },
+    (data) => router.push(`/admin/colonies/${data.id}`),
+  );
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Record a split">
       <div className="grid gap-3 sm:grid-cols-2">
-        <TextField id="split-code" label="New colony code" registration={register('newCode')} error={errors.newCode} />
-        <TextField
-          id="split-date"
-          label="Split on"
-          type="date"
-          registration={register('occurredOn')}
-          error={errors.occurredOn}
-        />
-        <TextField
-          id="split-queen"
-          label="New queen year (optional)"
-          inputMode="numeric"
-          registration={register('queenYear')}
-          error={errors.queenYear}
-        />
+        <TextField id="split-code" label="New colony code" {...field('newCode')} />
+        <TextField id="split-date" label="Split on" type="date" {...field('occurredOn')} />
+        <TextField id="split-queen" label="New queen year (optional)" inputMode="numeric" {...field('queenYear')} />
       </div>
       <FormMessage {...message} />
       <Submit busy={pending} label="Save split" />
@@ -370,34 +303,23 @@ export function MoveForm({
   onSave,
 }: Base & { yards: { id: number; name: string }[]; onSave: Save<typeof moveInput> }) {
   const router = useRouter();
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: moveInput,
     action: onSave,
     defaultValues: { colonyId, yardId: yards[0]?.id, occurredOn: today, note: '' },
     successMessage: 'Saved.',
     onSuccess: () => router.refresh(),
   });
-  const { register } = form;
   if (yards.length === 0) return <p className="hint">No other yard to move to.</p>;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Move to another yard">
-      <label className="field" htmlFor="move-yard">
-        <span>Move to</span>
-        <select id="move-yard" className="input min-h-11" {...register('yardId')}>
-          {yards.map((y) => (
-            <option key={y.id} value={y.id}>
-              {y.name}
-            </option>
-          ))}
-        </select>
-      </label>
-      <TextField
-        id="move-date"
-        label="Moved on"
-        type="date"
-        registration={register('occurredOn')}
-        error={errors.occurredOn}
+      <SelectField
+        id="move-yard"
+        label="Move to"
+        registration={form.register('yardId')}
+        options={namedChoices(yards)}
       />
+      <TextField id="move-date" label="Moved on" type="date" {...field('occurredOn')} />
       <FormMessage {...message} />
       <Submit busy={pending} label="Move colony" />
     </form>
@@ -411,41 +333,31 @@ export function StatusForm({
   onSave,
 }: Base & { status: string; onSave: Save<typeof statusInput> }) {
   const router = useRouter();
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { form, field, submit, pending, message } = useActionForm({
     schema: statusInput,
     action: onSave,
     defaultValues: { colonyId, status: status as 'active', combinedIntoCode: '', occurredOn: today, note: '' },
     successMessage: 'Saved.',
     onSuccess: () => router.refresh(),
   });
-  const { register, watch } = form;
   return (
     <form onSubmit={submit} className="grid gap-3" noValidate aria-label="Change status">
-      <label className="field" htmlFor="status-value">
-        <span>Status</span>
-        <select id="status-value" className="input min-h-11" {...register('status')}>
-          <option value="active">active</option>
-          <option value="dead_out">dead-out</option>
-          <option value="combined">combined into another colony</option>
-          <option value="sold">sold</option>
-        </select>
-      </label>
-      {watch('status') === 'combined' ? (
-        <TextField
-          id="status-into"
-          label="Combined into (colony code)"
-          registration={register('combinedIntoCode')}
-          error={errors.combinedIntoCode}
-        />
-      ) : null}
-      <TextField
-        id="status-date"
-        label="Date"
-        type="date"
-        registration={register('occurredOn')}
-        error={errors.occurredOn}
+      <SelectField
+        id="status-value"
+        label="Status"
+        registration={form.register('status')}
+        options={[
+          'active',
+          { value: 'dead_out', label: 'dead-out' },
+          { value: 'combined', label: 'combined into another colony' },
+          'sold',
+        ]}
       />
-      <TextField id="status-note" label="Note" registration={register('note')} error={errors.note} />
+      {form.watch('status') === 'combined' ? (
+        <TextField id="status-into" label="Combined into (colony code)" {...field('combinedIntoCode')} />
+      ) : null}
+      <TextField id="status-date" label="Date" type="date" {...field('occurredOn')} />
+      <TextField id="status-note" label="Note" {...field('note')} />
       <FormMessage {...message} />
       <Submit busy={pending} label="Save status" />
     </form>

@@ -24,22 +24,49 @@ const MONTHS = [
   'December',
 ];
 
+/** The settings that are one of a few values: each value with its label. */
+const CHOICES = {
+  currency: [
+    ['usd', 'US dollar'],
+    ['eur', 'Euro'],
+    ['gbp', 'Pound sterling'],
+    ['cad', 'Canadian dollar'],
+    ['aud', 'Australian dollar'],
+    ['nzd', 'New Zealand dollar'],
+  ],
+  weightSystem: [
+    ['metric', 'kg and g'],
+    ['us', 'lb and oz'],
+  ],
+  seasonStartMonth: MONTHS.map((m, i) => [String(i + 1), m]),
+  labelDeclaration: [
+    ['metric', 'Metric only'],
+    ['us-dual', 'US and metric'],
+  ],
+  barcodeKind: [
+    ['gs1-128', 'GS1-128'],
+    ['gs1datamatrix', 'GS1 DataMatrix'],
+  ],
+  fillRuleSet: [
+    ['oiml', 'OIML R 87 / EU 76/211/EEC'],
+    ['nist', 'US NIST Handbook 133'],
+  ],
+} satisfies Partial<Record<keyof Values, [string, string][]>>;
+
 function Select({
   label,
   name,
-  options,
   form,
 }: {
   label: string;
-  name: keyof Values;
-  options: [string, string][];
+  name: keyof typeof CHOICES;
   form: UseFormReturn<Values, unknown, z.output<typeof settingsInput>>;
 }) {
   return (
     <label className="field" htmlFor={name}>
       <span>{label}</span>
       <select id={name} className="input" {...form.register(name)}>
-        {options.map(([v, l]) => (
+        {CHOICES[name].map(([v, l]) => (
           <option key={v} value={v}>
             {l}
           </option>
@@ -72,28 +99,8 @@ export function SettingsForm({
         <TextField label="Address (labels, footer)" {...field('address')} />
         <TextField label="Region (public lot page)" {...field('region')} />
         <TextField label="Time zone" {...field('timeZone')} hint="e.g. Europe/London, America/Chicago" />
-        <Select
-          form={form}
-          name="currency"
-          label="Currency"
-          options={[
-            ['usd', 'US dollar'],
-            ['eur', 'Euro'],
-            ['gbp', 'Pound sterling'],
-            ['cad', 'Canadian dollar'],
-            ['aud', 'Australian dollar'],
-            ['nzd', 'New Zealand dollar'],
-          ]}
-        />
-        <Select
-          form={form}
-          name="weightSystem"
-          label="Show weights in"
-          options={[
-            ['metric', 'kg and g'],
-            ['us', 'lb and oz'],
-          ]}
-        />
+        <Select form={form} name="currency" label="Currency" />
+        <Select form={form} name="weightSystem" label="Show weights in" />
         <label className="field sm:col-span-2" htmlFor="story">
           <span>Shop story</span>
           <textarea id="story" rows={3} className="input" {...form.register('story')} />
@@ -123,43 +130,14 @@ export function SettingsForm({
             names a tag from your tag list.
           </span>
         </label>
-        <Select
-          form={form}
-          name="seasonStartMonth"
-          label="Season starts in"
-          options={MONTHS.map((m, i) => [String(i + 1), m])}
-        />
+        <Select form={form} name="seasonStartMonth" label="Season starts in" />
       </fieldset>
       <fieldset className="grid gap-4 card sm:grid-cols-2">
         <legend className="font-heading text-lg font-semibold text-forest-800">Labels and fill checks</legend>
         <TextField label="GS1 company prefix" {...field('gs1CompanyPrefix')} inputMode="numeric" />
-        <Select
-          form={form}
-          name="labelDeclaration"
-          label="Net quantity on labels"
-          options={[
-            ['metric', 'Metric only'],
-            ['us-dual', 'US and metric'],
-          ]}
-        />
-        <Select
-          form={form}
-          name="barcodeKind"
-          label="Label barcode"
-          options={[
-            ['gs1-128', 'GS1-128'],
-            ['gs1datamatrix', 'GS1 DataMatrix'],
-          ]}
-        />
-        <Select
-          form={form}
-          name="fillRuleSet"
-          label="Fill-weight rules"
-          options={[
-            ['oiml', 'OIML R 87 / EU 76/211/EEC'],
-            ['nist', 'US NIST Handbook 133'],
-          ]}
-        />
+        <Select form={form} name="labelDeclaration" label="Net quantity on labels" />
+        <Select form={form} name="barcodeKind" label="Label barcode" />
+        <Select form={form} name="fillRuleSet" label="Fill-weight rules" />
       </fieldset>
       <FormMessage {...message} />
       <button type="submit" className="btn-primary" disabled={pending}>

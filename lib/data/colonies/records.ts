@@ -1,7 +1,7 @@
 import 'server-only';
 import { getDb } from '@/lib/db/index';
 import type { SessionUser } from '@/lib/auth/session';
-import type { Transaction } from 'sequelize';
+import type { Model, Transaction } from 'sequelize';
 import { supersAtRisk, type FeedingKind, type SupersAtRisk } from '@/lib/domain/conflicts';
 import { ConflictError, InvalidError, NotFoundError } from '@/lib/domain/errors';
 import { recordAudit } from '@/lib/data/audit';
@@ -40,6 +40,47 @@ async function markSupers(warning: SuperWarning, t: Transaction): Promise<number
   return warning.supers.length;
 }
 
+/** What a new record touches, in the terms of `supersAtRisk`. */
+type RecordTouch = Parameters<typeof supersAtRisk>[0];
+
+/**
+ * Adds one feeding or treatment (idempotent by its key) in one transaction: the colony must be the user's to write;
+ * `prepare` may refuse the record and says what it touches and how to create it. Supers still on the hive that it
+ * touches are handled by `onSupers` (see `OnSupers`); the audit entry names the supers marked, and the colony's
+ * pulled supers are re-checked.
+ */
+async function addColonyRecord(
+  user: SessionUser,
+  input: { colonyId: number; idempotencyKey: string; onSupers?: OnSupers },
+  record: {
+    action: 'feeding.create' | 'treatment.create';
+    existing: (idempotencyKey: string) => Promise<unknown>;
+    prepare: (t: Transaction) => Promise<{ touches: RecordTouch; create: (colonyId: number) => Promise<Model> }>;
+  },
+): Promise<RecordResult> {
+  const { onSupers = 'mark' } = input;
+  if (await record.existing(input.idempotencyKey)) return { saved: true, reflagged: 0, warning: null };
+  return getDb().sequelize.transaction(async (t) => {
+    const colony = await writableColony(user, input.colonyId, t);
+    const { touches, create } = await record.prepare(t);
+    const warning = supersAtRisk(touches, await supersOnHive(colony.id, t));
+    if (warning && onSupers === 'ask') return { saved: false, reflagged: 0, warning };
+    const row = await create(colony.id);
+    await recordAudit(
+      {
+        actorUserId: user.id,
+        action: record.action,
+        entityType: 'colony',
+        entityId: colony.id,
+        after: { ...row.get({ plain: true }), ...(warning ? { markedSupers: warning.supers.map((s) => s.id) } : {}) },
+      },
+      t,
+    );
+    const marked = warning ? await markSupers(warning, t) : 0;
+    return { saved: true, reflagged: marked + (await recomputeColonyFlags(colony.id, t)), warning };
+  });
+}
+
 /**
  * Adds a feeding (idempotent by key) and re-checks the colony's pulled supers. Sugar fed while
  * supers are on the hive is caught now, not at the pull: see `OnSupers`.
@@ -57,33 +98,15 @@ export async function addFeeding(
     onSupers?: OnSupers;
   },
 ): Promise<RecordResult> {
-  const { sequelize, models } = getDb();
-  const { onSupers = 'mark', ...fields } = input;
-  if (await models.Feeding.findOne({ where: { idempotencyKey: input.idempotencyKey } }))
-    return { saved: true, reflagged: 0, warning: null };
-  return sequelize.transaction(async (t) => {
-    const colony = await writableColony(user, input.colonyId, t);
-    const warning = supersAtRisk(
-      { feeding: { kind: input.kind, startedOn: input.startedOn, endedOn: input.endedOn } },
-      await supersOnHive(colony.id, t),
-    );
-    if (warning && onSupers === 'ask') return { saved: false, reflagged: 0, warning };
-    const row = await models.Feeding.create(
-      { ...fields, colonyId: colony.id, recordedBy: user.id },
-      { transaction: t },
-    );
-    await recordAudit(
-      {
-        actorUserId: user.id,
-        action: 'feeding.create',
-        entityType: 'colony',
-        entityId: colony.id,
-        after: { ...row.get({ plain: true }), ...(warning ? { markedSupers: warning.supers.map((s) => s.id) } : {}) },
-      },
-      t,
-    );
-    const marked = warning ? await markSupers(warning, t) : 0;
-    return { saved: true, reflagged: marked + (await recomputeColonyFlags(colony.id, t)), warning };
+  const { Feeding } = getDb().models;
+  const { onSupers: _onSupers, ...fields } = input;
+  return addColonyRecord(user, input, {
+    action: 'feeding.create',
+    existing: (idempotencyKey) => Feeding.findOne({ where: { idempotencyKey } }),
+    prepare: async (t) => ({
+      touches: { feeding: { kind: input.kind, startedOn: input.startedOn, endedOn: input.endedOn } },
+      create: (colonyId) => Feeding.create({ ...fields, colonyId, recordedBy: user.id }, { transaction: t }),
+    }),
   });
 }
 
@@ -129,51 +152,34 @@ export async function addTreatment(
     onSupers?: OnSupers;
   },
 ): Promise<RecordResult> {
-  const { sequelize, models } = getDb();
-  const { onSupers = 'mark', ...fields } = input;
-  if (await models.Treatment.findOne({ where: { idempotencyKey: input.idempotencyKey } }))
-    return { saved: true, reflagged: 0, warning: null };
-  return sequelize.transaction(async (t) => {
-    const colony = await writableColony(user, input.colonyId, t);
-    const kind = await models.TreatmentKind.findByPk(input.treatmentKindId, { transaction: t });
-    if (!kind || !kind.active) throw new InvalidError('Choose a treatment kind from the list.');
-    // A label that forbids supers needs the keeper's confirmation while supers are on the hive.
-    const warning = supersAtRisk(
-      {
-        treatment: {
-          kindName: kind.name,
-          productName: input.productName,
-          supersAllowed: kind.supersAllowed,
-          waitingDays: kind.waitingDays,
-          appliedOn: input.appliedOn,
-          removedOn: input.removedOn,
+  const { Treatment, TreatmentKind } = getDb().models;
+  const { onSupers: _onSupers, ...fields } = input;
+  return addColonyRecord(user, input, {
+    action: 'treatment.create',
+    existing: (idempotencyKey) => Treatment.findOne({ where: { idempotencyKey } }),
+    prepare: async (t) => {
+      const kind = await TreatmentKind.findByPk(input.treatmentKindId, { transaction: t });
+      if (!kind || !kind.active) throw new InvalidError('Choose a treatment kind from the list.');
+      const { supersAllowed, waitingDays } = kind;
+      return {
+        // A label that forbids supers needs the keeper's confirmation while supers are on the hive.
+        touches: {
+          treatment: {
+            kindName: kind.name,
+            productName: input.productName,
+            supersAllowed,
+            waitingDays,
+            appliedOn: input.appliedOn,
+            removedOn: input.removedOn,
+          },
         },
-      },
-      await supersOnHive(colony.id, t),
-    );
-    if (warning && onSupers === 'ask') return { saved: false, reflagged: 0, warning };
-    const row = await models.Treatment.create(
-      {
-        ...fields,
-        colonyId: colony.id,
-        supersAllowed: kind.supersAllowed,
-        waitingDays: kind.waitingDays,
-        recordedBy: user.id,
-      },
-      { transaction: t },
-    );
-    await recordAudit(
-      {
-        actorUserId: user.id,
-        action: 'treatment.create',
-        entityType: 'colony',
-        entityId: colony.id,
-        after: { ...row.get({ plain: true }), ...(warning ? { markedSupers: warning.supers.map((s) => s.id) } : {}) },
-      },
-      t,
-    );
-    const marked = warning ? await markSupers(warning, t) : 0;
-    return { saved: true, reflagged: marked + (await recomputeColonyFlags(colony.id, t)), warning };
+        create: (colonyId) =>
+          Treatment.create(
+            { ...fields, colonyId, supersAllowed, waitingDays, recordedBy: user.id },
+            { transaction: t },
+          ),
+      };
+    },
   });
 }
 
