@@ -177,6 +177,17 @@ export async function processAccountRequests(limit = 50): Promise<{ processed: n
 let running: Promise<void> = Promise.resolve();
 
 /**
+ * Holds the after-answer work until the returned function is called, so a test can see what an
+ * answer wrote by itself (the work would otherwise race the test's read).
+ */
+export function holdAccountRequests(): () => void {
+  let release = () => {};
+  const held = new Promise<void>((resolve) => (release = resolve));
+  running = running.then(() => held);
+  return release;
+}
+
+/**
  * After answering: work through the waiting requests in this process, one run after another. The
  * returned promise settles when this run is done (tests await it; actions do not).
  */
