@@ -9,7 +9,7 @@ import { postForm } from '@/components/ui/post-form';
 /** Uploads a PDF or image lab report to the route handler (the server checks its real type). */
 export function LabUploadForm({ lotId }: { lotId: number }) {
   const router = useRouter();
-  const { form, field, submit, pending, errors, message } = useActionForm({
+  const { field, submit, pending, message } = useActionForm({
     schema: labUploadFormInput,
     defaultValues: Object.fromEntries(LAB_RESULT_FIELDS.map((k) => [k, ''])) as Omit<LabUploadFormInput, 'file'>,
     action: (v) => {
@@ -31,22 +31,15 @@ export function LabUploadForm({ lotId }: { lotId: number }) {
   });
   return (
     <form onSubmit={submit} className="grid gap-3 sm:grid-cols-3" noValidate aria-label="Upload a lab report">
-      <label className="field sm:col-span-3" htmlFor="lab-file">
-        <span>Lab report (PDF, PNG, JPEG or WebP, at most 10 MB)</span>
-        <input
+      <div className="sm:col-span-3">
+        <TextField
+          label="Lab report (PDF, PNG, JPEG or WebP, at most 10 MB)"
           id="lab-file"
           type="file"
           accept="application/pdf,image/png,image/jpeg,image/webp"
-          className="input"
-          aria-invalid={errors.file ? true : undefined}
-          {...form.register('file')}
+          {...field('file')}
         />
-        {errors.file?.message ? (
-          <small className="field-error" role="alert">
-            {errors.file.message}
-          </small>
-        ) : null}
-      </label>
+      </div>
       <TextField label="HMF, mg/kg" {...field('hmfMgKg')} inputMode="decimal" />
       <TextField label="Diastase, Schade" {...field('diastaseSchade')} inputMode="decimal" />
       <TextField label="Water-insoluble, g/100 g" {...field('insolubleG100g')} inputMode="decimal" />

@@ -1,6 +1,7 @@
 'use client';
 import { useState } from 'react';
 import { productPhotoInput } from '@/lib/schemas/products';
+import { TextField } from '@/components/ui/text-field';
 import { FormMessage } from '@/components/ui/form-message';
 import { useActionForm } from '@/components/ui/use-action-form';
 import { postForm } from '@/components/ui/post-form';
@@ -8,7 +9,7 @@ import { postForm } from '@/components/ui/post-form';
 /** Uploads a product photo to the route handler, which checks its type by content. */
 export function PhotoUpload({ productId, photoId }: { productId: number; photoId: number | null }) {
   const [version, setVersion] = useState(photoId);
-  const { form, submit, pending, errors, message } = useActionForm({
+  const { field, submit, pending, message } = useActionForm({
     schema: productPhotoInput,
     action: (v) => {
       const body = new FormData();
@@ -30,22 +31,13 @@ export function PhotoUpload({ productId, photoId }: { productId: number; photoId
       ) : (
         <p className="hint">No photo yet.</p>
       )}
-      <label className="field" htmlFor="photo">
-        <span>Photo (JPEG, PNG or WebP, up to 5 MB)</span>
-        <input
-          id="photo"
-          type="file"
-          accept="image/jpeg,image/png,image/webp"
-          className="input"
-          aria-invalid={errors.photo ? true : undefined}
-          {...form.register('photo')}
-        />
-        {errors.photo?.message ? (
-          <small className="field-error" role="alert">
-            {errors.photo.message}
-          </small>
-        ) : null}
-      </label>
+      <TextField
+        label="Photo (JPEG, PNG or WebP, up to 5 MB)"
+        id="photo"
+        type="file"
+        accept="image/jpeg,image/png,image/webp"
+        {...field('photo')}
+      />
       <FormMessage {...message} />
       <button type="submit" className="btn-secondary" disabled={pending}>
         Upload photo

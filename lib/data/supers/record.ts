@@ -7,12 +7,12 @@ import { toGrams } from '@/lib/domain/units';
 import { ConflictError, DomainError, InvalidError } from '@/lib/domain/errors';
 import { writableColony } from '@/lib/data/colonies/write';
 import { getSettings } from '@/lib/data/settings/settings';
+import { canonicalTag } from '@/lib/schemas/fields';
 import { flagsForPull } from './flags';
 
-/** One spelling of a tag code: trimmed, upper case (the schemas do this too; this is for any other caller). */
+/** The schemas' one spelling of a tag code (`canonicalTag`), for any caller that did not pass through them; blank is no tag. */
 export function canonicalTagCode(code: string | null | undefined): string | null {
-  const c = code?.trim().toUpperCase();
-  return c ? c : null;
+  return (code && canonicalTag(code)) || null;
 }
 
 /** The open (on the hive, not voided) record of a tag, whatever case it was stored in. */
